@@ -1,0 +1,101 @@
+/**
+ * The only reader of process.env in the server. Parsed once with zod so a typo in a variable
+ * fails at start with a clear message instead of surfacing later as odd behaviour.
+ */
+import { existsSync } from "node:fs";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { z } from "zod";
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+/** apps/server */
+export const SERVER_ROOT = path.resolve(here, "..");
+/** apps/web, whose built Next.js app the server hands page requests to */
+export const WEB_DIR = path.resolve(SERVER_ROOT, "../web");
+
+const positiveInt = (fallback: number) => z.coerce.number().int().positive().default(fallback);
+const positiveNumber = (fallback: number) => z.coerce.number().positive().default(fallback);
+
+const EnvSchema = z.object({
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().min(1).default("0.0.0.0"),
+  /** postgres://... for a PostgreSQL server, or a directory for embedded PGlite */
+  DATABASE_URL: z.string().min(1).optional(),
+  /** where the embedded database lives when DATABASE_URL is not set */
+  CONTEND_DATA_DIR: z.string().min(1).optional(),
+  /** when set, listing and exporting sessions need this key (or the session's facilitator key) */
+  CONTEND_ADMIN_KEY: z.string().min(8).optional(),
+  WEB: z.enum(["on", "off"]).optional(),
+  /** Next.js development mode (hot reload); off for `npm start` */
+  WEB_DEV: z.enum(["on", "off"]).default("off"),
+  /** base address printed in links, e.g. https://workshop.example.org */
+  PUBLIC_URL: z.url().optional(),
+  /** token bucket per socket connection */
+  RATE_LIMIT_PER_SECOND: positiveNumber(20),
+  RATE_LIMIT_BURST: positiveInt(40),
+  /** largest socket.io message in bytes */
+  MAX_MESSAGE_BYTES: positiveInt(64 * 1024),
+  /** largest REST body in bytes */
+  MAX_BODY_BYTES: positiveInt(256 * 1024),
+  /** "off" skips creating the demo session on an empty database */
+  DEMO: z.enum(["on", "off"]).default("on"),
+  LOG_LEVEL: z.enum(["debug", "info", "warn", "error"]).default("info"),
+});
+
+export interface ServerEnv {
+  port: number;
+  host: string;
+  databaseUrl: string;
+  adminKey: string | null;
+  web: boolean;
+  webDev: boolean;
+  publicUrl: string | null;
+  limits: Limits;
+  demo: boolean;
+  logLevel: "debug" | "info" | "warn" | "error";
+}
+
+export interface Limits {
+  ratePerSecond: number;
+  rateBurst: number;
+  maxMessageBytes: number;
+  maxBodyBytes: number;
+}
+
+export const DEFAULT_LIMITS: Limits = {
+  ratePerSecond: 20,
+  rateBurst: 40,
+  maxMessageBytes: 64 * 1024,
+  maxBodyBytes: 256 * 1024,
+};
+
+/** Parses an environment (process.env by default); throws with every problem listed. */
+export function parseEnv(source: Record<string, string | undefined> = process.env): ServerEnv {
+  // Empty strings mean "unset": shells and .env files often export VAR= to clear a value.
+  const cleaned = Object.fromEntries(Object.entries(source).filter(([, v]) => v !== ""));
+  const parsed = EnvSchema.safeParse(cleaned);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new Error(`invalid environment:\n${lines.join("\n")}`);
+  }
+  const e = parsed.data;
+  const dataDir = path.resolve(e.CONTEND_DATA_DIR ?? path.join(SERVER_ROOT, "data"));
+  const web = e.WEB ? e.WEB === "on" : existsSync(path.join(WEB_DIR, ".next"));
+  return {
+    port: e.PORT,
+    host: e.HOST,
+    databaseUrl: e.DATABASE_URL ?? dataDir,
+    adminKey: e.CONTEND_ADMIN_KEY ?? null,
+    web,
+    webDev: e.WEB_DEV === "on",
+    publicUrl: e.PUBLIC_URL ? e.PUBLIC_URL.replace(/\/+$/, "") : null,
+    limits: {
+      ratePerSecond: e.RATE_LIMIT_PER_SECOND,
+      rateBurst: e.RATE_LIMIT_BURST,
+      maxMessageBytes: e.MAX_MESSAGE_BYTES,
+      maxBodyBytes: e.MAX_BODY_BYTES,
+    },
+    demo: e.DEMO === "on",
+    logLevel: e.LOG_LEVEL,
+  };
+}
