@@ -1,0 +1,43 @@
+import type { Metadata, Viewport } from "next";
+import Link from "next/link";
+import type { ReactNode } from "react";
+import { CautionFooter } from "../components/Cautions";
+import "./globals.css";
+
+export const metadata: Metadata = {
+  title: { default: "Contend", template: "%s · Contend" },
+  description:
+    "Live war-gaming workshops for contests: rivals spend costly effort to win one prize.",
+};
+
+export const viewport: Viewport = {
+  width: "device-width",
+  initialScale: 1,
+};
+
+export default function RootLayout({ children }: { children: ReactNode }) {
+  return (
+    <html lang="en">
+      <body>
+        <a className="skip-link" href="#main">
+          Skip to content
+        </a>
+        <header className="site-header">
+          <div className="inner">
+            <Link href="/" className="brand">
+              Con<span>tend</span>
+            </Link>
+            <nav className="site-nav" aria-label="Main">
+              <Link href="/new">New session</Link>
+              <Link href="/join">Join</Link>
+              <Link href="/explore">Explorer</Link>
+              <Link href="/replays">Replays</Link>
+            </nav>
+          </div>
+        </header>
+        <main id="main">{children}</main>
+        <CautionFooter />
+      </body>
+    </html>
+  );
+}

@@ -1,0 +1,32 @@
+/** The cautions every page carries: short in the footer, fuller on the start page. */
+
+export const CAUTION_LINES = [
+  "Contend is a stylised model to aid thinking. It is not a forecast and not financial or legal advice.",
+  "War-gaming a competitor is internal work. Never share effort plans, bids or budgets with actual competitors: coordinating them can breach competition (antitrust) law.",
+  "Public procurement bids follow their own rules. Defer to counsel and local rules.",
+] as const;
+
+export function CautionPanel() {
+  return (
+    <aside className="caution" aria-labelledby="caution-title" data-testid="caution-panel">
+      <strong id="caution-title">Before you use the numbers</strong>
+      <ul>
+        {CAUTION_LINES.map((line) => (
+          <li key={line}>{line}</li>
+        ))}
+      </ul>
+    </aside>
+  );
+}
+
+export function CautionFooter() {
+  return (
+    <footer className="site-footer" data-testid="caution-footer">
+      <div className="inner">
+        {CAUTION_LINES.map((line) => (
+          <p key={line}>{line}</p>
+        ))}
+      </div>
+    </footer>
+  );
+}
