@@ -1,0 +1,59 @@
+/**
+ * Records what the server pushes to a page over its socket.io WebSocket, so a test can prove
+ * that a sealed effort never reaches anyone but its owner before the round resolves.
+ */
+import type { Page } from "@playwright/test";
+
+export interface Frame {
+  at: number;
+  /** the socket.io packet's JSON payload (event name and arguments), or null for pings */
+  data: unknown;
+  raw: string;
+}
+
+/** Starts recording every text frame the page receives on any WebSocket. */
+export function recordFrames(page: Page): Frame[] {
+  const frames: Frame[] = [];
+  page.on("websocket", (ws) => {
+    ws.on("framereceived", ({ payload }) => {
+      const raw = typeof payload === "string" ? payload : payload.toString("utf8");
+      frames.push({ at: Date.now(), data: parsePacket(raw), raw });
+    });
+  });
+  return frames;
+}
+
+/** Engine.io "4" (message) + socket.io type digit(s) + optional ack id, then JSON. */
+export function parsePacket(raw: string): unknown {
+  const start = raw.search(/[[{]/);
+  if (start < 0) return null;
+  try {
+    return JSON.parse(raw.slice(start));
+  } catch {
+    return null;
+  }
+}
+
+/** True when `value` holds `target` anywhere: as a number (within tol) or inside a string. */
+export function containsNumber(value: unknown, target: number, tol = 1e-9): boolean {
+  if (typeof value === "number") return Math.abs(value - target) <= tol;
+  if (typeof value === "string") return mentions(value, target);
+  if (Array.isArray(value)) return value.some((v) => containsNumber(v, target, tol));
+  if (value && typeof value === "object") {
+    return Object.values(value).some((v) => containsNumber(v, target, tol));
+  }
+  return false;
+}
+
+/** Frames (received before `until`) that carry any of the given numbers. */
+export function framesCarrying(frames: Frame[], targets: number[], until = Infinity): Frame[] {
+  return frames.filter(
+    (f) => f.at < until && targets.some((t) => containsNumber(f.data, t) || mentions(f.raw, t)),
+  );
+}
+
+/** `text` spells `n` as a whole number token (so 23.17 is not found inside 123.175). */
+export function mentions(text: string, n: number): boolean {
+  const token = String(n).replace(".", "\\.");
+  return new RegExp(`(?<![\\d.])${token}(?![\\d])`).test(text);
+}
