@@ -1,0 +1,164 @@
+/**
+ * The append-only session log. The engine returns event bodies; the server stamps each with
+ * `seq` (1, 2, ... per session) and `at` (epoch ms) when it commits them. Results of a round are
+ * computed once, stored in its round-resolved event, and never recomputed on replay.
+ */
+import { z } from "zod";
+import { contestScenarioSchema } from "./contest";
+import { equilibriumSchema } from "./equilibrium";
+import {
+  effortSchema,
+  epochMsSchema,
+  finiteSchema,
+  roundNumberSchema,
+  seatIndexSchema,
+} from "./numbers";
+import { policySpecSchema } from "./policy";
+import { sessionScenarioSchema } from "./sessionScenario";
+import { shockSchema } from "./shock";
+import { clientMoveIdSchema, displayNameSchema } from "./commands";
+import { sessionIdSchema } from "./hello";
+import { parseWith } from "./result";
+import type { ParseResult } from "./result";
+
+export const seatKindSchema = z.enum(["human", "computer"]);
+export type SeatKind = z.output<typeof seatKindSchema>;
+
+export const initialSeatSchema = z.object({
+  index: seatIndexSchema,
+  name: z.string(),
+  kind: seatKindSchema,
+  policy: policySpecSchema.nullable(),
+});
+
+export const CLOSE_REASONS = ["facilitator", "clock", "all-sealed"] as const;
+export type CloseReason = (typeof CLOSE_REASONS)[number];
+
+export const END_REASONS = ["facilitator", "rounds-complete"] as const;
+export type EndReason = (typeof END_REASONS)[number];
+
+const seeds = z.int().min(0).max(0xffffffff);
+
+export const sessionCreatedSchema = z.object({
+  type: z.literal("session-created"),
+  sessionId: sessionIdSchema,
+  scenario: sessionScenarioSchema,
+  seats: z.array(initialSeatSchema),
+  seed: seeds,
+});
+export const seatClaimedSchema = z.object({
+  type: z.literal("seat-claimed"),
+  seatIndex: seatIndexSchema,
+  displayName: displayNameSchema,
+});
+export const seatPolicySetSchema = z.object({
+  type: z.literal("seat-policy-set"),
+  seatIndex: seatIndexSchema,
+  policy: policySpecSchema.nullable(),
+});
+export const roundOpenedSchema = z.object({
+  type: z.literal("round-opened"),
+  round: roundNumberSchema,
+  /** the contest this round is played under: active rivals only, in seat order */
+  scenario: contestScenarioSchema,
+  /** seatIndices[k] is the seat playing scenario.rivals[k] */
+  seatIndices: z.array(seatIndexSchema),
+  deadline: epochMsSchema.nullable(),
+});
+export const moveSealedSchema = z.object({
+  type: z.literal("move-sealed"),
+  round: roundNumberSchema,
+  seatIndex: seatIndexSchema,
+  effort: effortSchema,
+  clientMoveId: clientMoveIdSchema,
+  by: z.enum(["seat", "computer"]),
+});
+
+const perSeat = z.array(finiteSchema);
+
+export const roundResolvedSchema = z.object({
+  type: z.literal("round-resolved"),
+  round: roundNumberSchema,
+  reason: z.enum(CLOSE_REASONS),
+  /** the arrays below are indexed by seat; seats not playing this round hold 0 / false */
+  efforts: perSeat,
+  defaulted: z.array(z.boolean()),
+  shares: perSeat,
+  /** winner mode: the seat that won; shares mode: null */
+  winner: seatIndexSchema.nullable(),
+  /** winner mode: seed of the generator that drew the winner; shares mode: null */
+  drawSeed: seeds.nullable(),
+  /** realised payoffs (shares mode: equal to expectedPayoffs) */
+  payoffs: perSeat,
+  expectedPayoffs: perSeat,
+  /** running totals of realised payoffs after this round */
+  totals: perSeat,
+  bestResponses: perSeat,
+  regrets: perSeat,
+  /** equilibrium of the round's scenario; its arrays follow round-opened.seatIndices */
+  equilibrium: equilibriumSchema,
+  nashGap: finiteSchema,
+  dissipation: finiteSchema,
+});
+export const shockAppliedSchema = z.object({
+  type: z.literal("shock-applied"),
+  changes: z.array(shockSchema),
+  /** the session's contest after the changes (every seat's rival, retired ones included) */
+  scenario: contestScenarioSchema,
+});
+export const pausedSchema = z.object({
+  type: z.literal("paused"),
+  remainingMs: z.number().min(0).nullable(),
+});
+export const resumedSchema = z.object({
+  type: z.literal("resumed"),
+  deadline: epochMsSchema.nullable(),
+});
+export const sessionEndedSchema = z.object({
+  type: z.literal("session-ended"),
+  reason: z.enum(END_REASONS),
+});
+
+const bodies = [
+  sessionCreatedSchema,
+  seatClaimedSchema,
+  seatPolicySetSchema,
+  roundOpenedSchema,
+  moveSealedSchema,
+  roundResolvedSchema,
+  shockAppliedSchema,
+  pausedSchema,
+  resumedSchema,
+  sessionEndedSchema,
+] as const;
+
+export const eventBodySchema = z.discriminatedUnion("type", bodies);
+
+const stamp = { seq: z.int().min(1), at: epochMsSchema };
+
+export const sessionEventSchema = z.discriminatedUnion("type", [
+  sessionCreatedSchema.extend(stamp),
+  seatClaimedSchema.extend(stamp),
+  seatPolicySetSchema.extend(stamp),
+  roundOpenedSchema.extend(stamp),
+  moveSealedSchema.extend(stamp),
+  roundResolvedSchema.extend(stamp),
+  shockAppliedSchema.extend(stamp),
+  pausedSchema.extend(stamp),
+  resumedSchema.extend(stamp),
+  sessionEndedSchema.extend(stamp),
+]);
+
+export type EventBody = z.output<typeof eventBodySchema>;
+export type EventType = EventBody["type"];
+export type EventOf<T extends EventType> = Extract<EventBody, { type: T }>;
+export type SessionEvent = EventBody & { seq: number; at: number };
+export type RoundResolved = EventOf<"round-resolved">;
+export type InitialSeat = z.output<typeof initialSeatSchema>;
+
+/** Checks a stored or imported log entry (e.g. a replay file). */
+export function parseEvent(raw: unknown): ParseResult<SessionEvent> {
+  return parseWith(sessionEventSchema, raw);
+}
+
+export const eventLogSchema = z.array(sessionEventSchema);

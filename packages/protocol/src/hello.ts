@@ -1,0 +1,66 @@
+/** The first message on every socket: protocol version plus credentials for one role. */
+import { z } from "zod";
+import { LIMITS } from "./limits";
+import { displayNameSchema } from "./commands";
+import { PROTOCOL_VERSION } from "./version";
+import { parseWith } from "./result";
+import type { ParseResult } from "./result";
+
+export const ROLES = ["facilitator", "seat", "spectator", "guest"] as const;
+export type Role = (typeof ROLES)[number];
+
+export const sessionIdSchema = z
+  .string({ error: "must be a string" })
+  .min(1, { error: "must not be empty" })
+  .max(LIMITS.sessionIdMax, { error: `must be at most ${LIMITS.sessionIdMax} characters` });
+
+export const keySchema = z
+  .string({ error: "must be a string" })
+  .min(1, { error: "must not be empty" })
+  .max(LIMITS.keyMax, { error: `must be at most ${LIMITS.keyMax} characters` });
+
+export const joinCodeSchema = z
+  .string({ error: "must be a string" })
+  .trim()
+  .min(LIMITS.joinCodeMin, { error: `must be at least ${LIMITS.joinCodeMin} characters` })
+  .max(LIMITS.joinCodeMax, { error: `must be at most ${LIMITS.joinCodeMax} characters` });
+
+export const credentialsSchema = z.discriminatedUnion("role", [
+  z.strictObject({ role: z.literal("facilitator"), sessionId: sessionIdSchema, key: keySchema }),
+  z.strictObject({
+    role: z.literal("seat"),
+    sessionId: sessionIdSchema,
+    key: keySchema,
+    /** used when this hello claims a still unclaimed seat */
+    displayName: displayNameSchema.optional(),
+  }),
+  z.strictObject({ role: z.literal("spectator"), sessionId: sessionIdSchema, key: keySchema }),
+  z.strictObject({ role: z.literal("guest"), joinCode: joinCodeSchema }),
+]);
+
+export type Credentials = z.output<typeof credentialsSchema>;
+
+export const helloSchema = z.strictObject({
+  protocol: z.literal(PROTOCOL_VERSION, { error: `must be ${PROTOCOL_VERSION}` }),
+  credentials: credentialsSchema,
+  /** last event seq the client has seen (informational; the ack always carries a full view) */
+  lastSeq: z.int().min(0).optional(),
+});
+
+export type Hello = z.output<typeof helloSchema>;
+
+/** Like every parser here, but a well-formed hello with another version is "version-mismatch". */
+export function parseHello(raw: unknown): ParseResult<Hello> {
+  if (typeof raw === "object" && raw !== null && "protocol" in raw) {
+    const v = (raw as { protocol: unknown }).protocol;
+    if (typeof v === "number" && v !== PROTOCOL_VERSION) {
+      return {
+        ok: false,
+        code: "version-mismatch",
+        path: "protocol",
+        message: `protocol: this server speaks protocol ${PROTOCOL_VERSION}, the client sent ${v}; reload the page`,
+      };
+    }
+  }
+  return parseWith(helloSchema, raw);
+}

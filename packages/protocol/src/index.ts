@@ -1,0 +1,124 @@
+export { PROTOCOL_VERSION } from "./version";
+export { LIMITS } from "./limits";
+export { ERROR_CODES, firstProblem, parseWith } from "./result";
+export type { ErrorCode, ParseResult } from "./result";
+export {
+  effortSchema,
+  epochMsSchema,
+  finiteSchema,
+  positiveNumberSchema,
+  roundNumberSchema,
+  seatIndexSchema,
+} from "./numbers";
+export { contestScenarioSchema, csfSpecSchema, rivalSpecSchema } from "./contest";
+export { policySpecSchema } from "./policy";
+export type { PolicySpecInput } from "./policy";
+export { sessionSettingsSchema } from "./settings";
+export type { SessionSettings, SessionSettingsInput } from "./settings";
+export { sessionScenarioSchema } from "./sessionScenario";
+export type { SessionScenario } from "./sessionScenario";
+export { RIVAL_SHOCK_FIELDS, shockListSchema, shockSchema } from "./shock";
+export type { RivalShockField, Shock } from "./shock";
+export {
+  applyShockSchema,
+  claimSeatSchema,
+  clientMoveIdSchema,
+  closeRoundSchema,
+  COMMAND_ROLES,
+  commandSchema,
+  displayNameSchema,
+  endSessionSchema,
+  openRoundSchema,
+  parseCommand,
+  pauseSchema,
+  resumeSchema,
+  sealMoveSchema,
+  setSeatPolicySchema,
+} from "./commands";
+export type { Command, CommandOf, CommandType } from "./commands";
+export {
+  credentialsSchema,
+  helloSchema,
+  joinCodeSchema,
+  keySchema,
+  parseHello,
+  ROLES,
+  sessionIdSchema,
+} from "./hello";
+export type { Credentials, Hello, Role } from "./hello";
+export { equilibriumSchema } from "./equilibrium";
+export {
+  CLOSE_REASONS,
+  END_REASONS,
+  eventBodySchema,
+  eventLogSchema,
+  initialSeatSchema,
+  moveSealedSchema,
+  parseEvent,
+  pausedSchema,
+  resumedSchema,
+  roundOpenedSchema,
+  roundResolvedSchema,
+  seatClaimedSchema,
+  seatKindSchema,
+  seatPolicySetSchema,
+  sessionCreatedSchema,
+  sessionEndedSchema,
+  sessionEventSchema,
+  shockAppliedSchema,
+} from "./events";
+export type {
+  CloseReason,
+  EndReason,
+  EventBody,
+  EventOf,
+  EventType,
+  InitialSeat,
+  RoundResolved,
+  SeatKind,
+  SessionEvent,
+} from "./events";
+export {
+  roleViewSchema,
+  roundResultSchema,
+  seatViewSchema,
+  SESSION_STATUSES,
+  shockRecordSchema,
+  viewMessageSchema,
+} from "./view";
+export type {
+  RoleView,
+  RoundResult,
+  SeatView,
+  SessionStatus,
+  ShockRecord,
+  ViewMessage,
+} from "./view";
+export { ackError } from "./ack";
+export type {
+  Ack,
+  AckError,
+  BasicAckData,
+  ClaimSeatAckData,
+  CommandAckData,
+  HelloAckData,
+  SealMoveAckData,
+} from "./ack";
+export {
+  createSessionBodySchema,
+  createSessionResponseSchema,
+  errorBodySchema,
+  healthSchema,
+  parseSessionScenario,
+  sessionExportSchema,
+  sessionListItemSchema,
+  sessionListSchema,
+} from "./rest";
+export type {
+  CreateSessionResponse,
+  ErrorBody,
+  Health,
+  SessionExport,
+  SessionListItem,
+} from "./rest";
+export type { ClientToServerEvents, ServerToClientEvents } from "./socket";

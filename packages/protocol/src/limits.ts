@@ -1,0 +1,22 @@
+/** Size and range limits for everything a client may send (checked before any work is done). */
+export const LIMITS = {
+  /** rivals (seats) in a live session, counting retired ones and rivals added by shocks */
+  seatsMax: 64,
+  seatsMin: 2,
+  /** changes in one applyShock command */
+  changesMax: 200,
+  /** efforts are finite, >= 0 and at most this */
+  effortMax: 1e12,
+  /** any other number a client may send (prize, shock values, step) */
+  numberMax: 1e12,
+  roundsMax: 100,
+  clockMinSeconds: 5,
+  clockMaxSeconds: 3600,
+  clientMoveIdMax: 64,
+  displayNameMax: 40,
+  sessionIdMax: 64,
+  keyMax: 128,
+  joinCodeMin: 4,
+  joinCodeMax: 16,
+  nameMax: 80,
+} as const;

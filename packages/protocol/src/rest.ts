@@ -1,0 +1,71 @@
+/** Bodies and responses of the HTTP endpoints served next to the socket. */
+import { z } from "zod";
+import { ERROR_CODES } from "./result";
+import { seatKindSchema, sessionEventSchema } from "./events";
+import { roundResultSchema, SESSION_STATUSES } from "./view";
+import { sessionScenarioSchema } from "./sessionScenario";
+import { parseWith } from "./result";
+import type { ParseResult } from "./result";
+import type { SessionScenario } from "./sessionScenario";
+
+/** POST /api/sessions body. */
+export const createSessionBodySchema = sessionScenarioSchema;
+
+export function parseSessionScenario(raw: unknown): ParseResult<SessionScenario> {
+  return parseWith(sessionScenarioSchema, raw);
+}
+
+/** POST /api/sessions 201 response. */
+export const createSessionResponseSchema = z.object({
+  id: z.string(),
+  joinCode: z.string(),
+  facilitatorKey: z.string(),
+  spectatorKey: z.string(),
+  seats: z.array(
+    z.object({
+      index: z.int().min(0),
+      name: z.string(),
+      kind: seatKindSchema,
+      /** seat key for a human seat's link; null for computer seats */
+      key: z.string().nullable(),
+      link: z.string().nullable(),
+    }),
+  ),
+  links: z.object({ facilitator: z.string(), spectator: z.string(), join: z.string() }),
+});
+export type CreateSessionResponse = z.output<typeof createSessionResponseSchema>;
+
+/** Every 4xx/5xx body. */
+export const errorBodySchema = z.object({
+  error: z.object({ code: z.enum(ERROR_CODES), path: z.string(), message: z.string() }),
+});
+export type ErrorBody = z.output<typeof errorBodySchema>;
+
+/** GET /api/sessions item. Dates are ISO 8601 strings. */
+export const sessionListItemSchema = z.object({
+  id: z.string(),
+  title: z.string(),
+  status: z.enum(SESSION_STATUSES),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  /** rounds resolved so far */
+  rounds: z.int().min(0),
+});
+export type SessionListItem = z.output<typeof sessionListItemSchema>;
+export const sessionListSchema = z.array(sessionListItemSchema);
+
+/** GET /api/sessions/:id/export (JSON form). */
+export const sessionExportSchema = z.object({
+  session: sessionListItemSchema,
+  events: z.array(sessionEventSchema),
+  rounds: z.array(roundResultSchema),
+});
+export type SessionExport = z.output<typeof sessionExportSchema>;
+
+/** GET /api/health. */
+export const healthSchema = z.object({
+  ok: z.literal(true),
+  version: z.string(),
+  db: z.enum(["pglite", "postgres"]),
+});
+export type Health = z.output<typeof healthSchema>;
