@@ -1,0 +1,148 @@
+/**
+ * The scenario model and every result type the solver returns. This file is the contract
+ * between the solver, the protocol, the server and the web app: change it deliberately.
+ *
+ * Conventions (all arrays are in rival order):
+ * - effort e_i >= 0 is in money (or hours); a rival's expenditure is cost * effort.
+ * - shares p_i are winning probabilities (or market shares) and sum to 1.
+ * - payoff u_i = v_i * p_i - m_i * e_i (risk neutral).
+ * - dissipation = (sum_i m_i e_i) / prize, using expected efforts for mixed equilibria.
+ */
+
+/** Contest success function as written in a scenario file. */
+export type CsfSpec =
+  | { kind: "ratio"; decisiveness: number } // Tullock 1980; decisiveness r > 0
+  | { kind: "logit"; scale: number } // Hirshleifer 1989; scale k > 0
+  | { kind: "allpay" }; // highest effort wins, ties split
+
+/** A rival as written in a scenario file (optional fields fall back to defaults). */
+export interface RivalSpec {
+  name: string;
+  /** marginal cost of effort m_i > 0 */
+  cost: number;
+  /** value of the prize to this rival v_i > 0; defaults to the scenario prize */
+  value?: number | null;
+  /** weight (head start) w_i > 0; defaults to 1 */
+  weight?: number | null;
+  /** most this rival can spend, in effort units; null = no cap */
+  budget?: number | null;
+  /** own decisiveness r_i (ratio form only); defaults to csf.decisiveness */
+  decisiveness?: number | null;
+}
+
+/** A scenario file (the JSON the `contend` CLI reads). */
+export interface Scenario {
+  title: string;
+  /** prize value used when a rival has no own value; also the rent for dissipation */
+  prize: number;
+  csf: CsfSpec;
+  rivals: RivalSpec[];
+  /** name of the rival who commits first (leader-follower game), or null */
+  leader?: string | null;
+  /** display only: currency symbol or code, e.g. "$" or "EUR" */
+  currency?: string | null;
+}
+
+/** A rival with every default filled in. budget = Infinity when uncapped. */
+export interface Rival {
+  name: string;
+  cost: number;
+  value: number;
+  weight: number;
+  budget: number;
+  /** decisiveness for the ratio form (ignored by logit and all-pay) */
+  r: number;
+}
+
+/** A scenario with defaults resolved: what every algorithm takes. */
+export interface Contest {
+  title: string;
+  prize: number;
+  csf: CsfSpec;
+  rivals: Rival[];
+  /** index of the leader, or null */
+  leader: number | null;
+}
+
+/** A mixed strategy as a piecewise-uniform distribution with an optional atom at zero. */
+export interface MixedStrategy {
+  /** probability of spending exactly zero */
+  atomAtZero: number;
+  /** the rest of the mass is uniform on [low, high] */
+  low: number;
+  high: number;
+  /** expected effort */
+  mean: number;
+}
+
+export type EquilibriumKind = "pure" | "mixed" | "none-pure";
+
+export interface Equilibrium {
+  kind: EquilibriumKind;
+  /** pure efforts, or null for mixed / none-pure */
+  efforts: number[] | null;
+  /** expected efforts (mixed equilibria) */
+  expectedEfforts?: number[];
+  /** winning probabilities; null when none-pure */
+  shares: number[] | null;
+  /** expected payoffs; null when none-pure */
+  payoffs: number[] | null;
+  /** sum of (expected) efforts */
+  totalEffort: number;
+  /** sum_i m_i e_i / prize */
+  dissipation: number;
+  /** true where the rival spends a positive amount */
+  active: boolean[];
+  /** largest regret measured at the reported profile (0 for an exact equilibrium; NaN when
+   * kind is "none-pure" and there is no profile to measure) */
+  nashGap: number;
+  /** which method produced it, e.g. "closed-form:symmetric", "share-function", "numeric" */
+  method: string;
+  /** mixed strategies per rival (all-pay) */
+  strategies?: MixedStrategy[];
+  /** plain-language remark, e.g. why no pure equilibrium exists */
+  note?: string;
+}
+
+export interface SolveResult {
+  /** the main equilibrium; with a leader set, the subgame-perfect leader-follower outcome */
+  equilibrium: Equilibrium;
+  /** further equilibria found (same shape), possibly empty */
+  alternatives: Equilibrium[];
+}
+
+export interface SolveOptions {
+  /** tolerance on the Nash gap for accepting a numerical candidate (default 1e-6 * prize) */
+  tolerance?: number;
+  /** grid points for global best-response checks (default 2001) */
+  gridPoints?: number;
+}
+
+/** Best response of one rival to the others' efforts. */
+export interface BestResponse {
+  effort: number;
+  payoff: number;
+  /**
+   * true when the supremum is not attained (others all spend zero in the ratio form):
+   * effort is then the smallest positive step and payoff the limit value.
+   */
+  supremumOnly?: boolean;
+}
+
+/** `contend respond` output. */
+export interface Responses {
+  bestResponses: number[];
+  regrets: number[];
+  payoffs: number[];
+  nashGap: number;
+}
+
+/** Typed expected failure (never thrown for bad user input). */
+export interface InputError {
+  ok: false;
+  /** dotted path of the offending field, e.g. "rivals.2.cost" */
+  path: string;
+  message: string;
+}
+
+export type Parsed<T> = { ok: true; value: T } | InputError;
