@@ -28,7 +28,8 @@ export function currencyPrefix(currency: string | null | undefined): string {
 /** Digits after the decimal point so that a value of this size shows about `significant` digits. */
 function decimalsFor(abs: number, significant: number, maxDecimals: number): number {
   if (abs === 0) return 0;
-  const intDigits = Math.max(1, Math.floor(Math.log10(abs)) + 1);
+  // For |x| < 1 this goes to zero or below, so leading zeros after the point do not count.
+  const intDigits = Math.floor(Math.log10(abs)) + 1;
   return Math.max(0, Math.min(maxDecimals, significant - intDigits));
 }
 

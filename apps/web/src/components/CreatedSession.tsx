@@ -1,0 +1,65 @@
+"use client";
+
+import Link from "next/link";
+import type { CreateSessionResponse } from "@contend/protocol";
+import { absoluteLink } from "../lib/api";
+import { CopyField } from "./CopyField";
+
+/** What a facilitator needs right after creating a session: links, code, seat invitations. */
+export function CreatedSession({
+  created,
+  title,
+}: {
+  created: CreateSessionResponse;
+  title: string;
+}) {
+  const facilitator = absoluteLink(created.links.facilitator);
+  const screen = absoluteLink(created.links.spectator);
+  const join = absoluteLink(created.links.join);
+  return (
+    <section className="card" aria-labelledby="created-title" data-testid="created-session">
+      <h2 id="created-title">Session created: {title}</h2>
+      <p className="muted small">
+        Keep the facilitator link to yourself: it controls the session. Send each seat link to one
+        person only, inside your organisation.
+      </p>
+      <div className="row" style={{ alignItems: "flex-end", marginBottom: "0.75rem" }}>
+        <div className="kpi">
+          <span className="label">Join code</span>
+          <span className="join-code" data-testid="join-code">
+            {created.joinCode}
+          </span>
+        </div>
+        <Link
+          className="button primary"
+          href={created.links.facilitator}
+          data-testid="open-facilitator"
+        >
+          Open facilitator console
+        </Link>
+        <Link className="button" href={created.links.spectator} data-testid="open-screen">
+          Open big screen
+        </Link>
+      </div>
+      <div className="stack">
+        <CopyField label="Facilitator link" value={facilitator} testId="facilitator-link" />
+        <CopyField label="Big-screen link" value={screen} testId="screen-link" />
+        <CopyField label="Join page (with code)" value={join} testId="join-link" />
+        {created.seats.map((seat) =>
+          seat.link === null ? (
+            <p key={seat.index} className="small muted" data-testid={`seat-computer-${seat.index}`}>
+              Seat {seat.index + 1}, {seat.name}: played by the computer
+            </p>
+          ) : (
+            <CopyField
+              key={seat.index}
+              label={`Seat ${seat.index + 1} link: ${seat.name}`}
+              value={absoluteLink(seat.link)}
+              testId={`seat-link-${seat.index}`}
+            />
+          ),
+        )}
+      </div>
+    </section>
+  );
+}

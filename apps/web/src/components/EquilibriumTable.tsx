@@ -1,0 +1,126 @@
+import type { Contest, Equilibrium } from "@contend/solver";
+import { formatMoney, formatPercent } from "../lib/format";
+
+const KIND_TEXT: Record<Equilibrium["kind"], string> = {
+  pure: "Pure-strategy equilibrium",
+  mixed: "Mixed-strategy equilibrium (expected values)",
+  "none-pure": "No pure-strategy equilibrium found",
+};
+
+/**
+ * Equilibrium efforts, shares and payoffs per rival. Rows keep their height whether or not a
+ * result is present, so the page does not jump while typing.
+ */
+export function EquilibriumTable({
+  contest,
+  equilibrium,
+  currency,
+  testPrefix = "eq",
+  caption,
+}: {
+  contest: Contest;
+  equilibrium: Equilibrium | null;
+  currency: string | null | undefined;
+  testPrefix?: string;
+  caption?: string;
+}) {
+  const eq = equilibrium;
+  const efforts = eq ? (eq.efforts ?? eq.expectedEfforts ?? null) : null;
+  return (
+    <div>
+      <p className="small" data-testid={`${testPrefix}-kind`} style={{ minHeight: "1.5em" }}>
+        {eq ? KIND_TEXT[eq.kind] : "\u00a0"}
+        {eq ? <span className="muted"> · method {eq.method}</span> : null}
+      </p>
+      <div className="table-wrap">
+        <table>
+          {caption ? (
+            <caption className="small muted" style={{ textAlign: "left" }}>
+              {caption}
+            </caption>
+          ) : null}
+          <thead>
+            <tr>
+              <th scope="col">Rival</th>
+              <th scope="col" className="num">
+                Effort
+              </th>
+              <th scope="col" className="num">
+                Spend
+              </th>
+              <th scope="col" className="num">
+                Share
+              </th>
+              <th scope="col" className="num">
+                Payoff
+              </th>
+              <th scope="col">Status</th>
+            </tr>
+          </thead>
+          <tbody>
+            {contest.rivals.map((r, i) => {
+              const e = efforts?.[i];
+              const active = eq?.active[i] ?? false;
+              return (
+                <tr key={`${r.name}-${i}`} className={eq && !active ? "dropout" : undefined}>
+                  <th scope="row" style={{ background: "transparent", fontWeight: 500 }}>
+                    {r.name}
+                  </th>
+                  <td className="num" data-testid={`${testPrefix}-effort-${i}`}>
+                    {e === undefined ? "\u2013" : formatMoney(e, currency)}
+                  </td>
+                  <td className="num" data-testid={`${testPrefix}-spend-${i}`}>
+                    {e === undefined ? "\u2013" : formatMoney(e * r.cost, currency)}
+                  </td>
+                  <td className="num" data-testid={`${testPrefix}-share-${i}`}>
+                    {eq?.shares ? formatPercent(eq.shares[i] ?? NaN) : "\u2013"}
+                  </td>
+                  <td className="num" data-testid={`${testPrefix}-payoff-${i}`}>
+                    {eq?.payoffs ? formatMoney(eq.payoffs[i] ?? NaN, currency) : "\u2013"}
+                  </td>
+                  <td data-testid={`${testPrefix}-status-${i}`}>
+                    {!eq || efforts === null ? (
+                      "\u2013"
+                    ) : active ? (
+                      <span className="badge accent">active</span>
+                    ) : (
+                      <span className="badge off">drops out</span>
+                    )}
+                    {Number.isFinite(r.budget) && e !== undefined && e >= r.budget * (1 - 1e-9) ? (
+                      <span className="badge warn" style={{ marginLeft: 4 }}>
+                        at budget
+                      </span>
+                    ) : null}
+                  </td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      <div className="kpis" style={{ marginTop: "0.75rem" }}>
+        <div className="kpi">
+          <span className="label">Total effort</span>
+          <span className="value" data-testid={`${testPrefix}-total`}>
+            {eq && efforts ? formatMoney(eq.totalEffort, currency) : "\u2013"}
+          </span>
+        </div>
+        <div className="kpi">
+          <span className="label">Rent dissipation (spend / prize)</span>
+          <span className="value" data-testid={`${testPrefix}-dissipation`}>
+            {eq && efforts ? formatPercent(eq.dissipation) : "\u2013"}
+          </span>
+        </div>
+        <div className="kpi">
+          <span className="label">Measured Nash gap</span>
+          <span className="value" data-testid={`${testPrefix}-gap`}>
+            {eq && efforts ? formatMoney(eq.nashGap, currency, 4) : "\u2013"}
+          </span>
+        </div>
+      </div>
+      <p className="small muted" style={{ minHeight: "1.5em" }} data-testid={`${testPrefix}-note`}>
+        {eq?.note ?? ""}
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,74 @@
+"use client";
+
+import Link from "next/link";
+import { useState } from "react";
+import type { CreateSessionResponse } from "@contend/protocol";
+import { createSession } from "../lib/api";
+import { encodeState } from "../lib/url-state";
+import { TEMPLATES } from "../lib/templates";
+import { CreatedSession } from "./CreatedSession";
+
+export function TemplatePicker() {
+  const [busy, setBusy] = useState<string | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [created, setCreated] = useState<{ res: CreateSessionResponse; title: string } | null>(
+    null,
+  );
+
+  async function start(id: string) {
+    const t = TEMPLATES.find((x) => x.id === id);
+    if (!t) return;
+    setBusy(id);
+    setError(null);
+    const r = await createSession(t.scenario);
+    setBusy(null);
+    if (r.ok) setCreated({ res: r.data, title: t.scenario.title });
+    else setError(`Could not create the session: ${r.message}`);
+  }
+
+  return (
+    <>
+      <div className="grid-3">
+        {TEMPLATES.map((t) => (
+          <article key={t.id} className="card" data-testid={`template-${t.id}`}>
+            <h3>{t.label}</h3>
+            <p className="small">{t.blurb}</p>
+            <p className="small muted">
+              {t.scenario.rivals.length} rivals · {t.scenario.session?.rounds ?? 5} rounds ·{" "}
+              {t.scenario.session?.outcome === "winner" ? "one winner drawn" : "prize shared"}
+            </p>
+            <div className="row">
+              <button
+                type="button"
+                className="primary"
+                onClick={() => start(t.id)}
+                disabled={busy !== null}
+                data-testid={`start-template-${t.id}`}
+              >
+                {busy === t.id ? "Creating…" : "Start session"}
+              </button>
+              <Link className="button" href={`/new?template=${t.id}`}>
+                Edit first
+              </Link>
+              <Link
+                className="button"
+                href={`/explore?s=${encodeState({ sc: stripSession(t.scenario) })}`}
+              >
+                Explore
+              </Link>
+            </div>
+          </article>
+        ))}
+      </div>
+      <div aria-live="polite">
+        {error && <p className="notice error">{error}</p>}
+        {created && <CreatedSession created={created.res} title={created.title} />}
+      </div>
+    </>
+  );
+}
+
+function stripSession<T extends { session?: unknown }>(s: T): Omit<T, "session"> {
+  const { session: _session, ...rest } = s;
+  return rest;
+}

@@ -1,0 +1,130 @@
+import { readFileSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+import { describe, expect, it } from "vitest";
+import {
+  defaultForm,
+  formToScenario,
+  parseNumberField,
+  parseScenarioText,
+  rivalFieldError,
+  scenarioToForm,
+} from "../src/lib/editor-form";
+import type { EditorForm } from "../src/lib/editor-form";
+import { TEMPLATES } from "../src/lib/templates";
+
+function withRival(
+  form: EditorForm,
+  i: number,
+  patch: Partial<EditorForm["rivals"][number]>,
+): EditorForm {
+  return { ...form, rivals: form.rivals.map((r, k) => (k === i ? { ...r, ...patch } : r)) };
+}
+
+describe("parseNumberField", () => {
+  it("parseNumberField(text) gives numbers, undefined for blank, and passes bad text through", () => {
+    expect(parseNumberField(" 12.5 ")).toBe(12.5);
+    expect(parseNumberField("1,200")).toBe(1200);
+    expect(parseNumberField("")).toBeUndefined();
+    expect(parseNumberField("twelve")).toBe("twelve");
+  });
+});
+
+describe("formToScenario", () => {
+  it("formToScenario(defaultForm()) is a valid session scenario with numeric fields", () => {
+    const r = formToScenario(defaultForm());
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.scenario.prize).toBe(100);
+    expect(r.scenario.rivals.map((x) => x.cost)).toEqual([1, 1]);
+    expect(r.scenario.session).toMatchObject({
+      effortStep: 1,
+      rounds: 5,
+      clockSeconds: null,
+      computer: {},
+    });
+  });
+
+  it("formToScenario(form) reports every bad field at once, each at its validator path", () => {
+    let form = { ...defaultForm(), prize: "-5", rounds: "0" };
+    form = withRival(form, 1, { cost: "abc", weight: "0" });
+    const r = formToScenario(form);
+    expect(r.ok).toBe(false);
+    expect(r.errors.prize).toMatch(/> 0/);
+    expect(r.errors["rivals.1.cost"]).toMatch(/finite number/);
+    expect(r.errors["rivals.1.weight"]).toMatch(/> 0/);
+    expect(r.errors["session.rounds"]).toMatch(/>= 1/);
+    expect(rivalFieldError(r.errors, form, 1, "cost")).toBe(r.errors["rivals.1.cost"]);
+    expect(rivalFieldError(r.errors, form, 0, "cost")).toBeUndefined();
+  });
+
+  it("formToScenario(form) flags a duplicated rival name on the second row", () => {
+    const form = withRival(defaultForm(), 1, { name: "Rival 1" });
+    const r = formToScenario(form);
+    expect(r.ok).toBe(false);
+    expect(r.errors["rivals.1.name"]).toMatch(/duplicates/);
+  });
+
+  it("formToScenario(form) maps a blank clock to null and a too-short clock to its field", () => {
+    expect(formToScenario({ ...defaultForm(), clockSeconds: "" }).ok).toBe(true);
+    const r = formToScenario({ ...defaultForm(), clockSeconds: "2" });
+    expect(r.errors["session.clockSeconds"]).toMatch(/>= 5/);
+  });
+
+  it("formToScenario(form) keys computer policies by rival name and reports a bad factor on that row", () => {
+    const ok = formToScenario(withRival(defaultForm(), 0, { policy: "equilibrium" }));
+    expect(ok.ok && ok.scenario.session?.computer).toEqual({ "Rival 1": { kind: "equilibrium" } });
+    const form = withRival(defaultForm(), 1, { policy: "overspender", factor: "0" });
+    const bad = formToScenario(form);
+    expect(bad.ok).toBe(false);
+    expect(rivalFieldError(bad.errors, form, 1, "factor")).toMatch(/>\s?0/);
+  });
+
+  it("formToScenario(form) refuses a one-rival live session (seat count rule of the protocol)", () => {
+    const form = { ...defaultForm(), rivals: defaultForm().rivals.slice(0, 1) };
+    const r = formToScenario(form);
+    expect(r.ok).toBe(false);
+    expect(r.errors.rivals).toMatch(/2 to/);
+  });
+
+  it("scenarioToForm(template) then formToScenario gives the template back for every template", () => {
+    for (const t of TEMPLATES) {
+      const r = formToScenario(scenarioToForm(t.scenario));
+      expect(r.ok, t.id).toBe(true);
+      if (!r.ok) continue;
+      expect(r.scenario.rivals).toEqual(t.scenario.rivals);
+      expect(r.scenario.csf).toEqual(t.scenario.csf);
+      expect(r.scenario.prize).toBe(t.scenario.prize);
+      expect(r.scenario.session).toEqual(t.scenario.session);
+    }
+  });
+});
+
+describe("parseScenarioText", () => {
+  it("parseScenarioText(CLI file) imports a scenario file the contend CLI reads", () => {
+    const path = fileURLToPath(
+      new URL("../../../packages/solver/scenarios/kiosk-lease.json", import.meta.url),
+    );
+    const r = parseScenarioText(readFileSync(path, "utf8"));
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.form.rivals.map((x) => x.name)).toEqual([
+      "Larkspur Bakehouse",
+      "Millstone Loaves",
+      "Hearth Lane Bakery",
+    ]);
+    expect(r.form.rivals[1]?.cost).toBe("1.25");
+  });
+  it("parseScenarioText(bad) explains the problem with its path", () => {
+    expect(parseScenarioText("{").ok).toBe(false);
+    const r = parseScenarioText(
+      JSON.stringify({
+        title: "x",
+        prize: 1,
+        csf: { kind: "ratio", decisiveness: 1 },
+        rivals: [{ name: "a", cost: -1 }],
+      }),
+    );
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.message).toMatch(/^rivals\.0\.cost/);
+  });
+});
