@@ -1,0 +1,21 @@
+export { openDatabase, type Database, type OpenOptions } from "./open";
+export { resolveTarget, DEFAULT_PGLITE_DIR, type DatabaseTarget } from "./target";
+export {
+  hashKey,
+  newKey,
+  newJoinCode,
+  normaliseJoinCode,
+  JOIN_CODE_ALPHABET,
+  JOIN_CODE_LENGTH,
+} from "./credentials";
+export {
+  applyMigrations,
+  readMigrations,
+  DEFAULT_MIGRATIONS_DIR,
+  MIGRATIONS_TABLE,
+} from "./migrate";
+export type { AppendEffects, AppendResult } from "./repos/events";
+export type { CreateSessionInput, CreateSessionResult } from "./repos/sessions";
+export type { ClaimResult } from "./repos/seats";
+export type { ScenarioRecord, ScenarioSummary } from "./repos/scenarios";
+export type * from "./types";

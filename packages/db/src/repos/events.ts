@@ -1,0 +1,125 @@
+import type { Db, KeyInput, NewEvent, StoredEvent } from "../types";
+import { keyRows } from "./keys";
+import { isUniqueViolation, json, storedEvent } from "./rows";
+
+/** Writes that must commit together with the events they belong to, or not at all. */
+export interface AppendEffects {
+  /** New Session.status, e.g. "open" with round-opened. */
+  status?: string;
+  /** Seats to mark claimed (with seat-claimed); fails the whole append if one is already taken. */
+  claimSeats?: { seatIndex: number; displayName: string }[];
+  /** Keys to store hashed (e.g. the key handed to whoever claimed a seat). */
+  addKeys?: KeyInput[];
+}
+
+export type AppendResult =
+  | { ok: true; seqs: number[] }
+  | { ok: false; code: "conflict"; lastSeq: number }
+  | { ok: false; code: "not-found" }
+  | { ok: false; code: "seat-claimed"; seatIndex: number };
+
+class Abort extends Error {
+  constructor(readonly result: AppendResult) {
+    super("append aborted");
+  }
+}
+
+// Interactive transactions on PGlite queue behind one lock; a busy embedded server may wait
+// longer than Prisma's default 2 s to start one.
+const TX_OPTIONS = { maxWait: 10_000, timeout: 10_000 };
+
+export function eventsRepository(db: Db) {
+  async function lastSeqOf(sessionId: string): Promise<AppendResult> {
+    const session = await db.session.findUnique({
+      where: { id: sessionId },
+      select: { lastSeq: true },
+    });
+    return session
+      ? { ok: false, code: "conflict", lastSeq: session.lastSeq }
+      : { ok: false, code: "not-found" };
+  }
+
+  return {
+    /**
+     * Appends events after expectedLastSeq, atomically. The version check is a conditional
+     * UPDATE of Session.lastSeq inside the transaction, so it is serialised by the database:
+     * when several processes share one PostgreSQL, the second writer waits on the row lock,
+     * then finds lastSeq moved and gets {code:"conflict"}; the (sessionId, seq) primary key
+     * backs this up. On conflict the caller reloads events after its seq, re-decides and retries.
+     */
+    async append(
+      sessionId: string,
+      expectedLastSeq: number,
+      events: NewEvent[],
+      effects: AppendEffects = {},
+    ): Promise<AppendResult> {
+      if (events.length === 0) throw new Error("events.append needs at least one event");
+      const seqs = events.map((_, i) => expectedLastSeq + 1 + i);
+      try {
+        return await db
+          .$transaction(async (tx) => {
+            const moved = await tx.session.updateMany({
+              where: { id: sessionId, lastSeq: expectedLastSeq },
+              data: {
+                lastSeq: expectedLastSeq + events.length,
+                ...(effects.status !== undefined ? { status: effects.status } : {}),
+              },
+            });
+            // Nothing written yet: commit the empty transaction and report outside it.
+            if (moved.count === 0) return { ok: false, code: "conflict", lastSeq: -1 } as const;
+            await tx.event.createMany({
+              data: events.map((event, i) => ({
+                sessionId,
+                seq: seqs[i]!,
+                type: event.type,
+                at: new Date(event.at),
+                payload: json(event.payload),
+              })),
+            });
+            for (const claim of effects.claimSeats ?? []) {
+              const claimed = await tx.seat.updateMany({
+                where: { sessionId, index: claim.seatIndex, claimedAt: null },
+                data: { displayName: claim.displayName, claimedAt: new Date() },
+              });
+              if (claimed.count === 0) {
+                throw new Abort({ ok: false, code: "seat-claimed", seatIndex: claim.seatIndex });
+              }
+            }
+            if (effects.addKeys?.length) {
+              await tx.accessKey.createMany({ data: keyRows(sessionId, effects.addKeys) });
+            }
+            return { ok: true, seqs } as const;
+          }, TX_OPTIONS)
+          .then((result) => (result.ok ? result : lastSeqOf(sessionId)));
+      } catch (error) {
+        if (error instanceof Abort) return error.result;
+        if (isUniqueViolation(error)) {
+          // Another writer took these seqs; any other unique clash (a reused key) is a bug.
+          const now = await lastSeqOf(sessionId);
+          if (now.ok === false && now.code === "conflict" && now.lastSeq !== expectedLastSeq)
+            return now;
+        }
+        throw error;
+      }
+    },
+
+    /** Events with seq > afterSeq, in order. */
+    async list(sessionId: string, afterSeq = 0): Promise<StoredEvent[]> {
+      const rows = await db.event.findMany({
+        where: { sessionId, seq: { gt: afterSeq } },
+        orderBy: { seq: "asc" },
+      });
+      return rows.map(storedEvent);
+    },
+
+    /** How many events of one type each session has (e.g. resolved rounds for a replay list). */
+    async countOfType(type: string): Promise<Record<string, number>> {
+      const groups = await db.event.groupBy({
+        by: ["sessionId"],
+        where: { type },
+        _count: { _all: true },
+      });
+      return Object.fromEntries(groups.map((g) => [g.sessionId, g._count._all]));
+    },
+  };
+}

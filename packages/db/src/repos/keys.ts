@@ -1,0 +1,38 @@
+import { randomUUID } from "node:crypto";
+import { hashKey } from "../credentials";
+import type { Db, KeyInput, Role } from "../types";
+
+export function keyRows(sessionId: string, keys: KeyInput[]) {
+  return keys.map((key) => ({
+    id: randomUUID(),
+    sessionId,
+    role: key.role,
+    seatIndex: key.seatIndex,
+    hash: hashKey(key.plaintext),
+  }));
+}
+
+export function keysRepository(db: Db) {
+  return {
+    /** Stores the sha256 of a key for a role (and seat). The plaintext is never written. */
+    async add(sessionId: string, role: Role, seatIndex: number | null, plaintext: string) {
+      const [row] = keyRows(sessionId, [{ role, seatIndex, plaintext }]);
+      await db.accessKey.create({ data: row! });
+      return { id: row!.id };
+    },
+
+    /**
+     * What a key grants in a session, or null. The lookup is by hash through a unique index,
+     * so there is no byte-by-byte comparison of secrets to time: an attacker would have to
+     * find a sha256 preimage; a constant-time compare would add nothing here.
+     */
+    async resolve(
+      sessionId: string,
+      plaintext: string,
+    ): Promise<{ role: Role; seatIndex: number | null } | null> {
+      const row = await db.accessKey.findUnique({ where: { hash: hashKey(plaintext) } });
+      if (!row || row.sessionId !== sessionId) return null;
+      return { role: row.role as Role, seatIndex: row.seatIndex };
+    },
+  };
+}

@@ -1,0 +1,120 @@
+import type { Db, KeyInput, NewEvent, SeatInput, SessionRecord, SessionSummary } from "../types";
+import { keyRows } from "./keys";
+import { isUniqueViolation, json, seatRecord } from "./rows";
+
+export interface CreateSessionInput {
+  id: string;
+  joinCode: string;
+  title: string;
+  /** default "lobby" */
+  status?: string;
+  scenario: unknown;
+  seats: SeatInput[];
+  keys: KeyInput[];
+  /** stored as seq 1 (session-created) */
+  firstEvent: NewEvent;
+}
+
+export type CreateSessionResult =
+  | { ok: true; session: SessionRecord }
+  /** id or joinCode already taken: draw new ones and try again */
+  | { ok: false; code: "conflict"; field: "id" | "joinCode" };
+
+const summarySelect = {
+  id: true,
+  joinCode: true,
+  title: true,
+  status: true,
+  lastSeq: true,
+  createdAt: true,
+  updatedAt: true,
+} as const;
+
+const withSeats = { seats: { orderBy: { index: "asc" } } } as const;
+
+type SessionRow = SessionSummary & {
+  scenario: unknown;
+  seats: Parameters<typeof seatRecord>[0][];
+};
+
+function sessionRecord(row: SessionRow): SessionRecord {
+  return { ...row, seats: row.seats.map(seatRecord) };
+}
+
+export function sessionsRepository(db: Db) {
+  const repo = {
+    /** Session row, its seats, its hashed keys and event seq 1, in one transaction. */
+    async create(input: CreateSessionInput): Promise<CreateSessionResult> {
+      const { id, joinCode } = input;
+      try {
+        await db.$transaction([
+          db.session.create({
+            data: {
+              id,
+              joinCode,
+              title: input.title,
+              status: input.status ?? "lobby",
+              scenario: json(input.scenario),
+              lastSeq: 1,
+            },
+          }),
+          db.seat.createMany({
+            data: input.seats.map((seat) => ({
+              sessionId: id,
+              index: seat.index,
+              name: seat.name,
+              kind: seat.kind,
+              displayName: seat.displayName ?? null,
+            })),
+          }),
+          db.accessKey.createMany({ data: keyRows(id, input.keys) }),
+          db.event.create({
+            data: {
+              sessionId: id,
+              seq: 1,
+              type: input.firstEvent.type,
+              at: new Date(input.firstEvent.at),
+              payload: json(input.firstEvent.payload),
+            },
+          }),
+        ]);
+        const session = await repo.get(id);
+        if (!session) throw new Error(`session ${id} vanished right after it was created`);
+        return { ok: true, session };
+      } catch (error) {
+        if (isUniqueViolation(error)) {
+          // Ask which one clashed rather than parse the driver's error, which differs by adapter.
+          if (await db.session.findUnique({ where: { id }, select: { id: true } })) {
+            return { ok: false, code: "conflict", field: "id" };
+          }
+          if (await db.session.findUnique({ where: { joinCode }, select: { id: true } })) {
+            return { ok: false, code: "conflict", field: "joinCode" };
+          }
+        }
+        throw error;
+      }
+    },
+
+    async get(id: string): Promise<SessionRecord | null> {
+      const row = await db.session.findUnique({ where: { id }, include: withSeats });
+      return row && sessionRecord(row);
+    },
+
+    async byJoinCode(joinCode: string): Promise<SessionRecord | null> {
+      const row = await db.session.findUnique({ where: { joinCode }, include: withSeats });
+      return row && sessionRecord(row);
+    },
+
+    /** All sessions, newest first, without their scenarios. */
+    async list(): Promise<SessionSummary[]> {
+      return db.session.findMany({ select: summarySelect, orderBy: { createdAt: "desc" } });
+    },
+
+    /** For status changes that carry no event; with events, use events.append's status. */
+    async setStatus(id: string, status: string): Promise<boolean> {
+      const { count } = await db.session.updateMany({ where: { id }, data: { status } });
+      return count === 1;
+    },
+  };
+  return repo;
+}

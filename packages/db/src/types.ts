@@ -1,0 +1,56 @@
+import type { PrismaClient } from "./generated/prisma/client";
+
+export type Db = PrismaClient;
+export type Role = "facilitator" | "seat" | "spectator";
+export type SeatKind = "human" | "computer";
+
+/**
+ * JSON columns (scenario, payload, body) take plain data: anything JSON.stringify keeps.
+ * They come back as parsed JSON (`unknown`), for the caller to validate with its own schema.
+ */
+export interface NewEvent {
+  type: string;
+  /** epoch milliseconds */
+  at: number;
+  payload: unknown;
+}
+
+export interface StoredEvent extends NewEvent {
+  seq: number;
+}
+
+export interface SeatInput {
+  index: number;
+  name: string;
+  kind: SeatKind;
+  displayName?: string | null;
+}
+
+export interface SeatRecord {
+  index: number;
+  name: string;
+  kind: SeatKind;
+  displayName: string | null;
+  claimedAt: Date | null;
+}
+
+export interface KeyInput {
+  role: Role;
+  seatIndex: number | null;
+  plaintext: string;
+}
+
+export interface SessionSummary {
+  id: string;
+  joinCode: string;
+  title: string;
+  status: string;
+  lastSeq: number;
+  createdAt: Date;
+  updatedAt: Date;
+}
+
+export interface SessionRecord extends SessionSummary {
+  scenario: unknown;
+  seats: SeatRecord[];
+}
