@@ -1,0 +1,178 @@
+/**
+ * The `contend` command line. `main` never touches process globals: it gets argv and an io
+ * object, builds the whole output first and returns the exit status (0 ok, 2 bad input,
+ * 1 internal error), so a failed run prints one line on stderr and nothing on stdout.
+ */
+import { normalize } from "../index";
+import type { InputError, Parsed, Scenario } from "../types";
+import { validateScenario } from "../validate";
+import { parseArgs, type ParsedArgs } from "./args";
+import { parseEfforts, runRespond } from "./respondCommand";
+import { runSolve } from "./solveCommand";
+import { runStatics } from "./staticsCommand";
+import { runSweep } from "./sweepCommand";
+
+export interface CliIo {
+  stdout: { write(text: string): unknown };
+  stderr: { write(text: string): unknown };
+  readFile(path: string): Promise<string>;
+}
+
+export const EXIT = { ok: 0, internal: 1, badInput: 2 } as const;
+
+export const HELP = `contend: equilibrium effort in contests (rivals spend costly effort to win one prize)
+
+Usage:
+  contend solve FILE [--json]
+      Nash equilibrium (or leader-follower outcome) with efforts, shares, payoffs,
+      total effort, dissipation and the measured Nash gap; every equilibrium found.
+  contend respond FILE --efforts E1,E2,... [--json]
+      Each rival's best response and regret against the given efforts (one per rival).
+  contend sweep FILE --param PATH --from A --to B --steps N [--json]
+      Solve along a line of one parameter; CSV (default) or JSON series.
+      PATH: prize | csf.decisiveness | csf.scale | rivals.<i>.<cost|value|weight|budget|decisiveness>
+      (rival index i counts from 0 in file order; N points include both ends).
+  contend statics FILE [--json]
+      Derivatives and elasticities of equilibrium efforts with respect to each parameter.
+  contend --help
+
+FILE is a scenario in JSON: {"title", "prize", "csf": {"kind": "ratio"|"logit"|"allpay", ...},
+"rivals": [{"name", "cost", "value"?, "weight"?, "budget"?, "decisiveness"?}], "leader"?, "currency"?}.
+
+Exit status: 0 success, 2 bad input (one line on stderr names the field), 1 internal error.
+A stylised model to aid thinking: not a forecast, not financial or legal advice.
+`;
+
+type Command = "solve" | "respond" | "sweep" | "statics";
+
+const OPTIONS: Record<Command, { valued: string[]; booleans: string[] }> = {
+  solve: { valued: [], booleans: ["json", "help"] },
+  respond: { valued: ["efforts"], booleans: ["json", "help"] },
+  sweep: { valued: ["param", "from", "to", "steps"], booleans: ["json", "help"] },
+  statics: { valued: [], booleans: ["json", "help"] },
+};
+
+function isCommand(x: string): x is Command {
+  return x in OPTIONS;
+}
+
+function errorLine(e: InputError, file?: string): string {
+  const where = [file, e.path].filter((x) => x !== undefined && x !== "").join(": ");
+  return `contend: ${where ? `${where}: ` : ""}${e.message}`.replace(/\s*\n\s*/g, " ");
+}
+
+async function loadScenario(file: string, io: CliIo): Promise<Parsed<Scenario>> {
+  let text: string;
+  try {
+    text = await io.readFile(file);
+  } catch (err) {
+    const code = (err as { code?: string }).code;
+    const why =
+      code === "ENOENT"
+        ? "no such file"
+        : code === "EISDIR"
+          ? "is a directory"
+          : (code ?? "unreadable");
+    return { ok: false, path: "", message: `cannot read scenario file (${why})` };
+  }
+  let json: unknown;
+  try {
+    json = JSON.parse(text);
+  } catch (err) {
+    return { ok: false, path: "", message: `not valid JSON (${(err as Error).message})` };
+  }
+  return validateScenario(json);
+}
+
+async function run(
+  command: Command,
+  args: ParsedArgs,
+  io: CliIo,
+): Promise<{ code: number; out: string; err: string }> {
+  const bad = (e: InputError, file?: string) => ({
+    code: EXIT.badInput,
+    out: "",
+    err: `${errorLine(e, file)}\n`,
+  });
+  const [file, ...extra] = args.positionals;
+  if (file === undefined)
+    return bad({ ok: false, path: "FILE", message: `${command} needs a scenario file` });
+  if (extra.length > 0) {
+    return bad({
+      ok: false,
+      path: extra[0]!,
+      message: `unexpected argument (${command} takes one FILE)`,
+    });
+  }
+  const scenario = await loadScenario(file, io);
+  if (!scenario.ok) return bad(scenario, file);
+  const json = args.booleans.has("json");
+  const contest = normalize(scenario.value);
+  switch (command) {
+    case "solve":
+      return { code: EXIT.ok, out: runSolve(scenario.value, contest, json), err: "" };
+    case "respond": {
+      const raw = args.flags.get("efforts");
+      if (raw === undefined)
+        return bad({ ok: false, path: "--efforts", message: "is required for respond" });
+      const efforts = parseEfforts(raw, contest);
+      if (!efforts.ok) return bad(efforts);
+      return {
+        code: EXIT.ok,
+        out: runRespond(scenario.value, contest, efforts.value, json),
+        err: "",
+      };
+    }
+    case "sweep": {
+      const res = runSweep(scenario.value, args, json);
+      return res.ok ? { code: EXIT.ok, out: res.value, err: "" } : bad(res);
+    }
+    case "statics": {
+      const res = runStatics(scenario.value, json);
+      return res.ok ? { code: EXIT.ok, out: res.value, err: "" } : bad(res, file);
+    }
+  }
+}
+
+export async function main(argv: readonly string[], io: CliIo): Promise<number> {
+  const [first, ...rest] = argv;
+  if (first === undefined) {
+    io.stderr.write(
+      "contend: missing command (solve, respond, sweep, statics); see contend --help\n",
+    );
+    return EXIT.badInput;
+  }
+  if (first === "--help" || first === "-h" || first === "help") {
+    io.stdout.write(HELP);
+    return EXIT.ok;
+  }
+  if (!isCommand(first)) {
+    io.stderr.write(
+      `contend: unknown command "${first}" (use solve, respond, sweep or statics; see contend --help)\n`,
+    );
+    return EXIT.badInput;
+  }
+  const args = parseArgs(rest, OPTIONS[first].valued, OPTIONS[first].booleans);
+  if (!args.ok) {
+    io.stderr.write(`${errorLine(args)}\n`);
+    return EXIT.badInput;
+  }
+  if (args.value.booleans.has("help")) {
+    io.stdout.write(HELP);
+    return EXIT.ok;
+  }
+  try {
+    const res = await run(first, args.value, io);
+    if (res.out) io.stdout.write(res.out);
+    if (res.err) io.stderr.write(res.err);
+    return res.code;
+  } catch (err) {
+    io.stderr.write(
+      `contend: internal error: ${(err as Error).message ?? String(err)}\n`.replace(
+        /\n(?!$)/g,
+        " ",
+      ),
+    );
+    return EXIT.internal;
+  }
+}

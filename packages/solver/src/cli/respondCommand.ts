@@ -1,0 +1,69 @@
+import { respond } from "../index";
+import type { Contest, InputError, Parsed, Scenario } from "../types";
+import { parseNumber } from "./args";
+import { CAUTIONS, money, table } from "./format";
+
+/** "10,20,30" -> one effort per rival, each finite, >= 0 and within the rival's budget. */
+export function parseEfforts(text: string, contest: Contest): Parsed<number[]> {
+  const fail = (message: string): InputError => ({ ok: false, path: "--efforts", message });
+  const parts = text.split(",");
+  const n = contest.rivals.length;
+  if (parts.length !== n) {
+    return fail(
+      `expected ${n} comma-separated efforts (one per rival, in file order), got ${parts.length}`,
+    );
+  }
+  const out: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const x = parseNumber(parts[i]!);
+    const r = contest.rivals[i]!;
+    if (x === null)
+      return fail(`effort ${i + 1} (${r.name}) is not a finite number: "${parts[i]!.trim()}"`);
+    if (x < 0) return fail(`effort ${i + 1} (${r.name}) must be >= 0 (got ${x})`);
+    if (x > r.budget)
+      return fail(`effort ${i + 1} (${r.name}) exceeds its budget ${r.budget} (got ${x})`);
+    out.push(x);
+  }
+  return { ok: true, value: out };
+}
+
+export function runRespond(
+  s: Scenario,
+  contest: Contest,
+  efforts: number[],
+  json: boolean,
+): string {
+  const res = respond(contest, efforts);
+  if (json) {
+    return `${JSON.stringify({
+      bestResponses: res.bestResponses,
+      regrets: res.regrets,
+      payoffs: res.payoffs,
+      nashGap: res.nashGap,
+    })}\n`;
+  }
+  const cur = s.currency;
+  const rows = contest.rivals.map((r, i) => [
+    r.name,
+    money(efforts[i], cur),
+    money(res.payoffs[i], cur),
+    money(res.bestResponses[i], cur),
+    money(res.regrets[i], cur),
+  ]);
+  const total = efforts.reduce((a, b) => a + b, 0);
+  const lines = [
+    s.title,
+    "Best responses to the given efforts (each rival alone re-optimises, the others held fixed)",
+    "",
+    table(["Rival", "Effort", "Payoff", "Best response", "Regret"], rows),
+    "",
+    `Nash gap (largest regret) ${money(res.nashGap, cur)}${res.nashGap <= 1e-6 * s.prize ? ": this profile is an equilibrium" : ""}`,
+  ];
+  if (contest.csf.kind === "ratio" && efforts.some((e) => total - e === 0)) {
+    lines.push(
+      "Note: where all the others spend nothing, any positive effort wins everything; the best response shown is the smallest step.",
+    );
+  }
+  lines.push("", CAUTIONS);
+  return `${lines.join("\n")}\n`;
+}

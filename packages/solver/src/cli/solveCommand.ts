@@ -1,0 +1,118 @@
+import { solve } from "../index";
+import type { Contest, Equilibrium, MixedStrategy, Scenario, SolveResult } from "../types";
+import { CAUTIONS, fmt, money, pct, table } from "./format";
+
+/** Fixed key order so the JSON reads the same for every scenario. */
+export function equilibriumJson(eq: Equilibrium): Record<string, unknown> {
+  const out: Record<string, unknown> = {
+    kind: eq.kind,
+    efforts: eq.efforts,
+    ...(eq.expectedEfforts ? { expectedEfforts: eq.expectedEfforts } : {}),
+    shares: eq.shares,
+    payoffs: eq.payoffs,
+    totalEffort: eq.totalEffort,
+    dissipation: eq.dissipation,
+    active: eq.active,
+    nashGap: eq.nashGap,
+    method: eq.method,
+  };
+  if (eq.note !== undefined) out.note = eq.note;
+  if (eq.strategies) out.strategies = eq.strategies;
+  return out;
+}
+
+export function solveJson(result: SolveResult): string {
+  return `${JSON.stringify({
+    equilibrium: equilibriumJson(result.equilibrium),
+    alternatives: result.alternatives.map(equilibriumJson),
+  })}\n`;
+}
+
+export function describeCsf(s: Scenario): string {
+  switch (s.csf.kind) {
+    case "ratio":
+      return `ratio form (Tullock), decisiveness r = ${fmt(s.csf.decisiveness)}`;
+    case "logit":
+      return `logit form (Hirshleifer), scale k = ${fmt(s.csf.scale)}`;
+    case "allpay":
+      return "all-pay auction (highest effort wins)";
+  }
+}
+
+function strategyText(m: MixedStrategy | undefined): string {
+  if (!m) return "-";
+  const range = `uniform on [${fmt(m.low)}, ${fmt(m.high)}]`;
+  return m.atomAtZero > 0 ? `0 with prob. ${fmt(m.atomAtZero)}, else ${range}` : range;
+}
+
+function status(contest: Contest, eq: Equilibrium, i: number, efforts: number[] | null): string {
+  const r = contest.rivals[i]!;
+  const e = efforts?.[i];
+  const parts: string[] = [];
+  if (contest.leader === i) parts.push("leader");
+  if (eq.kind === "none-pure") return parts.join(", ") || "-";
+  if (e !== undefined && Number.isFinite(r.budget) && e > 0 && e >= r.budget * (1 - 1e-9)) {
+    parts.push("at budget");
+  } else parts.push(eq.active[i] ? "active" : "dropped out");
+  return parts.join(", ");
+}
+
+function equilibriumBlock(s: Scenario, contest: Contest, eq: Equilibrium): string {
+  const cur = s.currency;
+  const mixed = eq.kind === "mixed";
+  const efforts = eq.efforts ?? eq.expectedEfforts ?? null;
+  const header = [
+    "Rival",
+    mixed ? "Expected effort" : "Effort",
+    mixed ? "Win prob." : "Share",
+    mixed ? "Expected payoff" : "Payoff",
+    "Status",
+    ...(mixed ? ["Strategy"] : []),
+  ];
+  const rows = contest.rivals.map((r, i) => [
+    r.name,
+    money(efforts?.[i], cur),
+    pct(eq.shares?.[i]),
+    money(eq.payoffs?.[i], cur),
+    status(contest, eq, i, efforts),
+    ...(mixed ? [strategyText(eq.strategies?.[i])] : []),
+  ]);
+  const lines = [
+    `Equilibrium: ${eq.kind === "none-pure" ? "no pure-strategy equilibrium" : eq.kind} (method: ${eq.method})`,
+  ];
+  if (efforts) {
+    lines.push(
+      table(header, rows),
+      `Total effort ${money(eq.totalEffort, cur)}; dissipation ${pct(eq.dissipation)} of the prize; Nash gap ${fmt(eq.nashGap)}`,
+    );
+  }
+  if (eq.note) lines.push(`Note: ${eq.note}`);
+  return lines.join("\n");
+}
+
+export function solveText(s: Scenario, contest: Contest, result: SolveResult): string {
+  const out: string[] = [
+    s.title,
+    `${describeCsf(s)}; prize ${money(s.prize, s.currency)}; ${contest.rivals.length} rival${contest.rivals.length === 1 ? "" : "s"}`,
+  ];
+  if (contest.leader !== null) {
+    out.push(
+      `Leader-follower game: ${contest.rivals[contest.leader]!.name} commits first, the others then best-respond.`,
+    );
+  }
+  out.push("", equilibriumBlock(s, contest, result.equilibrium));
+  result.alternatives.forEach((alt, k) => {
+    out.push(
+      "",
+      `Alternative ${k + 1} of ${result.alternatives.length}`,
+      equilibriumBlock(s, contest, alt),
+    );
+  });
+  out.push("", CAUTIONS);
+  return `${out.join("\n")}\n`;
+}
+
+export function runSolve(s: Scenario, contest: Contest, json: boolean): string {
+  const result = solve(contest);
+  return json ? solveJson(result) : solveText(s, contest, result);
+}

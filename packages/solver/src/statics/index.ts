@@ -1,0 +1,3 @@
+export * from "./comparativeStatics";
+export * from "./hillmanRileyStatics";
+export * from "./richardson";
