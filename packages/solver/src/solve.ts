@@ -7,21 +7,117 @@
  *   ratio with r_i > 1    -> active-set search with global verification
  *   logit                 -> candidate enumeration with global verification
  */
+import { ratioActiveSetSearch } from "./activeSetSearch";
+import { allPaySymmetric } from "./allPaySymmetric";
+import { allPayTwoRival } from "./allPayTwoRival";
 import { hillmanRileyEquilibrium } from "./hillmanRiley";
+import { leaderFollowerEquilibrium } from "./leaderFollower";
+import { logitSearch } from "./logitSearch";
 import { ntiTwoRival } from "./ntiTwoRival";
 import { noPureEquilibrium, pureEquilibrium } from "./pureEquilibrium";
 import { shareFunctionEquilibrium } from "./shareFunction";
-import { identicalRivals, symmetricRatioEquilibrium } from "./symmetricRatio";
+import {
+  identicalRivals,
+  symmetricExistenceBound,
+  symmetricRatioEquilibrium,
+} from "./symmetricRatio";
 import type { Contest, Equilibrium, SolveOptions, SolveResult } from "./types";
 
 export function solve(contest: Contest, opts: SolveOptions = {}): SolveResult {
-  if (contest.csf.kind === "ratio" && contest.rivals.every((x) => x.r <= 1)) {
+  if (contest.leader !== null) {
+    return { equilibrium: leaderFollowerEquilibrium(contest, opts.gridPoints), alternatives: [] };
+  }
+  const csf = contest.csf;
+  if (csf.kind === "allpay") return solveAllPay(contest, opts);
+  if (csf.kind === "ratio" && contest.rivals.every((x) => x.r <= 1)) {
     return { equilibrium: solveConcaveRatio(contest, opts), alternatives: [] };
   }
+  return solveBySearch(contest, opts);
+}
+
+/** Most equilibria listed in one result; more are counted in the note. */
+const MAX_LISTED = 50;
+
+/** All-pay auction: mixed equilibria only (no pure one exists with two or more rivals). */
+export function solveAllPay(contest: Contest, opts: SolveOptions = {}): SolveResult {
+  const g = opts.gridPoints;
+  if (contest.rivals.length < 2) {
+    return {
+      equilibrium: pureEquilibrium(
+        contest,
+        [0],
+        "single-rival",
+        g,
+        "A lone bidder wins with a zero bid.",
+      ),
+      alternatives: [],
+    };
+  }
+  const sym = allPaySymmetric(contest, g);
+  const two = allPayTwoRival(contest, g);
+  if (sym) return { equilibrium: sym, alternatives: two && contest.rivals.length > 2 ? [two] : [] };
+  if (two) return { equilibrium: two, alternatives: [] };
+  const why = contest.rivals.some((x) => x.weight !== 1)
+    ? "weights other than 1 are not supported in the all-pay auction"
+    : "a budget cap cuts into the equilibrium bidding range (budget-constrained all-pay auctions are not solved here)";
   return {
-    equilibrium: noPureEquilibrium(contest, "unsupported", "This contest type is not solved yet."),
+    equilibrium: noPureEquilibrium(
+      contest,
+      "unsupported",
+      `The all-pay auction has no pure-strategy equilibrium, and its mixed equilibrium is not computed here: ${why}.`,
+    ),
     alternatives: [],
   };
+}
+
+/** Ratio form with some r_i > 1, or logit: verified search over candidate profiles. */
+export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveResult {
+  const n = contest.rivals.length;
+  const csf = contest.csf;
+  const searchOpts = {
+    ...(opts.tolerance === undefined ? {} : { tolerance: opts.tolerance }),
+    ...(opts.gridPoints === undefined ? {} : { gridPoints: opts.gridPoints }),
+  };
+  const found =
+    csf.kind === "logit"
+      ? logitSearch(contest, searchOpts)
+      : ratioActiveSetSearch(contest, searchOpts);
+  const method = csf.kind === "logit" ? "numeric:logit-candidates" : "numeric:active-set";
+  const notes: string[] = [];
+  const first = contest.rivals[0];
+  if (csf.kind === "ratio" && first && identicalRivals(contest) && n >= 2) {
+    const bound = symmetricExistenceBound(n);
+    if (first.r > bound) {
+      notes.push(
+        `The symmetric profile is not an equilibrium: r = ${first.r} exceeds n/(n-1) = ${bound.toPrecision(4)} (Baye, Kovenock & de Vries 1994).`,
+      );
+    }
+  }
+  if (found.length === 0) {
+    const maxR = Math.max(...contest.rivals.map((x) => x.r));
+    if (csf.kind === "ratio" && maxR > 2) {
+      notes.push(
+        "With decisiveness above 2 only mixed-strategy equilibria exist (Baye, Kovenock & de Vries 1994); for r >= 2 one of them dissipates the whole prize (Alcalde & Dahm 2010).",
+      );
+    }
+    notes.unshift(
+      csf.kind === "ratio"
+        ? "No pure-strategy equilibrium found: every candidate set of active rivals failed the global best-response check."
+        : "No pure-strategy equilibrium found among the candidate profiles (each rival at zero, at its cap, or at its single interior optimum).",
+    );
+    return { equilibrium: noPureEquilibrium(contest, method, notes.join(" ")), alternatives: [] };
+  }
+  if (found.length > 1) {
+    notes.push(
+      `${found.length} distinct pure equilibria found${found.length > MAX_LISTED ? ` (the first ${MAX_LISTED} are listed)` : ""}.`,
+    );
+  }
+  const list = found
+    .slice(0, MAX_LISTED)
+    .map((f) => pureEquilibrium(contest, f.efforts, method, opts.gridPoints));
+  const [equilibrium, ...alternatives] = list;
+  if (notes.length > 0) equilibrium!.note = notes.join(" ");
+  return { equilibrium: equilibrium!, alternatives };
 }
 
 /** Ratio form with every r_i <= 1: the pure equilibrium exists and is unique. */

@@ -64,13 +64,19 @@ export interface Contest {
   leader: number | null;
 }
 
-/** A mixed strategy as a piecewise-uniform distribution with an optional atom at zero. */
+/** A mixed strategy: an optional atom at zero plus a continuous part on [low, high]. */
 export interface MixedStrategy {
   /** probability of spending exactly zero */
   atomAtZero: number;
-  /** the rest of the mass is uniform on [low, high] */
+  /** the rest of the mass is spread over [low, high] (uniform unless cdfExponent is set) */
   low: number;
   high: number;
+  /**
+   * shape of the non-atom part: its conditional CDF is ((x - low) / (high - low))^cdfExponent
+   * on [low, high]; omitted or 1 = uniform. The symmetric all-pay equilibrium with n
+   * identical rivals has cdfExponent 1 / (n - 1).
+   */
+  cdfExponent?: number;
   /** expected effort */
   mean: number;
 }
