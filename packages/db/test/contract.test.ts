@@ -1,0 +1,292 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { hashKey, newKey, openDatabase, type Database } from "../src/index";
+import { backends } from "./backends";
+import { event, sessionInput } from "./fixtures";
+
+describe.each(backends)("repositories on $name", (backend) => {
+  let db: Database;
+  let dispose: () => Promise<void>;
+
+  beforeAll(async () => {
+    const fresh = await backend.fresh();
+    dispose = fresh.dispose;
+    db = await openDatabase({ url: fresh.url });
+  });
+
+  afterAll(async () => {
+    await db?.close();
+    await dispose?.();
+  });
+
+  it("openDatabase() on an empty database applies the init migration", () => {
+    expect(db.kind).toBe(backend.name === "postgresql" ? "postgres" : "pglite");
+    expect(db.migrationsApplied).toEqual(["20261202033000_init"]);
+  });
+
+  it("sessions.create(input) writes session, seats, keys and event seq 1 together", async () => {
+    const { input, facilitatorKey } = sessionInput();
+    const created = await db.sessions.create(input);
+    expect(created.ok).toBe(true);
+    if (!created.ok) return;
+    expect(created.session).toMatchObject({
+      id: input.id,
+      joinCode: input.joinCode,
+      title: "Kiosk lease",
+      status: "lobby",
+      lastSeq: 1,
+      scenario: input.scenario,
+    });
+    expect(created.session.seats).toEqual([
+      { index: 0, name: "North Bakery", kind: "human", displayName: null, claimedAt: null },
+      { index: 1, name: "Harbour Bakery", kind: "computer", displayName: null, claimedAt: null },
+    ]);
+    expect(await db.events.list(input.id)).toEqual([
+      { seq: 1, type: "session-created", at: 1_700_000_000_000, payload: { seed: 42 } },
+    ]);
+    expect(await db.keys.resolve(input.id, facilitatorKey)).toEqual({
+      role: "facilitator",
+      seatIndex: null,
+    });
+    expect((await db.sessions.byJoinCode(input.joinCode))?.id).toBe(input.id);
+    expect((await db.sessions.get(input.id))?.seats).toHaveLength(2);
+  });
+
+  it("sessions.create(input) with a taken joinCode returns conflict and writes nothing", async () => {
+    const first = sessionInput();
+    expect((await db.sessions.create(first.input)).ok).toBe(true);
+    const clash = sessionInput({ joinCode: first.input.joinCode });
+    expect(await db.sessions.create(clash.input)).toEqual({
+      ok: false,
+      code: "conflict",
+      field: "joinCode",
+    });
+    expect(await db.sessions.get(clash.input.id)).toBeNull();
+    expect(await db.keys.resolve(clash.input.id, clash.facilitatorKey)).toBeNull();
+    expect(await db.events.list(clash.input.id)).toEqual([]);
+  });
+
+  it("sessions.create(input) with a taken id returns conflict on id", async () => {
+    const first = sessionInput();
+    expect((await db.sessions.create(first.input)).ok).toBe(true);
+    const clash = sessionInput({ id: first.input.id });
+    expect(await db.sessions.create(clash.input)).toEqual({
+      ok: false,
+      code: "conflict",
+      field: "id",
+    });
+    expect(await db.sessions.byJoinCode(clash.input.joinCode)).toBeNull();
+  });
+
+  it("sessions.get/byJoinCode of unknown values return null", async () => {
+    expect(await db.sessions.get("no-such-session")).toBeNull();
+    expect(await db.sessions.byJoinCode("ZZZZZZ9")).toBeNull();
+  });
+
+  it("events.append(id, lastSeq, events) assigns consecutive seqs and list(afterSeq) pages", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    const appended = await db.events.append(input.id, 1, [
+      event("round-opened", 1_700_000_001_000, { round: 1, deadline: null }),
+      event("move-sealed", 1_700_000_001_001, { round: 1, seatIndex: 1, effort: 12.5 }),
+    ]);
+    expect(appended).toEqual({ ok: true, seqs: [2, 3] });
+    const third = await db.events.append(input.id, 3, [event("round-resolved", 1_700_000_002_000)]);
+    expect(third).toEqual({ ok: true, seqs: [4] });
+
+    const all = await db.events.list(input.id);
+    expect(all.map((e) => e.seq)).toEqual([1, 2, 3, 4]);
+    expect(all[2]).toEqual({
+      seq: 3,
+      type: "move-sealed",
+      at: 1_700_000_001_001,
+      payload: { round: 1, seatIndex: 1, effort: 12.5 },
+    });
+    expect((await db.events.list(input.id, 2)).map((e) => e.seq)).toEqual([3, 4]);
+    expect(await db.events.list(input.id, 4)).toEqual([]);
+    expect((await db.sessions.get(input.id))?.lastSeq).toBe(4);
+  });
+
+  it("events.append with a stale expectedLastSeq returns conflict and the current lastSeq", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    await db.events.append(input.id, 1, [event("a", 1)]);
+    expect(await db.events.append(input.id, 1, [event("b", 2)])).toEqual({
+      ok: false,
+      code: "conflict",
+      lastSeq: 2,
+    });
+    expect((await db.events.list(input.id)).map((e) => e.type)).toEqual(["session-created", "a"]);
+  });
+
+  it("events.append to an unknown session returns not-found", async () => {
+    expect(await db.events.append("no-such-session", 0, [event("a", 1)])).toEqual({
+      ok: false,
+      code: "not-found",
+    });
+  });
+
+  it("two concurrent appends with the same expectedLastSeq: exactly one wins", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    const results = await Promise.all([
+      db.events.append(input.id, 1, [event("first", 10)]),
+      db.events.append(input.id, 1, [event("second", 11)]),
+    ]);
+    const winners = results.filter((r) => r.ok);
+    const losers = results.filter((r) => !r.ok);
+    expect(winners).toEqual([{ ok: true, seqs: [2] }]);
+    expect(losers).toEqual([{ ok: false, code: "conflict", lastSeq: 2 }]);
+    const log = await db.events.list(input.id);
+    expect(log).toHaveLength(2);
+    expect(["first", "second"]).toContain(log[1]!.type);
+  });
+
+  it("eight writers that retry on conflict leave a gapless log with every event once", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    const writers = Array.from({ length: 8 }, async (_, w) => {
+      let expected = 1;
+      for (let attempt = 0; attempt < 50; attempt++) {
+        const result = await db.events.append(input.id, expected, [event("write", w, { w })]);
+        if (result.ok) return attempt;
+        if (result.code !== "conflict") throw new Error(`unexpected ${result.code}`);
+        expected = result.lastSeq;
+      }
+      throw new Error("writer starved");
+    });
+    await Promise.all(writers);
+    const log = await db.events.list(input.id);
+    expect(log.map((e) => e.seq)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9]);
+    const writersSeen = log.slice(1).map((e) => (e.payload as { w: number }).w);
+    expect([...writersSeen].sort()).toEqual([0, 1, 2, 3, 4, 5, 6, 7]);
+  });
+
+  it("events.append effects: status, seat claim and key commit with the events", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    const claimKey = newKey();
+    const claimed = await db.events.append(
+      input.id,
+      1,
+      [event("seat-claimed", 5, { seatIndex: 0, displayName: "Ada" })],
+      {
+        status: "lobby",
+        claimSeats: [{ seatIndex: 0, displayName: "Ada" }],
+        addKeys: [{ role: "seat", seatIndex: 0, plaintext: claimKey }],
+      },
+    );
+    expect(claimed).toEqual({ ok: true, seqs: [2] });
+    const seat = (await db.seats.list(input.id))[0]!;
+    expect(seat.displayName).toBe("Ada");
+    expect(seat.claimedAt).toBeInstanceOf(Date);
+    expect(await db.keys.resolve(input.id, claimKey)).toEqual({ role: "seat", seatIndex: 0 });
+
+    const opened = await db.events.append(input.id, 2, [event("round-opened", 6)], {
+      status: "open",
+    });
+    expect(opened.ok).toBe(true);
+    expect((await db.sessions.get(input.id))?.status).toBe("open");
+  });
+
+  it("events.append claiming a taken seat rolls back events, status and keys", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    expect((await db.seats.claim(input.id, 1, "Bo")).ok).toBe(true);
+    const lateKey = newKey();
+    const result = await db.events.append(input.id, 1, [event("seat-claimed", 7)], {
+      status: "should-not-stick",
+      claimSeats: [{ seatIndex: 1, displayName: "Cy" }],
+      addKeys: [{ role: "seat", seatIndex: 1, plaintext: lateKey }],
+    });
+    expect(result).toEqual({ ok: false, code: "seat-claimed", seatIndex: 1 });
+    const session = await db.sessions.get(input.id);
+    expect(session?.lastSeq).toBe(1);
+    expect(session?.status).toBe("lobby");
+    expect(session?.seats[1]?.displayName).toBe("Bo");
+    expect(await db.events.list(input.id)).toHaveLength(1);
+    expect(await db.keys.resolve(input.id, lateKey)).toBeNull();
+  });
+
+  it("seats.claim: first claim wins, a second or concurrent one gets seat-claimed", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    const [a, b] = await Promise.all([
+      db.seats.claim(input.id, 0, "Ann"),
+      db.seats.claim(input.id, 0, "Ben"),
+    ]);
+    expect([a.ok, b.ok].filter(Boolean)).toHaveLength(1);
+    const winner = a.ok ? "Ann" : "Ben";
+    expect((await db.seats.list(input.id))[0]?.displayName).toBe(winner);
+    expect(await db.seats.claim(input.id, 0, "Cat")).toEqual({ ok: false, code: "seat-claimed" });
+    expect(await db.seats.claim(input.id, 9, "Dan")).toEqual({ ok: false, code: "not-found" });
+  });
+
+  it("keys are stored as sha256 hex only; resolve works; wrong key or session gives null", async () => {
+    const { input, facilitatorKey, seatKeys } = sessionInput();
+    await db.sessions.create(input);
+    const spectatorKey = newKey();
+    await db.keys.add(input.id, "spectator", null, spectatorKey);
+
+    const rows = await db.prisma.accessKey.findMany({ where: { sessionId: input.id } });
+    expect(rows).toHaveLength(4);
+    const plaintexts = [facilitatorKey, ...seatKeys, spectatorKey];
+    const stored = JSON.stringify(rows);
+    for (const key of plaintexts) expect(stored).not.toContain(key);
+    expect(rows.map((r) => r.hash).sort()).toEqual(plaintexts.map(hashKey).sort());
+    for (const row of rows) expect(row.hash).toMatch(/^[0-9a-f]{64}$/);
+
+    expect(await db.keys.resolve(input.id, seatKeys[1]!)).toEqual({ role: "seat", seatIndex: 1 });
+    expect(await db.keys.resolve(input.id, spectatorKey)).toEqual({
+      role: "spectator",
+      seatIndex: null,
+    });
+    expect(await db.keys.resolve(input.id, newKey())).toBeNull();
+    expect(await db.keys.resolve(input.id, facilitatorKey.slice(0, -1))).toBeNull();
+
+    const other = sessionInput();
+    await db.sessions.create(other.input);
+    expect(await db.keys.resolve(other.input.id, facilitatorKey)).toBeNull();
+  });
+
+  it("sessions.list() is newest first; setStatus changes status and bumps updatedAt", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    const before = await db.sessions.get(input.id);
+    await new Promise((r) => setTimeout(r, 5));
+    expect(await db.sessions.setStatus(input.id, "ended")).toBe(true);
+    expect(await db.sessions.setStatus("no-such-session", "ended")).toBe(false);
+    const after = await db.sessions.get(input.id);
+    expect(after?.status).toBe("ended");
+    expect(after!.updatedAt.getTime()).toBeGreaterThan(before!.updatedAt.getTime());
+
+    const list = await db.sessions.list();
+    expect(list[0]?.id).toBe(input.id);
+    expect(list[0]).not.toHaveProperty("scenario");
+    const created = list.map((s) => s.createdAt.getTime());
+    expect(created).toEqual([...created].sort((x, y) => y - x));
+  });
+
+  it("events.countOfType(type) counts per session", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    await db.events.append(input.id, 1, [
+      event("round-resolved", 1),
+      event("round-opened", 2),
+      event("round-resolved", 3),
+    ]);
+    const counts = await db.events.countOfType("round-resolved");
+    expect(counts[input.id]).toBe(2);
+  });
+
+  it("scenarios.save/list/get keep the body as written and replace by id", async () => {
+    const body = { title: "Kiosk lease", prize: 100, rivals: [{ name: "North Bakery", cost: 1 }] };
+    const saved = await db.scenarios.save({ title: "Kiosk lease", body });
+    expect(saved.body).toEqual(body);
+    expect(await db.scenarios.get(saved.id)).toEqual(saved);
+    const replaced = await db.scenarios.save({ id: saved.id, title: "Kiosk lease v2", body: {} });
+    expect(replaced.id).toBe(saved.id);
+    expect((await db.scenarios.get(saved.id))?.title).toBe("Kiosk lease v2");
+    expect((await db.scenarios.list()).map((s) => s.id)).toContain(saved.id);
+    expect(await db.scenarios.get("no-such-scenario")).toBeNull();
+  });
+});

@@ -1,0 +1,40 @@
+import { newJoinCode, newKey, type CreateSessionInput } from "../src/index";
+
+let counter = 0;
+
+/** An invented two-seat session: two bakeries bidding for a station kiosk lease. */
+export function sessionInput(overrides: Partial<CreateSessionInput> = {}) {
+  counter += 1;
+  const facilitatorKey = newKey();
+  const seatKeys = [newKey(), newKey()];
+  const input: CreateSessionInput = {
+    id: `session-${counter}-${Math.random().toString(36).slice(2, 8)}`,
+    joinCode: newJoinCode(),
+    title: "Kiosk lease",
+    scenario: {
+      title: "Kiosk lease",
+      prize: 100,
+      csf: { kind: "ratio", decisiveness: 1 },
+      rivals: [
+        { name: "North Bakery", cost: 1 },
+        { name: "Harbour Bakery", cost: 1.5 },
+      ],
+    },
+    seats: [
+      { index: 0, name: "North Bakery", kind: "human" },
+      { index: 1, name: "Harbour Bakery", kind: "computer" },
+    ],
+    keys: [
+      { role: "facilitator", seatIndex: null, plaintext: facilitatorKey },
+      { role: "seat", seatIndex: 0, plaintext: seatKeys[0]! },
+      { role: "seat", seatIndex: 1, plaintext: seatKeys[1]! },
+    ],
+    firstEvent: { type: "session-created", at: 1_700_000_000_000, payload: { seed: 42 } },
+    ...overrides,
+  };
+  return { input, facilitatorKey, seatKeys };
+}
+
+export function event(type: string, at: number, payload: unknown = {}) {
+  return { type, at, payload };
+}
