@@ -12,7 +12,6 @@ export {
 } from "./numbers";
 export { contestScenarioSchema, csfSpecSchema, rivalSpecSchema } from "./contest";
 export { policySpecSchema } from "./policy";
-export type { PolicySpecInput } from "./policy";
 export { sessionSettingsSchema } from "./settings";
 export type { SessionSettings, SessionSettingsInput } from "./settings";
 export { sessionScenarioSchema } from "./sessionScenario";

@@ -1,17 +1,18 @@
 /**
- * Computer-played rival policies, mirroring the solver's `PolicySpec`. A compile-time check in
- * the tests keeps this schema and the solver type identical.
+ * Computer-played rival policies. The solver's `validatePolicySpec` is the one policy
+ * validator; this schema wraps it so its problems arrive as zod issues with a path.
  */
 import { z } from "zod";
+import { validatePolicySpec } from "@contend/solver";
+import type { PolicySpec } from "@contend/solver";
 
-export const policySpecSchema = z.discriminatedUnion("kind", [
-  z.strictObject({ kind: z.literal("equilibrium") }),
-  z.strictObject({ kind: z.literal("best-response") }),
-  z.strictObject({ kind: z.literal("fictitious-play") }),
-  z.strictObject({
-    kind: z.literal("overspender"),
-    factor: z.number().gt(0).max(10).optional(),
-  }),
-]);
+function toPath(dotted: string): string[] {
+  return dotted === "" ? [] : dotted.split(".");
+}
 
-export type PolicySpecInput = z.input<typeof policySpecSchema>;
+export const policySpecSchema = z.unknown().transform((raw, ctx): PolicySpec => {
+  const r = validatePolicySpec(raw);
+  if (r.ok) return r.value;
+  ctx.addIssue({ code: "custom", message: r.message, path: toPath(r.path) });
+  return z.NEVER;
+});

@@ -1,0 +1,47 @@
+/**
+ * Moves of computer-played seats, made when a round opens. Each uses the solver's policy,
+ * seeded from (session seed, round, seat), and sees the efforts of earlier rounds mapped onto
+ * this round's rivals (a seat that did not play a round counts as zero effort in it).
+ */
+import { clampEffort, createPolicy, normalize } from "@contend/solver";
+import type { Scenario } from "@contend/solver";
+import { LIMITS } from "@contend/protocol";
+import type { EventOf, RoundResult } from "@contend/protocol";
+import type { SeatState } from "./state";
+import { computerSeed } from "./seeds";
+
+export function computerMoveId(round: number, seatIndex: number): string {
+  return `computer-r${round}-s${seatIndex}`;
+}
+
+export function computerMoves(input: {
+  seed: number;
+  round: number;
+  scenario: Scenario;
+  seatIndices: number[];
+  seats: readonly SeatState[];
+  history: readonly RoundResult[];
+  step: number;
+}): EventOf<"move-sealed">[] {
+  const contest = normalize(input.scenario);
+  const history = input.history.map((r) => ({
+    efforts: input.seatIndices.map((i) => r.efforts[i] ?? 0),
+  }));
+  const out: EventOf<"move-sealed">[] = [];
+  input.seatIndices.forEach((seatIndex, self) => {
+    const spec = input.seats[seatIndex]?.policy;
+    if (!spec) return;
+    const policy = createPolicy(spec, computerSeed(input.seed, input.round, seatIndex));
+    const raw = policy.decide({ contest, self, history, step: input.step });
+    const budget = Math.min(contest.rivals[self]!.budget, LIMITS.effortMax);
+    out.push({
+      type: "move-sealed",
+      round: input.round,
+      seatIndex,
+      effort: clampEffort(raw, budget, input.step),
+      clientMoveId: computerMoveId(input.round, seatIndex),
+      by: "computer",
+    });
+  });
+  return out;
+}

@@ -1,0 +1,294 @@
+/**
+ * decide(state, command, ctx): the rules of a live session. Returns the events the command
+ * causes (the caller stamps and commits them, then applies them) or a rejection; it never
+ * changes anything itself and never reads the clock (ctx.now). Rule numbers (R1...) match the
+ * protocol document and the tests.
+ */
+import { validateScenario } from "@contend/solver";
+import { LIMITS } from "@contend/protocol";
+import type { CloseReason, Command, CommandOf, EventBody, Role } from "@contend/protocol";
+import { computerMoves } from "./computer";
+import { onStep, withinBudget } from "./effort";
+import { resolveRound } from "./resolve";
+import type { Decision } from "./result";
+import { accept, reject } from "./result";
+import { applyChanges } from "./shocks";
+import type { LiveState, SessionState } from "./state";
+import { activeContest } from "./state";
+
+/** Who sends a command. "system" is the server itself (round clock, all-sealed close). */
+export interface Actor {
+  role: Role | "system";
+  /** the seat a seat actor holds */
+  seatIndex?: number;
+}
+
+export interface DecideContext {
+  /** epoch ms, supplied by the caller */
+  now: number;
+  actor: Actor;
+}
+
+/** Only the server closes a round for the clock or because every seat has sealed. */
+export type SystemCommand = { type: "closeRound"; reason: Exclude<CloseReason, "facilitator"> };
+
+export type EngineCommand = Command | SystemCommand;
+
+const FACILITATOR_COMMANDS = new Set<Command["type"]>([
+  "openRound",
+  "closeRound",
+  "applyShock",
+  "pause",
+  "resume",
+  "endSession",
+  "setSeatPolicy",
+]);
+
+function isSystem(command: EngineCommand): command is SystemCommand {
+  return command.type === "closeRound" && "reason" in command;
+}
+
+/** R1-R3: who may send what. */
+function checkRole(command: EngineCommand, actor: Actor): Decision | null {
+  if (isSystem(command)) {
+    return actor.role === "system"
+      ? null
+      : reject("forbidden", "R1: only the server closes a round for the clock or all-sealed");
+  }
+  if (actor.role === "spectator") {
+    return reject("forbidden", "R2: spectators watch; they cannot send commands");
+  }
+  if (FACILITATOR_COMMANDS.has(command.type)) {
+    return actor.role === "facilitator"
+      ? null
+      : reject("forbidden", `R1: only the facilitator may ${command.type}`);
+  }
+  if (command.type === "sealMove") {
+    return actor.role === "seat" && actor.seatIndex !== undefined
+      ? null
+      : reject("forbidden", "R7: only a seat may seal a move, and only for itself");
+  }
+  if (command.type !== "claimSeat") throw new Error(`unrouted command ${command.type}`);
+  if (actor.role === "guest") return null;
+  if (actor.role === "seat" && actor.seatIndex === command.seatIndex) return null;
+  return reject(
+    "forbidden",
+    "R3: a seat is claimed by a guest with the join code, or by its own key",
+  );
+}
+
+export function decide(state: SessionState, command: EngineCommand, ctx: DecideContext): Decision {
+  if (state.status === "empty") return reject("not-found", "no such session");
+  const denied = checkRole(command, ctx.actor);
+  if (denied) return denied;
+  if (state.status === "ended") {
+    return reject("wrong-state", "R4: the session has ended; nothing more can change");
+  }
+  if (isSystem(command)) return closeRound(state, command.reason);
+  switch (command.type) {
+    case "claimSeat":
+      return claimSeat(state, command, ctx.actor);
+    case "setSeatPolicy":
+      return setSeatPolicy(state, command);
+    case "pause":
+      return pause(state, ctx.now);
+    case "resume":
+      return resume(state, ctx.now);
+    case "endSession":
+      return endSession(state);
+    case "openRound":
+      return openRound(state, command, ctx.now);
+    case "closeRound":
+      return closeRound(state, "facilitator");
+    case "sealMove":
+      return sealMove(state, command, ctx.actor.seatIndex as number);
+    case "applyShock":
+      return applyShock(state, command);
+    default: {
+      const never: never = command;
+      throw new Error(`unknown command ${JSON.stringify(never)}`);
+    }
+  }
+}
+
+function notPaused(state: LiveState, what: string): Decision | null {
+  return state.paused
+    ? reject("wrong-state", `R5: the session is paused; resume before ${what}`)
+    : null;
+}
+
+function claimSeat(state: LiveState, command: CommandOf<"claimSeat">, actor: Actor): Decision {
+  const seat = state.seats[command.seatIndex];
+  if (!seat)
+    return reject("not-found", `seatIndex: there is no seat ${command.seatIndex}`, "seatIndex");
+  if (seat.claimed) {
+    if (actor.role === "seat") return accept([], { kind: "claimSeat", seatIndex: seat.index });
+    return reject("conflict", `R6: seat ${seat.index} (${seat.name}) is already taken`);
+  }
+  if (seat.policy) {
+    return reject("conflict", `R6: seat ${seat.index} (${seat.name}) is played by the computer`);
+  }
+  if (!seat.active) return reject("conflict", `R6: seat ${seat.index} (${seat.name}) is retired`);
+  return accept(
+    [{ type: "seat-claimed", seatIndex: seat.index, displayName: command.displayName }],
+    {
+      kind: "claimSeat",
+      seatIndex: seat.index,
+    },
+  );
+}
+
+function setSeatPolicy(state: LiveState, command: CommandOf<"setSeatPolicy">): Decision {
+  const seat = state.seats[command.seatIndex];
+  if (!seat)
+    return reject("not-found", `seatIndex: there is no seat ${command.seatIndex}`, "seatIndex");
+  if (state.status === "open") {
+    return reject("wrong-state", "R15: change who plays a seat between rounds, not during one");
+  }
+  if (!seat.active)
+    return reject("wrong-state", `R15: seat ${seat.index} (${seat.name}) is retired`);
+  return accept([{ type: "seat-policy-set", seatIndex: seat.index, policy: command.policy }]);
+}
+
+function pause(state: LiveState, now: number): Decision {
+  if (state.paused) return reject("wrong-state", "R16: the session is already paused");
+  const deadline = state.status === "open" ? state.open.deadline : null;
+  const remainingMs = deadline === null ? null : Math.max(0, deadline - now);
+  return accept([{ type: "paused", remainingMs }]);
+}
+
+function resume(state: LiveState, now: number): Decision {
+  if (!state.paused) return reject("wrong-state", "R16: the session is not paused");
+  const deadline =
+    state.status === "open" && state.remainingMs !== null ? now + state.remainingMs : null;
+  return accept([{ type: "resumed", deadline }]);
+}
+
+function endSession(state: LiveState): Decision {
+  const events: EventBody[] = [];
+  // R17: ending during a round resolves it with the moves sealed so far.
+  if (state.status === "open") events.push(resolveRound(state, state.open, "facilitator"));
+  events.push({ type: "session-ended", reason: "facilitator" });
+  return accept(events);
+}
+
+function openRound(state: LiveState, command: CommandOf<"openRound">, now: number): Decision {
+  if (state.status === "open")
+    return reject("wrong-state", `R8: round ${state.open.round} is still open`);
+  const paused = notPaused(state, "opening a round");
+  if (paused) return paused;
+  const round = state.rounds.length + 1;
+  if (round > state.settings.rounds) {
+    return reject("wrong-state", `R8: all ${state.settings.rounds} rounds have been played`);
+  }
+  const { scenario, seatIndices } = activeContest(state);
+  const valid = validateScenario(scenario);
+  if (!valid.ok) throw new Error(`active contest is invalid: ${valid.path}: ${valid.message}`);
+  const seconds =
+    command.durationSeconds === undefined ? state.settings.clockSeconds : command.durationSeconds;
+  const deadline = seconds === null ? null : now + Math.round(seconds * 1000);
+  const moves = computerMoves({
+    seed: state.seed,
+    round,
+    scenario: valid.value,
+    seatIndices,
+    seats: state.seats,
+    history: state.rounds,
+    step: state.settings.effortStep,
+  });
+  return accept([
+    { type: "round-opened", round, scenario: valid.value, seatIndices, deadline },
+    ...moves,
+  ]);
+}
+
+function closeRound(state: LiveState, reason: CloseReason): Decision {
+  if (state.status !== "open") return reject("wrong-state", "R9: no round is open");
+  const paused = notPaused(state, "closing the round");
+  if (paused) return paused;
+  const events: EventBody[] = [resolveRound(state, state.open, reason)];
+  // R18: the last round's resolution ends the session.
+  if (state.open.round >= state.settings.rounds) {
+    events.push({ type: "session-ended", reason: "rounds-complete" });
+  }
+  return accept(events);
+}
+
+function sealMove(state: LiveState, command: CommandOf<"sealMove">, seatIndex: number): Decision {
+  if (state.status !== "open") return reject("wrong-state", "R10: no round is open");
+  const open = state.open;
+  if (command.round !== undefined && command.round !== open.round) {
+    return reject(
+      "wrong-state",
+      `round: the move is for round ${command.round} but round ${open.round} is open`,
+      "round",
+    );
+  }
+  const paused = notPaused(state, "sealing a move");
+  if (paused) return paused;
+  const seat = state.seats[seatIndex];
+  const k = open.seatIndices.indexOf(seatIndex);
+  if (!seat || k < 0) return reject("forbidden", `R11: seat ${seatIndex} does not play this round`);
+  if (seat.policy) return reject("forbidden", `R11: seat ${seatIndex} is played by the computer`);
+
+  const current = open.moves[seatIndex] ?? null;
+  const data = (effort: number, clientMoveId: string) =>
+    ({ kind: "sealMove", round: open.round, seatIndex, clientMoveId, effort }) as const;
+  if (current && current.clientMoveId === command.clientMoveId) {
+    // R13: a repeated clientMoveId is the same move: same ack, nothing new in the log.
+    return accept([], data(current.effort, current.clientMoveId));
+  }
+  if (current?.replacedIds.includes(command.clientMoveId)) {
+    return reject(
+      "conflict",
+      `clientMoveId: ${JSON.stringify(command.clientMoveId)} was used for a move that has since been replaced`,
+      "clientMoveId",
+    );
+  }
+  const step = state.settings.effortStep;
+  if (!onStep(command.effort, step)) {
+    return reject(
+      "bad-request",
+      `effort: R12: must be a multiple of ${step} (got ${command.effort})`,
+      "effort",
+    );
+  }
+  const budget = open.scenario.rivals[k]!.budget;
+  if (!withinBudget(command.effort, budget)) {
+    return reject(
+      "bad-request",
+      `effort: R12: must be at most the budget ${budget} (got ${command.effort})`,
+      "effort",
+    );
+  }
+  if (command.effort > LIMITS.effortMax) {
+    return reject("bad-request", `effort: must be <= ${LIMITS.effortMax}`, "effort");
+  }
+  return accept(
+    [
+      {
+        type: "move-sealed",
+        round: open.round,
+        seatIndex,
+        effort: command.effort,
+        clientMoveId: command.clientMoveId,
+        by: "seat",
+      },
+    ],
+    data(command.effort, command.clientMoveId),
+  );
+}
+
+function applyShock(state: LiveState, command: CommandOf<"applyShock">): Decision {
+  if (state.status === "open") {
+    return reject(
+      "wrong-state",
+      `R14: shocks apply between rounds; close round ${state.open.round} first`,
+    );
+  }
+  const paused = notPaused(state, "applying a shock");
+  if (paused) return paused;
+  const next = applyChanges(state, command.changes);
+  if (!next.ok) return next;
+  return accept([{ type: "shock-applied", changes: command.changes, scenario: next.scenario }]);
+}

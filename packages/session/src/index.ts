@@ -1,0 +1,20 @@
+export { initialState, activeContest } from "./state";
+export type {
+  LiveState,
+  OpenRound,
+  SealedMove,
+  SeatState,
+  SessionCore,
+  SessionState,
+} from "./state";
+export { apply, fold } from "./apply";
+export { decide } from "./decide";
+export type { Actor, DecideContext, EngineCommand, SystemCommand } from "./decide";
+export type { DecideData, Decision, Rejection } from "./result";
+export { viewFor } from "./view";
+export type { Viewer } from "./view";
+export { allSealed, deadline } from "./timers";
+export { createSession } from "./create";
+export { computerSeed, drawSeedFor } from "./seeds";
+export { computerMoveId } from "./computer";
+export { EFFORT_TOLERANCE, onStep, withinBudget } from "./effort";

@@ -1,0 +1,105 @@
+/**
+ * Resolution of a round: every number the review screen shows is computed here, once, with
+ * the solver, and stored in the round-resolved event.
+ * - payoff u_i = v_i p_i - m_i e_i (risk neutral; shares mode, and the expected payoff in
+ *   winner mode); winner mode realises v_i [i won] - m_i e_i with the winner drawn with
+ *   probability p_i from a recorded seed.
+ * - best responses, regrets and the Nash gap of the played profile: solver `respond`.
+ * - the round's equilibrium: solver `solve`; dissipation of play: sum m_i e_i / prize.
+ */
+import {
+  clampEffort,
+  dissipation,
+  drawWinner,
+  mulberry32,
+  normalize,
+  payoffs,
+  respond,
+  shares,
+  solve,
+} from "@contend/solver";
+import type { CloseReason, EventOf } from "@contend/protocol";
+import type { OpenRound, SessionCore } from "./state";
+import { drawSeedFor } from "./seeds";
+
+/** Efforts of the round's seats in round order, and which were filled in by the missing-move rule. */
+export function playedEfforts(core: SessionCore, open: OpenRound) {
+  const contest = normalize(open.scenario);
+  const last = core.rounds.at(-1);
+  const efforts: number[] = [];
+  const defaulted: boolean[] = [];
+  open.seatIndices.forEach((seatIndex, k) => {
+    const move = open.moves[seatIndex];
+    if (move) {
+      efforts.push(move.effort);
+      defaulted.push(false);
+      return;
+    }
+    defaulted.push(true);
+    const before =
+      core.settings.missingMove === "repeat" && last?.seatIndices.includes(seatIndex)
+        ? (last.efforts[seatIndex] ?? 0)
+        : 0;
+    // A repeated effort may no longer fit a budget cut by a shock since.
+    efforts.push(clampEffort(before, contest.rivals[k]!.budget, core.settings.effortStep));
+  });
+  return { contest, efforts, defaulted };
+}
+
+function perSeat(n: number, seatIndices: number[], values: readonly number[]): number[] {
+  const out = new Array<number>(n).fill(0);
+  seatIndices.forEach((seat, k) => {
+    out[seat] = values[k] ?? 0;
+  });
+  return out;
+}
+
+export function resolveRound(
+  core: SessionCore,
+  open: OpenRound,
+  reason: CloseReason,
+): EventOf<"round-resolved"> {
+  const { contest, efforts, defaulted } = playedEfforts(core, open);
+  const n = core.seats.length;
+  const seats = open.seatIndices;
+  const p = shares(contest, efforts);
+  const expected = payoffs(contest, efforts);
+  const responses = respond(contest, efforts);
+  const equilibrium = solve(contest).equilibrium;
+
+  let winner: number | null = null;
+  let drawSeed: number | null = null;
+  let realised = expected;
+  if (core.settings.outcome === "winner") {
+    drawSeed = drawSeedFor(core.seed, open.round);
+    const k = drawWinner(p, mulberry32(drawSeed));
+    winner = seats[k]!;
+    realised = contest.rivals.map((r, i) => (i === k ? r.value : 0) - r.cost * efforts[i]!);
+  }
+
+  const payoffsBySeat = perSeat(n, seats, realised);
+  const totals = payoffsBySeat.map((u, i) => (core.totals[i] ?? 0) + u);
+  const defaultedBySeat = new Array<boolean>(n).fill(false);
+  seats.forEach((seat, k) => {
+    defaultedBySeat[seat] = defaulted[k]!;
+  });
+
+  return {
+    type: "round-resolved",
+    round: open.round,
+    reason,
+    efforts: perSeat(n, seats, efforts),
+    defaulted: defaultedBySeat,
+    shares: perSeat(n, seats, p),
+    winner,
+    drawSeed,
+    payoffs: payoffsBySeat,
+    expectedPayoffs: perSeat(n, seats, expected),
+    totals,
+    bestResponses: perSeat(n, seats, responses.bestResponses),
+    regrets: perSeat(n, seats, responses.regrets),
+    equilibrium,
+    nashGap: responses.nashGap,
+    dissipation: dissipation(contest, efforts),
+  };
+}

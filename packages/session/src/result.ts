@@ -1,0 +1,25 @@
+import type { ErrorCode, EventBody } from "@contend/protocol";
+
+/** decide() refused the command: nothing happened. */
+export interface Rejection {
+  ok: false;
+  code: ErrorCode;
+  message: string;
+  path?: string;
+}
+
+/** Ack data the engine knows; the server adds `seq` (and a seat key for claims). */
+export type DecideData =
+  | { kind: "sealMove"; round: number; seatIndex: number; clientMoveId: string; effort: number }
+  | { kind: "claimSeat"; seatIndex: number }
+  | { kind: "none" };
+
+export type Decision = { ok: true; events: EventBody[]; data: DecideData } | Rejection;
+
+export function reject(code: ErrorCode, message: string, path?: string): Rejection {
+  return path === undefined ? { ok: false, code, message } : { ok: false, code, message, path };
+}
+
+export function accept(events: EventBody[], data: DecideData = { kind: "none" }): Decision {
+  return { ok: true, events, data };
+}

@@ -1,0 +1,84 @@
+/**
+ * The state a session's event log folds into. Status is a discriminated union; `paused` is a
+ * flag on top of it. Arrays indexed by seat grow when a shock adds a rival; seats are never
+ * removed (a retired rival's seat stays with active = false).
+ */
+import type { PolicySpec, Scenario } from "@contend/solver";
+import type {
+  EndReason,
+  RoundResult,
+  SessionScenario,
+  SessionSettings,
+  ShockRecord,
+} from "@contend/protocol";
+
+export interface SeatState {
+  index: number;
+  name: string;
+  /** non-null: played by the computer with this policy */
+  policy: PolicySpec | null;
+  claimed: boolean;
+  displayName: string | null;
+  active: boolean;
+}
+
+export interface SealedMove {
+  effort: number;
+  clientMoveId: string;
+  by: "seat" | "computer";
+  /** clientMoveIds of moves this one replaced in the same round */
+  replacedIds: string[];
+}
+
+export interface OpenRound {
+  round: number;
+  /** active rivals only, in seat order */
+  scenario: Scenario;
+  seatIndices: number[];
+  /** null while paused or when the round has no clock */
+  deadline: number | null;
+  /** indexed by seat */
+  moves: (SealedMove | null)[];
+}
+
+export interface SessionCore {
+  sessionId: string;
+  /** seq of the last event applied */
+  seq: number;
+  /** `at` of the last event applied */
+  at: number;
+  seed: number;
+  /** the scenario the session was created with */
+  initial: SessionScenario;
+  settings: SessionSettings;
+  /** current contest; rivals[k] belongs to seat k, retired ones included */
+  scenario: Scenario;
+  seats: SeatState[];
+  rounds: RoundResult[];
+  /** running totals of realised payoffs, indexed by seat */
+  totals: number[];
+  shocks: ShockRecord[];
+  paused: boolean;
+  /** while paused in an open round with a clock: the time that was left */
+  remainingMs: number | null;
+}
+
+export type SessionState =
+  | { status: "empty"; seq: 0 }
+  | (SessionCore & { status: "lobby" })
+  | (SessionCore & { status: "open"; open: OpenRound })
+  | (SessionCore & { status: "review" })
+  | (SessionCore & { status: "ended"; endedReason: EndReason });
+
+export type LiveState = Exclude<SessionState, { status: "empty" }>;
+
+export function initialState(): SessionState {
+  return { status: "empty", seq: 0 };
+}
+
+/** Contest of the active seats only, with the seat behind each of its rivals. */
+export function activeContest(core: SessionCore): { scenario: Scenario; seatIndices: number[] } {
+  const seatIndices = core.seats.filter((s) => s.active).map((s) => s.index);
+  const rivals = seatIndices.map((i) => core.scenario.rivals[i]!);
+  return { scenario: { ...core.scenario, rivals }, seatIndices };
+}

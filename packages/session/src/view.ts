@@ -1,0 +1,59 @@
+/**
+ * viewFor(state, viewer): what one connection may see (R23). Sealed efforts of the open round
+ * appear only in their owner's `you`; everyone sees which seats have sealed. Computer
+ * policies are shown to the facilitator only. Resolved rounds are public to every role.
+ */
+import type { RoleView, Role, SeatView } from "@contend/protocol";
+import type { SessionState } from "./state";
+
+export interface Viewer {
+  role: Role;
+  /** for role "seat" */
+  seatIndex?: number;
+}
+
+export function viewFor(state: SessionState, viewer: Viewer): RoleView {
+  if (state.status === "empty") throw new Error("viewFor: the session has no events yet");
+  const open = state.status === "open" ? state.open : null;
+  const seats: SeatView[] = state.seats.map((s) => {
+    const seat: SeatView = {
+      index: s.index,
+      name: s.name,
+      kind: s.policy ? "computer" : "human",
+      claimed: s.claimed,
+      displayName: s.displayName,
+      sealed: (open?.moves[s.index] ?? null) !== null,
+      active: s.active,
+    };
+    if (viewer.role === "facilitator") seat.policy = s.policy;
+    return seat;
+  });
+  const view: RoleView = {
+    role: viewer.role,
+    sessionId: state.sessionId,
+    title: state.scenario.title,
+    status: state.status,
+    paused: state.paused,
+    remainingMs: state.remainingMs,
+    endedReason: state.status === "ended" ? state.endedReason : null,
+    settings: state.settings,
+    round: open ? open.round : state.rounds.length,
+    roundsTotal: state.settings.rounds,
+    deadline: open ? open.deadline : null,
+    scenario: state.scenario,
+    roundSeats: open ? open.seatIndices : null,
+    seats,
+    rounds: state.rounds,
+    totals: state.totals,
+    shocks: state.shocks,
+  };
+  if (viewer.role === "seat" && viewer.seatIndex !== undefined) {
+    const mine = open?.moves[viewer.seatIndex] ?? null;
+    view.you = {
+      seatIndex: viewer.seatIndex,
+      sealedEffort: mine ? mine.effort : null,
+      clientMoveId: mine ? mine.clientMoveId : null,
+    };
+  }
+  return view;
+}
