@@ -32,7 +32,15 @@ export const sessionScenarioSchema = z.unknown().transform((raw, ctx): SessionSc
   const settings = sessionSettingsSchema.safeParse(rawSession ?? {});
   if (!settings.success) {
     for (const issue of settings.error.issues) {
-      ctx.addIssue({ code: "custom", message: issue.message, path: ["session", ...issue.path] });
+      const unknown = issue.code === "unrecognized_keys" ? issue.keys : [];
+      ctx.addIssue({
+        code: "custom",
+        message:
+          unknown.length > 0
+            ? `unknown field ${JSON.stringify(unknown[0])}; allowed: ${Object.keys(sessionSettingsSchema.shape).join(", ")}`
+            : issue.message,
+        path: ["session", ...issue.path, ...unknown.slice(0, 1)],
+      });
     }
     return z.NEVER;
   }
