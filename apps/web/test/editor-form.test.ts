@@ -73,10 +73,10 @@ describe("formToScenario", () => {
   it("formToScenario(form) keys computer policies by rival name and reports a bad factor on that row", () => {
     const ok = formToScenario(withRival(defaultForm(), 0, { policy: "equilibrium" }));
     expect(ok.ok && ok.scenario.session?.computer).toEqual({ "Rival 1": { kind: "equilibrium" } });
-    const form = withRival(defaultForm(), 1, { policy: "overspender", factor: "0" });
+    const form = withRival(defaultForm(), 1, { policy: "overspender", policyArg: "0" });
     const bad = formToScenario(form);
     expect(bad.ok).toBe(false);
-    expect(rivalFieldError(bad.errors, form, 1, "factor")).toMatch(/>\s?0/);
+    expect(rivalFieldError(bad.errors, form, 1, "policyArg")).toMatch(/>\s?0/);
   });
 
   it("formToScenario(form) refuses a one-rival live session (seat count rule of the protocol)", () => {

@@ -5,28 +5,20 @@ import { useSearchParams } from "next/navigation";
 import type { CreateSessionResponse } from "@contend/protocol";
 import { createSession } from "../lib/api";
 import {
-  blankRival,
   defaultForm,
   formToContestRaw,
   formToScenario,
   parseScenarioText,
-  POLICY_CHOICES,
-  rivalFieldError,
   scenarioToForm,
 } from "../lib/editor-form";
-import type { EditorForm, RivalRow } from "../lib/editor-form";
+import type { EditorForm } from "../lib/editor-form";
 import { templateById } from "../lib/templates";
 import { solveForView } from "../lib/solve-view";
 import { encodeState } from "../lib/url-state";
 import { CreatedSession } from "./CreatedSession";
 import { EquilibriumTable } from "./EquilibriumTable";
+import { ContestFields, RivalsTable } from "./ContestFields";
 import { RadioGroup, SelectField, TextField } from "./Field";
-
-const CSF_OPTIONS = [
-  { value: "ratio", label: "Ratio (Tullock)" },
-  { value: "logit", label: "Logit (difference)" },
-  { value: "allpay", label: "All-pay auction" },
-] as const;
 
 const OUTCOME_OPTIONS = [
   { value: "shares", label: "Prize shared by winning chance" },
@@ -86,15 +78,6 @@ export function ScenarioEditor() {
   function patch(p: Partial<EditorForm>) {
     setForm((f) => ({ ...f, ...p }));
   }
-  function patchRival(i: number, p: Partial<RivalRow>) {
-    setForm((f) => ({ ...f, rivals: f.rivals.map((r, k) => (k === i ? { ...r, ...p } : r)) }));
-  }
-  function addRival() {
-    setForm((f) => ({ ...f, rivals: [...f.rivals, blankRival(f.rivals.length)] }));
-  }
-  function removeRival(i: number) {
-    setForm((f) => ({ ...f, rivals: f.rivals.filter((_, k) => k !== i) }));
-  }
 
   function importJson(text: string) {
     const r = parseScenarioText(text);
@@ -138,182 +121,8 @@ export function ScenarioEditor() {
       </p>
       <div className="grid-2" style={{ gridTemplateColumns: "minmax(0, 3fr) minmax(300px, 2fr)" }}>
         <div>
-          <fieldset>
-            <legend>Contest</legend>
-            <div className="grid-3">
-              <TextField
-                label="Title"
-                value={form.title}
-                onChange={(v) => patch({ title: v })}
-                error={shown("title")}
-                testId="field-title"
-              />
-              <TextField
-                label="Prize"
-                numeric
-                value={form.prize}
-                onChange={(v) => patch({ prize: v })}
-                error={shown("prize")}
-                testId="field-prize"
-                hint="(value at stake)"
-              />
-              <TextField
-                label="Currency"
-                value={form.currency}
-                onChange={(v) => patch({ currency: v })}
-                error={shown("currency")}
-                testId="field-currency"
-                hint="($, EUR…)"
-              />
-            </div>
-            <div className="row" style={{ alignItems: "flex-start" }}>
-              <RadioGroup
-                legend="Contest form"
-                name="csf-kind"
-                value={form.csfKind}
-                options={CSF_OPTIONS}
-                onChange={(v) => patch({ csfKind: v })}
-                testId="field-csf-kind"
-              />
-              {form.csfKind === "ratio" && (
-                <TextField
-                  label="Decisiveness r"
-                  numeric
-                  value={form.decisiveness}
-                  onChange={(v) => patch({ decisiveness: v })}
-                  error={shown("csf.decisiveness")}
-                  testId="field-decisiveness"
-                  width="12rem"
-                />
-              )}
-              {form.csfKind === "logit" && (
-                <TextField
-                  label="Logit scale k"
-                  numeric
-                  value={form.scale}
-                  onChange={(v) => patch({ scale: v })}
-                  error={shown("csf.scale")}
-                  testId="field-scale"
-                  width="12rem"
-                />
-              )}
-            </div>
-            <p className="small muted">
-              Ratio: p = w·e^r / Σ w·e^r (Tullock 1980). Logit: p = w·exp(k·e) / Σ w·exp(k·e)
-              (Hirshleifer 1989). All-pay: the highest effort wins, ties split.
-            </p>
-          </fieldset>
-
-          <fieldset>
-            <legend>Rivals</legend>
-            <p className="small muted">
-              Cost is what one unit of effort costs the rival. Leave value blank to use the prize,
-              weight blank for 1, budget blank for no cap, own r blank for the form&apos;s r.
-            </p>
-            <div className="table-wrap">
-              <table className="editor-table" data-testid="rivals-table">
-                <thead>
-                  <tr>
-                    <th scope="col">Name</th>
-                    <th scope="col">Cost</th>
-                    <th scope="col">Value</th>
-                    <th scope="col">Weight</th>
-                    <th scope="col">Budget</th>
-                    {form.csfKind === "ratio" && <th scope="col">Own r</th>}
-                    <th scope="col">Played by</th>
-                    <th scope="col">
-                      <span className="sr-only">Remove</span>
-                    </th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {form.rivals.map((r, i) => (
-                    <tr key={r.key}>
-                      <td>
-                        <TextField
-                          compact
-                          label={`Rival ${i + 1} name`}
-                          value={r.name}
-                          onChange={(v) => patchRival(i, { name: v })}
-                          error={rivalFieldError(errors, form, i, "name")}
-                          testId={`rival-${i}-name`}
-                        />
-                      </td>
-                      {(["cost", "value", "weight", "budget"] as const).map((f) => (
-                        <td key={f}>
-                          <TextField
-                            compact
-                            numeric
-                            label={`Rival ${i + 1} ${f}`}
-                            value={r[f]}
-                            onChange={(v) => patchRival(i, { [f]: v })}
-                            error={rivalFieldError(errors, form, i, f)}
-                            testId={`rival-${i}-${f}`}
-                            placeholder={f === "cost" ? "" : f === "budget" ? "no cap" : "default"}
-                          />
-                        </td>
-                      ))}
-                      {form.csfKind === "ratio" && (
-                        <td>
-                          <TextField
-                            compact
-                            numeric
-                            label={`Rival ${i + 1} own decisiveness`}
-                            value={r.decisiveness}
-                            onChange={(v) => patchRival(i, { decisiveness: v })}
-                            error={rivalFieldError(errors, form, i, "decisiveness")}
-                            testId={`rival-${i}-decisiveness`}
-                            placeholder="form's r"
-                          />
-                        </td>
-                      )}
-                      <td>
-                        <SelectField
-                          compact
-                          label={`Rival ${i + 1} played by`}
-                          value={r.policy}
-                          options={POLICY_CHOICES}
-                          onChange={(v) => patchRival(i, { policy: v })}
-                          error={rivalFieldError(errors, form, i, "policy")}
-                          testId={`rival-${i}-policy`}
-                        />
-                        {r.policy === "overspender" && (
-                          <TextField
-                            compact
-                            numeric
-                            label={`Rival ${i + 1} overspending factor`}
-                            value={r.factor}
-                            onChange={(v) => patchRival(i, { factor: v })}
-                            placeholder="factor (default)"
-                            testId={`rival-${i}-factor`}
-                          />
-                        )}
-                      </td>
-                      <td>
-                        <button
-                          type="button"
-                          className="small"
-                          onClick={() => removeRival(i)}
-                          aria-label={`Remove rival ${i + 1}`}
-                          disabled={form.rivals.length <= 1}
-                        >
-                          Remove
-                        </button>
-                      </td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
-            <div className="row" style={{ marginTop: "0.5rem" }}>
-              <button type="button" onClick={addRival} data-testid="add-rival">
-                Add rival
-              </button>
-              <span className="field-error" role={errors.rivals ? "alert" : undefined}>
-                {errors.rivals ?? ""}
-              </span>
-            </div>
-          </fieldset>
+          <ContestFields form={form} setForm={setForm} errors={errors} />
+          <RivalsTable form={form} setForm={setForm} errors={errors} withPolicy />
 
           <fieldset>
             <legend>Live session</legend>

@@ -4,20 +4,33 @@
  * schemas; this module only collects all of their messages instead of the first one, so each
  * field can show its own.
  */
-import { validateScenario } from "@contend/solver";
-import type { CsfSpec, RivalSpec, Scenario } from "@contend/solver";
+import { POLICY_LABELS, validateScenario } from "@contend/solver";
+import type { CsfSpec, PolicyKind, RivalSpec, Scenario } from "@contend/solver";
 import { sessionScenarioSchema, sessionSettingsSchema } from "@contend/protocol";
 import type { SessionScenarioInput } from "./session-types";
 
-export const POLICY_CHOICES = [
-  { value: "human", label: "Person" },
-  { value: "equilibrium", label: "Computer: equilibrium player" },
-  { value: "best-response", label: "Computer: best reply to last round" },
-  { value: "fictitious-play", label: "Computer: fictitious-play learner" },
-  { value: "overspender", label: "Computer: overspender" },
-] as const;
+export type PolicyChoice = "human" | PolicyKind;
 
-export type PolicyChoice = (typeof POLICY_CHOICES)[number]["value"];
+/** "Person" plus every computer policy the solver offers, with the solver's own labels. */
+export const POLICY_CHOICES: readonly { value: PolicyChoice; label: string }[] = [
+  { value: "human", label: "Person" },
+  ...(Object.keys(POLICY_LABELS) as PolicyKind[]).map((kind) => ({
+    value: kind,
+    label: `Computer: ${POLICY_LABELS[kind].label.toLowerCase()}`,
+  })),
+];
+
+/** Policies with one number to set, and what it is called. */
+export const POLICY_ARGUMENT: Partial<
+  Record<PolicyKind, { field: string; label: string; placeholder: string }>
+> = {
+  overspender: {
+    field: "factor",
+    label: "multiple of equilibrium",
+    placeholder: "factor (default)",
+  },
+  fixed: { field: "effort", label: "fixed effort", placeholder: "effort" },
+};
 
 export interface RivalRow {
   /** stable React key; not part of the scenario */
@@ -29,8 +42,8 @@ export interface RivalRow {
   budget: string;
   decisiveness: string;
   policy: PolicyChoice;
-  /** overspender factor (blank = policy default) */
-  factor: string;
+  /** the policy's one number (overspender factor, fixed effort); blank = its default */
+  policyArg: string;
 }
 
 export interface EditorForm {
@@ -71,7 +84,7 @@ export function blankRival(index: number): RivalRow {
     budget: "",
     decisiveness: "",
     policy: "human",
-    factor: "",
+    policyArg: "",
   };
 }
 
@@ -125,11 +138,10 @@ function rivalOf(row: RivalRow): Record<string, unknown> {
 
 function policyOf(row: RivalRow): Record<string, unknown> | null {
   if (row.policy === "human") return null;
-  if (row.policy === "overspender") {
-    const f = parseNumberField(row.factor);
-    return f === undefined ? { kind: "overspender" } : { kind: "overspender", factor: f };
-  }
-  return { kind: row.policy };
+  const arg = POLICY_ARGUMENT[row.policy];
+  if (arg === undefined) return { kind: row.policy };
+  const v = parseNumberField(row.policyArg);
+  return v === undefined ? { kind: row.policy } : { kind: row.policy, [arg.field]: v };
 }
 
 /** The raw (unvalidated) contest object the form describes. */
@@ -257,7 +269,7 @@ export function rivalFieldError(
   index: number,
   field: keyof Omit<RivalRow, "key">,
 ): string | undefined {
-  if (field === "policy" || field === "factor") {
+  if (field === "policy" || field === "policyArg") {
     const name = form.rivals[index]?.name.trim() ?? "";
     const prefix = `session.computer.${name}`;
     const hit = Object.keys(errors).find((k) => k === prefix || k.startsWith(`${prefix}.`));
@@ -269,9 +281,12 @@ export function rivalFieldError(
 /** A session scenario (template, import, CLI file) -> form text. Unknown extras are dropped. */
 export function scenarioToForm(s: SessionScenarioInput): EditorForm {
   const session = s.session ?? {};
-  const computer = (session.computer ?? {}) as Record<string, { kind: string; factor?: number }>;
+  const computer = (session.computer ?? {}) as Record<string, Record<string, unknown>>;
   const rivals: RivalRow[] = s.rivals.map((r: RivalSpec) => {
     const policy = computer[r.name];
+    const kind = (policy?.kind as PolicyKind | undefined) ?? null;
+    const argField = kind === null ? undefined : POLICY_ARGUMENT[kind]?.field;
+    const arg = argField === undefined ? undefined : policy?.[argField];
     return {
       key: newRowKey(),
       name: r.name,
@@ -280,8 +295,8 @@ export function scenarioToForm(s: SessionScenarioInput): EditorForm {
       weight: numberText(r.weight),
       budget: numberText(r.budget),
       decisiveness: numberText(r.decisiveness),
-      policy: (policy?.kind as PolicyChoice | undefined) ?? "human",
-      factor: numberText(policy?.factor),
+      policy: kind ?? "human",
+      policyArg: typeof arg === "number" ? String(arg) : "",
     };
   });
   return {

@@ -87,7 +87,7 @@ export const TEMPLATES: readonly Template[] = [
         clockSeconds: 180,
         missingMove: "zero",
         computer: {
-          "Pennant Bridgeworks": { kind: "best-response" },
+          "Pennant Bridgeworks": { kind: "best-reply" },
           "Greyfell Engineering": { kind: "overspender", factor: 1.5 },
         },
       },

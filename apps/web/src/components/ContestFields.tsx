@@ -1,0 +1,232 @@
+"use client";
+
+import type { EditorForm, FieldErrors, RivalRow } from "../lib/editor-form";
+import { blankRival, POLICY_ARGUMENT, POLICY_CHOICES, rivalFieldError } from "../lib/editor-form";
+import { RadioGroup, SelectField, TextField } from "./Field";
+
+const CSF_OPTIONS = [
+  { value: "ratio", label: "Ratio (Tullock)" },
+  { value: "logit", label: "Logit (difference)" },
+  { value: "allpay", label: "All-pay auction" },
+] as const;
+
+type Setter = (update: (f: EditorForm) => EditorForm) => void;
+
+/** Title, prize, currency and contest form: shared by the editor and the explorer. */
+export function ContestFields({
+  form,
+  setForm,
+  errors,
+}: {
+  form: EditorForm;
+  setForm: Setter;
+  errors: FieldErrors;
+}) {
+  const patch = (p: Partial<EditorForm>) => setForm((f) => ({ ...f, ...p }));
+  return (
+    <fieldset>
+      <legend>Contest</legend>
+      <div className="grid-3">
+        <TextField
+          label="Title"
+          value={form.title}
+          onChange={(v) => patch({ title: v })}
+          error={errors.title}
+          testId="field-title"
+        />
+        <TextField
+          label="Prize"
+          numeric
+          value={form.prize}
+          onChange={(v) => patch({ prize: v })}
+          error={errors.prize}
+          testId="field-prize"
+          hint="(value at stake)"
+        />
+        <TextField
+          label="Currency"
+          value={form.currency}
+          onChange={(v) => patch({ currency: v })}
+          error={errors.currency}
+          testId="field-currency"
+          hint="($, EUR…)"
+        />
+      </div>
+      <div className="row" style={{ alignItems: "flex-start" }}>
+        <RadioGroup
+          legend="Contest form"
+          name="csf-kind"
+          value={form.csfKind}
+          options={CSF_OPTIONS}
+          onChange={(v) => patch({ csfKind: v })}
+          testId="field-csf-kind"
+        />
+        {form.csfKind === "ratio" && (
+          <TextField
+            label="Decisiveness r"
+            numeric
+            value={form.decisiveness}
+            onChange={(v) => patch({ decisiveness: v })}
+            error={errors["csf.decisiveness"]}
+            testId="field-decisiveness"
+            width="12rem"
+          />
+        )}
+        {form.csfKind === "logit" && (
+          <TextField
+            label="Logit scale k"
+            numeric
+            value={form.scale}
+            onChange={(v) => patch({ scale: v })}
+            error={errors["csf.scale"]}
+            testId="field-scale"
+            width="12rem"
+          />
+        )}
+      </div>
+      <p className="small muted">
+        Ratio: p = w·e^r / Σ w·e^r (Tullock 1980); all efforts zero splits the prize equally. Logit:
+        p = w·exp(k·e) / Σ w·exp(k·e) (Hirshleifer 1989). All-pay: the highest effort wins, ties
+        split.
+      </p>
+    </fieldset>
+  );
+}
+
+/** The rivals table with add/remove; `withPolicy` adds the "played by" column for sessions. */
+export function RivalsTable({
+  form,
+  setForm,
+  errors,
+  withPolicy,
+  minRows = 1,
+}: {
+  form: EditorForm;
+  setForm: Setter;
+  errors: FieldErrors;
+  withPolicy: boolean;
+  minRows?: number;
+}) {
+  const patchRival = (i: number, p: Partial<RivalRow>) =>
+    setForm((f) => ({ ...f, rivals: f.rivals.map((r, k) => (k === i ? { ...r, ...p } : r)) }));
+  const add = () => setForm((f) => ({ ...f, rivals: [...f.rivals, blankRival(f.rivals.length)] }));
+  const remove = (i: number) =>
+    setForm((f) => ({ ...f, rivals: f.rivals.filter((_, k) => k !== i) }));
+  const ratio = form.csfKind === "ratio";
+  return (
+    <fieldset>
+      <legend>Rivals</legend>
+      <p className="small muted">
+        Cost is what one unit of effort costs the rival. Leave value blank to use the prize, weight
+        blank for 1, budget blank for no cap{ratio ? ", own r blank for the form's r" : ""}.
+      </p>
+      <div className="table-wrap">
+        <table className="editor-table" data-testid="rivals-table">
+          <thead>
+            <tr>
+              <th scope="col">Name</th>
+              <th scope="col">Cost</th>
+              <th scope="col">Value</th>
+              <th scope="col">Weight</th>
+              <th scope="col">Budget</th>
+              {ratio && <th scope="col">Own r</th>}
+              {withPolicy && <th scope="col">Played by</th>}
+              <th scope="col">
+                <span className="sr-only">Remove</span>
+              </th>
+            </tr>
+          </thead>
+          <tbody>
+            {form.rivals.map((r, i) => (
+              <tr key={r.key}>
+                <td>
+                  <TextField
+                    compact
+                    label={`Rival ${i + 1} name`}
+                    value={r.name}
+                    onChange={(v) => patchRival(i, { name: v })}
+                    error={rivalFieldError(errors, form, i, "name")}
+                    testId={`rival-${i}-name`}
+                  />
+                </td>
+                {(["cost", "value", "weight", "budget"] as const).map((f) => (
+                  <td key={f}>
+                    <TextField
+                      compact
+                      numeric
+                      label={`Rival ${i + 1} ${f}`}
+                      value={r[f]}
+                      onChange={(v) => patchRival(i, { [f]: v })}
+                      error={rivalFieldError(errors, form, i, f)}
+                      testId={`rival-${i}-${f}`}
+                      placeholder={f === "cost" ? "" : f === "budget" ? "no cap" : "default"}
+                    />
+                  </td>
+                ))}
+                {ratio && (
+                  <td>
+                    <TextField
+                      compact
+                      numeric
+                      label={`Rival ${i + 1} own decisiveness`}
+                      value={r.decisiveness}
+                      onChange={(v) => patchRival(i, { decisiveness: v })}
+                      error={rivalFieldError(errors, form, i, "decisiveness")}
+                      testId={`rival-${i}-decisiveness`}
+                      placeholder="form's r"
+                    />
+                  </td>
+                )}
+                {withPolicy && (
+                  <td>
+                    <SelectField
+                      compact
+                      label={`Rival ${i + 1} played by`}
+                      value={r.policy}
+                      options={POLICY_CHOICES}
+                      onChange={(v) => patchRival(i, { policy: v })}
+                      error={rivalFieldError(errors, form, i, "policy")}
+                      testId={`rival-${i}-policy`}
+                    />
+                    {r.policy !== "human" && POLICY_ARGUMENT[r.policy] && (
+                      <TextField
+                        compact
+                        numeric
+                        label={`Rival ${i + 1} ${POLICY_ARGUMENT[r.policy]?.label ?? ""}`}
+                        value={r.policyArg}
+                        onChange={(v) => patchRival(i, { policyArg: v })}
+                        error={rivalFieldError(errors, form, i, "policyArg")}
+                        placeholder={POLICY_ARGUMENT[r.policy]?.placeholder}
+                        testId={`rival-${i}-policy-arg`}
+                      />
+                    )}
+                  </td>
+                )}
+                <td>
+                  <button
+                    type="button"
+                    className="small"
+                    onClick={() => remove(i)}
+                    aria-label={`Remove rival ${i + 1}`}
+                    disabled={form.rivals.length <= minRows}
+                    data-testid={`remove-rival-${i}`}
+                  >
+                    Remove
+                  </button>
+                </td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <div className="row" style={{ marginTop: "0.5rem" }}>
+        <button type="button" onClick={add} data-testid="add-rival">
+          Add rival
+        </button>
+        <span className="field-error" role={errors.rivals ? "alert" : undefined}>
+          {errors.rivals ?? ""}
+        </span>
+      </div>
+    </fieldset>
+  );
+}

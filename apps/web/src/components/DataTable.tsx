@@ -1,0 +1,58 @@
+import type { Row } from "../lib/chart-data";
+
+export interface Column {
+  key: string;
+  label: string;
+  format?: (v: number) => string;
+}
+
+function cell(v: Row[string] | undefined, format?: (v: number) => string): string {
+  if (v === null || v === undefined) return "\u2013";
+  if (typeof v === "number") return format ? format(v) : String(v);
+  return v;
+}
+
+/** The plotted numbers as a table under each chart, for screen readers, print and tests. */
+export function DataTable({
+  rows,
+  columns,
+  caption,
+  testId,
+  maxHeight = 240,
+}: {
+  rows: readonly Row[];
+  columns: readonly Column[];
+  caption: string;
+  testId?: string;
+  maxHeight?: number;
+}) {
+  return (
+    <div className="table-wrap data-table-box" style={{ maxHeight, overflow: "auto" }}>
+      <table data-testid={testId}>
+        <caption className="small muted" style={{ textAlign: "left" }}>
+          {caption}
+        </caption>
+        <thead>
+          <tr>
+            {columns.map((c) => (
+              <th key={c.key} scope="col" className="num">
+                {c.label}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {rows.map((r, k) => (
+            <tr key={k}>
+              {columns.map((c) => (
+                <td key={c.key} className="num" data-col={c.key}>
+                  {cell(r[c.key], c.format)}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,112 @@
+"use client";
+
+import {
+  CartesianGrid,
+  Legend,
+  Line,
+  LineChart,
+  ReferenceLine,
+  ResponsiveContainer,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from "recharts";
+import type { Row } from "../lib/chart-data";
+
+export interface Series {
+  key: string;
+  name: string;
+  colour: string;
+  dashed?: boolean;
+}
+
+/** A line chart with fixed height (no layout jump) and no animation (stable for reading). */
+export function LineSeriesChart({
+  rows,
+  xKey,
+  series,
+  xLabel,
+  yLabel,
+  formatY,
+  formatX,
+  markX,
+  testId,
+  dark,
+  height = 300,
+}: {
+  rows: readonly Row[];
+  xKey: string;
+  series: readonly Series[];
+  xLabel: string;
+  yLabel: string;
+  formatY?: (v: number) => string;
+  formatX?: (v: number) => string;
+  markX?: number | null;
+  testId?: string;
+  dark?: boolean;
+  height?: number;
+}) {
+  const axis = dark ? "#c9d4e0" : "#4a5565";
+  const grid = dark ? "#2a3848" : "#e3e7ec";
+  return (
+    <div
+      className="chart"
+      style={{ height }}
+      data-testid={testId}
+      role="img"
+      aria-label={`${yLabel} against ${xLabel}`}
+    >
+      <ResponsiveContainer width="100%" height="100%">
+        <LineChart data={rows as Row[]} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
+          <CartesianGrid stroke={grid} />
+          <XAxis
+            dataKey={xKey}
+            type="number"
+            domain={["dataMin", "dataMax"]}
+            tickFormatter={formatX}
+            stroke={axis}
+            label={{ value: xLabel, position: "insideBottom", offset: -12, fill: axis }}
+          />
+          <YAxis
+            tickFormatter={formatY}
+            stroke={axis}
+            width={72}
+            label={{
+              value: yLabel,
+              angle: -90,
+              position: "insideLeft",
+              fill: axis,
+              style: { textAnchor: "middle" },
+            }}
+          />
+          <Tooltip
+            formatter={(v) => (typeof v === "number" && formatY ? formatY(v) : String(v))}
+            labelFormatter={(v) =>
+              typeof v === "number" && formatX
+                ? `${xLabel}: ${formatX(v)}`
+                : `${xLabel}: ${String(v)}`
+            }
+          />
+          <Legend verticalAlign="top" height={28} />
+          {markX !== null && markX !== undefined ? (
+            <ReferenceLine x={markX} stroke={axis} strokeDasharray="4 3" />
+          ) : null}
+          {series.map((s) => (
+            <Line
+              key={s.key}
+              dataKey={s.key}
+              name={s.name}
+              stroke={s.colour}
+              strokeWidth={2}
+              strokeDasharray={s.dashed ? "6 4" : undefined}
+              dot={rows.length <= 20}
+              connectNulls={false}
+              isAnimationActive={false}
+              type="linear"
+            />
+          ))}
+        </LineChart>
+      </ResponsiveContainer>
+    </div>
+  );
+}

@@ -1,0 +1,108 @@
+/**
+ * Shapes solver and session results into the flat rows the charts and their data tables
+ * read: one object per x value, one key per series. Unknown values stay null (a gap in the
+ * line, a dash in the table), never 0.
+ */
+import type { Sweep1d } from "@contend/solver";
+import type { RoundResult } from "@contend/protocol";
+
+export type Row = Record<string, number | string | null>;
+
+export const effortKey = (i: number) => `effort${i}`;
+export const payoffKey = (i: number) => `payoff${i}`;
+
+/** Sweep -> rows {x, effort0.., payoff0.., total, dissipation, kind}. */
+export function sweepRows(sweep: Sweep1d): Row[] {
+  return sweep.values.map((x, k) => {
+    const row: Row = { x, kind: sweep.kinds[k] ?? null };
+    sweep.names.forEach((_, i) => {
+      row[effortKey(i)] = sweep.efforts[i]?.[k] ?? null;
+      row[payoffKey(i)] = sweep.payoffs[i]?.[k] ?? null;
+    });
+    row.total = sweep.totalEffort[k] ?? null;
+    row.dissipation = sweep.dissipation[k] ?? null;
+    return row;
+  });
+}
+
+/** Where a series turns: indices k at which the sign of the slope changes (ignoring nulls and flats). */
+export function turningPoints(values: readonly (number | null)[]): number[] {
+  const out: number[] = [];
+  let lastSign = 0;
+  let lastIndex = -1;
+  let prev: { k: number; v: number } | null = null;
+  for (let k = 0; k < values.length; k++) {
+    const v = values[k];
+    if (v === null || v === undefined || !Number.isFinite(v)) continue;
+    if (prev !== null) {
+      const d = v - prev.v;
+      const sign = Math.abs(d) <= 1e-12 * Math.max(1, Math.abs(prev.v)) ? 0 : Math.sign(d);
+      if (sign !== 0) {
+        if (lastSign !== 0 && sign !== lastSign) out.push(lastIndex);
+        lastSign = sign;
+        lastIndex = k;
+      }
+    }
+    prev = { k, v };
+  }
+  return out;
+}
+
+/** Equilibrium effort of a seat in a resolved round (the equilibrium follows seatIndices). */
+export function equilibriumEffortOf(round: RoundResult, seat: number): number | null {
+  const k = round.seatIndices.indexOf(seat);
+  if (k < 0) return null;
+  const eq = round.equilibrium;
+  const e = eq.efforts ?? eq.expectedEfforts ?? null;
+  return e?.[k] ?? null;
+}
+
+export function equilibriumPayoffOf(round: RoundResult, seat: number): number | null {
+  const k = round.seatIndices.indexOf(seat);
+  if (k < 0) return null;
+  return round.equilibrium.payoffs?.[k] ?? null;
+}
+
+/** One seat across rounds: played effort, equilibrium effort, best reply, regret, payoff, total. */
+export function seatHistoryRows(rounds: readonly RoundResult[], seat: number): Row[] {
+  return rounds
+    .filter((r) => r.seatIndices.includes(seat))
+    .map((r) => ({
+      round: r.round,
+      effort: r.efforts[seat] ?? null,
+      equilibrium: equilibriumEffortOf(r, seat),
+      bestResponse: r.bestResponses[seat] ?? null,
+      regret: r.regrets[seat] ?? null,
+      payoff: r.payoffs[seat] ?? null,
+      total: r.totals[seat] ?? null,
+    }));
+}
+
+/** One round: per playing seat, effort vs equilibrium effort, share, payoff, regret. */
+export function roundSeatRows(round: RoundResult, names: readonly string[]): Row[] {
+  return round.seatIndices.map((seat) => ({
+    seat,
+    name: names[seat] ?? `Seat ${seat + 1}`,
+    effort: round.efforts[seat] ?? null,
+    equilibrium: equilibriumEffortOf(round, seat),
+    share: round.shares[seat] ?? null,
+    payoff: round.payoffs[seat] ?? null,
+    regret: round.regrets[seat] ?? null,
+    bestResponse: round.bestResponses[seat] ?? null,
+    total: round.totals[seat] ?? null,
+    defaulted: round.defaulted[seat] === true ? "yes" : "no",
+  }));
+}
+
+/** Every seat across rounds, one key per seat: for the regret and effort-gap charts. */
+export function perSeatOverRounds(
+  rounds: readonly RoundResult[],
+  seats: readonly number[],
+  pick: (r: RoundResult, seat: number) => number | null,
+): Row[] {
+  return rounds.map((r) => {
+    const row: Row = { round: r.round };
+    for (const s of seats) row[`s${s}`] = r.seatIndices.includes(s) ? pick(r, s) : null;
+    return row;
+  });
+}

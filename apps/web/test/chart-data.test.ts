@@ -1,0 +1,173 @@
+import { describe, expect, it } from "vitest";
+import { normalize, sweep1d } from "@contend/solver";
+import type { RoundResult } from "@contend/protocol";
+import {
+  effortKey,
+  equilibriumEffortOf,
+  payoffKey,
+  perSeatOverRounds,
+  roundSeatRows,
+  seatHistoryRows,
+  sweepRows,
+  turningPoints,
+} from "../src/lib/chart-data";
+import { bestResponseCurves } from "../src/lib/br-curves";
+
+describe("sweepRows", () => {
+  it("sweepRows(sweep) gives one row per point with one key per rival series", () => {
+    const sweep = {
+      param: "rivals.1.cost",
+      names: ["A", "B"],
+      values: [1, 2],
+      efforts: [
+        [10, 20],
+        [null, 5],
+      ],
+      payoffs: [
+        [1, 2],
+        [3, null],
+      ],
+      totalEffort: [10, 25],
+      dissipation: [0.1, null],
+      kinds: ["pure", "pure"] as const,
+    };
+    const rows = sweepRows({ ...sweep, kinds: [...sweep.kinds] });
+    expect(rows).toEqual([
+      {
+        x: 1,
+        kind: "pure",
+        effort0: 10,
+        payoff0: 1,
+        effort1: null,
+        payoff1: 3,
+        total: 10,
+        dissipation: 0.1,
+      },
+      {
+        x: 2,
+        kind: "pure",
+        effort0: 20,
+        payoff0: 2,
+        effort1: 5,
+        payoff1: null,
+        total: 25,
+        dissipation: null,
+      },
+    ]);
+  });
+
+  it("sweepRows(sweep of rival 2's cost) shows rival 1's effort rising then falling at cost 5 (Hillman & Riley 1989, two rivals, r = 1)", () => {
+    // e1 = v m2 / (m1 + m2)^2 with v = 100, m1 = 5: d e1/d m2 = v (m1 - m2)/(m1 + m2)^3 changes sign at m2 = m1.
+    const scenario = {
+      title: "t",
+      prize: 100,
+      csf: { kind: "ratio" as const, decisiveness: 1 },
+      rivals: [
+        { name: "A", cost: 5 },
+        { name: "B", cost: 2 },
+      ],
+    };
+    const s = sweep1d(scenario, { param: "rivals.1.cost", from: 1, to: 10, steps: 91 });
+    expect(s.ok).toBe(true);
+    if (!s.ok) return;
+    const rows = sweepRows(s.value);
+    const e0 = rows.map((r) => r[effortKey(0)] as number);
+    const turns = turningPoints(e0);
+    expect(turns).toHaveLength(1);
+    expect(rows[turns[0] as number]?.x).toBeCloseTo(5, 9);
+    const at5 = rows.find((r) => Math.abs((r.x as number) - 5) < 1e-9);
+    expect(at5?.[effortKey(0)]).toBeCloseTo((100 * 5) / 100, 6); // v m2/(m1+m2)^2 = 500/100
+    expect(typeof rows[0]?.[payoffKey(1)]).toBe("number");
+  });
+});
+
+describe("turningPoints", () => {
+  it("turningPoints(values) finds slope sign changes and skips nulls and flat steps", () => {
+    expect(turningPoints([1, 2, 3, 2, 1])).toEqual([2]);
+    expect(turningPoints([1, 2, 2, 1])).toEqual([1]);
+    expect(turningPoints([3, 2, null, 1, 2])).toEqual([3]);
+    expect(turningPoints([1, 2, 3])).toEqual([]);
+  });
+});
+
+const round: RoundResult = {
+  round: 2,
+  reason: "all-sealed",
+  efforts: [10, 0, 30],
+  defaulted: [false, false, true],
+  shares: [0.25, 0, 0.75],
+  winner: null,
+  drawSeed: null,
+  payoffs: [15, 0, 45],
+  expectedPayoffs: [15, 0, 45],
+  totals: [20, 0, 50],
+  bestResponses: [12, 0, 20],
+  regrets: [1, 0, 4],
+  equilibrium: {
+    kind: "pure",
+    efforts: [11, 22],
+    shares: [0.33, 0.67],
+    payoffs: [5, 6],
+    totalEffort: 33,
+    dissipation: 0.33,
+    active: [true, true],
+    nashGap: 0,
+    method: "closed-form",
+  },
+  nashGap: 4,
+  dissipation: 0.4,
+  scenario: {
+    title: "t",
+    prize: 100,
+    csf: { kind: "ratio", decisiveness: 1 },
+    rivals: [
+      { name: "A", cost: 1 },
+      { name: "C", cost: 1 },
+    ],
+  },
+  seatIndices: [0, 2],
+};
+
+describe("session rows", () => {
+  it("equilibriumEffortOf(round, seat) follows seatIndices, not seat numbers", () => {
+    expect(equilibriumEffortOf(round, 0)).toBe(11);
+    expect(equilibriumEffortOf(round, 2)).toBe(22);
+    expect(equilibriumEffortOf(round, 1)).toBeNull();
+  });
+  it("seatHistoryRows(rounds, seat) lists only rounds the seat played", () => {
+    expect(seatHistoryRows([round], 2)).toEqual([
+      { round: 2, effort: 30, equilibrium: 22, bestResponse: 20, regret: 4, payoff: 45, total: 50 },
+    ]);
+    expect(seatHistoryRows([round], 1)).toEqual([]);
+  });
+  it("roundSeatRows(round, names) gives one row per playing seat with its defaulted flag", () => {
+    const rows = roundSeatRows(round, ["A", "B", "C"]);
+    expect(rows.map((r) => r.name)).toEqual(["A", "C"]);
+    expect(rows[1]).toMatchObject({ effort: 30, equilibrium: 22, share: 0.75, defaulted: "yes" });
+  });
+  it("perSeatOverRounds(rounds, seats, pick) leaves null for seats not in a round", () => {
+    expect(perSeatOverRounds([round], [0, 1, 2], (r, s) => r.regrets[s] ?? null)).toEqual([
+      { round: 2, s0: 1, s1: null, s2: 4 },
+    ]);
+  });
+});
+
+describe("bestResponseCurves", () => {
+  it("bestResponseCurves(contest) matches the closed-form reply sqrt(v Z / m) - Z (ratio form, r = 1)", () => {
+    const contest = normalize({
+      title: "t",
+      prize: 100,
+      csf: { kind: "ratio", decisiveness: 1 },
+      rivals: [
+        { name: "A", cost: 5 },
+        { name: "B", cost: 2 },
+      ],
+    });
+    const [a, b] = bestResponseCurves(contest, 20, 11);
+    const p = a[5]!; // rival 1 spends 10
+    expect(p.e1).toBeCloseTo(10, 12);
+    expect(p.e0).toBeCloseTo(Math.max(0, Math.sqrt((100 * 10) / 5) - 10), 5);
+    const q = b[2]!; // rival 0 spends 4
+    expect(q.e1).toBeCloseTo(Math.max(0, Math.sqrt((100 * 4) / 2) - 4), 5);
+  });
+});
