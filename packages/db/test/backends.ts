@@ -1,18 +1,12 @@
 import { randomBytes } from "node:crypto";
-import { mkdtempSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
 import path from "node:path";
 import pg from "pg";
+import { tempDir } from "./fixtures";
 
 /** A fresh, empty database per call; dispose() removes it. */
 export interface Backend {
   name: string;
   fresh(): Promise<{ url: string; dispose(): Promise<void> }>;
-}
-
-export function tempDir(prefix = "contend-db-"): { dir: string; dispose(): void } {
-  const dir = mkdtempSync(path.join(tmpdir(), prefix));
-  return { dir, dispose: () => rmSync(dir, { recursive: true, force: true }) };
 }
 
 const memory: Backend = {

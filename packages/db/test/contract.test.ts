@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { hashKey, newKey, openDatabase, type Database } from "../src/index";
-import { backends } from "./backends";
+import { backends, TEST_DATABASE_URL } from "./backends";
 import { event, sessionInput } from "./fixtures";
 
 describe.each(backends)("repositories on $name", (backend) => {
@@ -288,5 +288,38 @@ describe.each(backends)("repositories on $name", (backend) => {
     expect((await db.scenarios.get(saved.id))?.title).toBe("Kiosk lease v2");
     expect((await db.scenarios.list()).map((s) => s.id)).toContain(saved.id);
     expect(await db.scenarios.get("no-such-scenario")).toBeNull();
+  });
+});
+
+describe.skipIf(!TEST_DATABASE_URL)("two server processes sharing one PostgreSQL", () => {
+  it("openDatabase() twice at once: the migration runs once; racing appends: exactly one wins", async () => {
+    const backend = backends.find((b) => b.name === "postgresql")!;
+    const fresh = await backend.fresh();
+    // Two Database objects have separate pools and Prisma clients, like two processes.
+    const [a, b] = await Promise.all([
+      openDatabase({ url: fresh.url }),
+      openDatabase({ url: fresh.url }),
+    ]);
+    try {
+      expect([...a.migrationsApplied, ...b.migrationsApplied]).toEqual(["20261202033000_init"]);
+      const { input } = sessionInput();
+      await a.sessions.create(input);
+      for (let round = 0; round < 5; round++) {
+        const expected = 1 + round;
+        const results = await Promise.all([
+          a.events.append(input.id, expected, [event("from-a", round)]),
+          b.events.append(input.id, expected, [event("from-b", round)]),
+        ]);
+        expect(results.filter((r) => r.ok)).toEqual([{ ok: true, seqs: [expected + 1] }]);
+        expect(results.filter((r) => !r.ok)).toEqual([
+          { ok: false, code: "conflict", lastSeq: expected + 1 },
+        ]);
+      }
+      expect((await b.events.list(input.id)).map((e) => e.seq)).toEqual([1, 2, 3, 4, 5, 6]);
+    } finally {
+      await a.close();
+      await b.close();
+      await fresh.dispose();
+    }
   });
 });

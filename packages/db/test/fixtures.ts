@@ -1,3 +1,6 @@
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import { newJoinCode, newKey, type CreateSessionInput } from "../src/index";
 
 let counter = 0;
@@ -37,4 +40,9 @@ export function sessionInput(overrides: Partial<CreateSessionInput> = {}) {
 
 export function event(type: string, at: number, payload: unknown = {}) {
   return { type, at, payload };
+}
+
+export function tempDir(prefix = "contend-db-"): { dir: string; dispose(): void } {
+  const dir = mkdtempSync(path.join(tmpdir(), prefix));
+  return { dir, dispose: () => rmSync(dir, { recursive: true, force: true }) };
 }

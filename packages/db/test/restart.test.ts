@@ -1,0 +1,86 @@
+import { spawnSync } from "node:child_process";
+import { existsSync, writeFileSync } from "node:fs";
+import path from "node:path";
+import { afterEach, describe, expect, it } from "vitest";
+import { openDatabase } from "../src/index";
+import { event, sessionInput, tempDir } from "./fixtures";
+
+describe("PGlite in a directory", () => {
+  const cleanups: (() => void)[] = [];
+  afterEach(() => {
+    while (cleanups.length) cleanups.pop()!();
+  });
+  function dataDir() {
+    const tmp = tempDir();
+    cleanups.push(tmp.dispose);
+    return path.join(tmp.dir, "nested", "pglite");
+  }
+
+  it("close then reopen: sessions, seats, keys and events are all there; no migration re-applied", async () => {
+    const dir = dataDir();
+    const { input, facilitatorKey, seatKeys } = sessionInput();
+
+    const first = await openDatabase({ url: dir });
+    expect(first.migrationsApplied).toHaveLength(1);
+    expect((await first.sessions.create(input)).ok).toBe(true);
+    expect(await first.events.append(input.id, 1, [event("a", 1), event("b", 2)])).toEqual({
+      ok: true,
+      seqs: [2, 3],
+    });
+    expect((await first.seats.claim(input.id, 0, "Ada")).ok).toBe(true);
+    await first.close();
+
+    const second = await openDatabase({ url: `pglite:${dir}` });
+    try {
+      expect(second.migrationsApplied).toEqual([]);
+      expect((await second.events.list(input.id)).map((e) => e.type)).toEqual([
+        "session-created",
+        "a",
+        "b",
+      ]);
+      const session = await second.sessions.get(input.id);
+      expect(session?.lastSeq).toBe(3);
+      expect(session?.seats[0]?.displayName).toBe("Ada");
+      expect(await second.keys.resolve(input.id, facilitatorKey)).toEqual({
+        role: "facilitator",
+        seatIndex: null,
+      });
+      expect(await second.keys.resolve(input.id, seatKeys[0]!)).toEqual({
+        role: "seat",
+        seatIndex: 0,
+      });
+      expect(await second.events.append(input.id, 3, [event("c", 3)])).toEqual({
+        ok: true,
+        seqs: [4],
+      });
+    } finally {
+      await second.close();
+    }
+  });
+
+  it("a second open of a directory already open in this process is refused", async () => {
+    const dir = dataDir();
+    const db = await openDatabase({ url: dir });
+    try {
+      await expect(openDatabase({ url: dir })).rejects.toThrow(/in use by process/);
+    } finally {
+      await db.close();
+    }
+    expect(existsSync(`${dir}.lock`)).toBe(false);
+  });
+
+  it("a lock file left by a process that has exited is taken over", async () => {
+    const dir = dataDir();
+    const exited = spawnSync(process.execPath, ["-e", "process.exit(0)"]);
+    expect(exited.pid).toBeGreaterThan(0);
+    const first = await openDatabase({ url: dir });
+    await first.close();
+    writeFileSync(`${dir}.lock`, String(exited.pid));
+    const db = await openDatabase({ url: dir });
+    try {
+      expect(db.migrationsApplied).toEqual([]);
+    } finally {
+      await db.close();
+    }
+  });
+});
