@@ -170,7 +170,13 @@ export function bestResponseAgainst(
   return best;
 }
 
-/** Ratio form, r < 1, Z > 0: concave payoff; bisection on the sign of u' in log effort. */
+/**
+ * Ratio form, r < 1, Z > 0: the payoff is concave, so the first-order condition has one root.
+ * In t = logit of the post-deviation share s = y / (y + Z) it reads
+ *   psi(t) = -softplus(-t) - softplus(t) - t / r - K = 0,  K = ln(m / (v r)) + (ln Z - ln w) / r,
+ * (from v r s (1 - s) = m e with e = (s Z / ((1 - s) w))^(1/r)); psi is decreasing and
+ * concave, so Newton converges monotonically after at most one step. e = exp((t + ln Z - ln w) / r).
+ */
 function concaveRatioResponse(
   contest: Contest,
   i: number,
@@ -178,23 +184,22 @@ function concaveRatioResponse(
   hi: number,
   u: (e: number) => number,
 ): BestResponse {
-  const { value: v, cost: m, weight: w, r } = contest.rivals[i]!;
+  const { value: v, cost: m, weight: w, r, budget: B } = contest.rivals[i]!;
   if (!(hi > 0)) return { effort: 0, payoff: u(0) };
-  // u'(e) = v r w e^(r-1) Z / (w e^r + Z)^2 - m, decreasing in e
-  const slope = (e: number) => {
-    const y = w * Math.pow(e, r);
-    return (v * r * y * z) / (e * (y + z) * (y + z)) - m;
-  };
-  if (slope(hi) >= 0) return { effort: hi, payoff: u(hi) };
-  let lo = Math.log(hi) - 700;
-  let up = Math.log(hi);
-  if (slope(Math.exp(lo)) <= 0) return { effort: 0, payoff: u(0) };
-  for (let it = 0; it < 200 && up - lo > 1e-15; it++) {
-    const mid = 0.5 * (lo + up);
-    if (slope(Math.exp(mid)) > 0) lo = mid;
-    else up = mid;
+  const lnZw = Math.log(z) - Math.log(w);
+  const K = Math.log(m / (v * r)) + lnZw / r;
+  let t = 0;
+  for (let it = 0; it < 100; it++) {
+    const E = Math.exp(-Math.abs(t));
+    const l1p = Math.log1p(E);
+    const sig = t >= 0 ? 1 / (1 + E) : E / (1 + E);
+    const f = -((t < 0 ? -t : 0) + l1p) - ((t > 0 ? t : 0) + l1p) - t / r - K;
+    const d = 1 - 2 * sig - 1 / r;
+    const step = f / d;
+    t -= step;
+    if (Math.abs(step) <= 1e-14 * Math.max(1, Math.abs(t))) break;
   }
-  const e = Math.exp(0.5 * (lo + up));
+  const e = Math.min(B, Math.exp((t + lnZw) / r));
   return { effort: e, payoff: u(e) };
 }
 

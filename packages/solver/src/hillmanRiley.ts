@@ -25,23 +25,24 @@ export function hillmanRileySolution(contest: Contest): HillmanRileySolution | n
     const x = rivals[i]!;
     a[i] = x.cost / (x.weight * x.value);
   }
-  const order = Array.from({ length: n }, (_, i) => i).sort((p, q) => a[p]! - a[q]!);
-  let sum = a[order[0]!]! + a[order[1]!]!;
+  // the active set is a prefix of the sorted a's; a rival outside it has a_i >= 1/Y, which
+  // makes Y (1 - a_i Y) <= 0, so no permutation is needed
+  const sorted = Float64Array.from(a).sort();
+  let sum = sorted[0]! + sorted[1]!;
   let k = 2; // the two lowest always take part
   for (let j = 2; j < n; j++) {
-    const aj = a[order[j]!]!;
+    const aj = sorted[j]!;
     if (aj < (sum + aj) / j) {
       sum += aj;
       k = j + 1;
     } else break;
   }
   const Y = (k - 1) / sum;
-  const efforts = new Array<number>(n).fill(0);
-  const active = new Array<boolean>(n).fill(false);
-  for (let j = 0; j < k; j++) {
-    const i = order[j]!;
+  const efforts = new Array<number>(n);
+  const active = new Array<boolean>(n);
+  for (let i = 0; i < n; i++) {
     const y = Y * (1 - a[i]! * Y);
-    efforts[i] = y / rivals[i]!.weight;
+    efforts[i] = y > 0 ? y / rivals[i]!.weight : 0;
     active[i] = y > 0;
   }
   return { efforts, aggregate: Y, active };

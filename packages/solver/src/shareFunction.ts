@@ -15,61 +15,66 @@
  *             candidate: the caller must verify it with a global best-response check.
  * A budget B_i caps the share: s_i <= w_i B_i^r_i / Y. The equilibrium aggregate solves
  * sum_i s_i(Y) (+ F / Y for a fixed contribution F, e.g. a committed leader) = 1, whose left
- * side falls in Y; the root is bracketed in log Y and found by Brent's method. For r_i <= 1
+ * side falls in Y; the root is bracketed in log Y and found by safeguarded Newton steps
+ * (the slope comes from implicit differentiation of each share). For r_i <= 1
  * the equilibrium is unique (Szidarovszky & Okuguchi 1997, Games and Economic Behavior 18;
  * volume from memory). Each evaluation is O(n) with a few Newton steps per rival.
  */
-import { brentRoot } from "./brentRoot";
 import type { Contest } from "./types";
 
-function softplus(t: number): number {
-  return t > 0 ? t + Math.log1p(Math.exp(-t)) : Math.log1p(Math.exp(t));
+/**
+ * Newton step solver for the share of a rival with r != 1 in t = logit(s):
+ *   phi(t) = lnC - q softplus(-t) + softplus(t) = 0,  q = 1/r - 1,
+ *   phi'(t) = q sigma(-t) + sigma(t),  phi''(t) = (1 - q) sigma(t) sigma(-t).
+ * For q > 0 (r < 1) phi is increasing with slope between min(q, 1) and max(q, 1) and has a
+ * constant sign of curvature, so Newton converges monotonically after at most one overshoot
+ * (and is exact on the two linear tails): warm starts from the previous aggregate make it a
+ * few steps. For q < 0 (r > 1) phi is convex with its minimum at t* = ln(-q); the larger root
+ * is reached by Newton from the right of t*, and there is no root when phi(t*) > 0.
+ * Returns t (NaN when there is no root).
+ */
+function solveShareLogit(lnC: number, q: number, t0: number): number {
+  let t = t0;
+  if (q < 0) {
+    const tStar = Math.log(-q);
+    if (phiAt(lnC, q, tStar) > 0) return Number.NaN;
+    if (!(t > tStar)) t = Math.max(tStar + 1, -lnC + 1);
+  }
+  for (let it = 0; it < 100; it++) {
+    const E = Math.exp(-Math.abs(t));
+    const l1p = Math.log1p(E);
+    const spPos = (t > 0 ? t : 0) + l1p; // softplus(t)
+    const spNeg = (t < 0 ? -t : 0) + l1p; // softplus(-t)
+    const sig = t >= 0 ? 1 / (1 + E) : E / (1 + E); // sigma(t)
+    const f = lnC - q * spNeg + spPos;
+    const d = q * (1 - sig) + sig;
+    let step = f / d;
+    let next = t - step;
+    if (q < 0) {
+      // stay on the increasing branch
+      const tStar = Math.log(-q);
+      if (next <= tStar) {
+        next = 0.5 * (t + tStar);
+        step = t - next;
+      }
+    }
+    t = next;
+    if (Math.abs(step) <= 1e-13 * Math.max(1, Math.abs(t))) break;
+  }
+  return t;
 }
+
+function phiAt(lnC: number, q: number, t: number): number {
+  const E = Math.exp(-Math.abs(t));
+  const l1p = Math.log1p(E);
+  return lnC - q * ((t < 0 ? -t : 0) + l1p) + (t > 0 ? t : 0) + l1p;
+}
+
 function sigmoid(t: number): number {
   return t >= 0 ? 1 / (1 + Math.exp(-t)) : Math.exp(t) / (1 + Math.exp(t));
 }
 
-/**
- * Root in t = logit(s) of  phi(t) = ln c + q ln s - ln(1 - s)
- *                                  = ln c - q softplus(-t) + softplus(t).
- * phi' = q sigma(-t) + sigma(t) and phi'' = (1 - q) sigma(t) sigma(-t): phi is convex or
- * concave throughout, so Newton converges monotonically once a step lands on the right side;
- * a bracket guards it anyway. For q < 0 (r > 1) the larger root lies right of t* = ln(-q).
- */
-function unconstrainedShare(lnC: number, q: number): number {
-  const phi = (t: number) => lnC - q * softplus(-t) + softplus(t);
-  const dphi = (t: number) => q * sigmoid(-t) + sigmoid(t);
-  let lo: number;
-  let hi: number;
-  if (q > 0) {
-    lo = -Math.max(1, Math.abs(lnC) / Math.min(q, 1)) - 2;
-    hi = -lo;
-    while (phi(lo) > 0) lo *= 2;
-    while (phi(hi) < 0) hi *= 2;
-  } else {
-    lo = Math.log(-q);
-    if (phi(lo) > 0) return 0; // no interior critical point: the rival stays out
-    hi = Math.max(lo + 1, -lnC + 2);
-    while (phi(hi) < 0) hi = hi + 2 * (hi - lo);
-  }
-  let t = q > 0 ? Math.min(Math.max(-lnC / Math.max(q, 1), lo), hi) : hi;
-  for (let it = 0; it < 100; it++) {
-    const f = phi(t);
-    if (f > 0) hi = t;
-    else lo = t;
-    const d = dphi(t);
-    let next = t - f / d;
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    if (Math.abs(next - t) <= 1e-14 * Math.max(1, Math.abs(t))) {
-      t = next;
-      break;
-    }
-    t = next;
-  }
-  return sigmoid(t);
-}
-
-/** Share s_i(Y) of one rival (before or after its budget cap), see the file header. */
+/** Share s_i(Y) of one rival (after its budget cap), see the file header. */
 export function rivalShare(
   v: number,
   m: number,
@@ -83,7 +88,8 @@ export function rivalShare(
   if (r === 1) s = Math.max(0, 1 - (m * Y) / (w * v));
   else {
     const lnC = Math.log(m) + Math.log(Y / w) / r - Math.log(v * r);
-    s = unconstrainedShare(lnC, 1 / r - 1);
+    const t = solveShareLogit(lnC, 1 / r - 1, -lnC);
+    s = Number.isNaN(t) ? 0 : sigmoid(t);
   }
   if (budget < Infinity) {
     const cap = (w * Math.pow(budget, r)) / Y;
@@ -125,61 +131,121 @@ export function shareFunctionEquilibrium(
     if ((opts.members?.[i] ?? true) && rv.budget > 0) idx.push(i);
   }
   const k = idx.length;
-  const v = new Float64Array(k);
-  const m = new Float64Array(k);
-  const w = new Float64Array(k);
-  const r = new Float64Array(k);
-  const b = new Float64Array(k);
+  if (k === 0) return null;
+  // per-rival constants: r = 1 uses a = m/(w v); r != 1 uses lnC = A + lnY/r
+  const A = new Float64Array(k);
+  const invR = new Float64Array(k);
+  const q = new Float64Array(k);
+  const lnCap = new Float64Array(k); // ln(w B^r), +Infinity when uncapped
+  const unit = new Uint8Array(k);
+  const t = new Float64Array(k); // warm starts (logit of the share)
   let guess = fixed;
   for (let j = 0; j < k; j++) {
     const rv = rivals[idx[j]!]!;
-    v[j] = rv.value;
-    m[j] = rv.cost;
-    w[j] = rv.weight;
-    r[j] = rv.r;
-    b[j] = rv.budget;
+    unit[j] = rv.r === 1 ? 1 : 0;
+    A[j] =
+      rv.r === 1
+        ? rv.cost / (rv.weight * rv.value)
+        : Math.log(rv.cost) - Math.log(rv.weight) / rv.r - Math.log(rv.value * rv.r);
+    invR[j] = 1 / rv.r;
+    q[j] = 1 / rv.r - 1;
+    lnCap[j] = rv.budget < Infinity ? Math.log(rv.weight) + rv.r * Math.log(rv.budget) : Infinity;
+    t[j] = Number.NaN;
     const e0 = Math.min(rv.budget, (rv.r * rv.value) / (rv.cost * Math.max(2, k)));
     guess += rv.weight * Math.pow(e0, rv.r);
   }
-  if (k === 0) return null;
-  const excess = (lnY: number) => {
+  const shareArr = new Float64Array(k);
+  const cappedArr = new Uint8Array(k);
+  let slope = 0; // d(sum of shares)/d lnY at the last evaluation
+  /** sum_i s_i(Y) + F/Y - 1 at Y = exp(lnY); fills shareArr, cappedArr and slope */
+  const excess = (lnY: number): number => {
     const Y = Math.exp(lnY);
-    let s = fixed / Y;
-    for (let j = 0; j < k; j++) s += rivalShare(v[j]!, m[j]!, w[j]!, r[j]!, b[j]!, Y).share;
-    return s - 1;
+    let sum = fixed > 0 ? fixed / Y : 0;
+    let d = -(fixed > 0 ? fixed / Y : 0);
+    for (let j = 0; j < k; j++) {
+      let s: number;
+      let ds: number;
+      if (unit[j] === 1) {
+        const aY = A[j]! * Y;
+        // shares below 1e-12 are rounding residue of a rival exactly at the drop-out point
+        s = aY < 1 - 1e-12 ? 1 - aY : 0;
+        ds = aY < 1 - 1e-12 ? -aY : 0;
+      } else {
+        const lnC = A[j]! + lnY * invR[j]!;
+        const start = Number.isNaN(t[j]!) ? -lnC : t[j]!;
+        const tj = solveShareLogit(lnC, q[j]!, start);
+        if (Number.isNaN(tj)) {
+          s = 0;
+          ds = 0;
+        } else {
+          t[j] = tj;
+          const sg = sigmoid(tj);
+          s = sg;
+          // implicit differentiation: dt/dlnY = -(1/r) / phi'(t), ds/dt = s (1 - s)
+          ds = (-sg * (1 - sg) * invR[j]!) / (q[j]! * (1 - sg) + sg);
+        }
+      }
+      cappedArr[j] = 0;
+      if (lnCap[j]! < Infinity) {
+        const cap = Math.exp(lnCap[j]! - lnY);
+        if (s >= cap) {
+          s = cap;
+          ds = -cap;
+          cappedArr[j] = 1;
+        }
+      }
+      shareArr[j] = s;
+      sum += s;
+      d += ds;
+    }
+    slope = d;
+    return sum - 1;
   };
+  // bracket the root in lnY: the share sum falls as Y rises
   let lo = Math.log(guess > 0 && Number.isFinite(guess) ? guess : 1);
-  let hi = lo;
   let flo = excess(lo);
+  let hi = lo;
   let fhi = flo;
   let tries = 0;
-  while (flo <= 0 && tries < 200) {
-    hi = lo;
-    fhi = flo;
-    lo -= 2;
-    flo = excess(lo);
-    tries++;
-  }
-  tries = 0;
-  while (fhi > 0 && tries < 200) {
-    lo = hi;
-    flo = fhi;
-    hi += 2;
-    fhi = excess(hi);
-    tries++;
+  if (flo > 0) {
+    while (fhi > 0 && tries++ < 400) {
+      lo = hi;
+      flo = fhi;
+      hi += Math.max(0.5, Math.min(4, fhi / Math.max(1e-300, -slope)));
+      fhi = excess(hi);
+    }
+  } else {
+    while (flo <= 0 && tries++ < 400) {
+      hi = lo;
+      fhi = flo;
+      lo -= 2;
+      flo = excess(lo);
+    }
   }
   if (!(flo > 0) || !(fhi <= 0)) return null;
-  const lnY = brentRoot(excess, lo, hi, flo, fhi, 1e-14);
-  const Y = Math.exp(lnY);
+  // safeguarded Newton on the bracket [lo, hi]
+  let x = fhi === 0 ? hi : 0.5 * (lo + hi);
+  let fx = excess(x);
+  for (let it = 0; it < 200 && fx !== 0; it++) {
+    if (fx > 0) lo = x;
+    else hi = x;
+    let next = slope < 0 ? x - fx / slope : Number.NaN;
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    const done = Math.abs(next - x) <= 1e-15 * Math.max(1, Math.abs(x)) || hi - lo <= 1e-15;
+    x = next;
+    fx = excess(x);
+    if (done) break;
+  }
   // the aggregate must actually balance (with r_i > 1 the share sum can jump past 1)
-  if (Math.abs(excess(lnY)) > 1e-9) return null;
+  if (!(Math.abs(fx) <= 1e-9)) return null;
+  const Y = Math.exp(x);
   const efforts = new Array<number>(n).fill(0);
   const capped = new Array<boolean>(n).fill(false);
   for (let j = 0; j < k; j++) {
     const i = idx[j]!;
-    const sh = rivalShare(v[j]!, m[j]!, w[j]!, r[j]!, b[j]!, Y);
-    capped[i] = sh.capped;
-    efforts[i] = sh.capped ? b[j]! : Math.pow((sh.share * Y) / w[j]!, 1 / r[j]!);
+    const rv = rivals[i]!;
+    capped[i] = cappedArr[j] === 1;
+    efforts[i] = capped[i] ? rv.budget : Math.pow((shareArr[j]! * Y) / rv.weight, invR[j]!);
   }
   return { efforts, aggregate: Y, capped };
 }
