@@ -159,6 +159,17 @@ describe("comparativeStatics", () => {
     expect(res.value.rows.every((r) => r.method === "numeric")).toBe(true);
   });
 
+  it("comparativeStatics(300 rivals, every parameter) is refused; chosen parameters still work", () => {
+    const s: Scenario = {
+      ...twoRivals(1, 1),
+      rivals: Array.from({ length: 300 }, (_, i) => ({ name: `R${i}`, cost: 1 + i / 300 })),
+    };
+    const all = comparativeStatics(s);
+    expect(!all.ok && all.path).toBe("rivals");
+    const one = comparativeStatics(s, { params: ["prize"] });
+    expect(one.ok && one.value.rows).toHaveLength(1);
+  });
+
   it("comparativeStatics(bad param) is a typed error", () => {
     const res = comparativeStatics(twoRivals(1, 2), { params: ["rivals.5.cost"] });
     expect(res.ok).toBe(false);

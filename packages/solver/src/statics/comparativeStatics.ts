@@ -60,6 +60,8 @@ export interface StaticsOptions {
 
 const BINDING = 1e-9;
 
+export const STATICS_MAX_RIVALS = 200;
+
 function elasticity(d: number, x: number, y: number): number | null {
   if (y === 0 || !Number.isFinite(y) || !Number.isFinite(x)) return null;
   return (d * x) / y;
@@ -187,6 +189,13 @@ export function comparativeStatics(
       if (!p.ok) return p;
       params.push(p.value);
     }
+  } else if (n > STATICS_MAX_RIVALS) {
+    // Every parameter of every rival means O(n^2) numbers: make the caller choose.
+    return {
+      ok: false,
+      path: "rivals",
+      message: `comparative statics over every parameter are limited to ${STATICS_MAX_RIVALS} rivals (got ${n}); choose parameters explicitly`,
+    };
   } else {
     params = defaultParams(scenario, contest, efforts);
   }
