@@ -40,6 +40,8 @@ const EnvSchema = z.object({
   /** "off" skips creating the demo session on an empty database */
   DEMO: z.enum(["on", "off"]).default("on"),
   LOG_LEVEL: z.enum(["debug", "info", "warn", "error"]).default("info"),
+  /** comma-separated extra origins allowed to open sockets (e.g. a separate dev server) */
+  ALLOWED_ORIGINS: z.string().optional(),
 });
 
 export interface ServerEnv {
@@ -53,6 +55,7 @@ export interface ServerEnv {
   limits: Limits;
   demo: boolean;
   logLevel: "debug" | "info" | "warn" | "error";
+  allowedOrigins: string[];
 }
 
 export interface Limits {
@@ -79,7 +82,10 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
     throw new Error(`invalid environment:\n${lines.join("\n")}`);
   }
   const e = parsed.data;
-  const dataDir = path.resolve(e.CONTEND_DATA_DIR ?? path.join(SERVER_ROOT, "data"));
+  const dataDir = path.join(
+    path.resolve(e.CONTEND_DATA_DIR ?? path.join(SERVER_ROOT, "data")),
+    "pglite",
+  );
   const web = e.WEB ? e.WEB === "on" : existsSync(path.join(WEB_DIR, ".next"));
   return {
     port: e.PORT,
@@ -97,5 +103,9 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
     },
     demo: e.DEMO === "on",
     logLevel: e.LOG_LEVEL,
+    allowedOrigins: (e.ALLOWED_ORIGINS ?? "")
+      .split(",")
+      .map((o) => o.trim())
+      .filter((o) => o !== ""),
   };
 }

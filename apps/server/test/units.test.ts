@@ -92,7 +92,7 @@ describe("parseEnv(source)", () => {
       maxMessageBytes: 65536,
       maxBodyBytes: 262144,
     });
-    expect(env.databaseUrl).toMatch(/data$/);
+    expect(env.databaseUrl).toMatch(/data\/pglite$/);
   });
 
   it("parseEnv rejects a non-numeric PORT naming the variable", () => {
@@ -100,7 +100,7 @@ describe("parseEnv(source)", () => {
   });
 
   it("parseEnv uses CONTEND_DATA_DIR when DATABASE_URL is unset and DATABASE_URL when set", () => {
-    expect(parseEnv({ CONTEND_DATA_DIR: "/tmp/x", WEB: "off" }).databaseUrl).toBe("/tmp/x");
+    expect(parseEnv({ CONTEND_DATA_DIR: "/tmp/x", WEB: "off" }).databaseUrl).toBe("/tmp/x/pglite");
     expect(
       parseEnv({ DATABASE_URL: "postgres://u@h/db", CONTEND_DATA_DIR: "/tmp/x", WEB: "off" })
         .databaseUrl,

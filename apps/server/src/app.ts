@@ -1,0 +1,158 @@
+/**
+ * createApplication(deps) builds the HTTP server, the REST routes, socket.io and the live
+ * session hub without listening; main.ts wires the real dependencies and listens. Tests start
+ * it on port 0 with a real database in a temporary directory.
+ */
+import { createServer } from "node:http";
+import type { IncomingMessage, Server as HttpServer, ServerResponse } from "node:http";
+import type { AddressInfo } from "node:net";
+import type { Duplex } from "node:stream";
+import { Server } from "socket.io";
+import type { Database } from "@contend/db";
+import { systemClock } from "./clock";
+import type { Clock } from "./clock";
+import { DEFAULT_LIMITS } from "./env";
+import type { Limits } from "./env";
+import { sendError, sendText } from "./http/io";
+import { createRestHandler } from "./http/rest";
+import { createSessionHub } from "./live/hub";
+import type { SessionHub } from "./live/hub";
+import { silentLogger } from "./logger";
+import type { Logger } from "./logger";
+import { attachSockets } from "./sockets";
+import type { AppServer } from "./sockets";
+import { placeholderPage } from "./web";
+import type { NextRequestHandler, NextUpgradeHandler } from "./web";
+
+export const SERVER_VERSION = "0.1.0";
+
+export interface ApplicationDeps {
+  db: Database;
+  clock?: Clock;
+  logger?: Logger;
+  /** the built Next.js app's request handler; null serves a placeholder page */
+  web?: NextRequestHandler | null;
+  /** development only: Next's hot-reload upgrade handler */
+  webUpgrade?: NextUpgradeHandler | null;
+  limits?: Partial<Limits>;
+  adminKey?: string | null;
+  publicUrl?: string | null;
+  /** origins allowed to open sockets besides the server's own (e.g. a separate dev server) */
+  allowedOrigins?: string[];
+}
+
+export interface Application {
+  http: HttpServer;
+  io: AppServer;
+  hub: SessionHub;
+  /** rebuild every session that has not ended and re-arm its round clock */
+  restore(): Promise<number>;
+  listen(port: number, host: string): Promise<{ port: number; host: string }>;
+  close(): Promise<void>;
+}
+
+export const SOCKET_PATH = "/socket.io/";
+
+export function createApplication(deps: ApplicationDeps): Application {
+  const clock = deps.clock ?? systemClock;
+  const logger = deps.logger ?? silentLogger;
+  const limits: Limits = { ...DEFAULT_LIMITS, ...deps.limits };
+  const hub = createSessionHub({ db: deps.db, clock, logger });
+  const api = createRestHandler({
+    db: deps.db,
+    clock,
+    logger,
+    limits,
+    adminKey: deps.adminKey ?? null,
+    publicUrl: deps.publicUrl ?? null,
+    version: SERVER_VERSION,
+  });
+  const web = deps.web ?? null;
+  const webUpgrade = deps.webUpgrade ?? null;
+  const allowedOrigins = new Set(deps.allowedOrigins ?? []);
+
+  async function onRequest(req: IncomingMessage, res: ServerResponse) {
+    try {
+      if (await api(req, res)) return;
+      if (web) return await web(req, res);
+      const path = (req.url ?? "/").split("?")[0];
+      if (path === "/" || !path?.startsWith("/_next")) {
+        sendText(res, 200, placeholderPage(), "text/html; charset=utf-8");
+      } else {
+        sendError(res, 404, "not-found", "the web app is not built");
+      }
+    } catch (error) {
+      logger.error("request failed", { url: req.url, error });
+      if (!res.headersSent) sendError(res, 500, "internal", "internal error");
+      else res.destroy();
+    }
+  }
+
+  const http = createServer((req, res) => void onRequest(req, res));
+  // Slow or stuck clients must not hold sockets forever.
+  http.requestTimeout = 30_000;
+  http.headersTimeout = 20_000;
+
+  const io: AppServer = new Server(http, {
+    path: SOCKET_PATH,
+    serveClient: false,
+    maxHttpBufferSize: limits.maxMessageBytes,
+    // With a dev upgrade handler, non-socket.io upgrades are Next's; otherwise drop them.
+    destroyUpgrade: webUpgrade === null,
+    allowRequest: (req, callback) => callback(null, originAllowed(req, allowedOrigins)),
+  });
+  if (webUpgrade) {
+    http.on("upgrade", (req: IncomingMessage, socket: Duplex, head: Buffer) => {
+      if ((req.url ?? "").startsWith(SOCKET_PATH)) return;
+      void webUpgrade(req, socket, head).catch(() => socket.destroy());
+    });
+  }
+  attachSockets({ io, db: deps.db, hub, clock, logger, limits });
+
+  let closing: Promise<void> | null = null;
+
+  return {
+    http,
+    io,
+    hub,
+    restore: () => hub.restoreAll(),
+    listen(port, host) {
+      return new Promise((resolve, reject) => {
+        const onError = (error: Error) => reject(error);
+        http.once("error", onError);
+        http.listen(port, host, () => {
+          http.off("error", onError);
+          const address = http.address() as AddressInfo;
+          resolve({ port: address.port, host: address.address });
+        });
+      });
+    },
+    close() {
+      closing ??= (async () => {
+        await hub.close();
+        // io.close() disconnects every client and closes the HTTP server as well.
+        await new Promise<void>((resolve) => {
+          io.close(() => resolve());
+        });
+        http.closeAllConnections();
+      })();
+      return closing;
+    },
+  };
+}
+
+/**
+ * Browsers send Origin with every WebSocket and cross-site request; CORS settings do not
+ * cover WebSockets, so compare it with the Host the request came to. Clients without an
+ * Origin (scripts, tests) are not browsers and are let through.
+ */
+function originAllowed(req: IncomingMessage, allowed: ReadonlySet<string>): boolean {
+  const origin = req.headers.origin;
+  if (!origin) return true;
+  if (allowed.has(origin)) return true;
+  try {
+    return new URL(origin).host === req.headers.host;
+  } catch {
+    return false;
+  }
+}

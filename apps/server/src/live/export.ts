@@ -1,0 +1,86 @@
+/**
+ * Session exports. Everything is computed from one read of the event log, so the record is
+ * consistent with itself. Events of a round that is still open are left out: its sealed moves
+ * stay private until the round resolves.
+ */
+import type { SessionSummary } from "@contend/db";
+import type { RoundResult, SessionEvent, SessionExport, SessionListItem } from "@contend/protocol";
+import { fold } from "@contend/session";
+import { toCsv } from "../http/csv";
+import type { CsvCell } from "../http/csv";
+
+/** The log without the open round: cut at the last round-opened that has no round-resolved. */
+export function publicEvents(events: readonly SessionEvent[]): SessionEvent[] {
+  let cut = events.length;
+  for (let i = events.length - 1; i >= 0; i--) {
+    const e = events[i]!;
+    if (e.type === "round-resolved") break;
+    if (e.type === "round-opened") {
+      cut = i;
+      break;
+    }
+  }
+  return events.slice(0, cut);
+}
+
+export function listItem(summary: SessionSummary, rounds: number): SessionListItem {
+  return {
+    id: summary.id,
+    title: summary.title,
+    status: summary.status as SessionListItem["status"],
+    createdAt: summary.createdAt.toISOString(),
+    updatedAt: summary.updatedAt.toISOString(),
+    rounds,
+  };
+}
+
+export function buildExport(
+  summary: SessionSummary,
+  allEvents: readonly SessionEvent[],
+): SessionExport {
+  const events = publicEvents(allEvents);
+  const state = fold(events);
+  const rounds: RoundResult[] = state.status === "empty" ? [] : state.rounds;
+  return { session: listItem(summary, rounds.length), events, rounds };
+}
+
+export const CSV_HEADER = [
+  "round",
+  "seat",
+  "rival",
+  "effort",
+  "share",
+  "payoff",
+  "total",
+  "bestResponse",
+  "regret",
+  "equilibriumEffort",
+  "defaulted",
+  "reason",
+] as const;
+
+/** One row per seat that played, per resolved round. */
+export function roundsCsv(rounds: readonly RoundResult[]): string {
+  const rows: CsvCell[][] = [];
+  for (const r of rounds) {
+    const eq = r.equilibrium;
+    const eqEfforts = eq.efforts ?? eq.expectedEfforts ?? null;
+    r.seatIndices.forEach((seat, k) => {
+      rows.push([
+        r.round,
+        seat,
+        r.scenario.rivals[k]?.name ?? "",
+        r.efforts[seat] ?? null,
+        r.shares[seat] ?? null,
+        r.payoffs[seat] ?? null,
+        r.totals[seat] ?? null,
+        r.bestResponses[seat] ?? null,
+        r.regrets[seat] ?? null,
+        eqEfforts ? (eqEfforts[k] ?? null) : null,
+        r.defaulted[seat] ?? null,
+        r.reason,
+      ]);
+    });
+  }
+  return toCsv(CSV_HEADER, rows);
+}

@@ -1,0 +1,268 @@
+/**
+ * The live sessions of this process: each session's folded state, its round clock and the
+ * one queue its commands pass through. The pipeline for every command is
+ *   decide (pure engine) -> append to the database (the seq check is the authority)
+ *   -> apply -> arm the clock -> notify (views are pushed by the caller's listener).
+ * Nothing is acknowledged before the database has committed it.
+ */
+import type { AppendEffects, Database, KeyInput, NewEvent, StoredEvent } from "@contend/db";
+import type { ErrorCode, EventBody, SessionEvent } from "@contend/protocol";
+import { allSealed, apply, deadline, decide, initialState } from "@contend/session";
+import type { Actor, DecideData, EngineCommand, SessionState } from "@contend/session";
+import type { Clock, TimerHandle } from "../clock";
+import type { Logger } from "../logger";
+import { createSerialQueue } from "../serialQueue";
+
+export interface LiveSession {
+  readonly id: string;
+  state: SessionState;
+  /** seq of every sealed move of the open round, by "seat:clientMoveId" (for repeated acks) */
+  moveSeqs: Map<string, number>;
+  timer: TimerHandle | null;
+}
+
+export type ExecuteResult =
+  | { ok: true; seq: number; data: DecideData; events: SessionEvent[] }
+  | { ok: false; code: ErrorCode; message: string; path?: string };
+
+export interface ExecuteOptions {
+  /** keys stored in the same transaction as the events (e.g. the key of a claimed seat) */
+  addKeys?: KeyInput[];
+}
+
+export type CommitListener = (live: LiveSession, events: SessionEvent[]) => void;
+
+export interface SessionHub {
+  /** the live session, loaded from the database on first use; null when it does not exist */
+  get(sessionId: string): Promise<LiveSession | null>;
+  execute(
+    sessionId: string,
+    command: EngineCommand,
+    actor: Actor,
+    options?: ExecuteOptions,
+  ): Promise<ExecuteResult>;
+  /** load every session that has not ended and re-arm its clock (on start) */
+  restoreAll(): Promise<number>;
+  onCommit(listener: CommitListener): void;
+  /** stop all timers and wait for queued commands to finish */
+  close(): Promise<void>;
+}
+
+const SYSTEM: Actor = { role: "system" };
+
+/** Stored rows -> protocol events. The log is written only by this hub, so it is trusted. */
+export function toSessionEvent(row: StoredEvent): SessionEvent {
+  return { ...(row.payload as object), type: row.type, seq: row.seq, at: row.at } as SessionEvent;
+}
+
+function toNewEvent(event: SessionEvent): NewEvent {
+  const { seq: _seq, at, ...body } = event;
+  return { type: event.type, at, payload: body };
+}
+
+export function createSessionHub(deps: { db: Database; clock: Clock; logger: Logger }): SessionHub {
+  const { db, clock, logger } = deps;
+  const sessions = new Map<string, LiveSession>();
+  const loading = new Map<string, Promise<LiveSession | null>>();
+  const queue = createSerialQueue();
+  const listeners: CommitListener[] = [];
+  let closed = false;
+
+  function applyAll(live: LiveSession, events: readonly SessionEvent[]) {
+    for (const event of events) {
+      live.state = apply(live.state, event);
+      if (event.type === "round-opened") live.moveSeqs.clear();
+      if (event.type === "move-sealed") {
+        live.moveSeqs.set(`${event.seatIndex}:${event.clientMoveId}`, event.seq);
+      }
+    }
+  }
+
+  async function load(sessionId: string): Promise<LiveSession | null> {
+    const rows = await db.events.list(sessionId);
+    if (rows.length === 0) return null;
+    const live: LiveSession = {
+      id: sessionId,
+      state: initialState(),
+      moveSeqs: new Map(),
+      timer: null,
+    };
+    applyAll(live, rows.map(toSessionEvent));
+    return live;
+  }
+
+  async function get(sessionId: string): Promise<LiveSession | null> {
+    const cached = sessions.get(sessionId);
+    if (cached) return cached;
+    const pending = loading.get(sessionId);
+    if (pending) return pending;
+    const promise = load(sessionId).then((live) => {
+      // A concurrent load may have finished first; keep exactly one object per session.
+      const existing = sessions.get(sessionId);
+      if (existing) return existing;
+      if (live) {
+        sessions.set(sessionId, live);
+        armClock(live);
+      }
+      return live;
+    });
+    loading.set(sessionId, promise);
+    try {
+      return await promise;
+    } finally {
+      loading.delete(sessionId);
+    }
+  }
+
+  /** Another process (sharing PostgreSQL) moved the log on: catch up from our seq. */
+  async function catchUp(live: LiveSession) {
+    const rows = await db.events.list(live.id, live.state.seq);
+    applyAll(live, rows.map(toSessionEvent));
+  }
+
+  function armClock(live: LiveSession) {
+    if (live.timer) clock.clearTimer(live.timer);
+    live.timer = null;
+    if (closed) return;
+    const at = deadline(live.state);
+    if (at === null) return;
+    const round = live.state.status === "open" ? live.state.open.round : 0;
+    live.timer = clock.setTimer(() => {
+      live.timer = null;
+      void execute(live.id, { type: "closeRound", reason: "clock" }, SYSTEM).then((r) => {
+        // wrong-state: the round was closed (or paused) in the meantime, which is fine.
+        if (!r.ok && r.code !== "wrong-state") {
+          logger.warn("clock close failed", { sessionId: live.id, round, code: r.code });
+        }
+      });
+    }, at - clock.now());
+  }
+
+  async function commit(
+    live: LiveSession,
+    command: EngineCommand,
+    actor: Actor,
+    options: ExecuteOptions,
+  ): Promise<ExecuteResult> {
+    for (let attempt = 0; ; attempt++) {
+      const now = clock.now();
+      const decision = decide(live.state, command, { now, actor });
+      if (!decision.ok) return decision;
+      if (decision.events.length === 0) {
+        return { ok: true, seq: live.state.seq, data: decision.data, events: [] };
+      }
+      const base = live.state.seq;
+      const at = Math.max(now, live.state.status === "empty" ? 0 : live.state.at);
+      const stamped = decision.events.map(
+        (e, i) => ({ ...e, seq: base + 1 + i, at }) as SessionEvent,
+      );
+      const trial = stamped.reduce(apply, live.state);
+      const effects = effectsOf(decision.events, options);
+      if (trial.status !== live.state.status && trial.status !== "empty")
+        effects.status = trial.status;
+      const result = await db.events.append(live.id, base, stamped.map(toNewEvent), effects);
+      if (result.ok) {
+        applyAll(live, stamped);
+        return { ok: true, seq: live.state.seq, data: decision.data, events: stamped };
+      }
+      if (result.code === "not-found")
+        return { ok: false, code: "not-found", message: "no such session" };
+      if (result.code === "seat-claimed") {
+        await catchUp(live);
+        return {
+          ok: false,
+          code: "conflict",
+          message: `seat ${result.seatIndex} is already taken`,
+        };
+      }
+      // conflict: someone else appended first; reload and decide again, once.
+      await catchUp(live);
+      if (attempt >= 1) {
+        return { ok: false, code: "conflict", message: "the session changed meanwhile; try again" };
+      }
+    }
+  }
+
+  async function execute(
+    sessionId: string,
+    command: EngineCommand,
+    actor: Actor,
+    options: ExecuteOptions = {},
+  ): Promise<ExecuteResult> {
+    return queue.run(sessionId, async () => {
+      if (closed) return { ok: false, code: "internal", message: "the server is shutting down" };
+      const live = await get(sessionId);
+      if (!live) return { ok: false, code: "not-found", message: "no such session" };
+      const result = await commit(live, command, actor, options);
+      const committed = result.ok ? [...result.events] : [];
+      // When the last active seat has sealed, the round closes at once, in the same turn of
+      // the queue, so no other command can slip in between.
+      if (result.ok && allSealed(live.state)) {
+        const closing = await commit(
+          live,
+          { type: "closeRound", reason: "all-sealed" },
+          SYSTEM,
+          {},
+        );
+        if (closing.ok) committed.push(...closing.events);
+        else logger.warn("all-sealed close failed", { sessionId, code: closing.code });
+      }
+      armClock(live);
+      if (committed.length > 0) notify(live, committed);
+      return result;
+    });
+  }
+
+  function notify(live: LiveSession, events: SessionEvent[]) {
+    for (const listener of listeners) {
+      try {
+        listener(live, events);
+      } catch (error) {
+        logger.error("commit listener failed", { sessionId: live.id, error });
+      }
+    }
+  }
+
+  return {
+    get,
+    execute,
+    async restoreAll() {
+      const summaries = await db.sessions.list();
+      let restored = 0;
+      for (const s of summaries) {
+        if (s.status === "ended") continue;
+        const live = await get(s.id);
+        if (!live) continue;
+        restored++;
+        // Overdue clocks fire at once (armClock with a negative delay); a round whose seats
+        // had all sealed before a crash closes now.
+        if (allSealed(live.state)) {
+          void execute(s.id, { type: "closeRound", reason: "all-sealed" }, SYSTEM);
+        }
+      }
+      return restored;
+    },
+    onCommit(listener) {
+      listeners.push(listener);
+    },
+    async close() {
+      closed = true;
+      for (const live of sessions.values()) {
+        if (live.timer) clock.clearTimer(live.timer);
+        live.timer = null;
+      }
+      await queue.idle();
+    },
+  };
+}
+
+/** Seat rows and keys that must change in the same transaction as the events. */
+function effectsOf(events: readonly EventBody[], options: ExecuteOptions): AppendEffects {
+  const effects: AppendEffects = {};
+  const claims = events.flatMap((e) =>
+    e.type === "seat-claimed" ? [{ seatIndex: e.seatIndex, displayName: e.displayName }] : [],
+  );
+  if (claims.length > 0) effects.claimSeats = claims;
+  if (options.addKeys?.length) effects.addKeys = options.addKeys;
+  return effects;
+}

@@ -1,0 +1,12 @@
+/** The web pages a session's participants open; keys travel in the query string. */
+export function sessionLinks(baseUrl: string, sessionId: string, joinCode: string) {
+  const base = baseUrl.replace(/\/+$/, "");
+  const id = encodeURIComponent(sessionId);
+  const q = (key: string) => `?key=${encodeURIComponent(key)}`;
+  return {
+    facilitator: (key: string) => `${base}/facilitate/${id}${q(key)}`,
+    seat: (key: string) => `${base}/seat/${id}${q(key)}`,
+    spectator: (key: string) => `${base}/screen/${id}${q(key)}`,
+    join: `${base}/join?code=${encodeURIComponent(joinCode)}`,
+  };
+}

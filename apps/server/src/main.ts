@@ -1,0 +1,80 @@
+/** Starts the server: environment, database, web app, sessions restored, then listen. */
+import path from "node:path";
+import { openDatabase } from "@contend/db";
+import { createApplication } from "./app";
+import { systemClock } from "./clock";
+import { describeLinks, ensureDemoSession } from "./demo";
+import { parseEnv, WEB_DIR } from "./env";
+import { createConsoleLogger } from "./logger";
+import { loadWebApp } from "./web";
+
+async function main() {
+  const env = parseEnv();
+  const logger = createConsoleLogger(env.logLevel);
+  const db = await openDatabase({ url: env.databaseUrl });
+  logger.info("database open", {
+    kind: db.kind,
+    where: db.kind === "pglite" ? path.relative(process.cwd(), env.databaseUrl) || "." : "postgres",
+    migrationsApplied: db.migrationsApplied,
+  });
+  const web = env.web
+    ? await loadWebApp({
+        dir: WEB_DIR,
+        dev: env.webDev,
+        hostname: env.host,
+        port: env.port,
+        logger,
+      })
+    : null;
+  if (!web) logger.info("web pages off; serving the API and a placeholder page");
+  const app = createApplication({
+    db,
+    clock: systemClock,
+    logger,
+    web: web?.handle ?? null,
+    webUpgrade: web?.upgrade ?? null,
+    limits: env.limits,
+    adminKey: env.adminKey,
+    publicUrl: env.publicUrl,
+    allowedOrigins: env.allowedOrigins,
+  });
+  const restored = await app.restore();
+  const { port } = await app.listen(env.port, env.host);
+  const shownHost = env.host === "0.0.0.0" || env.host === "::" ? "localhost" : env.host;
+  const baseUrl = env.publicUrl ?? `http://${shownHost}:${port}`;
+  logger.info(`listening on ${baseUrl}`, { restoredSessions: restored });
+  if (env.demo) {
+    const demo = await ensureDemoSession(db, { now: systemClock.now(), baseUrl });
+    if (demo) console.log(`\n${describeLinks(demo)}\n`);
+  }
+
+  let stopping = false;
+  const stop = (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    logger.info(`${signal}: shutting down`);
+    const force = setTimeout(() => {
+      logger.error("shutdown took too long; exiting");
+      process.exit(1);
+    }, 10_000);
+    force.unref();
+    void (async () => {
+      try {
+        await app.close();
+        await web?.close();
+        await db.close();
+        process.exit(0);
+      } catch (error) {
+        logger.error("shutdown failed", { error });
+        process.exit(1);
+      }
+    })();
+  };
+  process.on("SIGINT", () => stop("SIGINT"));
+  process.on("SIGTERM", () => stop("SIGTERM"));
+}
+
+main().catch((error: unknown) => {
+  console.error(error instanceof Error ? (error.stack ?? error.message) : error);
+  process.exit(1);
+});

@@ -1,0 +1,306 @@
+/**
+ * socket.io transport. Handlers stay thin: rate-limit -> validate (protocol) -> authorise ->
+ * hub.execute (engine + database) -> ack. Views are pushed by the hub's commit listener, each
+ * socket getting the view of its own role, so a sealed effort reaches only its owner.
+ */
+import type { Server, Socket } from "socket.io";
+import type { Database } from "@contend/db";
+import { newKey, normaliseJoinCode } from "@contend/db";
+import {
+  ackError,
+  COMMAND_ROLES,
+  parseCommand,
+  parseHello,
+  PROTOCOL_VERSION,
+} from "@contend/protocol";
+import type {
+  Ack,
+  AckError,
+  ClientToServerEvents,
+  Command,
+  CommandAckData,
+  Credentials,
+  HelloAckData,
+  Role,
+  ServerToClientEvents,
+} from "@contend/protocol";
+import { viewFor } from "@contend/session";
+import type { Viewer } from "@contend/session";
+import type { Clock } from "./clock";
+import type { Limits } from "./env";
+import type { ExecuteResult, LiveSession, SessionHub } from "./live/hub";
+import type { Logger } from "./logger";
+import { createTokenBucket } from "./rateLimit";
+import type { TokenBucket } from "./rateLimit";
+
+interface Identity {
+  role: Role;
+  sessionId: string;
+  seatIndex?: number;
+}
+
+interface SocketData {
+  bucket: TokenBucket;
+  identity: Identity | null;
+  /** consecutive rate-limited messages; a client that keeps flooding is disconnected */
+  strikes: number;
+}
+
+type AppSocket = Socket<
+  ClientToServerEvents,
+  ServerToClientEvents,
+  Record<string, never>,
+  SocketData
+>;
+export type AppServer = Server<
+  ClientToServerEvents,
+  ServerToClientEvents,
+  Record<string, never>,
+  SocketData
+>;
+
+type AnyAck = (res: Ack<unknown>) => void;
+
+/** Past this many refused messages in a row the connection is closed. */
+const MAX_STRIKES = 200;
+
+export interface SocketDeps {
+  io: AppServer;
+  db: Database;
+  hub: SessionHub;
+  clock: Clock;
+  logger: Logger;
+  limits: Limits;
+}
+
+export function attachSockets(deps: SocketDeps) {
+  const { io, db, hub, clock, logger, limits } = deps;
+  /** sockets that said hello, by session */
+  const rooms = new Map<string, Set<AppSocket>>();
+
+  function join(socket: AppSocket, identity: Identity) {
+    leave(socket);
+    socket.data.identity = identity;
+    let room = rooms.get(identity.sessionId);
+    if (!room) rooms.set(identity.sessionId, (room = new Set()));
+    room.add(socket);
+  }
+
+  function leave(socket: AppSocket) {
+    const identity = socket.data.identity;
+    if (!identity) return;
+    const room = rooms.get(identity.sessionId);
+    room?.delete(socket);
+    if (room && room.size === 0) rooms.delete(identity.sessionId);
+    socket.data.identity = null;
+  }
+
+  function viewerOf(identity: Identity): Viewer {
+    return identity.role === "seat"
+      ? { role: "seat", seatIndex: identity.seatIndex as number }
+      : { role: identity.role };
+  }
+
+  /** After every commit: each socket of the session gets its role's view (one build per role). */
+  hub.onCommit((live) => {
+    const room = rooms.get(live.id);
+    if (!room || live.state.status === "empty") return;
+    const cache = new Map<string, ReturnType<typeof viewFor>>();
+    for (const socket of room) {
+      const identity = socket.data.identity;
+      if (!identity) continue;
+      const viewer = viewerOf(identity);
+      const key = `${viewer.role}:${viewer.seatIndex ?? ""}`;
+      let view = cache.get(key);
+      if (!view) cache.set(key, (view = viewFor(live.state, viewer)));
+      socket.emit("view", { seq: live.state.seq, view });
+    }
+  });
+
+  async function authenticate(
+    credentials: Credentials,
+  ): Promise<{ ok: true; identity: Identity } | AckError> {
+    if (credentials.role === "guest") {
+      const session = await db.sessions.byJoinCode(normaliseJoinCode(credentials.joinCode));
+      if (!session) return ackError("not-found", "no session has this join code");
+      return { ok: true, identity: { role: "guest", sessionId: session.id } };
+    }
+    const grant = await db.keys.resolve(credentials.sessionId, credentials.key);
+    if (!grant || grant.role !== credentials.role) {
+      return ackError(
+        "unauthorized",
+        `this key does not open session ${credentials.sessionId} as ${credentials.role}`,
+      );
+    }
+    if (grant.role === "seat") {
+      if (grant.seatIndex === null) throw new Error("seat key without a seat index");
+      return {
+        ok: true,
+        identity: { role: "seat", sessionId: credentials.sessionId, seatIndex: grant.seatIndex },
+      };
+    }
+    return { ok: true, identity: { role: grant.role, sessionId: credentials.sessionId } };
+  }
+
+  /** A seat's first hello with its own key claims the seat when nobody has yet. */
+  async function claimOnHello(
+    live: LiveSession,
+    identity: Identity,
+    displayName: string | undefined,
+  ) {
+    if (live.state.status === "empty" || identity.seatIndex === undefined) return;
+    const seat = live.state.seats[identity.seatIndex];
+    if (!seat || seat.claimed || seat.policy || !seat.active || live.state.status === "ended")
+      return;
+    const result = await hub.execute(
+      live.id,
+      { type: "claimSeat", seatIndex: seat.index, displayName: displayName ?? seat.name },
+      { role: "seat", seatIndex: seat.index },
+    );
+    // conflict: someone claimed it a moment earlier; the hello still goes through.
+    if (!result.ok && result.code !== "conflict" && result.code !== "wrong-state") {
+      logger.warn("claim on hello failed", { sessionId: live.id, code: result.code });
+    }
+  }
+
+  async function hello(socket: AppSocket, raw: unknown, ack: AnyAck): Promise<void> {
+    const parsed = parseHello(raw);
+    if (!parsed.ok) return ack(ackError(parsed.code, parsed.message, parsed.path));
+    const auth = await authenticate(parsed.value.credentials);
+    if (!auth.ok) return ack(auth);
+    const { identity } = auth;
+    const live = await hub.get(identity.sessionId);
+    if (!live || live.state.status === "empty")
+      return ack(ackError("not-found", "no such session"));
+    if (identity.role === "seat") {
+      const creds = parsed.value.credentials;
+      await claimOnHello(live, identity, creds.role === "seat" ? creds.displayName : undefined);
+    }
+    if (socket.disconnected) return;
+    // Registering, reading the state and acknowledging happen in one synchronous step, so
+    // every later commit reaches this socket as a pushed view after this ack's view.
+    join(socket, identity);
+    const state = live.state;
+    const data: HelloAckData = {
+      protocol: PROTOCOL_VERSION,
+      role: identity.role,
+      sessionId: identity.role === "guest" ? null : identity.sessionId,
+      seq: state.seq,
+      view: viewFor(state, viewerOf(identity)),
+    };
+    if (identity.seatIndex !== undefined) data.seatIndex = identity.seatIndex;
+    ack({ ok: true, data });
+  }
+
+  async function command(socket: AppSocket, raw: unknown): Promise<Ack<CommandAckData>> {
+    const identity = socket.data.identity;
+    if (!identity) return ackError("unauthorized", "say hello first");
+    const parsed = parseCommand(raw);
+    if (!parsed.ok) return ackError(parsed.code, parsed.message, parsed.path);
+    const cmd: Command = parsed.value;
+    const needed = COMMAND_ROLES[cmd.type];
+    if (identity.role !== needed) {
+      return ackError("forbidden", `${cmd.type} is for the ${needed}, not the ${identity.role}`);
+    }
+    const actor =
+      identity.role === "seat"
+        ? { role: identity.role, seatIndex: identity.seatIndex as number }
+        : { role: identity.role };
+    if (cmd.type === "claimSeat") {
+      const seatKey = newKey();
+      const result = await hub.execute(identity.sessionId, cmd, actor, {
+        addKeys: [{ role: "seat", seatIndex: cmd.seatIndex, plaintext: seatKey }],
+      });
+      if (!result.ok) return failure(result);
+      return {
+        ok: true,
+        data: { seq: result.seq, sessionId: identity.sessionId, seatIndex: cmd.seatIndex, seatKey },
+      };
+    }
+    const result = await hub.execute(identity.sessionId, cmd, actor);
+    if (!result.ok) return failure(result);
+    if (result.data.kind === "sealMove") {
+      const d = result.data;
+      const sealed = result.events.find((e) => e.type === "move-sealed");
+      const live = await hub.get(identity.sessionId);
+      const seq =
+        sealed?.seq ?? live?.moveSeqs.get(`${d.seatIndex}:${d.clientMoveId}`) ?? result.seq;
+      return {
+        ok: true,
+        data: {
+          seq,
+          round: d.round,
+          seatIndex: d.seatIndex,
+          clientMoveId: d.clientMoveId,
+          effort: d.effort,
+        },
+      };
+    }
+    return { ok: true, data: { seq: result.seq } };
+  }
+
+  function failure(result: Extract<ExecuteResult, { ok: false }>): AckError {
+    return ackError(result.code, result.message, result.path);
+  }
+
+  io.on("connection", (raw) => {
+    const socket = raw as AppSocket;
+    socket.data.bucket = createTokenBucket(limits.ratePerSecond, limits.rateBurst, clock.now());
+    socket.data.identity = null;
+    socket.data.strikes = 0;
+    socket.on("disconnect", () => leave(socket));
+    socket.onAny((event: unknown, ...args: unknown[]) => {
+      const last = args[args.length - 1];
+      const ack = once(typeof last === "function" ? (last as AnyAck) : null);
+      if (!socket.data.bucket.take(clock.now())) {
+        if (++socket.data.strikes > MAX_STRIKES) socket.disconnect(true);
+        ack(
+          ackError(
+            "rate-limited",
+            `slow down: at most ${limits.ratePerSecond} messages per second`,
+          ),
+        );
+        return;
+      }
+      socket.data.strikes = 0;
+      const payload = typeof last === "function" ? args.slice(0, -1) : args;
+      let work: Promise<void>;
+      if (event === "hello") work = hello(socket, payload[0], ack);
+      else if (event === "command") work = command(socket, payload[0]).then(ack);
+      else {
+        ack(
+          ackError(
+            "bad-request",
+            `unknown event ${JSON.stringify(String(event).slice(0, 40))}; send hello or command`,
+          ),
+        );
+        return;
+      }
+      work.catch((error: unknown) => {
+        logger.error("socket handler failed", { event: String(event), error });
+        ack(ackError("internal", "internal error"));
+      });
+    });
+  });
+
+  return {
+    /** sockets currently registered with a session (for tests and health) */
+    connectedTo(sessionId: string): number {
+      return rooms.get(sessionId)?.size ?? 0;
+    },
+  };
+}
+
+/** Calls the ack at most once; a missing ack (the client did not ask for one) is a no-op. */
+function once(ack: AnyAck | null): AnyAck {
+  let done = false;
+  return (res) => {
+    if (done || !ack) return;
+    done = true;
+    try {
+      ack(res);
+    } catch {
+      // a broken client callback must not take the server down
+    }
+  };
+}
