@@ -4,7 +4,7 @@
  */
 import { expect } from "vitest";
 import { parseSessionScenario, sessionEventSchema } from "@contend/protocol";
-import type { SessionEvent, SessionScenario } from "@contend/protocol";
+import type { EventBody, SessionEvent, SessionScenario } from "@contend/protocol";
 import { apply, createSession, decide, fold } from "../src/index";
 import type { Actor, Decision, EngineCommand, SessionState } from "../src/index";
 
@@ -45,7 +45,7 @@ export class Room {
     this.commit([createSession({ sessionId: "sess-1", scenario, seed })]);
   }
 
-  private commit(bodies: Decision & { ok: true } extends { events: infer E } ? E : never) {
+  private commit(bodies: readonly EventBody[]) {
     for (const body of bodies) {
       const event = { ...body, seq: this.log.length + 1, at: this.now } as SessionEvent;
       this.log.push(event);
