@@ -58,11 +58,17 @@ export function refBestResponse(
  * r <= 1 cases used here); stops when no effort moves by more than 1e-7 of its scale v/m,
  * about the precision a derivative-free optimiser reaches on a flat maximum.
  */
-export function refEquilibrium(c: Contest, start?: number[], sweeps = 100): number[] {
+export function refEquilibrium(
+  c: Contest,
+  start?: number[],
+  sweeps = 100,
+  frozen: number | null = null,
+): number[] {
   const e = start ? start.slice() : c.rivals.map((x) => x.value / (x.cost * c.rivals.length * 2));
   for (let s = 0; s < sweeps; s++) {
     let moved = 0;
     for (let i = 0; i < e.length; i++) {
+      if (i === frozen) continue;
       const br = refBestResponse(c, i, e).effort;
       const scale = c.rivals[i]!.value / c.rivals[i]!.cost;
       moved = Math.max(moved, Math.abs(br - e[i]!) / scale);
