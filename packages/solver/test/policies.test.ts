@@ -144,25 +144,30 @@ describe("createPolicy", () => {
     expect(late).toBeGreaterThan(eq[0]!);
   });
 
-  it("createPolicy(equilibrium, all-pay) draws from the mixed strategy with the right mean when one is reported", () => {
+  it("createPolicy(equilibrium, all-pay) draws from the mixed strategy with its mean (Hillman & Riley 1989)", () => {
+    // Prize 120, costs 1 and 1.25: in value per unit cost 120 and 96, so the weaker rival
+    // spends nothing with probability 1 - 96/120 = 0.2 (Hillman & Riley 1989).
     const allpay = normalize({
       ...kiosk,
       csf: { kind: "allpay" },
       rivals: kiosk.rivals.slice(0, 2),
     });
     const res = solve(allpay).equilibrium;
-    const m = res.strategies?.[0];
-    // Only meaningful once the solver reports mixed strategies for the all-pay auction.
-    if (res.kind !== "mixed" || !m) return;
+    expect(res.kind).toBe("mixed");
+    const m = res.strategies![1]!;
+    expect(m.atomAtZero).toBeCloseTo(0.2, 9);
     const p = createPolicy({ kind: "equilibrium" }, 9);
-    let sum = 0;
-    for (let t = 0; t < 2000; t++)
-      sum += p.decide({
-        contest: allpay,
-        self: 0,
-        history: new Array(t).fill({ efforts: [0, 0] }),
-      });
-    expect(Math.abs(sum / 2000 - m.mean) / m.mean).toBeLessThan(0.05);
+    const draws: number[] = [];
+    for (let t = 0; t < 4000; t++) {
+      draws.push(
+        p.decide({ contest: allpay, self: 1, history: new Array(t).fill({ efforts: [0, 0] }) }),
+      );
+    }
+    const mean = draws.reduce((a, b) => a + b, 0) / draws.length;
+    expect(Math.abs(mean - m.mean) / m.mean).toBeLessThan(0.05);
+    const zeros = draws.filter((d) => d === 0).length / draws.length;
+    expect(Math.abs(zeros - m.atomAtZero)).toBeLessThan(0.03);
+    expect(draws.every((d) => d >= 0 && d <= m.high)).toBe(true);
   });
 
   it("every policy has a label and a description", () => {
