@@ -1,6 +1,7 @@
 import { spawnSync } from "node:child_process";
 import { existsSync, writeFileSync } from "node:fs";
 import path from "node:path";
+import { fileURLToPath } from "node:url";
 import { afterEach, describe, expect, it } from "vitest";
 import { openDatabase } from "../src/index";
 import { event, sessionInput, tempDir } from "./fixtures";
@@ -57,6 +58,31 @@ describe("PGlite in a directory", () => {
       await second.close();
     }
   });
+
+  it("a process killed right after its commits: everything acknowledged is there on reopen", async () => {
+    const dir = dataDir();
+    const child = spawnSync(
+      process.execPath,
+      ["--import", "tsx", fileURLToPath(new URL("./kill-child.ts", import.meta.url)), dir],
+      { encoding: "utf8", timeout: 120_000 },
+    );
+    expect(child.signal).toBe("SIGKILL");
+    const acked = JSON.parse(child.stdout.trim()) as { id: string; facilitatorKey: string };
+    expect(existsSync(`${dir}.lock`)).toBe(true); // left behind by the dead process
+
+    const db = await openDatabase({ url: dir });
+    try {
+      expect(db.migrationsApplied).toEqual([]);
+      expect((await db.events.list(acked.id)).map((e) => [e.seq, e.type])).toEqual([
+        [1, "session-created"],
+        [2, "a"],
+        [3, "b"],
+      ]);
+      expect((await db.keys.resolve(acked.id, acked.facilitatorKey))?.role).toBe("facilitator");
+    } finally {
+      await db.close();
+    }
+  }, 180_000);
 
   it("a second open of a directory already open in this process is refused", async () => {
     const dir = dataDir();
