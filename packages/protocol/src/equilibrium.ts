@@ -1,4 +1,7 @@
-/** The solver's Equilibrium shape, as stored inside round-resolved events. */
+/**
+ * The solver's Equilibrium shape, as stored inside round-resolved events. Stored events are
+ * JSON, so the one number the solver may leave undefined (the Nash gap of "none-pure") is null.
+ */
 import { z } from "zod";
 import { finiteSchema } from "./numbers";
 
@@ -18,7 +21,8 @@ export const equilibriumSchema = z.object({
   totalEffort: finiteSchema,
   dissipation: finiteSchema,
   active: z.array(z.boolean()),
-  nashGap: finiteSchema,
+  /** null when there is no profile to measure (kind "none-pure"; the solver reports NaN) */
+  nashGap: finiteSchema.nullable(),
   method: z.string(),
   strategies: z.array(mixedStrategySchema).optional(),
   note: z.string().optional(),

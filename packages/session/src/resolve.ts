@@ -65,7 +65,12 @@ export function resolveRound(
   const p = shares(contest, efforts);
   const expected = payoffs(contest, efforts);
   const responses = respond(contest, efforts);
-  const equilibrium = solve(contest).equilibrium;
+  const solved = solve(contest).equilibrium;
+  // JSON has no NaN: an unmeasurable gap is stored as null.
+  const equilibrium = {
+    ...solved,
+    nashGap: Number.isFinite(solved.nashGap) ? solved.nashGap : null,
+  };
 
   let winner: number | null = null;
   let drawSeed: number | null = null;

@@ -143,3 +143,25 @@ describe("apply", () => {
     expect(room.state).toMatchObject({ seq: 2, at: 5_555 });
   });
 });
+
+describe("stored events are JSON-safe for every contest form", () => {
+  const forms = [
+    { kind: "ratio", decisiveness: 0.5 },
+    { kind: "ratio", decisiveness: 3 },
+    { kind: "logit", scale: 0.1 },
+    { kind: "allpay" },
+  ];
+  for (const csf of forms) {
+    it(`a round under ${JSON.stringify(csf)} survives a JSON round trip and the schema`, () => {
+      const room = new Room(
+        scenarioWith({ computer: { "Corner Ovens": { kind: "equilibrium" } } }, { csf }),
+      );
+      room.ok({ type: "openRound" }, facilitator);
+      room.seal(0, 12);
+      room.ok({ type: "closeRound" }, facilitator);
+      const stored = JSON.parse(JSON.stringify(room.log)) as SessionEvent[];
+      expectLogValid(stored);
+      expect(fold(stored)).toEqual(room.state);
+    });
+  }
+});
