@@ -162,8 +162,18 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
         effects.status = trial.status;
       const result = await db.events.append(live.id, base, stamped.map(toNewEvent), effects);
       if (result.ok) {
-        applyAll(live, stamped);
-        return { ok: true, seq: live.state.seq, data: decision.data, events: stamped };
+        // Apply what the database holds, not what we sent: its JSON column keeps about 16
+        // significant digits, and the live state must equal what a restart or a replay
+        // folds from the same rows.
+        const stored = (await db.events.list(live.id, base)).map(toSessionEvent);
+        applyAll(live, stored);
+        const ours = stored.slice(0, stamped.length);
+        return {
+          ok: true,
+          seq: ours.at(-1)?.seq ?? live.state.seq,
+          data: decision.data,
+          events: ours,
+        };
       }
       if (result.code === "not-found")
         return { ok: false, code: "not-found", message: "no such session" };

@@ -1,0 +1,155 @@
+/** A real server on an ephemeral port with a real embedded database, and real socket clients. */
+import { cpSync, mkdtempSync, rmSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { openDatabase } from "@contend/db";
+import type { Database } from "@contend/db";
+import type {
+  Ack,
+  ClientToServerEvents,
+  CommandAckData,
+  CreateSessionResponse,
+  HelloAckData,
+  ServerToClientEvents,
+  SessionEvent,
+  ViewMessage,
+} from "@contend/protocol";
+import { io as connectClient } from "socket.io-client";
+import type { Socket } from "socket.io-client";
+import { inject } from "vitest";
+import { createApplication } from "../src/app";
+import type { Application, ApplicationDeps } from "../src/app";
+import type { Clock } from "../src/clock";
+import { toSessionEvent } from "../src/live/hub";
+
+export interface TestServer {
+  app: Application;
+  db: Database;
+  url: string;
+  dataDir: string;
+  stop(): Promise<void>;
+}
+
+/** A fresh data directory holding a migrated, empty database. */
+export function freshDataDir(): string {
+  const root = mkdtempSync(path.join(os.tmpdir(), "contend-server-test-"));
+  const dir = path.join(root, "pglite");
+  cpSync(inject("templateDir"), dir, { recursive: true });
+  return dir;
+}
+
+export function removeDataDir(dir: string) {
+  rmSync(path.dirname(dir), { recursive: true, force: true });
+}
+
+export async function startServer(
+  opts: { dataDir?: string; clock?: Clock } & Omit<ApplicationDeps, "db" | "clock"> = {},
+): Promise<TestServer> {
+  const dataDir = opts.dataDir ?? freshDataDir();
+  const db = await openDatabase({ url: dataDir });
+  const { dataDir: _d, ...deps } = opts;
+  const app = createApplication({ ...deps, db });
+  await app.restore();
+  const { port } = await app.listen(0, "127.0.0.1");
+  let stopped = false;
+  return {
+    app,
+    db,
+    url: `http://127.0.0.1:${port}`,
+    dataDir,
+    async stop() {
+      if (stopped) return;
+      stopped = true;
+      await app.close();
+      await db.close();
+    },
+  };
+}
+
+export type Client = Socket<ServerToClientEvents, ClientToServerEvents> & {
+  views: ViewMessage[];
+  /** every payload this client received, as JSON text, in order */
+  received: string[];
+};
+
+export async function connect(url: string): Promise<Client> {
+  const socket = connectClient(url, {
+    transports: ["websocket"],
+    reconnection: false,
+    forceNew: true,
+  }) as Client;
+  socket.views = [];
+  socket.received = [];
+  socket.on("view", (msg) => socket.views.push(msg));
+  socket.onAny((event: string, ...args: unknown[]) =>
+    socket.received.push(JSON.stringify([event, ...args])),
+  );
+  await new Promise<void>((resolve, reject) => {
+    socket.once("connect", () => resolve());
+    socket.once("connect_error", reject);
+  });
+  return socket;
+}
+
+/** Emits with an ack and a timeout; records the ack in `received` as well. */
+export async function request<T>(socket: Client, event: string, payload: unknown): Promise<Ack<T>> {
+  const emitter = socket.timeout(10_000) as unknown as {
+    emitWithAck(event: string, payload: unknown): Promise<Ack<T>>;
+  };
+  const res = await emitter.emitWithAck(event, payload);
+  socket.received.push(JSON.stringify(["ack", res]));
+  return res;
+}
+
+export function hello(socket: Client, credentials: unknown, lastSeq?: number) {
+  return request<HelloAckData>(socket, "hello", {
+    protocol: 1,
+    credentials,
+    ...(lastSeq === undefined ? {} : { lastSeq }),
+  });
+}
+
+export function command(socket: Client, cmd: unknown) {
+  return request<CommandAckData>(socket, "command", cmd);
+}
+
+export function expectOk<T>(ack: Ack<T>): T {
+  if (!ack.ok) throw new Error(`expected ok, got ${ack.code}: ${ack.message}`);
+  return ack.data;
+}
+
+export async function createSessionOverHttp(
+  url: string,
+  body: unknown,
+): Promise<CreateSessionResponse> {
+  const res = await fetch(`${url}/api/sessions`, {
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body: JSON.stringify(body),
+  });
+  if (res.status !== 201) throw new Error(`create failed ${res.status}: ${await res.text()}`);
+  return (await res.json()) as CreateSessionResponse;
+}
+
+export async function eventLog(db: Database, sessionId: string): Promise<SessionEvent[]> {
+  return (await db.events.list(sessionId)).map(toSessionEvent);
+}
+
+/** Waits until `check` passes (polling), for pushed views that arrive after an ack. */
+export async function eventually<T>(check: () => T, timeoutMs = 5_000): Promise<T> {
+  const start = Date.now();
+  for (;;) {
+    try {
+      return check();
+    } catch (error) {
+      if (Date.now() - start > timeoutMs) throw error;
+      await new Promise((r) => setTimeout(r, 20));
+    }
+  }
+}
+
+export function lastView(socket: Client) {
+  const msg = socket.views.at(-1);
+  if (!msg) throw new Error("no view received yet");
+  return msg.view;
+}

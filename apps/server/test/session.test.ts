@@ -1,0 +1,216 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { normalize, respond, solve } from "@contend/solver";
+import type { RoleView } from "@contend/protocol";
+import { createManualClock } from "../src/clock";
+import {
+  command,
+  connect,
+  createSessionOverHttp,
+  eventLog,
+  eventually,
+  expectOk,
+  hello,
+  lastView,
+  removeDataDir,
+  startServer,
+} from "./helpers";
+import type { Client, TestServer } from "./helpers";
+import { printShops } from "./fixtures";
+
+const clock = createManualClock();
+let server: TestServer;
+const clients: Client[] = [];
+
+beforeAll(async () => {
+  server = await startServer({ clock });
+});
+afterAll(async () => {
+  for (const c of clients) c.disconnect();
+  await server.stop();
+  removeDataDir(server.dataDir);
+});
+
+async function client() {
+  const c = await connect(server.url);
+  clients.push(c);
+  return c;
+}
+
+function roundsOf(view: RoleView) {
+  return view.rounds;
+}
+
+describe("a full live session over sockets", () => {
+  it("three rounds with a computer seat and a shock before round 3 match the solver, and export the log", async () => {
+    const created = await createSessionOverHttp(
+      server.url,
+      printShops({ computer: { "Cobble Copy": { kind: "equilibrium" } } }),
+    );
+    expect(created.seats.map((s) => s.kind)).toEqual(["human", "human", "computer"]);
+    expect(created.seats[2]!.key).toBeNull();
+    const id = created.id;
+
+    const fac = await client();
+    const seat0 = await client();
+    const seat1 = await client();
+    const screen = await client();
+    const facHello = expectOk(
+      await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }),
+    );
+    expect(facHello.role).toBe("facilitator");
+    expect(facHello.view.status).toBe("lobby");
+    const s0 = expectOk(
+      await hello(seat0, {
+        role: "seat",
+        sessionId: id,
+        key: created.seats[0]!.key,
+        displayName: "Ana",
+      }),
+    );
+    expect(s0.seatIndex).toBe(0);
+    expect(s0.view.seats[0]!.claimed).toBe(true);
+    expect(s0.view.seats[0]!.displayName).toBe("Ana");
+    expectOk(await hello(seat1, { role: "seat", sessionId: id, key: created.seats[1]!.key }));
+    expectOk(await hello(screen, { role: "spectator", sessionId: id, key: created.spectatorKey }));
+
+    // Round 1: both humans seal; the computer sealed at opening; the round closes by itself.
+    expectOk(await command(fac, { type: "openRound" }));
+    const m0 = expectOk(
+      await command(seat0, { type: "sealMove", clientMoveId: "r1-a", effort: 37.25 }),
+    );
+    expect(m0).toMatchObject({ round: 1, seatIndex: 0, clientMoveId: "r1-a", effort: 37.25 });
+    // same clientMoveId again: same ack, nothing new in the log
+    const before = (await eventLog(server.db, id)).length;
+    const again = expectOk(
+      await command(seat0, { type: "sealMove", clientMoveId: "r1-a", effort: 37.25 }),
+    );
+    expect(again).toEqual(m0);
+    expect((await eventLog(server.db, id)).length).toBe(before);
+    expectOk(await command(seat1, { type: "sealMove", clientMoveId: "r1-b", effort: 12.5 }));
+    await eventually(() => expect(roundsOf(lastView(fac))).toHaveLength(1));
+    expect(lastView(fac).rounds[0]!.reason).toBe("all-sealed");
+
+    // Round 2: only seat 0 seals; the facilitator closes; seat 1 plays zero (missingMove "zero").
+    expectOk(await command(fac, { type: "openRound" }));
+    expectOk(await command(seat0, { type: "sealMove", clientMoveId: "r2-a", effort: 20 }));
+    expectOk(await command(fac, { type: "closeRound" }));
+    await eventually(() => expect(roundsOf(lastView(screen))).toHaveLength(2));
+    const r2 = lastView(screen).rounds[1]!;
+    expect(r2.reason).toBe("facilitator");
+    expect(r2.defaulted).toEqual([false, true, false]);
+    expect(r2.efforts[1]).toBe(0);
+
+    // Shock between rounds: a larger prize and a cheaper second rival.
+    expect(
+      (await command(fac, { type: "applyShock", changes: [{ target: "prize", value: 150 }] })).ok,
+    ).toBe(true);
+    expectOk(
+      await command(fac, {
+        type: "applyShock",
+        changes: [{ target: "rival", index: 1, field: "cost", value: 1.1 }],
+      }),
+    );
+
+    // Round 3 on a 30 s clock: seat 1 seals, seat 0 does not; the clock closes it.
+    expectOk(await command(fac, { type: "openRound", durationSeconds: 30 }));
+    expect(lastView(fac).deadline).toBe(clock.now() + 30_000);
+    expectOk(await command(seat1, { type: "sealMove", clientMoveId: "r3-b", effort: 27.5 }));
+    clock.advance(29_000);
+    await new Promise((r) => setTimeout(r, 100));
+    expect(lastView(fac).status).toBe("open");
+    clock.advance(1_000);
+    await eventually(() => expect(lastView(fac).status).toBe("ended"));
+    const final = lastView(fac);
+    expect(final.endedReason).toBe("rounds-complete");
+    expect(final.rounds.map((r) => r.reason)).toEqual(["all-sealed", "facilitator", "clock"]);
+    expect(final.rounds[2]!.scenario.prize).toBe(150);
+    expect(final.rounds[2]!.scenario.rivals[1]!.cost).toBe(1.1);
+
+    // Every stored number equals the solver's, recomputed here from the efforts played.
+    let running = [0, 0, 0];
+    for (const r of final.rounds) {
+      const contest = normalize(r.scenario);
+      const played = r.seatIndices.map((seat) => r.efforts[seat]!);
+      const resp = respond(contest, played);
+      const eq = solve(contest).equilibrium;
+      const sum = played.reduce((a, b) => a + b, 0);
+      r.seatIndices.forEach((seat, k) => {
+        // Tullock (1980) ratio form with r = 1 and equal weights: p_i = e_i / sum_j e_j.
+        expect(r.shares[seat]).toBeCloseTo(sum > 0 ? played[k]! / sum : 1 / played.length, 12);
+        expect(r.payoffs[seat]).toBeCloseTo(resp.payoffs[k]!, 9);
+        expect(r.bestResponses[seat]).toBeCloseTo(resp.bestResponses[k]!, 9);
+        expect(r.regrets[seat]).toBeCloseTo(resp.regrets[k]!, 9);
+        // u_i = v p_i - m_i e_i
+        expect(r.payoffs[seat]).toBeCloseTo(
+          contest.rivals[k]!.value * r.shares[seat]! - contest.rivals[k]!.cost * played[k]!,
+          9,
+        );
+      });
+      expect(r.nashGap).toBeCloseTo(resp.nashGap, 9);
+      expect(r.equilibrium.efforts).not.toBeNull();
+      r.equilibrium.efforts!.forEach((e, k) => expect(e).toBeCloseTo(eq.efforts![k]!, 9));
+      // The computer seat plays the equilibrium effort on the 0.25 grid.
+      expect(Math.abs(r.efforts[2]! - eq.efforts![2]!)).toBeLessThanOrEqual(0.125 + 1e-9);
+      running = running.map((t, seat) => t + r.payoffs[seat]!);
+      running.forEach((t, seat) => expect(r.totals[seat]).toBeCloseTo(t, 9));
+    }
+    expect(final.rounds[0]!.efforts.slice(0, 2)).toEqual([37.25, 12.5]);
+    expect(final.rounds[2]!.efforts.slice(0, 2)).toEqual([0, 27.5]);
+    expect(final.rounds[2]!.defaulted).toEqual([true, false, false]);
+
+    // Export: the JSON record is the event log, the rounds are the views' rounds.
+    const log = await eventLog(server.db, id);
+    const exported = (await (await fetch(`${server.url}/api/sessions/${id}/export`)).json()) as {
+      session: { id: string; status: string; rounds: number };
+      events: unknown[];
+      rounds: unknown[];
+    };
+    expect(exported.events).toEqual(JSON.parse(JSON.stringify(log)));
+    expect(exported.rounds).toEqual(JSON.parse(JSON.stringify(final.rounds)));
+    expect(exported.session).toMatchObject({ id, status: "ended", rounds: 3 });
+    expect(log.map((e) => e.seq)).toEqual(log.map((_, i) => i + 1));
+
+    const csvRes = await fetch(`${server.url}/api/sessions/${id}/export?format=csv`);
+    expect(csvRes.headers.get("content-type")).toMatch(/text\/csv/);
+    const lines = (await csvRes.text()).trimEnd().split("\r\n");
+    expect(lines[0]).toBe(
+      "round,seat,rival,effort,share,payoff,total,bestResponse,regret,equilibriumEffort,defaulted,reason",
+    );
+    expect(lines).toHaveLength(1 + 3 * 3);
+    const row = lines[1]!.split(",");
+    expect(row.slice(0, 4)).toEqual(["1", "0", "Inkwell Press", "37.25"]);
+    expect(Number(row[5])).toBeCloseTo(final.rounds[0]!.payoffs[0]!, 9);
+    expect(lines.filter((l) => l.startsWith("3,"))).toHaveLength(3);
+  });
+
+  it("a guest claims a free seat with the join code and then plays it with the returned key", async () => {
+    const created = await createSessionOverHttp(server.url, printShops({ rounds: 1 }));
+    const guest = await client();
+    const g = expectOk(
+      await hello(guest, { role: "guest", joinCode: created.joinCode.toLowerCase() }),
+    );
+    expect(g.role).toBe("guest");
+    expect(g.sessionId).toBeNull();
+    const claim = expectOk(
+      await command(guest, { type: "claimSeat", seatIndex: 2, displayName: "Bo" }),
+    );
+    expect(claim).toMatchObject({ sessionId: created.id, seatIndex: 2 });
+    const seatKey = (claim as { seatKey: string }).seatKey;
+    expect(seatKey).toMatch(/^[A-Za-z0-9_-]{43}$/);
+    // the same seat cannot be claimed twice by join code
+    const other = await client();
+    expectOk(await hello(other, { role: "guest", joinCode: created.joinCode }));
+    const twice = await command(other, { type: "claimSeat", seatIndex: 2, displayName: "Cy" });
+    expect(twice).toMatchObject({ ok: false, code: "conflict" });
+    // the claim key opens the seat
+    const seat = await client();
+    const s = expectOk(await hello(seat, { role: "seat", sessionId: created.id, key: seatKey }));
+    expect(s.seatIndex).toBe(2);
+    expect(s.view.seats[2]).toMatchObject({ claimed: true, displayName: "Bo" });
+    // guests may not send facilitator commands
+    expect(await command(guest, { type: "openRound" })).toMatchObject({
+      ok: false,
+      code: "forbidden",
+    });
+  });
+});
