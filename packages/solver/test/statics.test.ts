@@ -170,6 +170,32 @@ describe("comparativeStatics", () => {
     expect(one.ok && one.value.rows).toHaveLength(1);
   });
 
+  it("comparativeStatics(all-pay, two rivals) matches the derivatives of the expected efforts v2/2 and v2^2/(2 v1)", () => {
+    // Hillman & Riley 1989; Baye, Kovenock & de Vries 1996 (Economic Theory 8, volume from
+    // memory): unit costs, v1 >= v2, expected efforts v2/2 and v2^2/(2 v1); derived by hand:
+    // d/dv2 = (1/2, v2/v1) and d/dv1 = (0, -v2^2/(2 v1^2)).
+    const [v1, v2] = [30, 24];
+    const s: Scenario = {
+      title: "all-pay",
+      prize: v1,
+      csf: { kind: "allpay" },
+      rivals: [
+        { name: "Strong", cost: 1 },
+        { name: "Weak", cost: 1, value: v2 },
+      ],
+    };
+    const res = comparativeStatics(s);
+    if (!res.ok) throw new Error(res.message);
+    expect(res.value.kind).toBe("mixed");
+    expect(res.value.rows.some((r) => r.param.endsWith(".weight"))).toBe(false);
+    const dv2 = row(res.value.rows, "rivals.1.value");
+    expect(dv2.effort.d[0]).toBeCloseTo(0.5, 6);
+    expect(dv2.effort.d[1]).toBeCloseTo(v2 / v1, 6);
+    const dv1 = row(res.value.rows, "rivals.0.value");
+    expect(dv1.effort.d[0]).toBeCloseTo(0, 6);
+    expect(dv1.effort.d[1]).toBeCloseTo(-(v2 ** 2) / (2 * v1 ** 2), 6);
+  });
+
   it("comparativeStatics(bad param) is a typed error", () => {
     const res = comparativeStatics(twoRivals(1, 2), { params: ["rivals.5.cost"] });
     expect(res.ok).toBe(false);

@@ -90,7 +90,8 @@ function defaultParams(scenario: Scenario, contest: Contest, efforts: number[]):
   scenario.rivals.forEach((spec, index) => {
     out.push({ kind: "rival", index, field: "cost" });
     out.push({ kind: "rival", index, field: "value" });
-    out.push({ kind: "rival", index, field: "weight" });
+    // The all-pay auction has no head-start parameter in this model (highest effort wins).
+    if (scenario.csf.kind !== "allpay") out.push({ kind: "rival", index, field: "weight" });
     const budget = contest.rivals[index]!.budget;
     if (Number.isFinite(budget) && efforts[index]! >= budget * (1 - BINDING)) {
       out.push({ kind: "rival", index, field: "budget" });
@@ -226,6 +227,7 @@ export function comparativeStatics(
     const du = nd.d.slice(n, 2 * n);
     const dTotal = nd.d[2 * n]!;
     const kink = seen.some((sig) => sig !== baseSignature);
+    const missing = nd.d.some((d) => Number.isNaN(d));
     rows.push({
       ...common,
       method: "numeric",
@@ -233,13 +235,15 @@ export function comparativeStatics(
       payoff: series(du, x, payoffs),
       totalEffort: { d: dTotal, elasticity: elasticity(dTotal, x, total) },
       errorEstimate: Math.max(0, ...nd.error.slice(0, n)),
-      ...(kink
-        ? {
-            note: "the active set or equilibrium kind changes within the step: a kink, read as one-sided",
-          }
-        : nd.scheme === "forward"
-          ? { note: "forward difference (parameter at its lower bound)" }
-          : {}),
+      ...(missing
+        ? { note: "no equilibrium is known at a nearby parameter value, so there is no derivative" }
+        : kink
+          ? {
+              note: "the active set or equilibrium kind changes within the step: a kink, read as one-sided",
+            }
+          : nd.scheme === "forward"
+            ? { note: "forward difference (parameter at its lower bound)" }
+            : {}),
     });
   }
   return {
