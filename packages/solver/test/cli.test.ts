@@ -97,6 +97,13 @@ describe("contend solve", () => {
     const r = await run("solve", "leader.json");
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/One commits first/);
+    // Simultaneous game for comparison: e1 = v m2 / (m1 + m2)^2 = 200/9 = 22.2222 (Hillman & Riley 1989).
+    expect(r.stdout).toMatch(
+      /Without commitment \(simultaneous game\): One 22\.2222, Two, Ltd 11\.1111/,
+    );
+    // Leader's optimum e1 = v m2 / (4 m1^2) = 50 while m2 < 2 m1 (Dixit 1987) sits at the boundary
+    // m2 = 2 m1 here, where the follower is just pre-empted.
+    expect(r.stdout).toMatch(/One\s+50\s/);
   });
 
   it("main(solve FILE with a binding budget) marks the capped rival", async () => {

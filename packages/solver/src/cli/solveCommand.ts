@@ -101,6 +101,15 @@ export function solveText(s: Scenario, contest: Contest, result: SolveResult): s
     );
   }
   out.push("", equilibriumBlock(s, contest, result.equilibrium));
+  if (contest.leader !== null) {
+    // Dixit 1987: commitment changes what a favourite spends; show the simultaneous game beside it.
+    const sim = solve({ ...contest, leader: null }).equilibrium;
+    const e = sim.efforts ?? sim.expectedEfforts;
+    const list = e
+      ? contest.rivals.map((r, i) => `${r.name} ${money(e[i], s.currency)}`).join(", ")
+      : "no pure-strategy equilibrium";
+    out.push(`Without commitment (simultaneous game): ${list}.`);
+  }
   result.alternatives.forEach((alt, k) => {
     out.push(
       "",
