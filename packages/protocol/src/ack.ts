@@ -1,50 +1,60 @@
 /** Acknowledgements: every hello and command gets exactly one, after its events are committed. */
+import { z } from "zod";
+import { ERROR_CODES } from "./result";
 import type { ErrorCode } from "./result";
-import type { Role } from "./hello";
-import type { RoleView } from "./view";
+import { ROLES } from "./hello";
+import { roleViewSchema } from "./view";
 
-export interface AckError {
-  ok: false;
-  code: ErrorCode;
+export const ackErrorSchema = z.object({
+  ok: z.literal(false),
+  code: z.enum(ERROR_CODES),
   /** human-readable, names the offending field or rule; never internal error text */
-  message: string;
+  message: z.string(),
   /** dotted path of the offending field, for bad-request */
-  path?: string;
+  path: z.string().optional(),
+});
+export type AckError = z.output<typeof ackErrorSchema>;
+
+/** `{ok:true, data}` with the given data schema, or an AckError. */
+export function ackSchema<T extends z.ZodType>(data: T) {
+  return z.union([z.object({ ok: z.literal(true), data }), ackErrorSchema]);
 }
 
 export type Ack<T> = { ok: true; data: T } | AckError;
 
-export interface HelloAckData {
-  protocol: number;
-  role: Role;
-  /** null for guests (they have not picked a session seat yet) */
-  sessionId: string | null;
-  seatIndex?: number;
+export const helloAckDataSchema = z.object({
+  protocol: z.int(),
+  role: z.enum(ROLES),
+  /** null for guests (they learn the session id from the claimSeat ack) */
+  sessionId: z.string().nullable(),
+  seatIndex: z.int().min(0).optional(),
   /** seq of the last committed event the view reflects */
-  seq: number;
-  view: RoleView;
-}
+  seq: z.int().min(0),
+  view: roleViewSchema,
+});
+export type HelloAckData = z.output<typeof helloAckDataSchema>;
 
 /** Data of a sealMove ack; a repeated clientMoveId gets the original data again. */
-export interface SealMoveAckData {
-  seq: number;
-  round: number;
-  seatIndex: number;
-  clientMoveId: string;
-  effort: number;
-}
+export const sealMoveAckDataSchema = z.object({
+  seq: z.int().min(0),
+  round: z.int().min(1),
+  seatIndex: z.int().min(0),
+  clientMoveId: z.string(),
+  effort: z.number(),
+});
+export type SealMoveAckData = z.output<typeof sealMoveAckDataSchema>;
 
 /** Data of a claimSeat ack: say hello again as this seat with seatKey. */
-export interface ClaimSeatAckData {
-  seq: number;
-  sessionId: string;
-  seatIndex: number;
-  seatKey: string;
-}
+export const claimSeatAckDataSchema = z.object({
+  seq: z.int().min(0),
+  sessionId: z.string(),
+  seatIndex: z.int().min(0),
+  seatKey: z.string(),
+});
+export type ClaimSeatAckData = z.output<typeof claimSeatAckDataSchema>;
 
-export interface BasicAckData {
-  seq: number;
-}
+export const basicAckDataSchema = z.object({ seq: z.int().min(0) });
+export type BasicAckData = z.output<typeof basicAckDataSchema>;
 
 export type CommandAckData = SealMoveAckData | ClaimSeatAckData | BasicAckData;
 

@@ -93,7 +93,15 @@ export type {
   ShockRecord,
   ViewMessage,
 } from "./view";
-export { ackError } from "./ack";
+export {
+  ackError,
+  ackErrorSchema,
+  ackSchema,
+  basicAckDataSchema,
+  claimSeatAckDataSchema,
+  helloAckDataSchema,
+  sealMoveAckDataSchema,
+} from "./ack";
 export type {
   Ack,
   AckError,

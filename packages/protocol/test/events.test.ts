@@ -1,5 +1,9 @@
 import { describe, expect, it } from "vitest";
 import {
+  ackSchema,
+  basicAckDataSchema,
+  claimSeatAckDataSchema,
+  sealMoveAckDataSchema,
   createSessionResponseSchema,
   errorBodySchema,
   eventLogSchema,
@@ -180,5 +184,32 @@ describe("view and REST schemas", () => {
         rounds: 0,
       }).success,
     ).toBe(true);
+  });
+});
+
+describe("ack schemas", () => {
+  it("ackSchema(sealMove data) accepts ok and error acks, refuses unknown codes", () => {
+    await import("../src/index");
+    const seal = ackSchema(sealMoveAckDataSchema);
+    expect(
+      seal.safeParse({
+        ok: true,
+        data: { seq: 5, round: 1, seatIndex: 0, clientMoveId: "c1", effort: 3 },
+      }).success,
+    ).toBe(true);
+    expect(
+      seal.safeParse({ ok: false, code: "wrong-state", message: "R10: no round is open" }).success,
+    ).toBe(true);
+    expect(seal.safeParse({ ok: false, code: "nope", message: "" }).success).toBe(false);
+    expect(seal.safeParse({ ok: true, data: { seq: 5 } }).success).toBe(false);
+    expect(
+      ackSchema(claimSeatAckDataSchema).safeParse({
+        ok: true,
+        data: { seq: 2, sessionId: "s", seatIndex: 1, seatKey: "k" },
+      }).success,
+    ).toBe(true);
+    expect(ackSchema(basicAckDataSchema).safeParse({ ok: true, data: { seq: -1 } }).success).toBe(
+      false,
+    );
   });
 });
