@@ -46,7 +46,8 @@ export function verifyProfile(
     const rv = contest.rivals[i]!;
     const o = os[i]!;
     const e = efforts[i] ?? 0;
-    const key = `${rv.value}|${rv.cost}|${rv.weight}|${rv.r}|${rv.budget}|${e}|${o.z}|${o.lnZ}`;
+    // 12 significant digits: identical rivals in mirrored profiles differ only by rounding
+    const key = `${rv.value}|${rv.cost}|${rv.weight}|${rv.r}|${rv.budget}|${e.toPrecision(12)}|${o.z.toPrecision(12)}|${o.lnZ.toPrecision(12)}`;
     let reg = memo?.get(key);
     if (reg === undefined) {
       const now = payoffAgainst(contest, i, e, o);

@@ -1,15 +1,21 @@
 /**
- * Best responses, regrets and the Nash gap.
+ * Best responses, regrets and the Nash gap. Every best response is a GLOBAL maximum over
+ * [0, budget]; spending nothing is always a candidate.
  * - Ratio form, r_i = 1, with Z = sum_{j != i} w_j e_j^r_j > 0: the closed form
  *   w_i e_i = max(0, sqrt(w_i v_i Z / m_i) - Z), capped by the budget (Tullock 1980; the
  *   payoff is concave, so the cap is the constrained optimum).
- * - Ratio form, r_i < 1: the payoff is concave in e_i (a concave increasing share of a concave
- *   power), so the unique root of the first-order condition is found by bisection in log effort.
- * - Ratio form, r_i > 1, and anything else: global 1-D maximisation (dense grid + Brent).
+ * - Ratio form, r_i != 1 (derived here): with s = w e^r / (w e^r + Z) and t = logit(s),
+ *   sign u'(e) = sign psi(t),  psi(t) = ln(v r s (1 - s)) - ln(m e),  e = (e^t Z / w)^(1/r),
+ *   and psi''(t) = -2 sigma(t) sigma(-t) < 0: psi is concave in t. For r < 1 it is also
+ *   decreasing (one crossing, the maximum). For r > 1 it rises until sigma(t) = (1 - 1/r)/2
+ *   and falls after, so u falls, may rise, then falls: the only interior local maximum is the
+ *   larger root of psi. Candidates 0, that root and the cap give the global maximum exactly.
  * - Logit form (Hirshleifer 1989): u_i'' has the sign of 1 - 2 p_i, so the payoff has at most
  *   one interior local maximum, where v k p (1 - p) = m with p > 1/2; candidates are 0, the cap
- *   and that point (exact global maximum). The grid check is used as a cross-check in tests.
+ *   and that point.
  * - All-pay auction against pure efforts: bid just above the highest other effort (or tie, or 0).
+ * - opts.gridPoints, when given, adds a dense-grid search with Brent refinement on top of the
+ *   shape-based candidates (a cross-check; the better of the two is returned).
  * When every other rival spends nothing in the ratio form, the supremum (the whole prize at
  * vanishing cost) is not attained: the result carries supremumOnly and the limit payoff.
  */
@@ -19,7 +25,7 @@ import type { BestResponse, Contest, Responses } from "./types";
 export interface BestResponseOptions {
   /** smallest effort step (supremum cases); default 1e-6 * v_i / m_i */
   step?: number;
-  /** grid points for the global search (default 2001) */
+  /** when set, also search a dense grid of this many points (cross-check of the candidates) */
   gridPoints?: number;
 }
 
@@ -110,10 +116,6 @@ export function payoffAgainst(contest: Contest, i: number, e: number, o: Opposit
   return rv.value * p - rv.cost * e;
 }
 
-function better(a: BestResponse, e: number, f: number): BestResponse {
-  return f > a.payoff ? { effort: e, payoff: f } : a;
-}
-
 /** Best response of rival i to a given opposition (see the file header for the methods). */
 export function bestResponseAgainst(
   contest: Contest,
@@ -125,82 +127,112 @@ export function bestResponseAgainst(
   const rv = contest.rivals[i]!;
   const { value: v, cost: m, weight: w, budget: B, r } = rv;
   const hi = Math.min(B, v / m);
-  const u = (e: number) => payoffAgainst(contest, i, e, o);
   const step = Math.min(opts.step ?? (1e-6 * v) / m, B);
-  let best: BestResponse;
+  let bestE = 0;
+  let bestU = payoffAgainst(contest, i, 0, o);
+  let supremum = false;
+  const consider = (e: number) => {
+    if (!(e >= 0 && e <= B)) return;
+    const f = payoffAgainst(contest, i, e, o);
+    if (f > bestU) {
+      bestU = f;
+      bestE = e;
+    }
+  };
   const csf = contest.csf;
   if (csf.kind === "ratio") {
     if (o.z === 0) {
-      if (!(B > 0)) return { effort: 0, payoff: u(0) };
+      if (!(B > 0)) return { effort: 0, payoff: bestU };
       return { effort: step, payoff: v, supremumOnly: true };
     }
     if (r === 1) {
-      const y = Math.max(0, Math.sqrt((w * v * o.z) / m) - o.z);
-      const e = Math.min(y / w, B);
-      best = { effort: e, payoff: u(e) };
-    } else if (r < 1) {
-      best = concaveRatioResponse(contest, i, o.z, hi, u);
-    } else {
-      const g = gridMaximize(u, hi, opts.gridPoints ?? 2001);
-      best = { effort: g.x, payoff: g.fx };
+      const y = Math.sqrt((w * v * o.z) / m) - o.z;
+      if (y > 0) consider(Math.min(y / w, B));
+    } else if (hi > 0) {
+      const e = ratioInteriorMaximum(v, m, w, r, o.z);
+      if (e > 0) consider(Math.min(e, B));
     }
   } else if (csf.kind === "logit") {
     const k = csf.scale;
-    best = { effort: 0, payoff: u(0) };
-    if (hi > 0) best = better(best, hi, u(hi));
+    if (hi > 0) consider(hi);
     const disc = 1 - (4 * m) / (v * k);
     if (disc > 0 && o.lnZ !== -Infinity) {
       const p = 0.5 * (1 + Math.sqrt(disc));
       const e = (Math.log(p / (1 - p)) + o.lnZ - Math.log(w)) / k;
-      if (e > 0 && e < hi) best = better(best, e, u(e));
+      if (e > 0 && e < hi) consider(e);
     }
   } else {
-    best = { effort: 0, payoff: u(0) };
-    if (o.ties > 0 && o.top <= B) best = better(best, o.top, u(o.top));
-    if (o.ties === 0) {
-      // nobody else: spending nothing already wins (ties split among one)
-    } else if (o.top + step <= B && v - m * o.top > best.payoff) {
-      best = { effort: o.top + step, payoff: v - m * o.top, supremumOnly: true };
+    if (o.ties > 0 && o.top <= B) consider(o.top);
+    if (o.ties > 0 && o.top + step <= B && v - m * o.top > bestU) {
+      bestU = v - m * o.top;
+      bestE = o.top + step;
+      supremum = true;
+    }
+  }
+  if (opts.gridPoints !== undefined && csf.kind !== "allpay" && hi > 0) {
+    const g = gridMaximize((e) => payoffAgainst(contest, i, e, o), hi, opts.gridPoints);
+    if (g.fx > bestU) {
+      bestU = g.fx;
+      bestE = g.x;
+      supremum = false;
     }
   }
   if (current !== undefined && current >= 0 && current <= B) {
-    const fc = u(current);
-    if (fc > best.payoff) best = { effort: current, payoff: fc };
+    const fc = payoffAgainst(contest, i, current, o);
+    if (fc > bestU) {
+      bestU = fc;
+      bestE = current;
+      supremum = false;
+    }
   }
-  return best;
+  return supremum
+    ? { effort: bestE, payoff: bestU, supremumOnly: true }
+    : { effort: bestE, payoff: bestU };
 }
 
 /**
- * Ratio form, r < 1, Z > 0: the payoff is concave, so the first-order condition has one root.
- * In t = logit of the post-deviation share s = y / (y + Z) it reads
- *   psi(t) = -softplus(-t) - softplus(t) - t / r - K = 0,  K = ln(m / (v r)) + (ln Z - ln w) / r,
- * (from v r s (1 - s) = m e with e = (s Z / ((1 - s) w))^(1/r)); psi is decreasing and
- * concave, so Newton converges monotonically after at most one step. e = exp((t + ln Z - ln w) / r).
+ * Interior local maximum of u(e) = v w e^r / (w e^r + Z) - m e for r != 1, Z > 0 (0 if none):
+ * Newton on the concave psi(t) described in the file header, from the right of the root.
  */
-function concaveRatioResponse(
-  contest: Contest,
-  i: number,
+export function ratioInteriorMaximum(
+  v: number,
+  m: number,
+  w: number,
+  r: number,
   z: number,
-  hi: number,
-  u: (e: number) => number,
-): BestResponse {
-  const { value: v, cost: m, weight: w, r, budget: B } = contest.rivals[i]!;
-  if (!(hi > 0)) return { effort: 0, payoff: u(0) };
+): number {
   const lnZw = Math.log(z) - Math.log(w);
   const K = Math.log(m / (v * r)) + lnZw / r;
-  let t = 0;
-  for (let it = 0; it < 100; it++) {
+  const psi = (t: number) => {
+    const E = Math.exp(-Math.abs(t));
+    const l1p = Math.log1p(E);
+    return -((t < 0 ? -t : 0) + l1p) - ((t > 0 ? t : 0) + l1p) - t / r - K;
+  };
+  let t: number;
+  if (r < 1) t = 0;
+  else {
+    // psi peaks where sigma(t) = (1 - 1/r) / 2
+    const q = 0.5 * (1 - 1 / r);
+    const tPeak = Math.log(q / (1 - q));
+    if (psi(tPeak) <= 0) return 0;
+    let d = 1;
+    t = tPeak + d;
+    while (psi(t) > 0 && d < 1e6) {
+      d *= 2;
+      t = tPeak + d;
+    }
+  }
+  for (let it = 0; it < 200; it++) {
     const E = Math.exp(-Math.abs(t));
     const l1p = Math.log1p(E);
     const sig = t >= 0 ? 1 / (1 + E) : E / (1 + E);
     const f = -((t < 0 ? -t : 0) + l1p) - ((t > 0 ? t : 0) + l1p) - t / r - K;
     const d = 1 - 2 * sig - 1 / r;
-    const step = f / d;
-    t -= step;
-    if (Math.abs(step) <= 1e-14 * Math.max(1, Math.abs(t))) break;
+    const stepT = f / d;
+    t -= stepT;
+    if (Math.abs(stepT) <= 1e-14 * Math.max(1, Math.abs(t))) break;
   }
-  const e = Math.min(B, Math.exp((t + lnZw) / r));
-  return { effort: e, payoff: u(e) };
+  return Math.exp((t + lnZw) / r);
 }
 
 /** Best response of rival i to the others' efforts in `efforts` (its own entry is ignored). */
@@ -220,6 +252,9 @@ export function respond(
   efforts: readonly number[],
   opts: BestResponseOptions = {},
 ): Responses {
+  if (contest.csf.kind === "ratio" && opts.gridPoints === undefined) {
+    return respondRatio(contest, efforts, opts);
+  }
   const os = oppositions(contest, efforts);
   const n = contest.rivals.length;
   const bestResponses = new Array<number>(n);
@@ -234,6 +269,76 @@ export function respond(
     bestResponses[i] = br.effort;
     pays[i] = now;
     const reg = Math.max(0, br.payoff - now);
+    regrets[i] = reg;
+    if (reg > gap) gap = reg;
+  }
+  return { bestResponses, regrets, payoffs: pays, nashGap: gap };
+}
+
+/**
+ * The ratio-form case of respond without per-rival allocations (the same formulas as
+ * payoffAgainst and bestResponseAgainst, inlined): large contests check in O(n).
+ */
+function respondRatio(
+  contest: Contest,
+  efforts: readonly number[],
+  opts: BestResponseOptions,
+): Responses {
+  const rivals = contest.rivals;
+  const n = rivals.length;
+  const y = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const rv = rivals[i]!;
+    const e = efforts[i] ?? 0;
+    y[i] = e > 0 ? (rv.r === 1 ? rv.weight * e : rv.weight * Math.pow(e, rv.r)) : 0;
+  }
+  const pre = new Float64Array(n + 1);
+  const suf = new Float64Array(n + 1);
+  for (let i = 0; i < n; i++) pre[i + 1] = pre[i]! + y[i]!;
+  for (let i = n - 1; i >= 0; i--) suf[i] = suf[i + 1]! + y[i]!;
+  const bestResponses = new Array<number>(n);
+  const regrets = new Array<number>(n);
+  const pays = new Array<number>(n);
+  let gap = 0;
+  for (let i = 0; i < n; i++) {
+    const rv = rivals[i]!;
+    const { value: v, cost: m, weight: w, budget: B, r } = rv;
+    const z = pre[i]! + suf[i + 1]!;
+    const cur = efforts[i] ?? 0;
+    const yi = y[i]!;
+    const now = (yi + z === 0 ? v / n : (v * yi) / (yi + z)) - m * cur;
+    let bestE = 0;
+    let bestU: number;
+    if (z === 0) {
+      if (B > 0) {
+        bestE = Math.min(opts.step ?? (1e-6 * v) / m, B);
+        bestU = v; // supremum, not attained
+      } else bestU = v / n;
+    } else {
+      bestU = 0;
+      let e = 0;
+      if (r === 1) {
+        const yb = Math.sqrt((w * v * z) / m) - z;
+        e = yb > 0 ? Math.min(yb / w, B) : 0;
+      } else if (Math.min(B, v / m) > 0) {
+        e = Math.min(ratioInteriorMaximum(v, m, w, r, z), B);
+      }
+      if (e > 0) {
+        const ye = r === 1 ? w * e : w * Math.pow(e, r);
+        const u = (v * ye) / (ye + z) - m * e;
+        if (u > bestU) {
+          bestU = u;
+          bestE = e;
+        }
+      }
+    }
+    if (now > bestU && cur <= B) {
+      bestU = now;
+      bestE = cur;
+    }
+    bestResponses[i] = bestE;
+    pays[i] = now;
+    const reg = bestU - now > 0 ? bestU - now : 0;
     regrets[i] = reg;
     if (reg > gap) gap = reg;
   }

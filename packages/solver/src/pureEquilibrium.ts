@@ -3,7 +3,7 @@
  * same global best-response search the rest of the solver uses (never assumed to be zero).
  */
 import { nashGap } from "./bestResponse";
-import { dissipation, payoffs, shares } from "./csf";
+import { dissipation, shares } from "./csf";
 import type { Contest, Equilibrium } from "./types";
 
 export function pureEquilibrium(
@@ -13,11 +13,12 @@ export function pureEquilibrium(
   gridPoints?: number,
   note?: string,
 ): Equilibrium {
+  const p = shares(contest, efforts);
   const eq: Equilibrium = {
     kind: "pure",
     efforts,
-    shares: shares(contest, efforts),
-    payoffs: payoffs(contest, efforts),
+    shares: p,
+    payoffs: contest.rivals.map((rv, i) => rv.value * p[i]! - rv.cost * efforts[i]!),
     totalEffort: efforts.reduce((s, e) => s + e, 0),
     dissipation: dissipation(contest, efforts),
     active: efforts.map((e) => e > 0),

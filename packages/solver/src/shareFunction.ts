@@ -223,15 +223,30 @@ export function shareFunctionEquilibrium(
     }
   }
   if (!(flo > 0) || !(fhi <= 0)) return null;
-  // safeguarded Newton on the bracket [lo, hi]
+  // safeguarded Newton on the bracket [lo, hi] (Numerical Recipes' rtsafe rule: bisect when
+  // the Newton step leaves the bracket or would not halve the previous step; with r_i > 1 the
+  // share sum can jump, and there Newton alone would crawl)
   let x = fhi === 0 ? hi : 0.5 * (lo + hi);
   let fx = excess(x);
+  let dxOld = hi - lo;
   for (let it = 0; it < 200 && fx !== 0; it++) {
-    if (fx > 0) lo = x;
-    else hi = x;
+    if (fx > 0) {
+      lo = x;
+      flo = fx;
+    } else {
+      hi = x;
+      fhi = fx;
+    }
+    // a jump of the share sum across a vanishing bracket: no root (r_i > 1 only)
+    if (hi - lo <= 1e-12 * Math.max(1, Math.abs(x)) && flo - fhi > 1e-3) return null;
     let next = slope < 0 ? x - fx / slope : Number.NaN;
-    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-    const done = Math.abs(next - x) <= 1e-15 * Math.max(1, Math.abs(x)) || hi - lo <= 1e-15;
+    if (!(next > lo && next < hi) || Math.abs(2 * (next - x)) > Math.abs(dxOld)) {
+      next = 0.5 * (lo + hi);
+    }
+    dxOld = next - x;
+    const done =
+      Math.abs(next - x) <= 1e-15 * Math.max(1, Math.abs(x)) ||
+      hi - lo <= 1e-13 * Math.max(1, Math.abs(x));
     x = next;
     fx = excess(x);
     if (done) break;

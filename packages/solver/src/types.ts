@@ -120,7 +120,11 @@ export interface SolveResult {
 export interface SolveOptions {
   /** tolerance on the Nash gap for accepting a numerical candidate (default 1e-6 * prize) */
   tolerance?: number;
-  /** grid points for global best-response checks (default 2001) */
+  /**
+   * Best responses are exact global maxima from the payoff's shape (see bestResponse.ts);
+   * when set, a dense grid of this many points is searched as well (a cross-check).
+   * Mixed-equilibrium gaps and the leader's search use it as their grid size.
+   */
   gridPoints?: number;
 }
 
