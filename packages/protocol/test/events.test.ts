@@ -189,7 +189,6 @@ describe("view and REST schemas", () => {
 
 describe("ack schemas", () => {
   it("ackSchema(sealMove data) accepts ok and error acks, refuses unknown codes", () => {
-    await import("../src/index");
     const seal = ackSchema(sealMoveAckDataSchema);
     expect(
       seal.safeParse({
