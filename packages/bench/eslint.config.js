@@ -1,0 +1,3 @@
+import config from "@contend/eslint-config";
+
+export default config;

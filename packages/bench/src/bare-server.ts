@@ -1,0 +1,110 @@
+/**
+ * Transport baseline: a bare socket.io server on the same machine, with no validation, engine,
+ * database or solver. It answers the same messages as the real server the way the transport
+ * alone would: hello joins a room and acks; every command is acknowledged at once and, like a
+ * real commit, pushes one view of VIEW_BYTES to every socket of the room; when SEATS seals are
+ * in (or the facilitator closes) the pushed view reveals the round.
+ *   PORT=... HOST=127.0.0.1 SEATS=8 VIEW_BYTES=4000 node --import tsx src/bare-server.ts
+ */
+import { createServer } from "node:http";
+import { Server } from "socket.io";
+
+const port = Number(process.env.PORT ?? 0);
+const host = process.env.HOST ?? "127.0.0.1";
+const seats = Number(process.env.SEATS ?? 8);
+const viewBytes = Number(process.env.VIEW_BYTES ?? 2000);
+
+interface Room {
+  seq: number;
+  status: "lobby" | "open" | "review";
+  round: number;
+  sealed: Set<number>;
+  rounds: Array<{ round: number }>;
+}
+
+const rooms = new Map<string, Room>();
+const pad = "x".repeat(Math.max(0, viewBytes - 120));
+
+function viewOf(room: Room) {
+  return { status: room.status, round: room.round, rounds: room.rounds, pad };
+}
+
+const http = createServer((req, res) => {
+  if (req.url === "/health") {
+    res.writeHead(200, { "content-type": "application/json" });
+    res.end('{"ok":true}');
+  } else {
+    res.writeHead(404);
+    res.end();
+  }
+});
+const io = new Server(http, { serveClient: false });
+
+type Ack = (res: unknown) => void;
+
+io.on("connection", (socket) => {
+  let sessionId: string | null = null;
+  let seatIndex: number | null = null;
+
+  function push(room: Room) {
+    room.seq++;
+    io.to(sessionId!).emit("view", { seq: room.seq, view: viewOf(room) });
+  }
+
+  socket.on("hello", (msg: { credentials: { sessionId: string; key: string } }, ack: Ack) => {
+    sessionId = msg.credentials.sessionId;
+    // bare keys are "seat:<index>" or "facilitator"
+    const m = /^seat:(\d+)$/.exec(msg.credentials.key);
+    seatIndex = m ? Number(m[1]) : null;
+    let room = rooms.get(sessionId);
+    if (!room) {
+      room = { seq: 1, status: "lobby", round: 0, sealed: new Set(), rounds: [] };
+      rooms.set(sessionId, room);
+    }
+    void socket.join(sessionId);
+    ack({ ok: true, data: { seq: room.seq, seatIndex, view: viewOf(room) } });
+  });
+
+  socket.on(
+    "command",
+    (cmd: { type: string; clientMoveId?: string; effort?: number }, ack: Ack) => {
+      const room = sessionId ? rooms.get(sessionId) : undefined;
+      if (!room) return ack({ ok: false, code: "unauthorized" });
+      if (cmd.type === "openRound") {
+        room.status = "open";
+        room.round++;
+        room.sealed.clear();
+        push(room);
+        return ack({ ok: true, data: { seq: room.seq } });
+      }
+      const reveal = () => {
+        room.status = "review";
+        room.rounds.push({ round: room.round });
+      };
+      if (cmd.type === "closeRound") {
+        reveal();
+        push(room);
+        return ack({ ok: true, data: { seq: room.seq } });
+      }
+      if (cmd.type === "sealMove" && seatIndex !== null) {
+        room.sealed.add(seatIndex);
+        if (room.sealed.size >= seats && room.status === "open") reveal();
+        push(room);
+        return ack({
+          ok: true,
+          data: {
+            seq: room.seq,
+            round: room.round,
+            seatIndex,
+            clientMoveId: cmd.clientMoveId,
+            effort: cmd.effort,
+          },
+        });
+      }
+      ack({ ok: false, code: "bad-request" });
+    },
+  );
+});
+
+http.listen(port, host);
+process.on("SIGTERM", () => io.close(() => process.exit(0)));

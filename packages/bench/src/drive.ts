@@ -1,0 +1,210 @@
+/**
+ * The load driver shared by the real server and the bare baseline: connect every facilitator
+ * and seat, then play rounds in all sessions at once. Every wait is bounded; a missing ack or
+ * view is counted, never waited for forever.
+ */
+import { inBatches, SessionClient, sleep } from "./client";
+import type { AckedMove } from "./api";
+import { cpuSeconds, rssMiB, selfCpuSeconds } from "./proc";
+import { summarize } from "./stats";
+import type { Summary } from "./stats";
+
+export interface SessionPlan {
+  id: string;
+  facilitatorKey: string;
+  seatKeys: string[];
+}
+
+export interface DriveOptions {
+  url: string;
+  serverPid: number;
+  sessions: SessionPlan[];
+  rounds: number;
+  /** each seat seals after a uniform random delay in [0, spreadMs] from the round opening */
+  spreadMs: number;
+  /** "mixed": even rounds are closed by the facilitator with the last seat not sealing */
+  closeMode: "all-sealed" | "mixed";
+  connectConcurrency: number;
+  /** record the size of views received by the first session's clients */
+  sampleViews?: boolean;
+  seed?: number;
+}
+
+export interface DriveResult {
+  sessions: number;
+  seatsPlanned: number;
+  seatsConnected: number;
+  facilitatorsConnected: number;
+  connectSeconds: number;
+  roundsSeconds: number;
+  movesAcked: number;
+  moveErrors: Record<string, number>;
+  movesPerSecond: number;
+  ack: Summary;
+  reveal: Summary;
+  revealMissing: number;
+  serverCpuSeconds: number;
+  serverCpuPercent: number;
+  serverCpuMsPerMove: number;
+  clientCpuSeconds: number;
+  clientCpuPercent: number;
+  serverRssAfterConnectMiB: number;
+  serverRssEndMiB: number;
+  viewsPerSeat: number;
+  meanViewBytes: number;
+  acked: AckedMove[];
+}
+
+/** mulberry32: a small seeded generator, so reruns draw the same delays and efforts. */
+function rng(seed: number) {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+interface Live {
+  plan: SessionPlan;
+  facilitator: SessionClient;
+  seats: SessionClient[];
+}
+
+export async function drive(opts: DriveOptions): Promise<DriveResult> {
+  const random = rng(opts.seed ?? 1);
+  const lives: Live[] = opts.sessions.map((plan) => ({
+    plan,
+    facilitator: new SessionClient({
+      url: opts.url,
+      credentials: { role: "facilitator", sessionId: plan.id, key: plan.facilitatorKey },
+    }),
+    seats: plan.seatKeys.map(
+      (key) =>
+        new SessionClient({
+          url: opts.url,
+          credentials: { role: "seat", sessionId: plan.id, key },
+        }),
+    ),
+  }));
+  if (opts.sampleViews && lives[0]) {
+    for (const c of [lives[0].facilitator, ...lives[0].seats]) c.sampleViewSizes();
+  }
+
+  const t0 = performance.now();
+  const all = lives.flatMap((l) => [l.facilitator, ...l.seats]);
+  const helloOk = new Set<SessionClient>();
+  await inBatches(all, opts.connectConcurrency, async (client) => {
+    try {
+      await client.connect();
+      const ack = await client.hello();
+      if (ack.ok) helloOk.add(client);
+    } catch {
+      // counted below as not connected
+    }
+  });
+  const connectSeconds = (performance.now() - t0) / 1000;
+  const seatsConnected = lives.reduce(
+    (n, l) => n + l.seats.filter((s) => helloOk.has(s)).length,
+    0,
+  );
+  const facilitatorsConnected = lives.filter((l) => helloOk.has(l.facilitator)).length;
+  const serverRssAfterConnectMiB = rssMiB(opts.serverPid) ?? Number.NaN;
+
+  const ackMs: number[] = [];
+  const revealMs: number[] = [];
+  const moveErrors: Record<string, number> = {};
+  const acked: AckedMove[] = [];
+  let revealMissing = 0;
+  const countError = (code: string | undefined) => {
+    const k = code ?? "unknown";
+    moveErrors[k] = (moveErrors[k] ?? 0) + 1;
+  };
+
+  const cpuServer0 = cpuSeconds(opts.serverPid) ?? Number.NaN;
+  const cpuClient0 = selfCpuSeconds();
+  const tRounds = performance.now();
+  for (let round = 1; round <= opts.rounds; round++) {
+    await Promise.all(
+      lives.map(async (live, sessionIndex) => {
+        const watchers = [live.facilitator, ...live.seats].filter((c) => helloOk.has(c));
+        const reveals = watchers.map((c) => c.waitForView((v) => v.rounds.length >= round, 60_000));
+        const opened = await live.facilitator.command({ type: "openRound", durationSeconds: null });
+        if (!opened.ok) {
+          countError(`openRound:${opened.code}`);
+          return;
+        }
+        const byFacilitator = opts.closeMode === "mixed" && round % 2 === 0;
+        const sealers = live.seats.filter(
+          (s, i) => helloOk.has(s) && !(byFacilitator && i === live.seats.length - 1),
+        );
+        let lastEmit = 0;
+        await Promise.all(
+          sealers.map(async (seat) => {
+            const seatIndex = live.seats.indexOf(seat);
+            const delay = random() * opts.spreadMs;
+            const effort = 10 + Math.floor(random() * 200);
+            const clientMoveId = `r${round}-x${sessionIndex}-s${seatIndex}-${Math.floor(random() * 1e9)}`;
+            if (delay > 0) await sleep(delay);
+            const sent = performance.now();
+            lastEmit = Math.max(lastEmit, sent);
+            const ack = await seat.command({ type: "sealMove", clientMoveId, effort, round });
+            if (ack.ok) {
+              ackMs.push(performance.now() - sent);
+              acked.push({ sessionId: live.plan.id, round, seatIndex, clientMoveId, effort });
+            } else countError(ack.code);
+          }),
+        );
+        let closedAt = lastEmit;
+        if (byFacilitator) {
+          closedAt = performance.now();
+          const closed = await live.facilitator.command({ type: "closeRound" });
+          if (!closed.ok) countError(`closeRound:${closed.code}`);
+        }
+        for (const at of await Promise.all(reveals)) {
+          if (at === null) revealMissing++;
+          else revealMs.push(Math.max(0, at - closedAt));
+        }
+      }),
+    );
+  }
+  const roundsSeconds = (performance.now() - tRounds) / 1000;
+  const serverCpuSeconds = (cpuSeconds(opts.serverPid) ?? Number.NaN) - cpuServer0;
+  const clientCpuSeconds = selfCpuSeconds() - cpuClient0;
+  const serverRssEndMiB = rssMiB(opts.serverPid) ?? Number.NaN;
+
+  const sampled = lives[0] ? [lives[0].facilitator, ...lives[0].seats] : [];
+  const sampledViews = sampled.reduce((n, c) => n + c.viewsReceived, 0);
+  const sampledBytes = sampled.reduce((n, c) => n + c.viewBytes, 0);
+  const seatClients = lives.flatMap((l) => l.seats);
+  const viewsPerSeat =
+    seatClients.reduce((n, c) => n + c.viewsReceived, 0) / Math.max(1, seatClients.length);
+  for (const c of all) c.close();
+
+  return {
+    sessions: lives.length,
+    seatsPlanned: seatClients.length,
+    seatsConnected,
+    facilitatorsConnected,
+    connectSeconds,
+    roundsSeconds,
+    movesAcked: acked.length,
+    moveErrors,
+    movesPerSecond: acked.length / roundsSeconds,
+    ack: summarize(ackMs),
+    reveal: summarize(revealMs),
+    revealMissing,
+    serverCpuSeconds,
+    serverCpuPercent: (100 * serverCpuSeconds) / roundsSeconds,
+    serverCpuMsPerMove: (1000 * serverCpuSeconds) / Math.max(1, acked.length),
+    clientCpuSeconds,
+    clientCpuPercent: (100 * clientCpuSeconds) / roundsSeconds,
+    serverRssAfterConnectMiB,
+    serverRssEndMiB,
+    viewsPerSeat,
+    meanViewBytes: opts.sampleViews && sampledViews > 0 ? sampledBytes / sampledViews : Number.NaN,
+    acked,
+  };
+}

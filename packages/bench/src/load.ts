@@ -1,0 +1,251 @@
+/**
+ * Load run: the real server and a bare socket.io baseline, driven by the same clients on the
+ * same machine in one run, then a check that every acknowledged move is in the event log.
+ *   npx tsx src/load.ts                # quick: 20 sessions x 8 seats, 4 rounds
+ *   npx tsx src/load.ts --full         # 200 sessions x 8 seats (1,600 seats)
+ *   flags: --sessions K --seats S --rounds R --spread ms --close mixed|all-sealed --no-bare --json
+ * Prints numbers and pass/fail against the targets; asserts nothing.
+ */
+import { fileURLToPath } from "node:url";
+import { createSession, exportEvents, kioskScenario, missingMoves } from "./api";
+import type { ExportedEvent } from "./api";
+import { freePort, startBareServer, startServer, tempDir } from "./child";
+import { inBatches } from "./client";
+import { drive } from "./drive";
+import type { DriveResult, SessionPlan } from "./drive";
+import { flag, hasFlag, intFlag } from "./flags";
+import { loadAverage, rssMiB } from "./proc";
+import { ratio } from "./stats";
+import { markdownTable } from "./table";
+import type { Cell } from "./table";
+
+export interface LoadConfig {
+  sessions: number;
+  seats: number;
+  rounds: number;
+  spreadMs: number;
+  closeMode: "all-sealed" | "mixed";
+  bare: boolean;
+}
+
+export interface LoadReport {
+  config: LoadConfig;
+  loadBefore: string;
+  loadAfter: string;
+  serverStartRssMiB: number;
+  ours: Omit<DriveResult, "acked">;
+  bare: Omit<DriveResult, "acked"> | null;
+  createSeconds: number;
+  lostMoves: number;
+  checkedMoves: number;
+  exportFailures: number;
+  targets: Array<{ target: string; measured: string; pass: boolean | null }>;
+}
+
+export function configFrom(argv: readonly string[]): LoadConfig {
+  const full = hasFlag(argv, "full");
+  const close = flag(argv, "close") ?? "mixed";
+  if (close !== "mixed" && close !== "all-sealed")
+    throw new Error("--close must be mixed or all-sealed");
+  return {
+    sessions: intFlag(argv, "sessions", full ? 200 : 20, 1),
+    seats: intFlag(argv, "seats", 8, 2),
+    rounds: intFlag(argv, "rounds", 4, 1),
+    spreadMs: intFlag(argv, "spread", 1000, 0),
+    closeMode: close,
+    bare: !hasFlag(argv, "no-bare"),
+  };
+}
+
+const strip = ({ acked: _acked, ...rest }: DriveResult) => rest;
+
+export async function runLoad(config: LoadConfig, log = console.error): Promise<LoadReport> {
+  const loadBefore = loadAverage();
+  const port = await freePort();
+  const server = await startServer({ dataDir: tempDir("contend-load-"), port });
+  let report: LoadReport;
+  try {
+    const serverStartRssMiB = rssMiB(server.pid) ?? Number.NaN;
+    log(`load: server pid ${server.pid} on ${server.url}; creating ${config.sessions} sessions`);
+    const tc = performance.now();
+    const created = await inBatches(Array.from({ length: config.sessions }), 8, () =>
+      createSession(server.url, kioskScenario(config.seats, config.rounds)),
+    );
+    const createSeconds = (performance.now() - tc) / 1000;
+    const plans: SessionPlan[] = created.map((c) => ({
+      id: c.id,
+      facilitatorKey: c.facilitatorKey,
+      seatKeys: c.seats.map((s) => s.key!),
+    }));
+    log(`load: driving ${config.sessions * config.seats} seats through ${config.rounds} rounds`);
+    const ours = await drive({
+      url: server.url,
+      serverPid: server.pid,
+      sessions: plans,
+      rounds: config.rounds,
+      spreadMs: config.spreadMs,
+      closeMode: config.closeMode,
+      connectConcurrency: 32,
+      sampleViews: true,
+    });
+    log(`load: checking ${ours.acked.length} acked moves against the exported logs`);
+    const logs = new Map<string, ExportedEvent[]>();
+    let exportFailures = 0;
+    await inBatches(plans, 4, async (p) => {
+      try {
+        logs.set(p.id, await exportEvents(server.url, p.id));
+      } catch {
+        exportFailures++;
+      }
+    });
+    const lost = missingMoves(ours.acked, logs);
+    await server.kill("SIGTERM");
+
+    let bare: DriveResult | null = null;
+    if (config.bare) {
+      const barePort = await freePort();
+      const viewBytes = Number.isFinite(ours.meanViewBytes) ? Math.round(ours.meanViewBytes) : 4000;
+      const bareServer = await startBareServer(barePort, { seats: config.seats, viewBytes });
+      try {
+        log(`load: bare socket.io baseline (pid ${bareServer.pid}), views of ${viewBytes} bytes`);
+        bare = await drive({
+          url: bareServer.url,
+          serverPid: bareServer.pid,
+          sessions: plans.map((p) => ({
+            id: p.id,
+            facilitatorKey: "facilitator",
+            seatKeys: p.seatKeys.map((_, i) => `seat:${i}`),
+          })),
+          rounds: config.rounds,
+          spreadMs: config.spreadMs,
+          closeMode: config.closeMode,
+          connectConcurrency: 32,
+        });
+      } finally {
+        await bareServer.kill("SIGTERM");
+      }
+    }
+    const oursR = strip(ours);
+    const bareR = bare ? strip(bare) : null;
+    const seatsTarget = 1600;
+    const revealRatio = bareR ? ratio(oursR.reveal.p99, bareR.reveal.p99) : Number.NaN;
+    const ackRatio = bareR ? ratio(oursR.ack.p99, bareR.ack.p99) : Number.NaN;
+    report = {
+      config,
+      loadBefore,
+      loadAfter: loadAverage(),
+      serverStartRssMiB,
+      ours: oursR,
+      bare: bareR,
+      createSeconds,
+      lostMoves: lost.length + (exportFailures > 0 ? Number.NaN : 0),
+      checkedMoves: ours.acked.length,
+      exportFailures,
+      targets: [
+        {
+          target: `${seatsTarget} connected seats`,
+          measured: `${oursR.seatsConnected} of ${oursR.seatsPlanned} planned`,
+          pass:
+            config.sessions * config.seats < seatsTarget
+              ? null
+              : oursR.seatsConnected >= seatsTarget,
+        },
+        {
+          target: "reveal p99 < 100 ms",
+          measured: `${oursR.reveal.p99.toFixed(1)} ms`,
+          pass: oursR.reveal.p99 < 100,
+        },
+        {
+          target: "ours / bare <= 2 (reveal p99)",
+          measured: Number.isNaN(revealRatio) ? "n/a" : revealRatio.toFixed(2),
+          pass: Number.isNaN(revealRatio) ? null : revealRatio <= 2,
+        },
+        {
+          target: "ours / bare <= 2 (move ack p99)",
+          measured: Number.isNaN(ackRatio) ? "n/a" : ackRatio.toFixed(2),
+          pass: Number.isNaN(ackRatio) ? null : ackRatio <= 2,
+        },
+        {
+          target: "0 acknowledged moves lost",
+          measured: `${lost.length} lost of ${ours.acked.length} acked${exportFailures ? `, ${exportFailures} exports failed` : ""}`,
+          pass: exportFailures === 0 && lost.length === 0,
+        },
+      ],
+    };
+  } finally {
+    await server.kill("SIGKILL");
+  }
+  return report;
+}
+
+export function formatLoad(r: LoadReport): string {
+  const c = r.config;
+  const rows: Array<[string, (d: Omit<DriveResult, "acked">) => Cell]> = [
+    ["seats connected", (d) => `${d.seatsConnected} / ${d.seatsPlanned}`],
+    ["facilitators connected", (d) => d.facilitatorsConnected],
+    ["connect + hello, all clients (s)", (d) => d.connectSeconds],
+    ["rounds phase (s)", (d) => d.roundsSeconds],
+    ["moves acked", (d) => d.movesAcked],
+    ["move errors", (d) => JSON.stringify(d.moveErrors)],
+    ["moves per second", (d) => d.movesPerSecond],
+    ["move -> ack p50 (ms)", (d) => d.ack.p50],
+    ["move -> ack p99 (ms)", (d) => d.ack.p99],
+    ["move -> ack max (ms)", (d) => d.ack.max],
+    ["close -> reveal p50 (ms)", (d) => d.reveal.p50],
+    ["close -> reveal p99 (ms)", (d) => d.reveal.p99],
+    ["close -> reveal max (ms)", (d) => d.reveal.max],
+    ["reveals missing (60 s)", (d) => d.revealMissing],
+    ["views received per seat", (d) => d.viewsPerSeat],
+    ["server CPU in rounds (s)", (d) => d.serverCpuSeconds],
+    ["server CPU (% of one core)", (d) => d.serverCpuPercent],
+    ["server CPU per move (ms)", (d) => d.serverCpuMsPerMove],
+    ["client CPU in rounds (s)", (d) => d.clientCpuSeconds],
+    ["client CPU (% of one core)", (d) => d.clientCpuPercent],
+    ["server RSS after connect (MiB)", (d) => d.serverRssAfterConnectMiB],
+    ["server RSS at end (MiB)", (d) => d.serverRssEndMiB],
+  ];
+  const table = markdownTable(
+    ["figure", "contend server", "bare socket.io", "ours / bare"],
+    rows.map(([name, get]) => {
+      const a = get(r.ours);
+      const b = r.bare ? get(r.bare) : null;
+      const q = typeof a === "number" && typeof b === "number" ? ratio(a, b) : null;
+      return [name, a, b, q === null ? "" : Number.isNaN(q) ? "n/a" : q.toFixed(2)];
+    }),
+  );
+  const perSession = (r.ours.serverRssEndMiB - r.serverStartRssMiB) / c.sessions;
+  const targets = markdownTable(
+    ["target", "measured", "result"],
+    r.targets.map((t) => [
+      t.target,
+      t.measured,
+      t.pass === null ? "not tested at this size" : t.pass ? "pass" : "MISS",
+    ]),
+  );
+  return [
+    `Load: ${c.sessions} sessions x ${c.seats} human seats (+1 facilitator each), ${c.rounds} rounds,`,
+    `seals spread over ${c.spreadMs} ms after each opening, close mode ${c.closeMode}`,
+    `(even rounds closed by the facilitator with one seat missing). Load average before ${r.loadBefore}, after ${r.loadAfter}.`,
+    `Sessions created over REST in ${r.createSeconds.toFixed(1)} s. Server RSS at start ${r.serverStartRssMiB.toFixed(1)} MiB;`,
+    `RSS growth per session ${perSession.toFixed(2)} MiB. ${r.checkedMoves} acked moves checked against the exported logs: ${r.lostMoves} lost.`,
+    "",
+    table,
+    "",
+    targets,
+  ].join("\n");
+}
+
+async function main() {
+  const argv = process.argv.slice(2);
+  const report = await runLoad(configFrom(argv));
+  if (hasFlag(argv, "json")) console.log(JSON.stringify(report, null, 2));
+  else console.log(formatLoad(report));
+  process.exit(0);
+}
+
+if (process.argv[1] === fileURLToPath(import.meta.url)) {
+  main().catch((error: unknown) => {
+    console.error(error);
+    process.exit(1);
+  });
+}

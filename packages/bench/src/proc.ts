@@ -1,0 +1,65 @@
+/**
+ * CPU time and memory of another process, read from Linux /proc (process.cpuUsage only sees
+ * the calling process). Field numbers follow proc(5): utime is field 14, stime 15, in clock
+ * ticks; RSS comes from VmRSS in /proc/<pid>/status.
+ */
+import { execFileSync } from "node:child_process";
+import { readFileSync } from "node:fs";
+
+let ticksPerSecond: number | null = null;
+
+/** sysconf(_SC_CLK_TCK); 100 on practically every Linux (common practice, no source). */
+export function clockTicks(): number {
+  if (ticksPerSecond === null) {
+    try {
+      ticksPerSecond =
+        Number(execFileSync("getconf", ["CLK_TCK"], { encoding: "utf8" }).trim()) || 100;
+    } catch {
+      ticksPerSecond = 100;
+    }
+  }
+  return ticksPerSecond;
+}
+
+/** Parses a /proc/<pid>/stat line; the command name (field 2) may contain spaces and parens. */
+export function parseStat(line: string): { utimeTicks: number; stimeTicks: number } {
+  const close = line.lastIndexOf(")");
+  // fields after ")" start at field 3 (state)
+  const rest = line.slice(close + 2).split(" ");
+  return { utimeTicks: Number(rest[14 - 3]), stimeTicks: Number(rest[15 - 3]) };
+}
+
+/** user + system CPU seconds used so far by pid; null once the process is gone */
+export function cpuSeconds(pid: number): number | null {
+  try {
+    const { utimeTicks, stimeTicks } = parseStat(readFileSync(`/proc/${pid}/stat`, "utf8"));
+    return (utimeTicks + stimeTicks) / clockTicks();
+  } catch {
+    return null;
+  }
+}
+
+/** resident set size in MiB; null once the process is gone */
+export function rssMiB(pid: number): number | null {
+  try {
+    const status = readFileSync(`/proc/${pid}/status`, "utf8");
+    const m = /^VmRSS:\s+(\d+)\s+kB/m.exec(status);
+    return m ? Number(m[1]) / 1024 : null;
+  } catch {
+    return null;
+  }
+}
+
+/** CPU seconds of this process (user + system) */
+export function selfCpuSeconds(): number {
+  const u = process.cpuUsage();
+  return (u.user + u.system) / 1e6;
+}
+
+export function loadAverage(): string {
+  try {
+    return readFileSync("/proc/loadavg", "utf8").split(" ").slice(0, 3).join(" ");
+  } catch {
+    return "n/a";
+  }
+}
