@@ -136,11 +136,11 @@ export async function eventLog(db: Database, sessionId: string): Promise<Session
 }
 
 /** Waits until `check` passes (polling), for pushed views that arrive after an ack. */
-export async function eventually<T>(check: () => T, timeoutMs = 5_000): Promise<T> {
+export async function eventually<T>(check: () => T | Promise<T>, timeoutMs = 5_000): Promise<T> {
   const start = Date.now();
   for (;;) {
     try {
-      return check();
+      return await check();
     } catch (error) {
       if (Date.now() - start > timeoutMs) throw error;
       await new Promise((r) => setTimeout(r, 20));

@@ -244,10 +244,13 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
         const live = await get(s.id);
         if (!live) continue;
         restored++;
-        // Overdue clocks fire at once (armClock with a negative delay); a round whose seats
-        // had all sealed before a crash closes now.
-        if (allSealed(live.state)) {
-          void execute(s.id, { type: "closeRound", reason: "all-sealed" }, SYSTEM);
+        // A round whose clock ran out while the server was down, or whose seats had all
+        // sealed just before a crash, closes now, before any client can act on it.
+        const due = deadline(live.state);
+        if (due !== null && due <= clock.now()) {
+          await execute(s.id, { type: "closeRound", reason: "clock" }, SYSTEM);
+        } else if (allSealed(live.state)) {
+          await execute(s.id, { type: "closeRound", reason: "all-sealed" }, SYSTEM);
         }
       }
       return restored;
