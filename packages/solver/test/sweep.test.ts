@@ -4,6 +4,8 @@ import {
   plan1d,
   plan2d,
   planAxis,
+  prepareSweep1d,
+  prepareSweep2d,
   setParam,
   solve,
   sweep1d,
@@ -144,6 +146,33 @@ describe("sweep1d", () => {
     ];
     expect(pieces).toEqual(whole);
     expect(whole).toHaveLength(25);
+  });
+});
+
+describe("prepareSweep1d / prepareSweep2d", () => {
+  it("prepareSweep1d(...).chunk pieces finish to the same series as sweep1d", () => {
+    const spec = { param: "rivals.0.value", from: 500, to: 2000, steps: 30 };
+    const prepared = prepareSweep1d(fiveRivals, spec);
+    if (!prepared.ok) throw new Error(prepared.message);
+    const { count, chunk, finish } = prepared.value;
+    expect(count).toBe(30);
+    const points = [];
+    for (let k = 0; k < count; k += 8) points.push(...chunk(k, k + 8));
+    const direct = sweep1d(fiveRivals, spec);
+    expect(direct.ok && finish(points)).toEqual(direct.ok && direct.value);
+  });
+
+  it("prepareSweep2d(...).chunk pieces finish to the same grid as sweep2d", () => {
+    const spec = {
+      x: { param: "rivals.0.cost", from: 1, to: 2, steps: 5 },
+      y: { param: "prize", from: 100, to: 200, steps: 4 },
+    };
+    const prepared = prepareSweep2d(fiveRivals, spec, "dissipation");
+    if (!prepared.ok) throw new Error(prepared.message);
+    const { count, chunk, finish } = prepared.value;
+    const points = [...chunk(0, 7), ...chunk(7, count)];
+    const direct = sweep2d(fiveRivals, spec, "dissipation");
+    expect(direct.ok && finish(points)).toEqual(direct.ok && direct.value);
   });
 });
 

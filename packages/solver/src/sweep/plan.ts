@@ -111,13 +111,26 @@ export function sweepChunk(plan: SweepPlan, start: number, end: number): SweepPo
 
 export type Progress = (done: number, total: number) => void;
 
-/** Runs a whole plan synchronously in chunks, reporting progress after each chunk. */
-export function runPlan(plan: SweepPlan, onProgress?: Progress, chunk = 256): SweepPoint[] {
+/**
+ * A checked sweep ready to run in pieces: `chunk(start, end)` evaluates points start..end-1 and
+ * `finish(points)` turns all points, in order, into the result. For Web Workers with progress.
+ */
+export interface PreparedSweep<T> {
+  count: number;
+  chunk(start: number, end: number): SweepPoint[];
+  finish(points: SweepPoint[]): T;
+}
+
+export function prepare<T>(plan: SweepPlan, finish: (points: SweepPoint[]) => T): PreparedSweep<T> {
+  return { count: plan.count, chunk: (start, end) => sweepChunk(plan, start, end), finish };
+}
+
+/** Runs a prepared sweep synchronously in chunks, reporting progress after each chunk. */
+export function runPrepared<T>(sweep: PreparedSweep<T>, onProgress?: Progress, chunk = 256): T {
   const out: SweepPoint[] = [];
-  for (let start = 0; start < plan.count; start += chunk) {
-    const part = sweepChunk(plan, start, start + chunk);
-    for (const p of part) out.push(p);
-    onProgress?.(out.length, plan.count);
+  for (let start = 0; start < sweep.count; start += chunk) {
+    for (const p of sweep.chunk(start, start + chunk)) out.push(p);
+    onProgress?.(out.length, sweep.count);
   }
-  return out;
+  return sweep.finish(out);
 }

@@ -1,6 +1,15 @@
 /** One-parameter sweep: equilibrium efforts, payoffs, total effort and dissipation along a line. */
 import type { EquilibriumKind, Parsed, Scenario } from "../types";
-import { MAX_STEPS_1D, plan1d, planAxis, runPlan, type AxisSpec, type Progress } from "./plan";
+import {
+  MAX_STEPS_1D,
+  plan1d,
+  planAxis,
+  prepare,
+  runPrepared,
+  type AxisSpec,
+  type PreparedSweep,
+  type Progress,
+} from "./plan";
 import type { SweepPoint } from "./point";
 
 export interface Sweep1d {
@@ -29,14 +38,22 @@ export function assemble1d(param: string, names: string[], points: SweepPoint[])
   };
 }
 
+export function prepareSweep1d(scenario: Scenario, spec: AxisSpec): Parsed<PreparedSweep<Sweep1d>> {
+  const axis = planAxis(scenario, spec, "sweep", MAX_STEPS_1D);
+  if (!axis.ok) return axis;
+  const names = scenario.rivals.map((r) => r.name);
+  const plan = plan1d(scenario, axis.value);
+  return {
+    ok: true,
+    value: prepare(plan, (points) => assemble1d(axis.value.param, names, points)),
+  };
+}
+
 export function sweep1d(
   scenario: Scenario,
   spec: AxisSpec,
   onProgress?: Progress,
 ): Parsed<Sweep1d> {
-  const axis = planAxis(scenario, spec, "sweep", MAX_STEPS_1D);
-  if (!axis.ok) return axis;
-  const points = runPlan(plan1d(scenario, axis.value), onProgress);
-  const names = scenario.rivals.map((r) => r.name);
-  return { ok: true, value: assemble1d(axis.value.param, names, points) };
+  const prepared = prepareSweep1d(scenario, spec);
+  return prepared.ok ? { ok: true, value: runPrepared(prepared.value, onProgress) } : prepared;
 }

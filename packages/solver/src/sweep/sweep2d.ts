@@ -1,6 +1,15 @@
 /** Two-parameter sweep: one metric of the equilibrium on a grid (a heat map). */
 import type { EquilibriumKind, InputError, Parsed, Scenario } from "../types";
-import { MAX_STEPS_2D, plan2d, planAxis, runPlan, type AxisSpec, type Progress } from "./plan";
+import {
+  MAX_STEPS_2D,
+  plan2d,
+  planAxis,
+  prepare,
+  runPrepared,
+  type AxisSpec,
+  type PreparedSweep,
+  type Progress,
+} from "./plan";
 import type { SweepPoint } from "./point";
 
 /** "totalEffort", "dissipation", "effort.<i>" or "payoff.<i>" (rival index). */
@@ -53,12 +62,12 @@ export function assemble2d(
   return { x, y, metric, z, kinds };
 }
 
-export function sweep2d(
+/** Checks both axes and the metric; the result runs in chunks like prepareSweep1d. */
+export function prepareSweep2d(
   scenario: Scenario,
   spec: { x: AxisSpec; y: AxisSpec },
   metric: Sweep2dMetric = "totalEffort",
-  onProgress?: Progress,
-): Parsed<Sweep2d> {
+): Parsed<PreparedSweep<Sweep2d>> {
   const x = planAxis(scenario, spec.x, "x", MAX_STEPS_2D);
   if (!x.ok) return x;
   const y = planAxis(scenario, spec.y, "y", MAX_STEPS_2D);
@@ -68,8 +77,21 @@ export function sweep2d(
   }
   const read = metricReader(metric, scenario.rivals.length);
   if (!read.ok) return read;
-  const points = runPlan(plan2d(scenario, x.value, y.value), onProgress);
+  const plan = plan2d(scenario, x.value, y.value);
   const ax = { param: x.value.param, values: x.value.values };
   const ay = { param: y.value.param, values: y.value.values };
-  return { ok: true, value: assemble2d(ax, ay, metric, read.value, points) };
+  return {
+    ok: true,
+    value: prepare(plan, (points) => assemble2d(ax, ay, metric, read.value, points)),
+  };
+}
+
+export function sweep2d(
+  scenario: Scenario,
+  spec: { x: AxisSpec; y: AxisSpec },
+  metric: Sweep2dMetric = "totalEffort",
+  onProgress?: Progress,
+): Parsed<Sweep2d> {
+  const prepared = prepareSweep2d(scenario, spec, metric);
+  return prepared.ok ? { ok: true, value: runPrepared(prepared.value, onProgress) } : prepared;
 }
