@@ -1,8 +1,10 @@
 "use client";
 
 import Link from "next/link";
+import { useEffect } from "react";
 import type { CreateSessionResponse } from "@contend/protocol";
-import { absoluteLink } from "../lib/api";
+import { absoluteLink, localPath } from "../lib/api";
+import { rememberInvites } from "../lib/live";
 import { CopyField } from "./CopyField";
 
 /** What a facilitator needs right after creating a session: links, code, seat invitations. */
@@ -13,6 +15,13 @@ export function CreatedSession({
   created: CreateSessionResponse;
   title: string;
 }) {
+  useEffect(() => {
+    rememberInvites(created.id, {
+      joinCode: created.joinCode,
+      links: created.links,
+      seats: created.seats.map((s) => ({ index: s.index, name: s.name, link: s.link })),
+    });
+  }, [created]);
   const facilitator = absoluteLink(created.links.facilitator);
   const screen = absoluteLink(created.links.spectator);
   const join = absoluteLink(created.links.join);
@@ -32,12 +41,16 @@ export function CreatedSession({
         </div>
         <Link
           className="button primary"
-          href={created.links.facilitator}
+          href={localPath(created.links.facilitator)}
           data-testid="open-facilitator"
         >
           Open facilitator console
         </Link>
-        <Link className="button" href={created.links.spectator} data-testid="open-screen">
+        <Link
+          className="button"
+          href={localPath(created.links.spectator)}
+          data-testid="open-screen"
+        >
           Open big screen
         </Link>
       </div>

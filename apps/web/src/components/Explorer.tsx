@@ -2,7 +2,7 @@
 
 import { useDeferredValue, useEffect, useMemo, useState } from "react";
 import { useSearchParams } from "next/navigation";
-import { comparativeStatics, normalize, respond, shares, validateScenario } from "@contend/solver";
+import { comparativeStatics, respond, shares, validateScenario } from "@contend/solver";
 import type { AxisSpec, Scenario } from "@contend/solver";
 import { bestResponseCurves, curveRange } from "../lib/br-curves";
 import { effortKey, payoffKey, sweepRows, turningPoints } from "../lib/chart-data";

@@ -1,5 +1,5 @@
 /** REST calls to the Contend server (same origin unless NEXT_PUBLIC_SERVER_URL says otherwise). */
-import type { CreateSessionResponse, SessionExport, SessionListItem } from "@contend/protocol";
+import type { CreateSessionResponse, SessionListItem } from "@contend/protocol";
 import { SERVER_URL } from "./env";
 import type { SessionScenarioInput } from "./session-types";
 
@@ -63,20 +63,26 @@ export function createSession(
   });
 }
 
-export function listSessions(): Promise<ApiResult<SessionListItem[]>> {
-  return request<SessionListItem[]>("/api/sessions");
+function keyQuery(key: string | undefined, first: boolean): string {
+  return key ? `${first ? "?" : "&"}key=${encodeURIComponent(key)}` : "";
 }
 
-export function exportSession(id: string): Promise<ApiResult<SessionExport>> {
-  return request<SessionExport>(`/api/sessions/${encodeURIComponent(id)}/export`);
+/** GET /api/sessions; `key` is the admin key when the server requires one. */
+export function listSessions(key?: string): Promise<ApiResult<SessionListItem[]>> {
+  return request<SessionListItem[]>(`/api/sessions${keyQuery(key, true)}`);
 }
 
-export function exportCsvUrl(id: string): string {
-  return apiUrl(`/api/sessions/${encodeURIComponent(id)}/export?format=csv`);
+/** Raw export body; the caller validates it with the protocol schema. */
+export function exportSession(id: string, key?: string): Promise<ApiResult<unknown>> {
+  return request<unknown>(`/api/sessions/${encodeURIComponent(id)}/export${keyQuery(key, true)}`);
 }
 
-export function exportJsonUrl(id: string): string {
-  return apiUrl(`/api/sessions/${encodeURIComponent(id)}/export`);
+export function exportCsvUrl(id: string, key?: string): string {
+  return apiUrl(`/api/sessions/${encodeURIComponent(id)}/export?format=csv${keyQuery(key, false)}`);
+}
+
+export function exportJsonUrl(id: string, key?: string): string {
+  return apiUrl(`/api/sessions/${encodeURIComponent(id)}/export${keyQuery(key, true)}`);
 }
 
 /** Links the server returns may be relative or absolute; show them absolute for copying. */
@@ -84,4 +90,14 @@ export function absoluteLink(link: string): string {
   if (/^https?:\/\//.test(link)) return link;
   if (typeof window === "undefined") return link;
   return new URL(link, window.location.origin).toString();
+}
+
+/** Path and query of a link, for navigating inside this app whatever origin the server named. */
+export function localPath(link: string): string {
+  try {
+    const u = new URL(link, "http://placeholder.invalid");
+    return `${u.pathname}${u.search}`;
+  } catch {
+    return link;
+  }
 }

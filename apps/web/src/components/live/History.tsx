@@ -1,0 +1,158 @@
+"use client";
+
+import type { RoundResult } from "@contend/protocol";
+import { equilibriumEffortOf, perSeatOverRounds, seatHistoryRows } from "../../lib/chart-data";
+import { formatMoney, formatNumber } from "../../lib/format";
+import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
+import { DataTable } from "../DataTable";
+import { LineSeriesChart } from "../LineSeriesChart";
+
+/** One seat across rounds: what it played, the equilibrium, its best reply; and its regrets. */
+export function SeatHistory({
+  rounds,
+  seat,
+  currency,
+}: {
+  rounds: readonly RoundResult[];
+  seat: number;
+  currency: string | null | undefined;
+}) {
+  const rows = seatHistoryRows(rounds, seat);
+  const money = (v: number) => formatMoney(v, currency);
+  return (
+    <div>
+      <LineSeriesChart
+        rows={rows}
+        xKey="round"
+        xLabel="Round"
+        yLabel="Effort"
+        formatY={(v) => formatNumber(v)}
+        formatX={(v) => String(v)}
+        testId="seat-history-chart"
+        height={240}
+        series={[
+          { key: "effort", name: "Your effort", colour: seriesColour(0) },
+          { key: "equilibrium", name: "Equilibrium", colour: EQUILIBRIUM_COLOUR, dashed: true },
+          { key: "bestResponse", name: "Best reply", colour: seriesColour(1), dashed: true },
+        ]}
+      />
+      <DataTable
+        caption="Your rounds"
+        testId="seat-history-table"
+        rows={rows}
+        columns={[
+          { key: "round", label: "Round" },
+          { key: "effort", label: "Effort", format: money },
+          { key: "equilibrium", label: "Equilibrium", format: money },
+          { key: "bestResponse", label: "Best reply", format: money },
+          { key: "regret", label: "Regret", format: money },
+          { key: "payoff", label: "Payoff", format: money },
+          { key: "total", label: "Running total", format: money },
+        ]}
+      />
+    </div>
+  );
+}
+
+/** Every seat across rounds: efforts against each seat's equilibrium, and regrets. */
+export function RoomHistory({
+  rounds,
+  names,
+  currency,
+  dark,
+  testPrefix = "history",
+}: {
+  rounds: readonly RoundResult[];
+  names: readonly string[];
+  currency: string | null | undefined;
+  dark?: boolean;
+  testPrefix?: string;
+}) {
+  const seats = names.map((_, i) => i).filter((s) => rounds.some((r) => r.seatIndices.includes(s)));
+  const effort = perSeatOverRounds(rounds, seats, (r, s) => r.efforts[s] ?? null);
+  const eq = perSeatOverRounds(rounds, seats, equilibriumEffortOf);
+  const regret = perSeatOverRounds(rounds, seats, (r, s) => r.regrets[s] ?? null);
+  const merged = effort.map((row, k) => {
+    const out = { ...row };
+    for (const s of seats) out[`eq${s}`] = eq[k]?.[`s${s}`] ?? null;
+    return out;
+  });
+  const money = (v: number) => formatMoney(v, currency);
+  return (
+    <div className="grid-2">
+      <div>
+        <h3>Efforts against equilibrium</h3>
+        <LineSeriesChart
+          rows={merged}
+          xKey="round"
+          xLabel="Round"
+          yLabel="Effort"
+          formatY={(v) => formatNumber(v)}
+          formatX={(v) => String(v)}
+          testId={`${testPrefix}-effort-chart`}
+          dark={dark}
+          series={seats.flatMap((s) => [
+            { key: `s${s}`, name: names[s] ?? `Seat ${s + 1}`, colour: seriesColour(s) },
+            {
+              key: `eq${s}`,
+              name: `${names[s] ?? `Seat ${s + 1}`} (equilibrium)`,
+              colour: seriesColour(s),
+              dashed: true,
+            },
+          ])}
+        />
+        <DataTable
+          caption="Efforts by round (equilibrium in brackets)"
+          testId={`${testPrefix}-effort-table`}
+          rows={merged.map((row) => {
+            const out: Record<string, string | number | null> = { round: row.round ?? null };
+            for (const s of seats) {
+              const e = row[`s${s}`];
+              const q = row[`eq${s}`];
+              out[`s${s}`] =
+                typeof e === "number"
+                  ? `${money(e)} (${typeof q === "number" ? money(q) : "\u2013"})`
+                  : null;
+            }
+            return out;
+          })}
+          columns={[
+            { key: "round", label: "Round" },
+            ...seats.map((s) => ({ key: `s${s}`, label: names[s] ?? `Seat ${s + 1}` })),
+          ]}
+        />
+      </div>
+      <div>
+        <h3>Regret per seat</h3>
+        <LineSeriesChart
+          rows={regret}
+          xKey="round"
+          xLabel="Round"
+          yLabel="Regret"
+          formatY={(v) => formatNumber(v)}
+          formatX={(v) => String(v)}
+          testId={`${testPrefix}-regret-chart`}
+          dark={dark}
+          series={seats.map((s) => ({
+            key: `s${s}`,
+            name: names[s] ?? `Seat ${s + 1}`,
+            colour: seriesColour(s),
+          }))}
+        />
+        <DataTable
+          caption="Regret by round: money left on the table given the others' efforts"
+          testId={`${testPrefix}-regret-table`}
+          rows={regret}
+          columns={[
+            { key: "round", label: "Round" },
+            ...seats.map((s) => ({
+              key: `s${s}`,
+              label: names[s] ?? `Seat ${s + 1}`,
+              format: money,
+            })),
+          ]}
+        />
+      </div>
+    </div>
+  );
+}

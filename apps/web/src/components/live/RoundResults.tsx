@@ -1,0 +1,117 @@
+"use client";
+
+import {
+  Bar,
+  BarChart,
+  CartesianGrid,
+  Legend,
+  ResponsiveContainer,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from "recharts";
+import type { RoundResult } from "@contend/protocol";
+import { roundSeatRows } from "../../lib/chart-data";
+import { formatMoney, formatNumber, formatPercent } from "../../lib/format";
+import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
+import { DataTable } from "../DataTable";
+
+/** One revealed round: efforts against equilibrium, shares, payoffs, regrets, dissipation. */
+export function RoundResults({
+  round,
+  names,
+  currency,
+  dark,
+  highlightSeat,
+  testPrefix = "round",
+}: {
+  round: RoundResult;
+  names: readonly string[];
+  currency: string | null | undefined;
+  dark?: boolean;
+  highlightSeat?: number;
+  testPrefix?: string;
+}) {
+  const rows = roundSeatRows(round, names);
+  const money = (v: number) => formatMoney(v, currency);
+  const axis = dark ? "#c9d4e0" : "#4a5565";
+  const eqKind = round.equilibrium.kind;
+  return (
+    <div data-testid={`${testPrefix}-results`}>
+      <div className="kpis" style={{ marginBottom: "0.75rem" }}>
+        <div className="kpi">
+          <span className="label">Round</span>
+          <span className="value">{round.round}</span>
+        </div>
+        <div className="kpi">
+          <span className="label">Dissipation played</span>
+          <span className="value" data-testid={`${testPrefix}-dissipation`}>
+            {formatPercent(round.dissipation)}
+          </span>
+        </div>
+        <div className="kpi">
+          <span className="label">Dissipation at equilibrium</span>
+          <span className="value">{formatPercent(round.equilibrium.dissipation)}</span>
+        </div>
+        <div className="kpi">
+          <span className="label">Nash gap (largest regret)</span>
+          <span className="value" data-testid={`${testPrefix}-gap`}>
+            {money(round.nashGap)}
+          </span>
+        </div>
+        {round.winner !== null && (
+          <div className="kpi">
+            <span className="label">Winner drawn</span>
+            <span className="value" data-testid={`${testPrefix}-winner`}>
+              {names[round.winner] ?? `Seat ${round.winner + 1}`}
+            </span>
+          </div>
+        )}
+      </div>
+      <div
+        className="chart"
+        style={{ height: 260 }}
+        data-testid={`${testPrefix}-chart`}
+        role="img"
+        aria-label="Efforts played against equilibrium efforts"
+      >
+        <ResponsiveContainer width="100%" height="100%">
+          <BarChart data={rows} margin={{ top: 8, right: 8, bottom: 8, left: 8 }}>
+            <CartesianGrid stroke={dark ? "#2a3848" : "#e3e7ec"} vertical={false} />
+            <XAxis dataKey="name" stroke={axis} interval={0} tick={{ fontSize: dark ? 16 : 12 }} />
+            <YAxis stroke={axis} tickFormatter={(v: number) => formatNumber(v)} width={72} />
+            <Tooltip formatter={(v) => (typeof v === "number" ? money(v) : String(v))} />
+            <Legend />
+            <Bar dataKey="effort" name="Played" fill={seriesColour(0)} isAnimationActive={false} />
+            <Bar
+              dataKey="equilibrium"
+              name={eqKind === "mixed" ? "Equilibrium (expected)" : "Equilibrium"}
+              fill={EQUILIBRIUM_COLOUR}
+              isAnimationActive={false}
+            />
+          </BarChart>
+        </ResponsiveContainer>
+      </div>
+      <DataTable
+        caption={`Round ${round.round}: per seat`}
+        testId={`${testPrefix}-table`}
+        maxHeight={dark ? 600 : 320}
+        rows={rows.map((r) => ({
+          ...r,
+          name: r.seat === highlightSeat ? `${String(r.name)} (you)` : (r.name ?? null),
+        }))}
+        columns={[
+          { key: "name", label: "Rival" },
+          { key: "effort", label: "Effort", format: money },
+          { key: "equilibrium", label: "Equilibrium", format: money },
+          { key: "share", label: "Share", format: (v) => formatPercent(v) },
+          { key: "payoff", label: "Payoff", format: money },
+          { key: "bestResponse", label: "Best reply", format: money },
+          { key: "regret", label: "Regret", format: money },
+          { key: "total", label: "Running total", format: money },
+          { key: "defaulted", label: "Missed" },
+        ]}
+      />
+    </div>
+  );
+}

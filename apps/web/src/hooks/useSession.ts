@@ -1,0 +1,180 @@
+"use client";
+
+import { useCallback, useEffect, useRef, useState } from "react";
+import { io } from "socket.io-client";
+import type { Socket } from "socket.io-client";
+import { PROTOCOL_VERSION } from "@contend/protocol";
+import type {
+  Ack,
+  ClientToServerEvents,
+  Command,
+  CommandAckData,
+  Credentials,
+  Hello,
+  HelloAckData,
+  RoleView,
+  ServerToClientEvents,
+} from "@contend/protocol";
+import { SERVER_URL } from "../lib/env";
+
+export type ConnectionStatus = "connecting" | "live" | "reconnecting" | "resynced" | "failed";
+
+export interface Connection {
+  status: ConnectionStatus;
+  message: string | null;
+}
+
+type ClientSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
+
+const ACK_TIMEOUT_MS = 10_000;
+/** How long the "resynced" banner stays before it settles to "live". */
+const RESYNC_NOTICE_MS = 3_000;
+
+export interface SessionHandle {
+  connection: Connection;
+  view: RoleView | null;
+  seq: number;
+  hello: HelloAckData | null;
+  /** sends a command and resolves with the server's ack (or a local timeout error) */
+  send: (cmd: Command) => Promise<Ack<CommandAckData>>;
+}
+
+/**
+ * One live session connection. On every (re)connect it says hello with its credentials and the
+ * last event seq it saw; the ack carries a full view, and later commits arrive as pushed views.
+ * A view older than the one held is ignored, so a late push never rolls the screen back.
+ */
+export function useSession(credentials: Credentials | null): SessionHandle {
+  const [connection, setConnection] = useState<Connection>({ status: "connecting", message: null });
+  const [view, setView] = useState<RoleView | null>(null);
+  const [seq, setSeq] = useState(0);
+  const [hello, setHello] = useState<HelloAckData | null>(null);
+  const socketRef = useRef<ClientSocket | null>(null);
+  const seqRef = useRef(0);
+  const credKey = credentials === null ? "" : JSON.stringify(credentials);
+
+  useEffect(() => {
+    if (credKey === "") return;
+    const creds = JSON.parse(credKey) as Credentials;
+    let connectedBefore = false;
+    let fatal = false;
+    let settle: ReturnType<typeof setTimeout> | null = null;
+    const socket: ClientSocket = io(SERVER_URL || undefined, {
+      transports: ["websocket", "polling"],
+      reconnectionDelay: 500,
+      reconnectionDelayMax: 5_000,
+    });
+    socketRef.current = socket;
+
+    const accept = (nextSeq: number, nextView: RoleView) => {
+      if (nextSeq < seqRef.current) return;
+      seqRef.current = nextSeq;
+      setSeq(nextSeq);
+      setView(nextView);
+    };
+
+    socket.on("connect", () => {
+      const msg: Hello = {
+        protocol: PROTOCOL_VERSION,
+        credentials: creds,
+        ...(seqRef.current > 0 ? { lastSeq: seqRef.current } : {}),
+      };
+      socket
+        .timeout(ACK_TIMEOUT_MS)
+        .emitWithAck("hello", msg)
+        .then((ack) => {
+          if (!ack.ok) {
+            const permanent = [
+              "unauthorized",
+              "not-found",
+              "version-mismatch",
+              "bad-request",
+              "forbidden",
+            ];
+            if (permanent.includes(ack.code)) {
+              fatal = true;
+              socket.disconnect();
+            }
+            setConnection({ status: "failed", message: ack.message });
+            return;
+          }
+          // The hello view is a full snapshot of the committed state: it always replaces ours.
+          seqRef.current = ack.data.seq;
+          setSeq(ack.data.seq);
+          setView(ack.data.view);
+          setHello(ack.data);
+          if (connectedBefore) {
+            setConnection({ status: "resynced", message: null });
+            if (settle) clearTimeout(settle);
+            settle = setTimeout(
+              () => setConnection({ status: "live", message: null }),
+              RESYNC_NOTICE_MS,
+            );
+          } else {
+            setConnection({ status: "live", message: null });
+          }
+          connectedBefore = true;
+        })
+        .catch(() => {
+          setConnection({
+            status: "reconnecting",
+            message: "the server did not answer the hello; retrying",
+          });
+          socket.disconnect().connect();
+        });
+    });
+    socket.on("view", (msg) => accept(msg.seq, msg.view));
+    socket.on("disconnect", (reason) => {
+      if (fatal) return;
+      setConnection({ status: "reconnecting", message: `connection lost (${reason})` });
+      // A server-side disconnect is not retried by socket.io itself.
+      if (reason === "io server disconnect") socket.connect();
+    });
+    socket.on("connect_error", (err) => {
+      if (fatal) return;
+      setConnection({
+        status: connectedBefore ? "reconnecting" : "connecting",
+        message: `cannot reach the server (${err.message})`,
+      });
+    });
+
+    return () => {
+      if (settle) clearTimeout(settle);
+      socket.removeAllListeners();
+      socket.disconnect();
+      socketRef.current = null;
+    };
+  }, [credKey]);
+
+  const send = useCallback(async (cmd: Command): Promise<Ack<CommandAckData>> => {
+    const socket = socketRef.current;
+    if (!socket || !socket.connected) {
+      return {
+        ok: false,
+        code: "internal",
+        message: "not connected: wait for the connection to return and try again",
+      };
+    }
+    try {
+      return await socket.timeout(ACK_TIMEOUT_MS).emitWithAck("command", cmd);
+    } catch {
+      return {
+        ok: false,
+        code: "internal",
+        message: "no answer from the server in time; check the connection and try again",
+      };
+    }
+  }, []);
+
+  return { connection, view, seq, hello, send };
+}
+
+/** Current time, refreshed every `ms` (for countdowns). */
+export function useNow(ms = 250): number {
+  const [now, setNow] = useState(() => Date.now());
+  useEffect(() => {
+    const t = setInterval(() => setNow(Date.now()), ms);
+    return () => clearInterval(t);
+  }, [ms]);
+  return now;
+}

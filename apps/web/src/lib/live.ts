@@ -1,0 +1,69 @@
+/** Small pure helpers shared by the live views. */
+import type { RoleView } from "@contend/protocol";
+
+/** Milliseconds left on the round clock, or null when the round has no clock. */
+export function remainingMs(view: RoleView, now: number): number | null {
+  if (view.status !== "open") return null;
+  if (view.paused) return view.remainingMs;
+  if (view.deadline === null) return null;
+  return Math.max(0, view.deadline - now);
+}
+
+export const STATUS_TEXT: Record<RoleView["status"], string> = {
+  lobby: "Waiting to start",
+  open: "Round open",
+  review: "Round revealed",
+  ended: "Session ended",
+};
+
+export function seatNames(view: RoleView): string[] {
+  return view.seats.map((s) => s.name);
+}
+
+/** Nearest multiple of the step (the server refuses efforts off the grid). */
+export function snapToStep(value: number, step: number): number {
+  if (!(step > 0) || !Number.isFinite(value)) return value;
+  const k = Math.round(value / step);
+  // Rebuild from the integer count so 0.1-type steps do not leave float dust.
+  const decimals = Math.max(0, Math.min(12, -Math.floor(Math.log10(step)) + 2));
+  return Number((k * step).toFixed(decimals));
+}
+
+export function isOnStep(value: number, step: number): boolean {
+  if (!(step > 0)) return true;
+  const k = value / step;
+  return Math.abs(k - Math.round(k)) <= 1e-9 * Math.max(1, Math.abs(k));
+}
+
+/** Invite links of sessions created in this browser (the server never sends keys again). */
+const STORE_PREFIX = "contend:created:";
+
+export interface StoredInvites {
+  joinCode: string;
+  links: { facilitator: string; spectator: string; join: string };
+  seats: { index: number; name: string; link: string | null }[];
+}
+
+export function rememberInvites(id: string, invites: StoredInvites): void {
+  try {
+    window.localStorage.setItem(STORE_PREFIX + id, JSON.stringify(invites));
+  } catch {
+    // storage may be disabled; the links were shown once already
+  }
+}
+
+export function recallInvites(id: string): StoredInvites | null {
+  try {
+    const raw = window.localStorage.getItem(STORE_PREFIX + id);
+    return raw ? (JSON.parse(raw) as StoredInvites) : null;
+  } catch {
+    return null;
+  }
+}
+
+/** A random id for sealMove's idempotency key. */
+export function newClientMoveId(): string {
+  const c = globalThis.crypto;
+  if (c && "randomUUID" in c) return c.randomUUID();
+  return `m-${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 10)}`;
+}
