@@ -6,11 +6,12 @@
  * candidate is then verified by a global best-response check of every rival, including the
  * option of spending nothing. Candidate sets: all subsets of size >= 2 for n <= 8, otherwise
  * the prefixes of the rivals sorted by strength w_i^(1/r_i) v_i / m_i. Known facts used only
- * in notes: the symmetric profile is an equilibrium iff r <= n/(n-1); with n >= 3 and
- * n/(n-1) < r <= 2 pure equilibria with two active rivals exist; with r > 2 there is no pure
- * equilibrium (Baye, Kovenock & de Vries 1994, Public Choice 81), while for r >= 2 a mixed one
- * with full dissipation exists (Alcalde & Dahm 2010, Journal of Public Economics 94).
- * Volume numbers from memory.
+ * in notes: the symmetric profile is an equilibrium iff r <= n/(n-1) (Baye, Kovenock & de
+ * Vries 1994, Public Choice 81); above that bound equilibria with fewer active rivals can
+ * exist (k identical active rivals need r <= k/(k-1), and the idle ones must not want to
+ * enter: with n = 3 and r = 1.6 two active rivals, with r = 1.3 and n = 10 three or four);
+ * with r > 2 there is no pure equilibrium, while for r >= 2 a mixed one with full dissipation
+ * exists (Alcalde & Dahm 2010, Journal of Public Economics 94). Volume numbers from memory.
  */
 import type { BestResponseOptions, Opposition } from "./bestResponse";
 import { bestResponseAgainst, oppositions, payoffAgainst } from "./bestResponse";

@@ -7,7 +7,7 @@
  *   ratio with r_i > 1    -> active-set search with global verification
  *   logit                 -> candidate enumeration with global verification
  */
-import { ratioActiveSetSearch } from "./activeSetSearch";
+import { ratioActiveSetSearch, sameProfile } from "./activeSetSearch";
 import { allPaySymmetric } from "./allPaySymmetric";
 import { allPayTwoRival } from "./allPayTwoRival";
 import { hillmanRileyEquilibrium } from "./hillmanRiley";
@@ -24,7 +24,7 @@ import {
 import type { Contest, Equilibrium, SolveOptions, SolveResult } from "./types";
 
 export function solve(contest: Contest, opts: SolveOptions = {}): SolveResult {
-  if (contest.leader !== null) {
+  if (contest.leader !== null && contest.rivals.length >= 2) {
     return { equilibrium: leaderFollowerEquilibrium(contest, opts.gridPoints), alternatives: [] };
   }
   const csf = contest.csf;
@@ -34,6 +34,9 @@ export function solve(contest: Contest, opts: SolveOptions = {}): SolveResult {
   }
   return solveBySearch(contest, opts);
 }
+
+/** Exhaustive search over active sets up to this many rivals (2^n candidates). */
+const EXHAUSTIVE_UP_TO = 8;
 
 /** Most equilibria listed in one result; more are counted in the note. */
 const MAX_LISTED = 50;
@@ -112,9 +115,19 @@ export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveR
       `${found.length} distinct pure equilibria found${found.length > MAX_LISTED ? ` (the first ${MAX_LISTED} are listed)` : ""}.`,
     );
   }
+  if (csf.kind === "ratio" && identicalRivals(contest) && n > EXHAUSTIVE_UP_TO) {
+    notes.push(
+      "The rivals are identical, so any other choice of the same number of active rivals is an equilibrium too (only one of each size is listed).",
+    );
+  }
+  const sym = csf.kind === "ratio" ? symmetricRatioEquilibrium(contest) : null;
   const list = found
     .slice(0, MAX_LISTED)
-    .map((f) => pureEquilibrium(contest, f.efforts, method, opts.gridPoints));
+    .map((f) =>
+      sym && sameProfile(contest, sym, f.efforts)
+        ? pureEquilibrium(contest, sym, "closed-form:symmetric", opts.gridPoints)
+        : pureEquilibrium(contest, f.efforts, method, opts.gridPoints),
+    );
   const [equilibrium, ...alternatives] = list;
   if (notes.length > 0) equilibrium!.note = notes.join(" ");
   return { equilibrium: equilibrium!, alternatives };

@@ -169,6 +169,20 @@ describe("best responses", () => {
   });
 });
 
+describe("shape-based maximiser against the optional grid search", () => {
+  test("bestResponse(random contest) equals bestResponse with a 4001-point grid cross-check", () => {
+    fc.assert(
+      fc.property(withProfile, fc.nat(), ({ c, e }, k) => {
+        const i = k % c.rivals.length;
+        const a = bestResponse(c, i, e);
+        const b = bestResponse(c, i, e, { gridPoints: 4001 });
+        expect(Math.abs(a.payoff - b.payoff)).toBeLessThan(1e-9);
+      }),
+      { numRuns: 60 },
+    );
+  });
+});
+
 describe("regret and Nash gap", () => {
   test("respond(random profile) has regrets >= 0 and nashGap = largest regret", () => {
     fc.assert(
