@@ -7,9 +7,11 @@
  * 0 or at its cap, with at most one rival at its interior point, which has a closed form
  *     e_i = (ln(p / (1 - p)) + ln Z_{-i} - ln w_i) / k,   p = (1 + sqrt(1 - 4 m_i / (v_i k))) / 2.
  * Every candidate is verified by a global best-response check. Capped rivals are enumerated
- * exhaustively up to 10 of them; beyond that only "all at cap" and "all at zero".
+ * exhaustively up to 6 of them; beyond that only "all at cap" and "all at zero", plus the end
+ * points of best-response iteration (Gauss-Seidel) started from both.
  */
 import type { BestResponseOptions } from "./bestResponse";
+import { bestResponseAgainst, oppositions } from "./bestResponse";
 import { sameProfile, verifyProfile } from "./activeSetSearch";
 import type { FoundEquilibrium, SearchOptions } from "./activeSetSearch";
 import type { Contest } from "./types";
@@ -23,6 +25,24 @@ function logSumExp(xs: readonly number[]): number {
   return top + Math.log(s);
 }
 
+const EXHAUSTIVE_CAPS = 6;
+
+/** Gauss-Seidel best-response iteration; the profile if it settles, else null. */
+function iterateBestResponses(contest: Contest, start: number[], sweeps = 60): number[] | null {
+  const e = start.slice();
+  for (let s = 0; s < sweeps; s++) {
+    let moved = 0;
+    for (let i = 0; i < e.length; i++) {
+      const o = oppositions(contest, e)[i]!;
+      const br = bestResponseAgainst(contest, i, o).effort;
+      moved = Math.max(moved, Math.abs(br - e[i]!));
+      e[i] = br;
+    }
+    if (moved === 0) return e;
+  }
+  return null;
+}
+
 export function logitSearch(contest: Contest, opts: SearchOptions = {}): FoundEquilibrium[] {
   if (contest.csf.kind !== "logit") return [];
   const k = contest.csf.scale;
@@ -33,7 +53,7 @@ export function logitSearch(contest: Contest, opts: SearchOptions = {}): FoundEq
     opts.gridPoints === undefined ? {} : { gridPoints: opts.gridPoints };
   const capIdx = rivals.map((x, i) => i).filter((i) => rivals[i]!.budget < Infinity);
   const capPatterns: boolean[][] = [];
-  if (capIdx.length <= 10) {
+  if (capIdx.length <= EXHAUSTIVE_CAPS) {
     for (let mask = 0; mask < 1 << capIdx.length; mask++) {
       capPatterns.push(capIdx.map((_, b) => (mask & (1 << b)) !== 0));
     }
@@ -71,6 +91,16 @@ export function logitSearch(contest: Contest, opts: SearchOptions = {}): FoundEq
       const prof = base.slice();
       prof[i] = e;
       consider(prof);
+    }
+  }
+  if (capIdx.length > EXHAUSTIVE_CAPS) {
+    for (const pattern of capPatterns) {
+      const start = new Array<number>(n).fill(0);
+      capIdx.forEach((i, b) => {
+        if (pattern[b]) start[i] = rivals[i]!.budget;
+      });
+      const end = iterateBestResponses(contest, start);
+      if (end) consider(end);
     }
   }
   // most active first, then more total effort
