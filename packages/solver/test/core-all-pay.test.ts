@@ -12,6 +12,7 @@ import {
   solve,
 } from "../src/index";
 import type { MixedStrategy, RivalSpec } from "../src/types";
+import fmin from "./fminLoader";
 
 const auction = (rivals: RivalSpec[], prize = 100) =>
   normalize({ title: "test", prize, csf: { kind: "allpay" }, rivals });
@@ -94,6 +95,47 @@ describe("two rivals (Hillman & Riley 1989; Baye, Kovenock & de Vries 1996)", ()
     const eq = solve(c).equilibrium;
     expect(eq.active).toEqual([false, true, true]);
     expect(eq.nashGap).toBeLessThan(1e-6);
+  });
+});
+
+describe("no profitable pure deviation, searched by Nelder-Mead (fmin)", () => {
+  // CDFs written out from the published formulas, independent of the solver's records
+  const twoRivalCdfs = (V1: number, V2: number) => [
+    (x: number) => Math.min(1, Math.max(0, x / V2)), // strong rival: uniform on [0, V2]
+    (x: number) => Math.min(1, 1 - V2 / V1 + Math.max(0, x) / V1), // weak rival: atom + uniform
+  ];
+  const bestDeviation = (u: (x: number) => number, top: number) => {
+    let best = -Infinity;
+    for (const f of [0.05, 0.3, 0.6, 0.95, 1.2]) {
+      const r = fmin.nelderMead((z) => -u(Math.abs(z[0]!)), [f * top], { minErrorDelta: 1e-12 });
+      best = Math.max(best, u(Math.abs(r.x[0]!)));
+    }
+    return best;
+  };
+
+  test("allPayTwoRival(V1=80, V2=50): neither rival gains by any pure bid", () => {
+    const c = auction([
+      { name: "a", cost: 2, value: 100 },
+      { name: "b", cost: 1, value: 80 },
+    ]);
+    const eq = allPayTwoRival(c)!;
+    const [Fstrong, Fweak] = twoRivalCdfs(80, 50);
+    const uStrong = (x: number) => 80 * Fweak!(x) - 1 * x; // rival b against a
+    const uWeak = (x: number) => 100 * Fstrong!(x) - 2 * x; // rival a against b
+    expect(bestDeviation(uStrong, 50)).toBeLessThanOrEqual(eq.payoffs![1]! + 1e-9);
+    expect(bestDeviation(uWeak, 50)).toBeLessThanOrEqual(eq.payoffs![0]! + 1e-9);
+    // and the support really pays the equilibrium payoff
+    expect(uStrong(20)).toBeCloseTo(eq.payoffs![1]!, 12);
+    expect(uWeak(20)).toBeCloseTo(eq.payoffs![0]!, 12);
+  });
+
+  test("allPaySymmetric(n=3, v=90, m=1.5): no pure bid beats payoff 0", () => {
+    const c = auction([1, 2, 3].map((k) => ({ name: `r${k}`, cost: 1.5, value: 90 })));
+    const eq = allPaySymmetric(c)!;
+    const F = (x: number) => Math.min(1, Math.sqrt(Math.max(0, (1.5 * x) / 90)));
+    const u = (x: number) => 90 * F(x) * F(x) - 1.5 * x;
+    expect(bestDeviation(u, 60)).toBeLessThanOrEqual(1e-9);
+    expect(eq.payoffs).toEqual([0, 0, 0]);
   });
 });
 
