@@ -77,6 +77,56 @@ describe.each(backends)("repositories on $name", (backend) => {
     expect(await db.sessions.byJoinCode(clash.input.joinCode)).toBeNull();
   });
 
+  it("sessions.create(input) failing on its keys rolls back the session row too", async () => {
+    const first = sessionInput();
+    await db.sessions.create(first.input);
+    // Reusing another session's key clashes on AccessKey.hash, the third write of the batch.
+    const clash = sessionInput();
+    clash.input.keys[1] = { role: "seat", seatIndex: 0, plaintext: first.facilitatorKey };
+    await expect(db.sessions.create(clash.input)).rejects.toThrow();
+    expect(await db.sessions.get(clash.input.id)).toBeNull();
+    expect(await db.seats.list(clash.input.id)).toEqual([]);
+    expect(await db.keys.resolve(clash.input.id, clash.facilitatorKey)).toBeNull();
+  });
+
+  it("event payloads keep every double bit for bit (JSONB numeric holds the shortest round-trip digits)", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    const values = [
+      0.1 + 0.2,
+      1 / 3,
+      Math.PI,
+      5e-324,
+      Number.MAX_VALUE,
+      -1.5e-10,
+      123456789.12345678,
+      2 ** 53 + 2,
+      ...Array.from({ length: 20 }, (_, i) => Math.sin(i + 1) * 10 ** (i - 10)),
+    ];
+    await db.events.append(input.id, 1, [event("round-resolved", 1, { shares: values })]);
+    const [, stored] = await db.events.list(input.id);
+    const shares = (stored!.payload as { shares: number[] }).shares;
+    expect(shares).toHaveLength(values.length);
+    shares.forEach((v, i) => expect(Object.is(v, values[i])).toBe(true));
+  });
+
+  it("session scenarios and saved scenarios keep 17-digit doubles too; NaN is refused", async () => {
+    const prize = 0.1 + 0.2; // 0.30000000000000004
+    const { input } = sessionInput({ scenario: { prize } });
+    await db.sessions.create(input);
+    expect((await db.sessions.get(input.id))?.scenario).toEqual({ prize });
+    const saved = await db.scenarios.save({ title: "t", body: { prize } });
+    expect((await db.scenarios.get(saved.id))?.body).toEqual({ prize });
+    expect(
+      Object.is(((await db.scenarios.get(saved.id))?.body as { prize: number }).prize, prize),
+    ).toBe(true);
+
+    await expect(db.events.append(input.id, 1, [event("x", 1, { effort: NaN })])).rejects.toThrow(
+      /cannot store NaN/,
+    );
+    expect((await db.sessions.get(input.id))?.lastSeq).toBe(1);
+  });
+
   it("sessions.get/byJoinCode of unknown values return null", async () => {
     expect(await db.sessions.get("no-such-session")).toBeNull();
     expect(await db.sessions.byJoinCode("ZZZZZZ9")).toBeNull();

@@ -1,6 +1,7 @@
 import type { Db, KeyInput, NewEvent, StoredEvent } from "../types";
 import { keyRows } from "./keys";
-import { isUniqueViolation, json, storedEvent } from "./rows";
+import { Prisma } from "../generated/prisma/client";
+import { isUniqueViolation, jsonb, storedEvent } from "./rows";
 
 /** Writes that must commit together with the events they belong to, or not at all. */
 export interface AppendEffects {
@@ -17,6 +18,15 @@ export type AppendResult =
   | { ok: false; code: "conflict"; lastSeq: number }
   | { ok: false; code: "not-found" }
   | { ok: false; code: "seat-claimed"; seatIndex: number };
+
+/** One INSERT for a run of events from firstSeq on (raw, for exact JSON numbers: see jsonText). */
+export function insertEvents(sessionId: string, firstSeq: number, events: NewEvent[]): Prisma.Sql {
+  const rows = events.map(
+    (event, i) =>
+      Prisma.sql`(${sessionId}, ${firstSeq + i}, ${event.type}, ${new Date(event.at)}, ${jsonb(event.payload)})`,
+  );
+  return Prisma.sql`INSERT INTO "Event" ("sessionId", "seq", "type", "at", "payload") VALUES ${Prisma.join(rows)}`;
+}
 
 class Abort extends Error {
   constructor(readonly result: AppendResult) {
@@ -67,15 +77,7 @@ export function eventsRepository(db: Db) {
             });
             // Nothing written yet: commit the empty transaction and report outside it.
             if (moved.count === 0) return { ok: false, code: "conflict", lastSeq: -1 } as const;
-            await tx.event.createMany({
-              data: events.map((event, i) => ({
-                sessionId,
-                seq: seqs[i]!,
-                type: event.type,
-                at: new Date(event.at),
-                payload: json(event.payload),
-              })),
-            });
+            await tx.$executeRaw(insertEvents(sessionId, expectedLastSeq + 1, events));
             for (const claim of effects.claimSeats ?? []) {
               const claimed = await tx.seat.updateMany({
                 where: { sessionId, index: claim.seatIndex, claimedAt: null },

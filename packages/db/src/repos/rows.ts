@@ -1,9 +1,26 @@
-import type { Prisma } from "../generated/prisma/client";
+import { Prisma } from "../generated/prisma/client";
 import type { SeatKind, SeatRecord, StoredEvent } from "../types";
 
-/** Prisma's JSON input type; callers hand in plain data (see types.ts). */
-export function json(value: unknown): Prisma.InputJsonValue {
-  return value as Prisma.InputJsonValue;
+/**
+ * JSON text of plain data, for a `${text}::jsonb` raw parameter. Prisma's own Json input
+ * rounds doubles to about 16 significant digits (0.1 + 0.2 is stored as 0.3, Number.MAX_VALUE
+ * as null; prisma/prisma#11096 and related), while stored results must replay bit for bit.
+ * PostgreSQL keeps the digits JSON.stringify writes (the shortest that round-trip), and
+ * Prisma reads jsonb back exactly. NaN and Infinity have no JSON form: passing one is a bug.
+ */
+export function jsonText(value: unknown): string {
+  const text = JSON.stringify(value, (key, v: unknown) => {
+    if (typeof v === "number" && !Number.isFinite(v)) {
+      throw new Error(`cannot store ${v} at "${key}" as JSON`);
+    }
+    return v;
+  });
+  if (text === undefined) throw new Error("cannot store undefined as JSON");
+  return text;
+}
+
+export function jsonb(value: unknown): Prisma.Sql {
+  return Prisma.sql`${jsonText(value)}::jsonb`;
 }
 
 export function seatRecord(row: {
@@ -32,12 +49,24 @@ export function storedEvent(row: {
 }
 
 /**
- * A unique or primary-key clash. Prisma reports it as P2002 with @prisma/adapter-pg; the
- * PGlite adapter (built against older driver-adapter-utils) raises its own DriverAdapterError
- * that Prisma 6.19 passes through unmapped, carrying PostgreSQL's SQLSTATE 23505 in `cause`.
+ * A unique or primary-key clash (SQLSTATE 23505), wherever the stack put it: Prisma's P2002
+ * for typed writes through @prisma/adapter-pg; P2010 with the driver error in `meta` for raw
+ * statements; and for typed writes through the PGlite adapter (built against older
+ * driver-adapter-utils) its own DriverAdapterError, unmapped, with the SQLSTATE in `cause`.
  */
 export function isUniqueViolation(error: unknown): boolean {
   if (typeof error !== "object" || error === null) return false;
-  const { code, cause } = error as { code?: unknown; cause?: { code?: unknown } };
-  return code === "P2002" || cause?.code === "23505";
+  type Cause = { code?: unknown; originalCode?: unknown };
+  const e = error as {
+    code?: unknown;
+    cause?: Cause;
+    meta?: { driverAdapterError?: { cause?: Cause } };
+  };
+  const driver = e.meta?.driverAdapterError?.cause;
+  return (
+    e.code === "P2002" ||
+    e.cause?.code === "23505" ||
+    driver?.code === "23505" ||
+    driver?.originalCode === "23505"
+  );
 }

@@ -1,6 +1,6 @@
 import { randomUUID } from "node:crypto";
 import type { Db } from "../types";
-import { json } from "./rows";
+import { jsonb } from "./rows";
 
 export interface ScenarioSummary {
   id: string;
@@ -17,8 +17,12 @@ export function scenariosRepository(db: Db) {
     /** Saves a new scenario, or replaces the one with this id. */
     async save(input: { id?: string; title: string; body: unknown }): Promise<ScenarioRecord> {
       const id = input.id ?? randomUUID();
-      const data = { title: input.title, body: json(input.body) };
-      return db.scenario.upsert({ where: { id }, create: { id, ...data }, update: data });
+      await db.$executeRaw`INSERT INTO "Scenario" ("id", "title", "body")
+        VALUES (${id}, ${input.title}, ${jsonb(input.body)})
+        ON CONFLICT ("id") DO UPDATE SET "title" = EXCLUDED."title", "body" = EXCLUDED."body"`;
+      const saved = await db.scenario.findUnique({ where: { id } });
+      if (!saved) throw new Error(`scenario ${id} vanished right after it was saved`);
+      return saved;
     },
 
     async list(): Promise<ScenarioSummary[]> {

@@ -1,6 +1,7 @@
 import type { Db, KeyInput, NewEvent, SeatInput, SessionRecord, SessionSummary } from "../types";
 import { keyRows } from "./keys";
-import { isUniqueViolation, json, seatRecord } from "./rows";
+import { insertEvents } from "./events";
+import { isUniqueViolation, jsonb, seatRecord } from "./rows";
 
 export interface CreateSessionInput {
   id: string;
@@ -48,16 +49,10 @@ export function sessionsRepository(db: Db) {
       const { id, joinCode } = input;
       try {
         await db.$transaction([
-          db.session.create({
-            data: {
-              id,
-              joinCode,
-              title: input.title,
-              status: input.status ?? "lobby",
-              scenario: json(input.scenario),
-              lastSeq: 1,
-            },
-          }),
+          db.$executeRaw`INSERT INTO "Session"
+            ("id", "joinCode", "title", "status", "scenario", "lastSeq", "updatedAt")
+            VALUES (${id}, ${joinCode}, ${input.title}, ${input.status ?? "lobby"},
+                    ${jsonb(input.scenario)}, 1, CURRENT_TIMESTAMP)`,
           db.seat.createMany({
             data: input.seats.map((seat) => ({
               sessionId: id,
@@ -68,15 +63,7 @@ export function sessionsRepository(db: Db) {
             })),
           }),
           db.accessKey.createMany({ data: keyRows(id, input.keys) }),
-          db.event.create({
-            data: {
-              sessionId: id,
-              seq: 1,
-              type: input.firstEvent.type,
-              at: new Date(input.firstEvent.at),
-              payload: json(input.firstEvent.payload),
-            },
-          }),
+          db.$executeRaw(insertEvents(id, 1, [input.firstEvent])),
         ]);
         const session = await repo.get(id);
         if (!session) throw new Error(`session ${id} vanished right after it was created`);
