@@ -12,6 +12,12 @@ function cell(v: Row[string] | undefined, format?: (v: number) => string): strin
   return v;
 }
 
+/** A column is right-aligned unless its first known value is text. */
+function numericColumn(rows: readonly Row[], key: string): boolean {
+  const first = rows.find((r) => r[key] !== null && r[key] !== undefined)?.[key];
+  return typeof first !== "string";
+}
+
 /** The plotted numbers as a table under each chart, for screen readers, print and tests. */
 export function DataTable({
   rows,
@@ -35,7 +41,11 @@ export function DataTable({
         <thead>
           <tr>
             {columns.map((c) => (
-              <th key={c.key} scope="col" className="num">
+              <th
+                key={c.key}
+                scope="col"
+                className={numericColumn(rows, c.key) ? "num" : undefined}
+              >
                 {c.label}
               </th>
             ))}
@@ -45,7 +55,11 @@ export function DataTable({
           {rows.map((r, k) => (
             <tr key={k}>
               {columns.map((c) => (
-                <td key={c.key} className="num" data-col={c.key}>
+                <td
+                  key={c.key}
+                  className={typeof r[c.key] === "string" ? undefined : "num"}
+                  data-col={c.key}
+                >
                   {cell(r[c.key], c.format)}
                 </td>
               ))}

@@ -170,7 +170,7 @@ export function Explorer() {
           </button>
         </div>
       </div>
-      <div className="grid-2">
+      <div className="explorer-top">
         <div>
           <ContestFields form={form} setForm={setForm} errors={errors} />
           <RivalsTable form={form} setForm={setForm} errors={errors} withPolicy={false} />

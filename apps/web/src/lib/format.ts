@@ -106,3 +106,9 @@ export function formatDateTime(value: string | number | Date): string {
   if (Number.isNaN(d.getTime())) return DASH;
   return `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
 }
+
+/** A model parameter as typed: up to `maxDecimals` decimals, trailing zeros dropped (1.25, 1, 0.0002). */
+export function formatPlain(value: number, maxDecimals = 6): string {
+  if (!Number.isFinite(value)) return DASH;
+  return new Intl.NumberFormat("en-US", { maximumFractionDigits: maxDecimals }).format(value);
+}

@@ -78,7 +78,13 @@ export function RoundResults({
         <ResponsiveContainer width="100%" height="100%">
           <BarChart data={rows} margin={{ top: 8, right: 8, bottom: 8, left: 8 }}>
             <CartesianGrid stroke={dark ? "#2a3848" : "#e3e7ec"} vertical={false} />
-            <XAxis dataKey="name" stroke={axis} interval={0} tick={{ fontSize: dark ? 16 : 12 }} />
+            <XAxis
+              dataKey="name"
+              stroke={axis}
+              interval={0}
+              tick={{ fontSize: dark ? 16 : 12 }}
+              tickFormatter={(v: string) => (v.length > 16 ? `${v.slice(0, 15)}…` : v)}
+            />
             <YAxis stroke={axis} tickFormatter={(v: number) => formatNumber(v)} width={72} />
             <Tooltip formatter={(v) => (typeof v === "number" ? money(v) : String(v))} />
             <Legend />

@@ -3,7 +3,13 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import type { Credentials, RoleView } from "@contend/protocol";
 import { useSession } from "../../hooks/useSession";
-import { formatEffort, formatMoney, formatNumber, formatPercent } from "../../lib/format";
+import {
+  formatEffort,
+  formatMoney,
+  formatNumber,
+  formatPercent,
+  formatPlain,
+} from "../../lib/format";
 import { equilibriumEffortOf, equilibriumPayoffOf } from "../../lib/chart-data";
 import { isOnStep, newClientMoveId, seatNames, snapToStep } from "../../lib/live";
 import { ConnectionBanner } from "./ConnectionBanner";
@@ -13,7 +19,7 @@ import { RoundResults } from "./RoundResults";
 
 function csfText(view: RoleView): string {
   const c = view.scenario.csf;
-  if (c.kind === "ratio") return `ratio form, decisiveness r = ${formatNumber(c.decisiveness)}`;
+  if (c.kind === "ratio") return `ratio form, decisiveness r = ${formatPlain(c.decisiveness)}`;
   if (c.kind === "logit") return `logit form, scale k = ${c.scale}`;
   return "all-pay: the highest effort wins";
 }
@@ -143,12 +149,12 @@ function SeatBody({
           <div className="kpi">
             <span className="label">Cost per unit of effort</span>
             <span className="value" data-testid="seat-cost">
-              {formatNumber(rival?.cost ?? NaN)}
+              {formatPlain(rival?.cost ?? NaN)}
             </span>
           </div>
           <div className="kpi">
             <span className="label">Head start (weight)</span>
-            <span className="value">{formatNumber(rival?.weight ?? 1)}</span>
+            <span className="value">{formatPlain(rival?.weight ?? 1)}</span>
           </div>
           <div className="kpi">
             <span className="label">Budget</span>
@@ -217,7 +223,7 @@ function SeatBody({
                 >
                   <div className="field" style={{ flex: "1 1 12rem" }}>
                     <label htmlFor="effort-input">
-                      Effort this round ({currency ?? "money"}, steps of {formatNumber(step)})
+                      Effort this round ({currency ?? "money"}, steps of {formatPlain(step)})
                     </label>
                     <input
                       id="effort-input"

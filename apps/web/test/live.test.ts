@@ -1,0 +1,167 @@
+import { describe, expect, it } from "vitest";
+import { parseSessionScenario } from "@contend/protocol";
+import type { EventBody, RoleView, SessionEvent } from "@contend/protocol";
+import { apply, createSession, decide, fold } from "@contend/session";
+import type { Actor, EngineCommand, SessionState } from "@contend/session";
+import { isOnStep, remainingMs, snapToStep } from "../src/lib/live";
+import { describeEvent, parseExport, viewAfter } from "../src/lib/replay";
+import { blankDraft, describeShock, draftToShock } from "../src/lib/shock-form";
+import { roundSeatRows } from "../src/lib/chart-data";
+
+describe("effort steps", () => {
+  it("snapToStep(value, step) rounds to the nearest multiple without float dust", () => {
+    expect(snapToStep(12.3, 0.5)).toBe(12.5);
+    expect(snapToStep(0.30000000000000004, 0.1)).toBe(0.3);
+    expect(snapToStep(1249, 500)).toBe(1000);
+    expect(snapToStep(1251, 500)).toBe(1500);
+  });
+  it("isOnStep(value, step) accepts multiples within 1e-9 relative and refuses others", () => {
+    expect(isOnStep(0.3, 0.1)).toBe(true);
+    expect(isOnStep(1500, 500)).toBe(true);
+    expect(isOnStep(1501, 500)).toBe(false);
+    expect(isOnStep(0.25, 0.1)).toBe(false);
+  });
+});
+
+describe("remainingMs", () => {
+  const base = {
+    status: "open",
+    paused: false,
+    remainingMs: null,
+    deadline: 10_000,
+  } as unknown as RoleView;
+  it("remainingMs(view, now) counts down to the deadline and stops at zero", () => {
+    expect(remainingMs(base, 4_000)).toBe(6_000);
+    expect(remainingMs(base, 12_000)).toBe(0);
+  });
+  it("remainingMs(view, now) shows the frozen remainder while paused and null without a clock", () => {
+    expect(remainingMs({ ...base, paused: true, remainingMs: 2_500 }, 9_999_999)).toBe(2_500);
+    expect(remainingMs({ ...base, deadline: null }, 0)).toBeNull();
+    expect(remainingMs({ ...base, status: "review" }, 0)).toBeNull();
+  });
+});
+
+describe("draftToShock", () => {
+  it("draftToShock(draft) builds each protocol shock and resets a blank optional field to its default", () => {
+    expect(draftToShock({ ...blankDraft(), index: "1", field: "cost", value: "2.5" })).toEqual({
+      ok: true,
+      shock: { target: "rival", index: 1, field: "cost", value: 2.5 },
+    });
+    expect(draftToShock({ ...blankDraft(), field: "budget", value: "" })).toEqual({
+      ok: true,
+      shock: { target: "rival", index: 0, field: "budget", value: null },
+    });
+    expect(
+      draftToShock({ ...blankDraft(), target: "csf", csfKind: "logit", csfParam: "0.2" }),
+    ).toEqual({
+      ok: true,
+      shock: { target: "csf", csf: { kind: "logit", scale: 0.2 } },
+    });
+    expect(
+      draftToShock({
+        ...blankDraft(),
+        target: "add-rival",
+        name: " New Co ",
+        cost: "1.2",
+        policy: "equilibrium",
+      }),
+    ).toEqual({
+      ok: true,
+      shock: {
+        target: "add-rival",
+        rival: { name: "New Co", cost: 1.2 },
+        policy: { kind: "equilibrium" },
+      },
+    });
+  });
+  it("draftToShock(draft) names the field when text is not a number or a name is missing", () => {
+    expect(draftToShock({ ...blankDraft(), target: "prize", value: "lots" })).toEqual({
+      ok: false,
+      message: "prize must be a number",
+    });
+    expect(draftToShock({ ...blankDraft(), field: "cost", value: "" }).ok).toBe(false);
+    expect(draftToShock({ ...blankDraft(), target: "add-rival", name: "" }).ok).toBe(false);
+  });
+  it("describeShock(shock, names) reads as plain text", () => {
+    expect(describeShock({ target: "retire-rival", index: 1 }, ["A", "B"])).toBe("Retire B");
+  });
+});
+
+// A real log produced by the session engine (invented bakeries), replayed by the viewer.
+function playLog(): SessionEvent[] {
+  const parsed = parseSessionScenario({
+    title: "Kiosk lease drill",
+    prize: 100,
+    currency: "$",
+    csf: { kind: "ratio", decisiveness: 1 },
+    rivals: [
+      { name: "North Bakery", cost: 5 },
+      { name: "Corner Ovens", cost: 2 },
+    ],
+    session: { rounds: 2, computer: { "Corner Ovens": { kind: "equilibrium" } } },
+  });
+  if (!parsed.ok) throw new Error(parsed.message);
+  const log: SessionEvent[] = [];
+  let state: SessionState = fold([]);
+  let now = 1_000;
+  const commit = (bodies: readonly EventBody[]) => {
+    for (const b of bodies) {
+      const e = { ...b, seq: log.length + 1, at: now } as SessionEvent;
+      log.push(e);
+      state = apply(state, e);
+    }
+  };
+  const send = (cmd: EngineCommand, actor: Actor) => {
+    const d = decide(state, cmd, { now, actor });
+    if (!d.ok) throw new Error(`${cmd.type}: ${d.message}`);
+    commit(d.events);
+  };
+  commit([createSession({ sessionId: "s-1", scenario: parsed.value, seed: 11 })]);
+  send({ type: "openRound", durationSeconds: null }, { role: "facilitator" });
+  now += 1_000;
+  send({ type: "sealMove", clientMoveId: "a", effort: 3 }, { role: "seat", seatIndex: 0 });
+  send({ type: "closeRound" }, { role: "facilitator" });
+  return log;
+}
+
+describe("replay", () => {
+  it("viewAfter(events, k) stops the engine's fold at event k", () => {
+    const log = playLog();
+    const open = log.findIndex((e) => e.type === "round-opened") + 1;
+    const atOpen = viewAfter(log, open);
+    expect(atOpen.ok && atOpen.view.status).toBe("open");
+    const end = viewAfter(log, log.length);
+    expect(end.ok && end.view.status).toBe("review");
+    expect(end.ok && end.view.rounds).toHaveLength(1);
+  });
+  it("viewAfter(events, last) reproduces the stored round: seat 0's played effort and the equilibrium 500/49 (Hillman & Riley 1989, e1 = v m2/(m1+m2)^2)", () => {
+    const end = viewAfter(playLog(), Infinity);
+    if (!end.ok) throw new Error(end.message);
+    const rows = roundSeatRows(end.view.rounds[0]!, ["North Bakery", "Corner Ovens"]);
+    expect(rows[0]?.effort).toBe(3);
+    expect(rows[0]?.equilibrium as number).toBeCloseTo((100 * 2) / 49, 6);
+    expect(rows[1]?.equilibrium as number).toBeCloseTo((100 * 5) / 49, 6);
+  });
+  it("describeEvent(event, names) names the seat and the round", () => {
+    const log = playLog();
+    const sealed = log.find((e) => e.type === "move-sealed" && e.seatIndex === 0)!;
+    expect(describeEvent(sealed, ["North Bakery", "Corner Ovens"])).toBe(
+      "North Bakery sealed a move in round 1",
+    );
+  });
+  it("parseExport(raw) accepts a well-formed export and explains a broken one", () => {
+    const log = playLog();
+    const session = {
+      id: "s-1",
+      title: "t",
+      status: "review",
+      createdAt: "2026-01-01T00:00:00Z",
+      updatedAt: "2026-01-01T00:00:00Z",
+      rounds: 1,
+    };
+    expect(parseExport({ session, events: log, rounds: [] }).ok).toBe(true);
+    const bad = parseExport({ session, events: "nope", rounds: [] });
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.message).toMatch(/events/);
+  });
+});
