@@ -5,7 +5,8 @@
  * zero, taking the larger root of each first-order condition (the local maximum); every
  * candidate is then verified by a global best-response check of every rival, including the
  * option of spending nothing. Candidate sets: all subsets of size >= 2 for n <= 8, otherwise
- * the prefixes of the rivals sorted by strength w_i^(1/r_i) v_i / m_i. Known facts used only
+ * the prefixes of the rivals sorted by strength w_i^(1/r_i) v_i / m_i plus the end point of a
+ * damped best-response iteration. Known facts used only
  * in notes: the symmetric profile is an equilibrium iff r <= n/(n-1) (Baye, Kovenock & de
  * Vries 1994, Public Choice 81); above that bound equilibria with fewer active rivals can
  * exist (k identical active rivals need r <= k/(k-1), and the idle ones must not want to
@@ -15,6 +16,7 @@
  */
 import type { BestResponseOptions, Opposition } from "./bestResponse";
 import { bestResponseAgainst, oppositions, payoffAgainst } from "./bestResponse";
+import { bestResponseIteration } from "./bestResponseIteration";
 import { shareFunctionEquilibrium } from "./shareFunction";
 import type { Contest } from "./types";
 
@@ -114,7 +116,8 @@ export function ratioActiveSetSearch(
     opts.gridPoints === undefined ? {} : { gridPoints: opts.gridPoints };
   const memo = new Map<string, number>();
   const found: FoundEquilibrium[] = [];
-  const sets = n <= (opts.exhaustiveUpTo ?? 8) ? subsetsBySize(n) : strengthPrefixes(contest);
+  const exhaustive = n <= (opts.exhaustiveUpTo ?? 8);
+  const sets = exhaustive ? subsetsBySize(n) : strengthPrefixes(contest);
   for (const members of sets) {
     const sol = shareFunctionEquilibrium(contest, { members });
     if (!sol) continue;
@@ -127,6 +130,20 @@ export function ratioActiveSetSearch(
       .map((p) => p.i);
     const gap = verifyProfile(contest, e, tol, brOpts, memo, order);
     if (gap <= tol) found.push({ efforts: e, gap });
+  }
+  if (!exhaustive) {
+    // beyond the exhaustive range, best-response iteration may reach other active sets
+    const start = contest.rivals.map((x) => Math.min(x.budget, (x.r * x.value) / (x.cost * n)));
+    const end = bestResponseIteration(contest, start, { sweeps: 100, damping: 0.5 });
+    // damping only halves the efforts of rivals on their way out: re-solve on the active set
+    const members = end?.map(
+      (e, i) => e > 1e-9 * (contest.rivals[i]!.value / contest.rivals[i]!.cost),
+    );
+    const sol = members ? shareFunctionEquilibrium(contest, { members }) : null;
+    if (sol && !found.some((f) => sameProfile(contest, f.efforts, sol.efforts))) {
+      const gap = verifyProfile(contest, sol.efforts, tol, brOpts, memo);
+      if (gap <= tol) found.push({ efforts: sol.efforts, gap });
+    }
   }
   return found;
 }

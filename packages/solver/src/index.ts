@@ -23,3 +23,4 @@ export * from "./allPaySymmetric";
 export * from "./leaderFollower";
 export * from "./activeSetSearch";
 export * from "./logitSearch";
+export * from "./bestResponseIteration";

@@ -11,7 +11,7 @@
  * points of best-response iteration (Gauss-Seidel) started from both.
  */
 import type { BestResponseOptions } from "./bestResponse";
-import { bestResponseAgainst, oppositions } from "./bestResponse";
+import { bestResponseIteration } from "./bestResponseIteration";
 import { sameProfile, verifyProfile } from "./activeSetSearch";
 import type { FoundEquilibrium, SearchOptions } from "./activeSetSearch";
 import type { Contest } from "./types";
@@ -26,22 +26,6 @@ function logSumExp(xs: readonly number[]): number {
 }
 
 const EXHAUSTIVE_CAPS = 6;
-
-/** Gauss-Seidel best-response iteration; the profile if it settles, else null. */
-function iterateBestResponses(contest: Contest, start: number[], sweeps = 60): number[] | null {
-  const e = start.slice();
-  for (let s = 0; s < sweeps; s++) {
-    let moved = 0;
-    for (let i = 0; i < e.length; i++) {
-      const o = oppositions(contest, e)[i]!;
-      const br = bestResponseAgainst(contest, i, o).effort;
-      moved = Math.max(moved, Math.abs(br - e[i]!));
-      e[i] = br;
-    }
-    if (moved === 0) return e;
-  }
-  return null;
-}
 
 export function logitSearch(contest: Contest, opts: SearchOptions = {}): FoundEquilibrium[] {
   if (contest.csf.kind !== "logit") return [];
@@ -99,7 +83,7 @@ export function logitSearch(contest: Contest, opts: SearchOptions = {}): FoundEq
       capIdx.forEach((i, b) => {
         if (pattern[b]) start[i] = rivals[i]!.budget;
       });
-      const end = iterateBestResponses(contest, start);
+      const end = bestResponseIteration(contest, start, { sweeps: 60 });
       if (end) consider(end);
     }
   }
