@@ -135,6 +135,17 @@ export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveR
 
 /** Ratio form with every r_i <= 1: the pure equilibrium exists and is unique. */
 export function solveConcaveRatio(contest: Contest, opts: SolveOptions = {}): Equilibrium {
+  const eq = concaveRatioEquilibrium(contest, opts);
+  const tol = opts.tolerance ?? 1e-6 * contest.prize;
+  if (eq.kind === "pure" && !(eq.nashGap <= tol)) {
+    // never expected; said out loud rather than hidden if floating point ever bites
+    const warn = `Numerical accuracy warning: the measured Nash gap ${eq.nashGap.toPrecision(3)} exceeds the tolerance ${tol.toPrecision(3)}.`;
+    eq.note = eq.note ? `${eq.note} ${warn}` : warn;
+  }
+  return eq;
+}
+
+function concaveRatioEquilibrium(contest: Contest, opts: SolveOptions): Equilibrium {
   const g = opts.gridPoints;
   if (contest.rivals.length === 1) {
     return noPureEquilibrium(
