@@ -57,3 +57,21 @@ export function mentions(text: string, n: number): boolean {
   const token = String(n).replace(".", "\\.");
   return new RegExp(`(?<![\\d.])${token}(?![\\d])`).test(text);
 }
+
+/** Longest `rounds` array (resolved rounds of a role view) anywhere in a packet, or -1. */
+export function roundsIn(value: unknown): number {
+  if (Array.isArray(value)) return value.reduce((m: number, v) => Math.max(m, roundsIn(v)), -1);
+  if (value && typeof value === "object") {
+    const o = value as Record<string, unknown>;
+    let best = Array.isArray(o.rounds) && "status" in o ? o.rounds.length : -1;
+    for (const v of Object.values(o)) best = Math.max(best, roundsIn(v));
+    return best;
+  }
+  return -1;
+}
+
+/** Frames received before the first one that carries the result of `round` (1-based). */
+export function framesBeforeReveal(frames: Frame[], round: number): Frame[] {
+  const k = frames.findIndex((f) => roundsIn(f.data) >= round);
+  return k < 0 ? frames.slice() : frames.slice(0, k);
+}
