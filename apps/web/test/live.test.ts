@@ -4,7 +4,7 @@ import type { EventBody, RoleView, SessionEvent } from "@contend/protocol";
 import { apply, createSession, decide, fold } from "@contend/session";
 import type { Actor, EngineCommand, SessionState } from "@contend/session";
 import { isOnStep, remainingMs, snapToStep } from "../src/lib/live";
-import { describeEvent, parseExport, viewAfter } from "../src/lib/replay";
+import { describeEvent, parseExport, seatSummary, viewAfter } from "../src/lib/replay";
 import { blankDraft, describeShock, draftToShock } from "../src/lib/shock-form";
 import { roundSeatRows } from "../src/lib/chart-data";
 
@@ -141,6 +141,14 @@ describe("replay", () => {
     expect(rows[0]?.effort).toBe(3);
     expect(rows[0]?.equilibrium as number).toBeCloseTo((100 * 2) / 49, 6);
     expect(rows[1]?.equilibrium as number).toBeCloseTo((100 * 5) / 49, 6);
+  });
+  it("seatSummary(export, seats) averages played and equilibrium effort per seat", () => {
+    const end = viewAfter(playLog(), Infinity);
+    if (!end.ok) throw new Error(end.message);
+    const rows = seatSummary({ rounds: end.view.rounds }, 2);
+    expect(rows[0]).toMatchObject({ seat: 0, rounds: 1, meanEffort: 3 });
+    expect(rows[0]?.meanEq as number).toBeCloseTo(200 / 49, 6);
+    expect(rows[0]?.regret).toBeCloseTo(end.view.rounds[0]!.regrets[0]!, 12);
   });
   it("describeEvent(event, names) names the seat and the round", () => {
     const log = playLog();

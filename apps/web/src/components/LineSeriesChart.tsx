@@ -87,7 +87,7 @@ export function LineSeriesChart({
                 : `${xLabel}: ${String(v)}`
             }
           />
-          <Legend verticalAlign="top" height={28} />
+          <Legend verticalAlign="top" wrapperStyle={{ paddingBottom: 6 }} />
           {markX !== null && markX !== undefined ? (
             <ReferenceLine x={markX} stroke={axis} strokeDasharray="4 3" />
           ) : null}

@@ -119,7 +119,7 @@ export function ScenarioEditor() {
         Describe the contest, choose who plays each rival, and start. The equilibrium preview
         updates as you type.
       </p>
-      <div className="grid-2" style={{ gridTemplateColumns: "minmax(0, 3fr) minmax(300px, 2fr)" }}>
+      <div className="editor-grid">
         <div>
           <ContestFields form={form} setForm={setForm} errors={errors} />
           <RivalsTable form={form} setForm={setForm} errors={errors} withPolicy />

@@ -2,6 +2,7 @@
 import { fold, viewFor } from "@contend/session";
 import { sessionExportSchema } from "@contend/protocol";
 import type { RoleView, SessionEvent, SessionExport } from "@contend/protocol";
+import { equilibriumEffortOf } from "./chart-data";
 
 export function parseExport(
   raw: unknown,
@@ -59,4 +60,36 @@ export function describeEvent(e: SessionEvent, names: readonly string[]): string
         ? "Session ended: all rounds played"
         : "Session ended by the facilitator";
   }
+}
+
+export interface SeatSummary {
+  seat: number;
+  rounds: number;
+  meanEffort: number;
+  /** null when no played round had a known equilibrium effort for this seat */
+  meanEq: number | null;
+  regret: number;
+  total: number;
+}
+
+/** Per seat over the rounds it played: mean effort vs mean equilibrium effort, regret, payoff. */
+export function seatSummary(data: Pick<SessionExport, "rounds">, seats: number): SeatSummary[] {
+  const out: SeatSummary[] = [];
+  for (let seat = 0; seat < seats; seat++) {
+    const played = data.rounds.filter((r) => r.seatIndices.includes(seat));
+    if (played.length === 0) continue;
+    const eqs = played
+      .map((r) => equilibriumEffortOf(r, seat))
+      .filter((x): x is number => x !== null);
+    const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
+    out.push({
+      seat,
+      rounds: played.length,
+      meanEffort: sum(played.map((r) => r.efforts[seat] ?? 0)) / played.length,
+      meanEq: eqs.length === 0 ? null : sum(eqs) / eqs.length,
+      regret: sum(played.map((r) => r.regrets[seat] ?? 0)),
+      total: sum(played.map((r) => r.payoffs[seat] ?? 0)),
+    });
+  }
+  return out;
 }

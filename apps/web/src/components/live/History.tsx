@@ -2,7 +2,7 @@
 
 import type { RoundResult } from "@contend/protocol";
 import { equilibriumEffortOf, perSeatOverRounds, seatHistoryRows } from "../../lib/chart-data";
-import { formatMoney, formatNumber } from "../../lib/format";
+import { formatMoney, formatPlain } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";
 import { LineSeriesChart } from "../LineSeriesChart";
@@ -26,8 +26,8 @@ export function SeatHistory({
         xKey="round"
         xLabel="Round"
         yLabel="Effort"
-        formatY={(v) => formatNumber(v)}
-        formatX={(v) => String(v)}
+        formatY={(v) => formatPlain(v, 2)}
+        formatX={(v) => formatPlain(v, 0)}
         testId="seat-history-chart"
         height={240}
         series={[
@@ -87,8 +87,8 @@ export function RoomHistory({
           xKey="round"
           xLabel="Round"
           yLabel="Effort"
-          formatY={(v) => formatNumber(v)}
-          formatX={(v) => String(v)}
+          formatY={(v) => formatPlain(v, 2)}
+          formatX={(v) => formatPlain(v, 0)}
           testId={`${testPrefix}-effort-chart`}
           dark={dark}
           series={seats.flatMap((s) => [
@@ -129,8 +129,8 @@ export function RoomHistory({
           xKey="round"
           xLabel="Round"
           yLabel="Regret"
-          formatY={(v) => formatNumber(v)}
-          formatX={(v) => String(v)}
+          formatY={(v) => formatPlain(v, 2)}
+          formatX={(v) => formatPlain(v, 0)}
           testId={`${testPrefix}-regret-chart`}
           dark={dark}
           series={seats.map((s) => ({

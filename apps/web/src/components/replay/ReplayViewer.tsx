@@ -5,7 +5,7 @@ import type { SessionExport } from "@contend/protocol";
 import { exportCsvUrl, exportJsonUrl, exportSession } from "../../lib/api";
 import { formatDateTime, formatMoney, formatPercent } from "../../lib/format";
 import { seatNames, STATUS_TEXT } from "../../lib/live";
-import { describeEvent, parseExport, viewAfter } from "../../lib/replay";
+import { describeEvent, parseExport, seatSummary, viewAfter } from "../../lib/replay";
 import { CAUTION_LINES } from "../Cautions";
 import { RoomHistory } from "../live/History";
 import { RoundResults } from "../live/RoundResults";
@@ -245,6 +245,45 @@ function ReplayBody({
                       <td className="num">{formatPercent(r.dissipation)}</td>
                       <td className="num">{formatPercent(r.equilibrium.dissipation)}</td>
                       <td className="num">{money(r.nashGap)}</td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </div>
+            <div className="table-wrap" style={{ marginTop: "1rem" }}>
+              <table data-testid="debrief-seats">
+                <caption className="small muted" style={{ textAlign: "left" }}>
+                  Seats: what each spent against equilibrium, and what it left on the table
+                </caption>
+                <thead>
+                  <tr>
+                    <th scope="col">Rival</th>
+                    <th scope="col" className="num">
+                      Rounds
+                    </th>
+                    <th scope="col" className="num">
+                      Mean effort
+                    </th>
+                    <th scope="col" className="num">
+                      Mean equilibrium effort
+                    </th>
+                    <th scope="col" className="num">
+                      Total regret
+                    </th>
+                    <th scope="col" className="num">
+                      Total payoff
+                    </th>
+                  </tr>
+                </thead>
+                <tbody>
+                  {seatSummary(data, names.length).map((r) => (
+                    <tr key={r.seat}>
+                      <td>{names[r.seat] ?? `Seat ${r.seat + 1}`}</td>
+                      <td className="num">{r.rounds}</td>
+                      <td className="num">{money(r.meanEffort)}</td>
+                      <td className="num">{r.meanEq === null ? "\u2013" : money(r.meanEq)}</td>
+                      <td className="num">{money(r.regret)}</td>
+                      <td className="num">{money(r.total)}</td>
                     </tr>
                   ))}
                 </tbody>
