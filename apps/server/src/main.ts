@@ -46,6 +46,7 @@ async function main() {
   if (env.demo) {
     const demo = await ensureDemoSession(db, { now: systemClock.now(), baseUrl });
     if (demo) console.log(`\n${describeLinks(demo)}\n`);
+    else logger.info(`sessions are in the database; start a new one at ${baseUrl}/new`);
   }
 
   let stopping = false;

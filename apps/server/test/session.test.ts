@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { normalize, respond, solve } from "@contend/solver";
 import type { RoleView } from "@contend/protocol";
+import { createApplication } from "../src/app";
 import { createManualClock } from "../src/clock";
 import {
   command,
@@ -212,5 +213,40 @@ describe("a full live session over sockets", () => {
       ok: false,
       code: "forbidden",
     });
+  });
+});
+
+describe("two server processes sharing one database", () => {
+  it("the event log's seq check serialises them: a stale server reloads and decides again", async () => {
+    const other = createApplication({ db: server.db, clock });
+    const { port } = await other.listen(0, "127.0.0.1");
+    try {
+      const created = await createSessionOverHttp(server.url, printShops({ rounds: 2 }));
+      const id = created.id;
+      const creds = { role: "facilitator", sessionId: id, key: created.facilitatorKey };
+      // both processes load the session at seq 1 (lobby)
+      const here = await client();
+      expectOk(await hello(here, creds));
+      const there = await connect(`http://127.0.0.1:${port}`);
+      clients.push(there);
+      expectOk(await hello(there, creds));
+      // this process appends seq 2; the other still holds seq 1
+      expectOk(
+        await command(here, { type: "applyShock", changes: [{ target: "prize", value: 250 }] }),
+      );
+      // the other decides openRound on its stale state, loses the seq check, reloads, decides again
+      const opened = expectOk(await command(there, { type: "openRound" }));
+      expect(opened).toEqual({ seq: 3 });
+      const log = await eventLog(server.db, id);
+      expect(log.map((e) => [e.seq, e.type])).toEqual([
+        [1, "session-created"],
+        [2, "shock-applied"],
+        [3, "round-opened"],
+      ]);
+      // the round was decided on the reloaded state: it is played for the shocked prize
+      expect(log[2]).toMatchObject({ type: "round-opened", scenario: { prize: 250 } });
+    } finally {
+      await other.close();
+    }
   });
 });

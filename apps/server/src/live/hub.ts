@@ -162,9 +162,8 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
         effects.status = trial.status;
       const result = await db.events.append(live.id, base, stamped.map(toNewEvent), effects);
       if (result.ok) {
-        // Apply what the database holds, not what we sent: its JSON column keeps about 16
-        // significant digits, and the live state must equal what a restart or a replay
-        // folds from the same rows.
+        // Apply what the database holds, not what we sent, so the live state is exactly what
+        // a restart or a replay folds from the same rows (JSON columns once rounded doubles).
         const stored = (await db.events.list(live.id, base)).map(toSessionEvent);
         applyAll(live, stored);
         const ours = stored.slice(0, stamped.length);
@@ -219,6 +218,8 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
       }
       armClock(live);
       if (committed.length > 0) notify(live, committed);
+      // An ended session never changes again; a later hello reloads it from the log.
+      if (live.state.status === "ended") sessions.delete(sessionId);
       return result;
     });
   }
