@@ -24,3 +24,4 @@ export * from "./leaderFollower";
 export * from "./activeSetSearch";
 export * from "./logitSearch";
 export * from "./bestResponseIteration";
+export * from "./allPayLeader";

@@ -12,10 +12,13 @@
  * is exactly zero). With common v and unit weights: e_L = v m_F / (4 m_L^2), interior iff
  * m_F < 2 m_L, matching Dixit.
  *
+ * All-pay auction with a leader: pre-emption (see allPayLeader.ts).
+ *
  * General case (numerical): followers' subgame by the share-function method with the
  * leader's w_L e_L^r_L as a fixed contribution (valid when every follower has r_i <= 1), and
  * the leader's effort by global 1-D maximisation (grid + Brent).
  */
+import { allPayLeaderPreemption } from "./allPayLeader";
 import { respond } from "./bestResponse";
 import { dissipation, payoffs, shares } from "./csf";
 import { gridMaximize } from "./gridMaximize";
@@ -75,6 +78,17 @@ export function leaderFollowerNumeric(contest: Contest, gridPoints = 401): numbe
 export function leaderFollowerEquilibrium(contest: Contest, gridPoints?: number): Equilibrium {
   const L = contest.leader;
   if (L === null) return noPureEquilibrium(contest, "leader-follower", "No leader is set.");
+  if (contest.csf.kind === "allpay") {
+    const pre = allPayLeaderPreemption(contest);
+    if (!pre.ok) {
+      return noPureEquilibrium(
+        contest,
+        "unsupported",
+        `All-pay auction with a leader: ${pre.reason}.`,
+      );
+    }
+    return leaderRecord(contest, pre.efforts, gridPoints, "pre-emption, all-pay auction");
+  }
   const closed = leaderFollowerTwoRival(contest);
   const efforts = closed ?? leaderFollowerNumeric(contest, Math.min(gridPoints ?? 401, 2001));
   if (!efforts) {
@@ -83,9 +97,25 @@ export function leaderFollowerEquilibrium(contest: Contest, gridPoints?: number)
       "unsupported",
       contest.csf.kind === "ratio"
         ? "Leader-follower games are solved when every follower has decisiveness r <= 1; a follower here has r > 1."
-        : "Leader-follower games are solved for the ratio form only.",
+        : "Leader-follower games are solved for the ratio form and the all-pay auction only.",
     );
   }
+  return leaderRecord(
+    contest,
+    efforts,
+    gridPoints,
+    closed ? "closed form, Dixit 1987" : "numerical search",
+  );
+}
+
+/** Equilibrium record of a leader-follower outcome; the gap covers the followers only. */
+function leaderRecord(
+  contest: Contest,
+  efforts: number[],
+  gridPoints: number | undefined,
+  how: string,
+): Equilibrium {
+  const L = contest.leader!;
   const resp = respond(contest, efforts, gridPoints === undefined ? {} : { gridPoints });
   let gap = 0;
   resp.regrets.forEach((g, i) => {
@@ -103,7 +133,7 @@ export function leaderFollowerEquilibrium(contest: Contest, gridPoints?: number)
     nashGap: gap,
     method: "leader-follower",
     note:
-      `${contest.rivals[L]!.name} commits first (${closed ? "closed form, Dixit 1987" : "numerical search"}). ` +
+      `${contest.rivals[L]!.name} commits first (${how}). ` +
       `The Nash gap covers the followers only: the leader's effort is a commitment, so its ` +
       `regret against the followers' final efforts (${leaderRegret.toPrecision(3)}) is not a flaw.`,
   };

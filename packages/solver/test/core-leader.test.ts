@@ -127,3 +127,68 @@ describe("more followers (numerical)", () => {
     }
   });
 });
+
+describe("all-pay auction with a leader (pre-emption, derived)", () => {
+  const auction = (rivals: RivalSpec[], leader: string) =>
+    normalize({ title: "test", prize: 100, csf: { kind: "allpay" }, rivals, leader });
+
+  /** Leader's best bid on a grid when the follower replies with its best grid bid (ties: lower bid). */
+  function gridSubgamePerfect(vL: number, mL: number, vF: number, mF: number, step: number) {
+    const bids: number[] = [];
+    for (let b = 0; b <= Math.max(vL / mL, vF / mF) + step; b += step) bids.push(b);
+    const reply = (eL: number) => {
+      let best = 0;
+      let bestU = eL === 0 ? vF / 2 : 0;
+      for (const b of bids) {
+        const u = (b > eL ? vF : b === eL ? vF / 2 : 0) - mF * b;
+        if (u > bestU + 1e-12) {
+          bestU = u;
+          best = b;
+        }
+      }
+      return best;
+    };
+    let bestE = 0;
+    let bestU = -Infinity;
+    for (const eL of bids) {
+      const b = reply(eL);
+      const u = (eL > b ? vL : eL === b ? vL / 2 : 0) - mL * eL;
+      if (u > bestU) {
+        bestU = u;
+        bestE = eL;
+      }
+    }
+    return { bid: bestE, payoff: bestU };
+  }
+
+  test("solve(all-pay, strong leader) pre-empts at the follower's V = v/m and matches a grid search", () => {
+    const c = auction(
+      [
+        { name: "lead", cost: 1 },
+        { name: "follow", cost: 1.25, value: 75 },
+      ],
+      "lead",
+    );
+    const eq = solve(c).equilibrium;
+    expect(eq.kind).toBe("pure");
+    expect(eq.efforts).toEqual([60, 0]);
+    expect(eq.payoffs![0]).toBeCloseTo(40, 12);
+    expect(eq.nashGap).toBe(0);
+    const grid = gridSubgamePerfect(100, 1, 75, 1.25, 0.05);
+    expect(Math.abs(grid.bid - 60)).toBeLessThanOrEqual(0.1);
+    expect(Math.abs(grid.payoff - 40)).toBeLessThanOrEqual(0.1);
+  });
+
+  test("solve(all-pay, weak leader) is reported as unsupported with the reason", () => {
+    const c = auction(
+      [
+        { name: "lead", cost: 2 },
+        { name: "follow", cost: 1 },
+      ],
+      "lead",
+    );
+    const eq = solve(c).equilibrium;
+    expect(eq.kind).toBe("none-pure");
+    expect(eq.note).toMatch(/cannot profitably pre-empt/);
+  });
+});
