@@ -71,7 +71,9 @@ export interface Child {
 
 function startChild(script: string, env: Record<string, string>, port: number): Child {
   hookExit();
-  const proc = spawn(process.execPath, ["--import", "tsx", script], {
+  // BENCH_NODE_ARGS adds flags to the children, e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof"
+  const extra = (process.env.BENCH_NODE_ARGS ?? "").split(" ").filter(Boolean);
+  const proc = spawn(process.execPath, [...extra, "--import", "tsx", script], {
     cwd: REPO_ROOT,
     env: { ...process.env, ...env },
     stdio: ["ignore", "pipe", "pipe"],
