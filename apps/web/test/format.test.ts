@@ -6,6 +6,7 @@ import {
   formatMoney,
   formatNumber,
   formatPercent,
+  formatPlain,
   formatSigned,
   stepDecimals,
 } from "../src/lib/format";
@@ -43,6 +44,12 @@ describe("formatNumber / formatPercent / formatSigned", () => {
     expect(formatNumber(0.123456)).toBe("0.1235");
     expect(formatNumber(12345.6)).toBe("12,346");
     expect(formatNumber(2, 3)).toBe("2.000");
+  });
+  it("formatPlain(value) drops trailing zeros and keeps small decimals", () => {
+    expect(formatPlain(1)).toBe("1");
+    expect(formatPlain(1.25)).toBe("1.25");
+    expect(formatPlain(0.00002)).toBe("0.00002");
+    expect(formatPlain(1100.5, 0)).toBe("1,101");
   });
   it("formatPercent(fraction) multiplies by 100", () => {
     expect(formatPercent(0.4567)).toBe("45.7%");
