@@ -1,14 +1,14 @@
 /** REST calls to the Contend server (same origin unless NEXT_PUBLIC_SERVER_URL says otherwise). */
 import type { CreateSessionResponse, SessionListItem } from "@contend/protocol";
-import { SERVER_URL } from "./env";
 import type { SessionScenarioInput } from "./session-types";
 
 export type ApiResult<T> =
   | { ok: true; data: T }
   | { ok: false; status: number; code: string; path: string; message: string };
 
+/** Always same-origin: under `next dev` with NEXT_PUBLIC_SERVER_URL, next.config rewrites /api/*. */
 export function apiUrl(path: string): string {
-  return `${SERVER_URL}${path}`;
+  return path;
 }
 
 async function readError(res: Response): Promise<{ code: string; path: string; message: string }> {
