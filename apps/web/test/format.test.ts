@@ -25,12 +25,15 @@ describe("currencyPrefix", () => {
 describe("formatMoney", () => {
   it("formatMoney(value, currency) groups thousands and drops cents on large amounts", () => {
     expect(formatMoney(123456.78, "EUR")).toBe("\u20ac123,457");
-    expect(formatMoney(25, "$")).toBe("$25.0");
+    expect(formatMoney(25, "$")).toBe("$25");
+    expect(formatMoney(20.4082, "$")).toBe("$20.41");
     expect(formatMoney(2.5, "$")).toBe("$2.50");
+    expect(formatMoney(100, null)).toBe("100");
   });
   it("formatMoney(negative) puts the sign before the symbol and never shows -0", () => {
     expect(formatMoney(-1500, "GBP")).toBe("-\u00a31,500");
-    expect(formatMoney(-0.0001, "$")).toBe("$0.00");
+    expect(formatMoney(-0.0001, "$")).toBe("$0");
+    expect(formatMoney(-0.25, "$", 2)).toBe("-$0.25");
   });
   it("formatMoney(NaN) renders a dash", () => {
     expect(formatMoney(Number.NaN, "$")).toBe("\u2013");

@@ -46,11 +46,12 @@ export function formatNumber(value: number, decimals?: number): string {
   return text === `-${(0).toFixed(d)}` ? (0).toFixed(d) : text;
 }
 
-/** Money: currency prefix, grouping, cents only for small amounts. Negative as "-€12". */
+/** Money: currency prefix, grouping, cents only below 1,000 and when not whole. Negative as "-€12". */
 export function formatMoney(value: number, currency?: string | null, decimals?: number): string {
   if (!Number.isFinite(value)) return DASH;
   const abs = Math.abs(value);
-  const d = decimals ?? (abs >= 1000 ? 0 : abs >= 10 ? 1 : 2);
+  // Cents only where they matter: small amounts that are not whole.
+  const d = decimals ?? (abs >= 1000 || Math.abs(abs - Math.round(abs)) < 5e-3 ? 0 : 2);
   const body = formatNumber(abs, d);
   const sign = value < 0 && body !== formatNumber(0, d) ? "-" : "";
   return `${sign}${currencyPrefix(currency)}${body}`;
