@@ -16,7 +16,7 @@ import {
   sweepParams,
 } from "../lib/explorer-state";
 import type { ExplorerState } from "../lib/explorer-state";
-import { formatMoney, formatNumber, formatPercent, formatSigned } from "../lib/format";
+import { formatMoney, formatNumber, formatPercent, formatPlain, formatSigned } from "../lib/format";
 import { seriesColour } from "../lib/palette";
 import { solveForView } from "../lib/solve-view";
 import { useChunkedSweep } from "../hooks/useChunkedSweep";
@@ -26,6 +26,56 @@ import { EquilibriumTable } from "./EquilibriumTable";
 import { SelectField, TextField } from "./Field";
 import { LineSeriesChart } from "./LineSeriesChart";
 import { ReactionChart } from "./ReactionChart";
+
+/**
+ * The two profile fields keep their own text (so "1." can be typed) and follow the profile when
+ * it changes elsewhere (a click on the chart).
+ */
+function ProfileInputs({
+  names,
+  profile,
+  fallback,
+  onChange,
+}: {
+  names: [string, string];
+  profile: number[] | null;
+  fallback: readonly number[];
+  onChange: (p: number[]) => void;
+}) {
+  const shown = (i: number) => (profile ? String(Number((profile[i] ?? 0).toPrecision(6))) : "");
+  const [text, setText] = useState<[string, string]>([shown(0), shown(1)]);
+  const key = profile ? profile.join(",") : "";
+  useEffect(() => {
+    setText((t) => {
+      const same = (i: number) =>
+        profile !== null && Number(t[i]) === Number((profile[i] ?? 0).toPrecision(6));
+      return same(0) && same(1) ? t : [shown(0), shown(1)];
+    });
+  }, [key]);
+  return (
+    <>
+      {[0, 1].map((i) => (
+        <TextField
+          key={i}
+          numeric
+          label={`Profile effort of ${names[i as 0 | 1]}`}
+          value={text[i as 0 | 1]}
+          placeholder="click the chart"
+          onChange={(v) => {
+            setText((t) => (i === 0 ? [v, t[1]] : [t[0], v]));
+            const x = Number(v);
+            if (v.trim() === "" || !Number.isFinite(x) || x < 0) return;
+            const next = profile ? [...profile] : [...fallback];
+            next[i] = x;
+            onChange(next);
+          }}
+          testId={`profile-input-${i}`}
+          width="12rem"
+        />
+      ))}
+    </>
+  );
+}
 
 function formOf(s: Scenario): EditorForm {
   return scenarioToForm({ ...s, session: {} });
@@ -249,24 +299,15 @@ export function Explorer() {
             />
             <div>
               <div className="row">
-                {[0, 1].map((i) => (
-                  <TextField
-                    key={i}
-                    numeric
-                    label={`Profile effort of ${contest.rivals[i]?.name ?? `rival ${i + 1}`}`}
-                    value={profile ? String(Number((profile[i] ?? 0).toPrecision(6))) : ""}
-                    placeholder="click the chart"
-                    onChange={(v) => {
-                      const x = Number(v);
-                      if (!Number.isFinite(x) || x < 0) return;
-                      const next = profile ? [...profile] : [...(eqEfforts ?? [0, 0])];
-                      next[i] = x;
-                      setProfile(next);
-                    }}
-                    testId={`profile-input-${i}`}
-                    width="12rem"
-                  />
-                ))}
+                <ProfileInputs
+                  names={[
+                    contest.rivals[0]?.name ?? "rival 1",
+                    contest.rivals[1]?.name ?? "rival 2",
+                  ]}
+                  profile={profile}
+                  fallback={eqEfforts ?? [0, 0]}
+                  onChange={setProfile}
+                />
               </div>
               <div className="table-wrap" style={{ minHeight: "9rem" }}>
                 <table data-testid="profile-table">
@@ -444,8 +485,8 @@ export function Explorer() {
               }))}
               xLabel={paramLabel}
               yLabel="Effort"
-              formatY={(v) => formatNumber(v)}
-              formatX={(v) => formatNumber(v)}
+              formatY={(v) => formatPlain(v, 2)}
+              formatX={(v) => formatPlain(v, 3)}
               testId="sweep-chart"
             />
           </div>
@@ -461,8 +502,8 @@ export function Explorer() {
               }))}
               xLabel={paramLabel}
               yLabel="Payoff"
-              formatY={(v) => formatNumber(v)}
-              formatX={(v) => formatNumber(v)}
+              formatY={(v) => formatPlain(v, 2)}
+              formatX={(v) => formatPlain(v, 3)}
               testId="sweep-payoff-chart"
             />
           </div>
