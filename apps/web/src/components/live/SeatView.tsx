@@ -214,6 +214,7 @@ function SeatBody({
               </p>
               {confirming === null ? (
                 <form
+                  noValidate
                   onSubmit={(e) => {
                     e.preventDefault();
                     if (typed && problem === null) setConfirming(value);
