@@ -10,7 +10,8 @@ import { PROTOCOL_VERSION } from "@contend/protocol";
 
 export type Credentials =
   | { role: "facilitator"; sessionId: string; key: string }
-  | { role: "seat"; sessionId: string; key: string };
+  | { role: "seat"; sessionId: string; key: string }
+  | { role: "spectator"; sessionId: string; key: string };
 
 export interface AckLike {
   ok: boolean;

@@ -28,6 +28,8 @@ export interface DriveOptions {
   /** record the size of views received by the first session's clients */
   sampleViews?: boolean;
   seed?: number;
+  /** how long to wait for an ack or a reveal before counting it missing (default 120 s) */
+  timeoutMs?: number;
 }
 
 export interface DriveResult {
@@ -50,6 +52,8 @@ export interface DriveResult {
   clientCpuPercent: number;
   serverRssAfterConnectMiB: number;
   serverRssEndMiB: number;
+  /** highest RSS sampled every 250 ms from connecting to the end */
+  serverRssPeakMiB: number;
   viewsPerSeat: number;
   meanViewBytes: number;
   acked: AckedMove[];
@@ -75,11 +79,13 @@ interface Live {
 
 export async function drive(opts: DriveOptions): Promise<DriveResult> {
   const random = rng(opts.seed ?? 1);
+  const timeoutMs = opts.timeoutMs ?? 120_000;
   const lives: Live[] = opts.sessions.map((plan) => ({
     plan,
     facilitator: new SessionClient({
       url: opts.url,
       credentials: { role: "facilitator", sessionId: plan.id, key: plan.facilitatorKey },
+      ackTimeoutMs: timeoutMs,
     }),
     seats: plan.seatKeys.map(
       (key) =>
@@ -93,6 +99,11 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     for (const c of [lives[0].facilitator, ...lives[0].seats]) c.sampleViewSizes();
   }
 
+  let serverRssPeakMiB = rssMiB(opts.serverPid) ?? Number.NaN;
+  const rssSampler = setInterval(() => {
+    const now = rssMiB(opts.serverPid);
+    if (now !== null && !(now <= serverRssPeakMiB)) serverRssPeakMiB = now;
+  }, 250);
   const t0 = performance.now();
   const all = lives.flatMap((l) => [l.facilitator, ...l.seats]);
   const helloOk = new Set<SessionClient>();
@@ -130,7 +141,9 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     await Promise.all(
       lives.map(async (live, sessionIndex) => {
         const watchers = [live.facilitator, ...live.seats].filter((c) => helloOk.has(c));
-        const reveals = watchers.map((c) => c.waitForView((v) => v.rounds.length >= round, 60_000));
+        const reveals = watchers.map((c) =>
+          c.waitForView((v) => v.rounds.length >= round, timeoutMs),
+        );
         const opened = await live.facilitator.command({ type: "openRound", durationSeconds: null });
         if (!opened.ok) {
           countError(`openRound:${opened.code}`);
@@ -174,6 +187,7 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
   const serverCpuSeconds = (cpuSeconds(opts.serverPid) ?? Number.NaN) - cpuServer0;
   const clientCpuSeconds = selfCpuSeconds() - cpuClient0;
   const serverRssEndMiB = rssMiB(opts.serverPid) ?? Number.NaN;
+  clearInterval(rssSampler);
 
   const sampled = lives[0] ? [lives[0].facilitator, ...lives[0].seats] : [];
   const sampledViews = sampled.reduce((n, c) => n + c.viewsReceived, 0);
@@ -203,6 +217,7 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     clientCpuPercent: (100 * clientCpuSeconds) / roundsSeconds,
     serverRssAfterConnectMiB,
     serverRssEndMiB,
+    serverRssPeakMiB,
     viewsPerSeat,
     meanViewBytes: opts.sampleViews && sampledViews > 0 ? sampledBytes / sampledViews : Number.NaN,
     acked,
