@@ -3,7 +3,10 @@
  * where they are typed, with a visible message, and nothing reaches the server.
  */
 import type { Page, Request } from "@playwright/test";
+import { createSession } from "../support/api";
+import { connectAs } from "../support/client";
 import { expect, test } from "../support/fixtures";
+import { pathOf } from "../support/live";
 
 /** Every request the page makes to the session API from now on. */
 function watchApi(page: Page): Request[] {
@@ -99,4 +102,67 @@ test("explorer(negative cost, text) refuses the number and shows no equilibrium"
   await page.getByRole("textbox", { name: "Rival 2 cost", exact: true }).fill("2");
   await expect(page.getByTestId("eq-effort-0")).toBeVisible();
   await expect(page.getByTestId("eq-empty")).toHaveCount(0);
+});
+
+test("seat effort(negative, off-step, empty) is refused on the page and no move is sent", async ({
+  page,
+  baseURL,
+  saveScreen,
+}) => {
+  const origin = baseURL!;
+  const created = await createSession(origin, {
+    title: "Two florists bid for the market-hall corner",
+    prize: 100,
+    currency: "$",
+    csf: { kind: "ratio", decisiveness: 1 },
+    rivals: [
+      { name: "Marigold Stall", cost: 1 },
+      { name: "Fernside Flowers", cost: 1 },
+    ],
+    leader: null,
+    session: { outcome: "shares", effortStep: 0.5, rounds: 1, clockSeconds: null },
+  });
+  const fac = await connectAs(origin, {
+    role: "facilitator",
+    sessionId: created.id,
+    key: created.facilitatorKey,
+  });
+  const sent: string[] = [];
+  page.on("websocket", (ws) => ws.on("framesent", ({ payload }) => sent.push(String(payload))));
+  try {
+    await page.goto(pathOf(created.seats[0]!.link!));
+    await expect(page.getByRole("heading", { level: 1, name: "Marigold Stall" })).toBeVisible();
+    await fac.command({ type: "openRound" });
+    const input = page.getByTestId("effort-input");
+    const seal = page.getByTestId("seal-button");
+    await expect(input).toBeEnabled();
+
+    for (const [typed, why] of [
+      ["-5", "negative"],
+      ["7.3", "not a multiple of the 0.5 step"],
+    ] as const) {
+      await input.fill(typed);
+      await expect(input, why).toHaveAttribute("aria-invalid", "true");
+      await expect(page.locator("#effort-error"), why).not.toHaveText("");
+      await expect(seal, why).toBeDisabled();
+      await input.press("Enter");
+      await expect(page.getByTestId("seal-confirm")).toHaveCount(0);
+    }
+    await saveScreen(page, "seat-bad-effort");
+    await input.fill("");
+    await expect(seal).toBeDisabled();
+    await input.press("Enter");
+    await expect(page.getByTestId("seal-confirm")).toHaveCount(0);
+    expect(sent.filter((f) => f.includes("sealMove"))).toEqual([]);
+
+    // A good amount then goes through: the watch above could see a move being sent.
+    await input.fill("7.5");
+    await expect(seal).toBeEnabled();
+    await seal.click();
+    await page.getByTestId("seal-confirm-button").click();
+    await expect(page.getByTestId("seat-sealed-amount")).toHaveText(/7\.5$/);
+    expect(sent.filter((f) => f.includes("sealMove"))).toHaveLength(1);
+  } finally {
+    fac.close();
+  }
 });
