@@ -64,6 +64,8 @@ export interface Child {
   url: string;
   /** last lines of output, for error messages */
   tail(): string;
+  /** output lines logged at warn or error level so far */
+  problems(): { count: number; last: string[] };
   /** resolves when the process has exited */
   exited: Promise<void>;
   kill(signal?: NodeJS.Signals): Promise<void>;
@@ -80,9 +82,19 @@ function startChild(script: string, env: Record<string, string>, port: number): 
   });
   children.add(proc);
   const lines: string[] = [];
+  const problemLines: string[] = [];
+  let problemCount = 0;
   const keep = (chunk: Buffer) => {
-    lines.push(...chunk.toString("utf8").split("\n").filter(Boolean));
+    const fresh = chunk.toString("utf8").split("\n").filter(Boolean);
+    lines.push(...fresh);
     if (lines.length > 40) lines.splice(0, lines.length - 40);
+    for (const line of fresh) {
+      if (/\b(warn|error)\b/i.test(line)) {
+        problemCount++;
+        problemLines.push(line.slice(0, 300));
+        if (problemLines.length > 5) problemLines.shift();
+      }
+    }
   };
   proc.stdout!.on("data", keep);
   proc.stderr!.on("data", keep);
@@ -99,6 +111,7 @@ function startChild(script: string, env: Record<string, string>, port: number): 
     port,
     url: `http://${HOST}:${port}`,
     tail: () => lines.join("\n"),
+    problems: () => ({ count: problemCount, last: [...problemLines] }),
     exited,
     async kill(signal = "SIGTERM") {
       if (proc.exitCode === null && proc.signalCode === null) proc.kill(signal);

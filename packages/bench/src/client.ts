@@ -49,6 +49,8 @@ export class SessionClient {
   viewsReceived = 0;
   viewBytes = 0;
   hellos = 0;
+  /** reasons the connection dropped, as socket.io reports them */
+  disconnects: string[] = [];
   private waiters: Waiter[] = [];
   private readonly ackTimeoutMs: number;
   private helloListeners: Array<(ack: AckLike) => void> = [];
@@ -71,6 +73,9 @@ export class SessionClient {
       this.lastSeq = Math.max(this.lastSeq, msg.seq);
       this.lastView = msg.view;
       this.checkWaiters(msg.view);
+    });
+    this.socket.on("disconnect", (reason) => {
+      if (reason !== "io client disconnect") this.disconnects.push(reason);
     });
     if (opts.reconnect) {
       // After a reconnect the server knows nothing about this socket: say hello again.

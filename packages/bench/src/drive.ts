@@ -55,6 +55,8 @@ export interface DriveResult {
   /** highest RSS sampled every 250 ms from connecting to the end */
   serverRssPeakMiB: number;
   viewsPerSeat: number;
+  /** connections dropped during the run, by reason (clients do not reconnect in load runs) */
+  disconnects: Record<string, number>;
   meanViewBytes: number;
   acked: AckedMove[];
 }
@@ -92,6 +94,7 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
         new SessionClient({
           url: opts.url,
           credentials: { role: "seat", sessionId: plan.id, key },
+          ackTimeoutMs: timeoutMs,
         }),
     ),
   }));
@@ -195,6 +198,8 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
   const seatClients = lives.flatMap((l) => l.seats);
   const viewsPerSeat =
     seatClients.reduce((n, c) => n + c.viewsReceived, 0) / Math.max(1, seatClients.length);
+  const disconnects: Record<string, number> = {};
+  for (const c of all) for (const r of c.disconnects) disconnects[r] = (disconnects[r] ?? 0) + 1;
   for (const c of all) c.close();
 
   return {
@@ -219,6 +224,7 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     serverRssEndMiB,
     serverRssPeakMiB,
     viewsPerSeat,
+    disconnects,
     meanViewBytes: opts.sampleViews && sampledViews > 0 ? sampledBytes / sampledViews : Number.NaN,
     acked,
   };

@@ -41,6 +41,8 @@ export interface LoadReport {
   exportFailures: number;
   /** sessions whose drain closeRound failed other than with wrong-state */
   drainFailures: number;
+  /** warn/error lines in the server's log during the run */
+  serverProblems: { count: number; last: string[] };
   targets: Array<{ target: string; measured: string; pass: boolean | null }>;
 }
 
@@ -123,6 +125,7 @@ export async function runLoad(config: LoadConfig, log = console.error): Promise<
       }
     });
     const lost = missingMoves(ours.acked, logs);
+    const serverProblems = server.problems();
     await server.kill("SIGTERM");
 
     let bare: DriveResult | null = null;
@@ -164,6 +167,7 @@ export async function runLoad(config: LoadConfig, log = console.error): Promise<
       createSeconds,
       lostMoves: lost.length + (exportFailures > 0 ? Number.NaN : 0),
       drainFailures,
+      serverProblems,
       checkedMoves: ours.acked.length,
       exportFailures,
       targets: [
@@ -221,6 +225,7 @@ export function formatLoad(r: LoadReport): string {
     ["close -> reveal max (ms)", (d) => d.reveal.max],
     ["reveals missing (120 s)", (d) => d.revealMissing],
     ["views received per seat", (d) => d.viewsPerSeat],
+    ["connections dropped", (d) => JSON.stringify(d.disconnects)],
     ["server CPU in rounds (s)", (d) => d.serverCpuSeconds],
     ["server CPU (% of one core)", (d) => d.serverCpuPercent],
     ["server CPU per move (ms)", (d) => d.serverCpuMsPerMove],
@@ -255,6 +260,7 @@ export function formatLoad(r: LoadReport): string {
     `Sessions created over REST in ${r.createSeconds.toFixed(1)} s. Server RSS at start ${r.serverStartRssMiB.toFixed(1)} MiB;`,
     `peak RSS growth per session ${perSession.toFixed(2)} MiB. ${r.checkedMoves} acked moves checked against the exported logs`,
     `after a drain (${r.drainFailures} drain failures): ${r.lostMoves} lost.`,
+    `Server log: ${r.serverProblems.count} warn/error lines${r.serverProblems.count ? `; last: ${r.serverProblems.last.join(" | ")}` : ""}.`,
     "",
     table,
     "",
