@@ -53,10 +53,24 @@ export const claimSeatAckDataSchema = z.object({
 });
 export type ClaimSeatAckData = z.output<typeof claimSeatAckDataSchema>;
 
+/**
+ * Data of an issueLinks ack: the new key in plain text (the database keeps only its hash, so
+ * this is the one time it is sent) and the page link built with it.
+ */
+export const issueLinksAckDataSchema = z.object({
+  seq: z.int().min(0),
+  role: z.enum(["seat", "spectator"]),
+  /** the seat the key opens; null for a spectator key */
+  seatIndex: z.int().min(0).nullable(),
+  key: z.string(),
+  link: z.string(),
+});
+export type IssueLinksAckData = z.output<typeof issueLinksAckDataSchema>;
+
 export const basicAckDataSchema = z.object({ seq: z.int().min(0) });
 export type BasicAckData = z.output<typeof basicAckDataSchema>;
 
-export type CommandAckData = SealMoveAckData | ClaimSeatAckData | BasicAckData;
+export type CommandAckData = SealMoveAckData | ClaimSeatAckData | IssueLinksAckData | BasicAckData;
 
 export function ackError(code: ErrorCode, message: string, path?: string): AckError {
   return path === undefined ? { ok: false, code, message } : { ok: false, code, message, path };

@@ -55,6 +55,13 @@ export const claimSeatSchema = z.strictObject({
   displayName: displayNameSchema,
 });
 
+/** Fresh invite link: a new key for a seat, or for the big screen; older keys keep working. */
+export const issueLinksSchema = z.strictObject({
+  type: z.literal("issueLinks"),
+  /** a seat index: a new seat key; null or absent: a new spectator (big-screen) key */
+  seatIndex: seatIndexSchema.nullable().optional(),
+});
+
 export const commandSchema = z.discriminatedUnion("type", [
   openRoundSchema,
   closeRoundSchema,
@@ -65,6 +72,7 @@ export const commandSchema = z.discriminatedUnion("type", [
   setSeatPolicySchema,
   sealMoveSchema,
   claimSeatSchema,
+  issueLinksSchema,
 ]);
 
 export type Command = z.output<typeof commandSchema>;
@@ -82,6 +90,7 @@ export const COMMAND_ROLES: Record<CommandType, "facilitator" | "seat" | "guest"
   setSeatPolicy: "facilitator",
   sealMove: "seat",
   claimSeat: "guest",
+  issueLinks: "facilitator",
 };
 
 export function parseCommand(raw: unknown): ParseResult<Command> {

@@ -27,6 +27,7 @@ export {
   commandSchema,
   displayNameSchema,
   endSessionSchema,
+  issueLinksSchema,
   openRoundSchema,
   parseCommand,
   pauseSchema,
@@ -100,6 +101,7 @@ export {
   basicAckDataSchema,
   claimSeatAckDataSchema,
   helloAckDataSchema,
+  issueLinksAckDataSchema,
   sealMoveAckDataSchema,
 } from "./ack";
 export type {
@@ -109,6 +111,7 @@ export type {
   ClaimSeatAckData,
   CommandAckData,
   HelloAckData,
+  IssueLinksAckData,
   SealMoveAckData,
 } from "./ack";
 export {

@@ -61,6 +61,8 @@ export const roleViewSchema = z.object({
   rounds: z.array(roundResultSchema),
   totals: z.array(z.number()),
   shocks: z.array(shockRecordSchema),
+  /** facilitator only: the session's join code (it lives in the database, not in the log) */
+  joinCode: z.string().optional(),
   /** seat role only */
   you: z
     .object({

@@ -30,6 +30,9 @@ const valid: unknown[] = [
   { type: "sealMove", clientMoveId: "m-1", effort: 12 },
   { type: "sealMove", clientMoveId: "m-1", effort: 0, round: 3 },
   { type: "claimSeat", seatIndex: 0, displayName: "Ana" },
+  { type: "issueLinks", seatIndex: 1 },
+  { type: "issueLinks", seatIndex: null },
+  { type: "issueLinks" },
 ];
 
 describe("parseCommand", () => {
@@ -112,6 +115,8 @@ describe("parseCommand", () => {
       "policy.noise",
     ],
     ["negative seat", { type: "setSeatPolicy", seatIndex: -1, policy: null }, "seatIndex"],
+    ["issueLinks for a negative seat", { type: "issueLinks", seatIndex: -1 }, "seatIndex"],
+    ["issueLinks with a role", { type: "issueLinks", role: "facilitator" }, "role"],
     ["fractional seat", { type: "claimSeat", seatIndex: 1.5, displayName: "Bo" }, "seatIndex"],
     ["blank display name", { type: "claimSeat", seatIndex: 0, displayName: "   " }, "displayName"],
     [
@@ -144,6 +149,10 @@ describe("parseCommand", () => {
     for (const x of [null, undefined, 5, "sealMove", []]) {
       expect(parseCommand(x)).toMatchObject({ ok: false, code: "bad-request" });
     }
+  });
+
+  it("COMMAND_ROLES keeps issueLinks for the facilitator", () => {
+    expect(COMMAND_ROLES.issueLinks).toBe("facilitator");
   });
 
   it("parseCommand trims display names", () => {

@@ -3,6 +3,7 @@ import {
   ackSchema,
   basicAckDataSchema,
   claimSeatAckDataSchema,
+  issueLinksAckDataSchema,
   sealMoveAckDataSchema,
   createSessionResponseSchema,
   errorBodySchema,
@@ -141,6 +142,15 @@ describe("view and REST schemas", () => {
     expect(viewMessageSchema.safeParse({ seq: 7, view }).success).toBe(true);
   });
 
+  it("roleViewSchema(a facilitator view with its join code) accepts it; a numeric code is refused", () => {
+    const facilitator = { ...view, role: "facilitator", joinCode: "KIOSK7" };
+    expect(parseWith(roleViewSchema, facilitator)).toMatchObject({ ok: true });
+    expect(parseWith(roleViewSchema, { ...facilitator, joinCode: 7 })).toMatchObject({
+      ok: false,
+      path: "joinCode",
+    });
+  });
+
   it("roleViewSchema(an unknown status) is refused", () => {
     expect(parseWith(roleViewSchema, { ...view, status: "running" })).toMatchObject({
       ok: false,
@@ -207,6 +217,25 @@ describe("ack schemas", () => {
         data: { seq: 2, sessionId: "s", seatIndex: 1, seatKey: "k" },
       }).success,
     ).toBe(true);
+    const links = ackSchema(issueLinksAckDataSchema);
+    expect(
+      links.safeParse({
+        ok: true,
+        data: { seq: 4, role: "seat", seatIndex: 2, key: "k", link: "/seat/s?key=k" },
+      }).success,
+    ).toBe(true);
+    expect(
+      links.safeParse({
+        ok: true,
+        data: { seq: 4, role: "spectator", seatIndex: null, key: "k", link: "/screen/s?key=k" },
+      }).success,
+    ).toBe(true);
+    expect(
+      links.safeParse({
+        ok: true,
+        data: { seq: 4, role: "facilitator", seatIndex: null, key: "k", link: "/x" },
+      }).success,
+    ).toBe(false);
     expect(ackSchema(basicAckDataSchema).safeParse({ ok: true, data: { seq: -1 } }).success).toBe(
       false,
     );

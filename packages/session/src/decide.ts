@@ -42,6 +42,7 @@ const FACILITATOR_COMMANDS = new Set<Command["type"]>([
   "resume",
   "endSession",
   "setSeatPolicy",
+  "issueLinks",
 ]);
 
 function isSystem(command: EngineCommand): command is SystemCommand {
@@ -104,6 +105,8 @@ export function decide(state: SessionState, command: EngineCommand, ctx: DecideC
       return sealMove(state, command, ctx.actor.seatIndex as number);
     case "applyShock":
       return applyShock(state, command);
+    case "issueLinks":
+      return issueLinks(state, command);
     default: {
       const never: never = command;
       throw new Error(`unknown command ${JSON.stringify(never)}`);
@@ -136,6 +139,20 @@ function claimSeat(state: LiveState, command: CommandOf<"claimSeat">, actor: Act
       seatIndex: seat.index,
     },
   );
+}
+
+/**
+ * R25: a fresh invite link writes no event; the server stores the new key. A seat played by the
+ * computer may get one too, for when a person takes it over.
+ */
+function issueLinks(state: LiveState, command: CommandOf<"issueLinks">): Decision {
+  const seatIndex = command.seatIndex ?? null;
+  if (seatIndex === null) return accept([], { kind: "issueLinks", seatIndex: null });
+  const seat = state.seats[seatIndex];
+  if (!seat) return reject("not-found", `seatIndex: there is no seat ${seatIndex}`, "seatIndex");
+  if (!seat.active)
+    return reject("wrong-state", `R25: seat ${seat.index} (${seat.name}) is retired`);
+  return accept([], { kind: "issueLinks", seatIndex: seat.index });
 }
 
 function setSeatPolicy(state: LiveState, command: CommandOf<"setSeatPolicy">): Decision {

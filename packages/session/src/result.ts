@@ -8,10 +8,12 @@ export interface Rejection {
   path?: string;
 }
 
-/** Ack data the engine knows; the server adds `seq` (and a seat key for claims). */
+/** Ack data the engine knows; the server adds `seq` (and the new key for claims and issueLinks). */
 export type DecideData =
   | { kind: "sealMove"; round: number; seatIndex: number; clientMoveId: string; effort: number }
   | { kind: "claimSeat"; seatIndex: number }
+  /** seatIndex null: a spectator key */
+  | { kind: "issueLinks"; seatIndex: number | null }
   | { kind: "none" };
 
 export type Decision = { ok: true; events: EventBody[]; data: DecideData } | Rejection;

@@ -10,6 +10,8 @@ export interface Viewer {
   role: Role;
   /** for role "seat" */
   seatIndex?: number;
+  /** the session's join code (kept in the database, not the log); shown to the facilitator only */
+  joinCode?: string;
 }
 
 export function viewFor(state: SessionState, viewer: Viewer): RoleView {
@@ -47,6 +49,9 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
     totals: state.totals,
     shocks: state.shocks,
   };
+  if (viewer.role === "facilitator" && viewer.joinCode !== undefined) {
+    view.joinCode = viewer.joinCode;
+  }
   if (viewer.role === "seat" && viewer.seatIndex !== undefined) {
     const mine = open?.moves[viewer.seatIndex] ?? null;
     view.you = {

@@ -20,6 +20,8 @@ const facilitatorCommands: EngineCommand[] = [
   { type: "resume" },
   { type: "endSession" },
   { type: "setSeatPolicy", seatIndex: 0, policy: { kind: "equilibrium" } },
+  { type: "issueLinks", seatIndex: 0 },
+  { type: "issueLinks", seatIndex: null },
 ];
 
 describe("decide: roles", () => {
@@ -125,6 +127,37 @@ describe("decide: roles", () => {
     // A seat actor without a seat index is a wiring bug on the server side: refused.
     const noSeat = room.send({ type: "sealMove", clientMoveId: "b", effort: 5 }, { role: "seat" });
     expectRejected(noSeat, "forbidden", /R7/);
+  });
+
+  it("R25: issueLinks(seat or big screen) is accepted with no event, in every live status", () => {
+    const room = new Room(scenarioWith({ computer: { "Corner Ovens": { kind: "equilibrium" } } }));
+    const spectatorLink = room.ok({ type: "issueLinks" }, facilitator);
+    expect(spectatorLink.events).toEqual([]);
+    expect(spectatorLink.data).toEqual({ kind: "issueLinks", seatIndex: null });
+    room.ok({ type: "openRound" }, facilitator);
+    room.ok({ type: "pause" }, facilitator);
+    for (const seatIndex of [0, 1]) {
+      // seat 1 is computer-played: a link for a person to take it over later
+      const d = room.ok({ type: "issueLinks", seatIndex }, facilitator);
+      expect(d.events).toEqual([]);
+      expect(d.data).toEqual({ kind: "issueLinks", seatIndex });
+    }
+    expect(room.log.map((e) => e.type)).not.toContain("seat-claimed");
+  });
+
+  it("R25: issueLinks for a missing or retired seat is refused", () => {
+    const room = new Room(scenarioWith());
+    expectRejected(
+      room.send({ type: "issueLinks", seatIndex: 9 }, facilitator),
+      "not-found",
+      /seatIndex/,
+    );
+    room.ok({ type: "applyShock", changes: [{ target: "retire-rival", index: 2 }] }, facilitator);
+    expectRejected(
+      room.send({ type: "issueLinks", seatIndex: 2 }, facilitator),
+      "wrong-state",
+      /R25.*retired/,
+    );
   });
 
   it("R4: nothing changes after the session ended", () => {

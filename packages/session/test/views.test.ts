@@ -61,6 +61,20 @@ describe("viewFor", () => {
     }
   });
 
+  it("viewFor(facilitator with a join code) shows it; no other role gets it", () => {
+    const room = openWithSecret();
+    const joinCode = "KIOSK7";
+    expect(viewFor(room.state, { role: "facilitator", joinCode }).joinCode).toBe(joinCode);
+    for (const viewer of [
+      { role: "spectator" as const, joinCode },
+      { role: "guest" as const, joinCode },
+      { role: "seat" as const, seatIndex: 0, joinCode },
+    ]) {
+      expect(viewFor(room.state, viewer), viewer.role).not.toHaveProperty("joinCode");
+    }
+    expect(viewFor(room.state, { role: "facilitator" })).not.toHaveProperty("joinCode");
+  });
+
   it("R23: after resolution every role sees every effort of the round", () => {
     const room = openWithSecret();
     room.ok({ type: "closeRound" }, facilitator);
