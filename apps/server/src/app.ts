@@ -107,7 +107,15 @@ export function createApplication(deps: ApplicationDeps): Application {
       void webUpgrade(req, socket, head).catch(() => socket.destroy());
     });
   }
-  attachSockets({ io, db: deps.db, hub, clock, logger, limits });
+  attachSockets({
+    io,
+    db: deps.db,
+    hub,
+    clock,
+    logger,
+    limits,
+    publicUrl: deps.publicUrl ?? null,
+  });
 
   let closing: Promise<void> | null = null;
 

@@ -21,6 +21,7 @@ import type {
   CommandAckData,
   Credentials,
   HelloAckData,
+  IssueLinksAckData,
   Role,
   ServerToClientEvents,
 } from "@contend/protocol";
@@ -29,6 +30,7 @@ import type { Viewer } from "@contend/session";
 import type { Clock } from "./clock";
 import type { Limits } from "./env";
 import type { ExecuteResult, LiveSession, SessionHub } from "./live/hub";
+import { baseUrlOf, sessionLinks } from "./live/links";
 import type { Logger } from "./logger";
 import { createTokenBucket } from "./rateLimit";
 import type { TokenBucket } from "./rateLimit";
@@ -37,6 +39,8 @@ interface Identity {
   role: Role;
   sessionId: string;
   seatIndex?: number;
+  /** facilitator only: shown in its view (the facilitator is trusted with it) */
+  joinCode?: string;
 }
 
 interface SocketData {
@@ -71,10 +75,12 @@ export interface SocketDeps {
   clock: Clock;
   logger: Logger;
   limits: Limits;
+  /** base of the links issueLinks returns; null: the Host the socket connected to */
+  publicUrl: string | null;
 }
 
 export function attachSockets(deps: SocketDeps) {
-  const { io, db, hub, clock, logger, limits } = deps;
+  const { io, db, hub, clock, logger, limits, publicUrl } = deps;
   /** sockets that said hello, by session */
   const rooms = new Map<string, Set<AppSocket>>();
 
@@ -96,9 +102,11 @@ export function attachSockets(deps: SocketDeps) {
   }
 
   function viewerOf(identity: Identity): Viewer {
-    return identity.role === "seat"
-      ? { role: "seat", seatIndex: identity.seatIndex as number }
-      : { role: identity.role };
+    if (identity.role === "seat") return { role: "seat", seatIndex: identity.seatIndex as number };
+    if (identity.role === "facilitator" && identity.joinCode !== undefined) {
+      return { role: "facilitator", joinCode: identity.joinCode };
+    }
+    return { role: identity.role };
   }
 
   /** After every commit: each socket of the session gets its role's view (one build per role). */
@@ -137,6 +145,18 @@ export function attachSockets(deps: SocketDeps) {
       return {
         ok: true,
         identity: { role: "seat", sessionId: credentials.sessionId, seatIndex: grant.seatIndex },
+      };
+    }
+    if (grant.role === "facilitator") {
+      const session = await db.sessions.get(credentials.sessionId);
+      if (!session) return ackError("not-found", "no such session");
+      return {
+        ok: true,
+        identity: {
+          role: "facilitator",
+          sessionId: credentials.sessionId,
+          joinCode: session.joinCode,
+        },
       };
     }
     return { ok: true, identity: { role: grant.role, sessionId: credentials.sessionId } };
@@ -219,6 +239,12 @@ export function attachSockets(deps: SocketDeps) {
     }
     const result = await hub.execute(identity.sessionId, cmd, actor);
     if (!result.ok) return failure(result);
+    if (result.data.kind === "issueLinks") {
+      return {
+        ok: true,
+        data: await issueLink(socket, identity, result.data.seatIndex, result.seq),
+      };
+    }
     if (result.data.kind === "sealMove") {
       const d = result.data;
       const sealed = result.events.find((e) => e.type === "move-sealed");
@@ -237,6 +263,30 @@ export function attachSockets(deps: SocketDeps) {
       };
     }
     return { ok: true, data: { seq: result.seq } };
+  }
+
+  /** The engine has checked the seat; the new key is committed before the ack carries it. */
+  async function issueLink(
+    socket: AppSocket,
+    identity: Identity,
+    seatIndex: number | null,
+    seq: number,
+  ): Promise<IssueLinksAckData> {
+    const key = newKey();
+    const role = seatIndex === null ? "spectator" : "seat";
+    await db.keys.add(identity.sessionId, role, seatIndex, key);
+    const links = sessionLinks(
+      baseUrlOf(publicUrl, socket.request),
+      identity.sessionId,
+      identity.joinCode ?? "",
+    );
+    return {
+      seq,
+      role,
+      seatIndex,
+      key,
+      link: seatIndex === null ? links.spectator(key) : links.seat(key),
+    };
   }
 
   function failure(result: Extract<ExecuteResult, { ok: false }>): AckError {

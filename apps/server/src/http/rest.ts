@@ -10,6 +10,7 @@ import type { Clock } from "../clock";
 import type { Limits } from "../env";
 import { buildExport, listItem, roundsCsv } from "../live/export";
 import { createLiveSession } from "../live/create";
+import { baseUrlOf } from "../live/links";
 import { toSessionEvent } from "../live/hub";
 import type { Logger } from "../logger";
 import { credentialFrom, readJsonBody, sendError, sendJson, sendText } from "./io";
@@ -29,13 +30,6 @@ const EXPORT_PATH = /^\/api\/sessions\/([^/]+)\/export\/?$/;
 export function createRestHandler(deps: RestDeps) {
   const { db } = deps;
 
-  /** Links point at PUBLIC_URL when set, else at the address the client used. */
-  function baseUrl(req: IncomingMessage): string {
-    if (deps.publicUrl) return deps.publicUrl;
-    const host = req.headers.host ?? "localhost";
-    return `http://${host}`;
-  }
-
   /** With an admin key configured, reading sessions needs it (or that session's facilitator key). */
   async function allowed(req: IncomingMessage, url: URL, sessionId: string | null) {
     if (deps.adminKey === null) return true;
@@ -54,7 +48,7 @@ export function createRestHandler(deps: RestDeps) {
     if (!parsed.ok) return sendError(res, 400, parsed.code, parsed.message, parsed.path);
     const created = await createLiveSession(db, parsed.value, {
       now: deps.clock.now(),
-      baseUrl: baseUrl(req),
+      baseUrl: baseUrlOf(deps.publicUrl, req),
     });
     deps.logger.info("session created", { sessionId: created.id, title: parsed.value.title });
     sendJson(res, 201, created);

@@ -1,3 +1,5 @@
+import type { IncomingMessage } from "node:http";
+
 /** The web pages a session's participants open; keys travel in the query string. */
 export function sessionLinks(baseUrl: string, sessionId: string, joinCode: string) {
   const base = baseUrl.replace(/\/+$/, "");
@@ -9,4 +11,11 @@ export function sessionLinks(baseUrl: string, sessionId: string, joinCode: strin
     spectator: (key: string) => `${base}/screen/${id}${q(key)}`,
     join: `${base}/join?code=${encodeURIComponent(joinCode)}`,
   };
+}
+
+/** Links point at PUBLIC_URL when set, else at the address the client used. */
+export function baseUrlOf(publicUrl: string | null, req: IncomingMessage): string {
+  if (publicUrl) return publicUrl;
+  const host = req.headers.host ?? "localhost";
+  return `http://${host}`;
 }
