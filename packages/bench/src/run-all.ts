@@ -1,10 +1,11 @@
 /**
- * Every benchmark of this package in one run: the load run (real server and bare socket.io
+ * Every benchmark of this package in one run: database appends alone, the load run (real server and bare socket.io
  * baseline), then the fault runs, then one table of targets and checks. Prints numbers and
  * pass/fail; asserts nothing and exits 0 even on misses.
  *   npx tsx src/run-all.ts [--full] [load flags, see load.ts] [fault flags, see faults.ts]
  */
 import os from "node:os";
+import { formatDbAppend, runDbAppend } from "./db-append";
 import { formatFault, runFaults } from "./faults";
 import { configFrom, formatLoad, runLoad } from "./load";
 import { loadAverage } from "./proc";
@@ -22,6 +23,10 @@ async function main() {
   console.log(
     "Clients run in this process, each server in a child process, on the same machine.\n",
   );
+
+  console.error("db: event-log appends on PGlite");
+  const appends = await runDbAppend({ appends: 400, sessions: 40 });
+  console.log(`${formatDbAppend(appends)}\n`);
 
   const load = await runLoad(configFrom(argv));
   console.log(formatLoad(load));
