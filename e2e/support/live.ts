@@ -53,13 +53,25 @@ export async function pageText(page: Page): Promise<string> {
   return page.locator("body").innerText();
 }
 
-/** Asserts a page shows none of the numbers (as whole number tokens, e.g. 7.43 not in 17.432). */
+/**
+ * Asserts a page holds none of the numbers (as whole number tokens, e.g. 7.43 not in 17.432):
+ * neither in its visible text nor anywhere in its DOM (hidden elements, attributes, inline data).
+ */
 export async function expectNotShown(page: Page, values: number[], who: string): Promise<void> {
   const text = await pageText(page);
-  for (const v of values) expect(mentions(text, v), `${who} shows ${v}`).toBe(false);
+  const html = await page.content();
+  for (const v of values) {
+    expect(mentions(text, v), `${who} shows ${v}`).toBe(false);
+    expect(mentions(html, v), `${who} has ${v} in its DOM`).toBe(false);
+  }
 }
 
+/** Asserts a page shows every number (the positive control of expectNotShown). */
 export async function expectShownAll(page: Page, values: number[], who: string): Promise<void> {
   const text = await pageText(page);
-  for (const v of values) expect(mentions(text, v), `${who} shows ${v}`).toBe(true);
+  const html = await page.content();
+  for (const v of values) {
+    expect(mentions(text, v), `${who} shows ${v}`).toBe(true);
+    expect(mentions(html, v), `${who} has ${v} in its DOM`).toBe(true);
+  }
 }
