@@ -3,7 +3,14 @@ import { parseSessionScenario } from "@contend/protocol";
 import type { EventBody, RoleView, SessionEvent } from "@contend/protocol";
 import { apply, createSession, decide, fold } from "@contend/session";
 import type { Actor, EngineCommand, SessionState } from "@contend/session";
-import { isOnStep, remainingMs, snapToStep } from "../src/lib/live";
+import {
+  invitesFor,
+  isOnStep,
+  issuedLinkOf,
+  remainingMs,
+  snapToStep,
+  withIssuedLink,
+} from "../src/lib/live";
 import { describeEvent, parseExport, seatSummary, viewAfter } from "../src/lib/replay";
 import { blankDraft, describeShock, draftToShock } from "../src/lib/shock-form";
 import { roundSeatRows } from "../src/lib/chart-data";
@@ -38,6 +45,78 @@ describe("remainingMs", () => {
     expect(remainingMs({ ...base, paused: true, remainingMs: 2_500 }, 9_999_999)).toBe(2_500);
     expect(remainingMs({ ...base, deadline: null }, 0)).toBeNull();
     expect(remainingMs({ ...base, status: "review" }, 0)).toBeNull();
+  });
+});
+
+describe("invite links", () => {
+  const seat = (index: number, name: string) => ({
+    index,
+    name,
+    kind: "human",
+    claimed: false,
+    displayName: null,
+    sealed: false,
+    active: true,
+  });
+  const view = {
+    role: "facilitator",
+    joinCode: "KIOSK7",
+    seats: [seat(0, "North Bakery"), seat(1, "Corner Ovens")],
+  } as unknown as RoleView;
+  const stored = {
+    joinCode: "KIOSK7",
+    links: {
+      facilitator: "/facilitate/s?key=f",
+      spectator: "/screen/s?key=p",
+      join: "/join?code=KIOSK7",
+    },
+    seats: [{ index: 0, name: "North Bakery", link: "/seat/s?key=a" }],
+  };
+
+  it("invitesFor(view, nothing stored) has the view's join code and every seat without a link", () => {
+    expect(invitesFor(view, null)).toEqual({
+      joinCode: "KIOSK7",
+      links: { facilitator: "", spectator: "", join: "/join?code=KIOSK7" },
+      seats: [
+        { index: 0, name: "North Bakery", link: null },
+        { index: 1, name: "Corner Ovens", link: null },
+      ],
+    });
+  });
+
+  it("invitesFor(view, stored) keeps the stored links (the creating browser's fast path)", () => {
+    const inv = invitesFor(view, stored);
+    expect(inv.links).toEqual(stored.links);
+    expect(inv.seats.map((s) => s.link)).toEqual(["/seat/s?key=a", null]);
+  });
+
+  it("withIssuedLink(invites, ack data) replaces that seat's or the screen's link only", () => {
+    const inv = invitesFor(view, stored);
+    const seat1 = withIssuedLink(inv, {
+      seq: 3,
+      role: "seat",
+      seatIndex: 1,
+      key: "b",
+      link: "http://h/seat/s?key=b",
+    });
+    expect(seat1.seats.map((s) => s.link)).toEqual(["/seat/s?key=a", "http://h/seat/s?key=b"]);
+    expect(seat1.links).toEqual(inv.links);
+    const screen = withIssuedLink(seat1, {
+      seq: 3,
+      role: "spectator",
+      seatIndex: null,
+      key: "q",
+      link: "http://h/screen/s?key=q",
+    });
+    expect(screen.links.spectator).toBe("http://h/screen/s?key=q");
+    expect(screen.seats).toEqual(seat1.seats);
+  });
+
+  it("issuedLinkOf(ack data) picks issueLinks data and ignores other acks", () => {
+    const data = { seq: 1, role: "seat" as const, seatIndex: 0, key: "k", link: "/seat/s?key=k" };
+    expect(issuedLinkOf(data)).toBe(data);
+    expect(issuedLinkOf({ seq: 1 })).toBeNull();
+    expect(issuedLinkOf({ seq: 1, sessionId: "s", seatIndex: 0, seatKey: "k" })).toBeNull();
   });
 });
 

@@ -1,5 +1,5 @@
 /** Small pure helpers shared by the live views. */
-import type { RoleView } from "@contend/protocol";
+import type { CommandAckData, IssueLinksAckData, RoleView } from "@contend/protocol";
 
 /** Milliseconds left on the round clock, or null when the round has no clock. */
 export function remainingMs(view: RoleView, now: number): number | null {
@@ -59,6 +59,44 @@ export function recallInvites(id: string): StoredInvites | null {
   } catch {
     return null;
   }
+}
+
+/**
+ * The invitations the console shows: what this browser stored (the creating browser has every
+ * link), completed from the facilitator's view so any browser has the join code and every seat.
+ * An empty link string means this browser has no link for it yet.
+ */
+export function invitesFor(view: RoleView, stored: StoredInvites | null): StoredInvites {
+  const joinCode = view.joinCode ?? stored?.joinCode ?? "";
+  const links = {
+    facilitator: stored?.links.facilitator ?? "",
+    spectator: stored?.links.spectator ?? "",
+    join: stored?.links.join ?? (joinCode ? `/join?code=${encodeURIComponent(joinCode)}` : ""),
+  };
+  const seats = view.seats.map((s) => ({
+    index: s.index,
+    name: s.name,
+    link: stored?.seats.find((k) => k.index === s.index)?.link ?? null,
+  }));
+  return { joinCode, links, seats };
+}
+
+/** The invitations with a freshly issued link in place of the old one for that seat or screen. */
+export function withIssuedLink(invites: StoredInvites, issued: IssueLinksAckData): StoredInvites {
+  if (issued.seatIndex === null) {
+    return { ...invites, links: { ...invites.links, spectator: issued.link } };
+  }
+  const seatIndex = issued.seatIndex;
+  const known = invites.seats.some((s) => s.index === seatIndex);
+  const seats = known
+    ? invites.seats.map((s) => (s.index === seatIndex ? { ...s, link: issued.link } : s))
+    : [...invites.seats, { index: seatIndex, name: `Seat ${seatIndex + 1}`, link: issued.link }];
+  return { ...invites, seats };
+}
+
+/** The issueLinks data of an ack, or null for another command's ack. */
+export function issuedLinkOf(data: CommandAckData): IssueLinksAckData | null {
+  return "link" in data && "key" in data ? data : null;
 }
 
 /** A random id for sealMove's idempotency key. */

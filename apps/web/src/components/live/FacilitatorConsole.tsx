@@ -1,15 +1,14 @@
 "use client";
 
-import { useEffect, useMemo, useState } from "react";
+import { useMemo, useState } from "react";
 import { POLICY_LABELS } from "@contend/solver";
 import type { PolicyKind, PolicySpec } from "@contend/solver";
 import type { Command, Credentials, RoleView, Shock } from "@contend/protocol";
 import { useSession } from "../../hooks/useSession";
-import { absoluteLink, exportCsvUrl, exportJsonUrl } from "../../lib/api";
+import { exportCsvUrl, exportJsonUrl } from "../../lib/api";
 import { parseNumberField } from "../../lib/editor-form";
 import { formatMoney } from "../../lib/format";
-import { recallInvites, seatNames, STATUS_TEXT } from "../../lib/live";
-import type { StoredInvites } from "../../lib/live";
+import { seatNames, STATUS_TEXT } from "../../lib/live";
 import {
   blankDraft,
   describeShock,
@@ -18,9 +17,9 @@ import {
   SHOCK_TARGETS,
 } from "../../lib/shock-form";
 import type { ShockDraft } from "../../lib/shock-form";
-import { CopyField } from "../CopyField";
 import { SelectField, TextField } from "../Field";
 import { ConnectionBanner } from "./ConnectionBanner";
+import { InviteLinks } from "./InviteLinks";
 import { RoomHistory } from "./History";
 import { RoundClock } from "./RoundClock";
 import { RoundResults } from "./RoundResults";
@@ -84,9 +83,7 @@ function ConsoleBody({
   const [draft, setDraft] = useState<ShockDraft>(blankDraft);
   const [pending, setPending] = useState<Shock[]>([]);
   const [draftError, setDraftError] = useState<string | null>(null);
-  const [invites, setInvites] = useState<StoredInvites | null>(null);
   const [shownRound, setShownRound] = useState<number | null>(null);
-  useEffect(() => setInvites(recallInvites(sessionId)), [sessionId]);
 
   const currency = view.scenario.currency ?? null;
   const names = seatNames(view);
@@ -316,32 +313,7 @@ function ConsoleBody({
 
         <section className="card" aria-labelledby="invite-title">
           <h2 id="invite-title">Invitations</h2>
-          {invites ? (
-            <div className="stack">
-              <p>
-                Join code:{" "}
-                <span className="join-code" data-testid="console-join-code">
-                  {invites.joinCode}
-                </span>
-              </p>
-              <CopyField label="Join page" value={absoluteLink(invites.links.join)} />
-              <CopyField label="Big-screen link" value={absoluteLink(invites.links.spectator)} />
-              {invites.seats
-                .filter((s) => s.link !== null)
-                .map((s) => (
-                  <CopyField
-                    key={s.index}
-                    label={`Seat link: ${s.name}`}
-                    value={absoluteLink(s.link as string)}
-                  />
-                ))}
-            </div>
-          ) : (
-            <p className="small muted">
-              Seat links and the join code were shown when the session was created. They are kept
-              only in the browser that created it, and the server does not send keys again.
-            </p>
-          )}
+          <InviteLinks view={view} sessionId={sessionId} send={send} onNotice={setNotice} />
           <p className="small" style={{ marginTop: "0.75rem" }}>
             Exports: <a href={exportJsonUrl(sessionId, facilitatorKey)}>JSON</a> ·{" "}
             <a href={exportCsvUrl(sessionId, facilitatorKey)}>CSV</a> ·{" "}
