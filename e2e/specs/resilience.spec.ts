@@ -1,7 +1,8 @@
 /**
  * Resilience journey on a server of its own (fresh data directory): a seat closes its page
  * mid-round and comes back to its sealed move; then the server process is killed (SIGKILL,
- * no shutdown hooks) mid-round and started again on the same data directory and port. Every
+ * no shutdown hooks) mid-round, and again right after the last seal of a round is acknowledged,
+ * and started again on the same data directory and port each time. Every
  * acknowledged move survives, the pages reconnect by themselves and the session goes on.
  */
 import type { Page } from "@playwright/test";
@@ -133,7 +134,15 @@ test("seat page closed and reopened, then server killed and restarted mid-round:
     await fac.getByTestId("open-round").click();
     await sealEffort(seat0, 5.38);
     await sealEffort(seat1, 9.26, true);
-    await expect(seat0.getByRole("heading", { name: "Round 2 result" })).toBeVisible();
+    // Kill again the moment the last seal is acknowledged: the move is committed, and the
+    // round either resolved already or must resolve when the server restores the session.
+    await server.restart("SIGKILL");
+    expect(server.starts).toBe(3);
+    await expect(seat0.getByRole("heading", { name: "Round 2 result" })).toBeVisible({
+      timeout: 60_000,
+    });
+    await expect(seat1.getByRole("heading", { name: "Round 2 result" })).toBeVisible();
+    await expect(fac.getByTestId("session-status")).toHaveText("Round revealed");
     const final = (await exportJson(origin, created.id)) as Exported;
     expect(final.rounds.map((r) => r.round)).toEqual([1, 2]);
     expect(final.rounds[1]!.efforts.slice(0, 2)).toEqual([5.38, 9.26]);
