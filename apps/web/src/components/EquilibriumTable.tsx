@@ -1,5 +1,7 @@
 import type { Contest, Equilibrium } from "@contend/solver";
 import { formatMoney, formatPercent } from "../lib/format";
+import { Kpi } from "./Kpi";
+import { FigureTable, numCol, RowHeader, textCol } from "./FigureTable";
 
 const KIND_TEXT: Record<Equilibrium["kind"], string> = {
   pure: "Pure-strategy equilibrium",
@@ -32,91 +34,63 @@ export function EquilibriumTable({
         {eq ? KIND_TEXT[eq.kind] : "\u00a0"}
         {eq ? <span className="muted"> · method {eq.method}</span> : null}
       </p>
-      <div className="table-wrap">
-        <table>
-          {caption ? (
-            <caption className="small muted" style={{ textAlign: "left" }}>
-              {caption}
-            </caption>
-          ) : null}
-          <thead>
-            <tr>
-              <th scope="col">Rival</th>
-              <th scope="col" className="num">
-                Effort
-              </th>
-              <th scope="col" className="num">
-                Spend
-              </th>
-              <th scope="col" className="num">
-                Share
-              </th>
-              <th scope="col" className="num">
-                Payoff
-              </th>
-              <th scope="col">Status</th>
+      <FigureTable
+        head={[
+          textCol("Rival"),
+          numCol("Effort"),
+          numCol("Spend"),
+          numCol("Share"),
+          numCol("Payoff"),
+          textCol("Status"),
+        ]}
+        caption={caption}
+      >
+        {contest.rivals.map((r, i) => {
+          const e = efforts?.[i];
+          const active = eq?.active[i] ?? false;
+          return (
+            <tr key={`${r.name}-${i}`} className={eq && !active ? "dropout" : undefined}>
+              <RowHeader>{r.name}</RowHeader>
+              <td className="num" data-testid={`${testPrefix}-effort-${i}`}>
+                {e === undefined ? "\u2013" : formatMoney(e, currency)}
+              </td>
+              <td className="num" data-testid={`${testPrefix}-spend-${i}`}>
+                {e === undefined ? "\u2013" : formatMoney(e * r.cost, currency)}
+              </td>
+              <td className="num" data-testid={`${testPrefix}-share-${i}`}>
+                {eq?.shares ? formatPercent(eq.shares[i] ?? NaN) : "\u2013"}
+              </td>
+              <td className="num" data-testid={`${testPrefix}-payoff-${i}`}>
+                {eq?.payoffs ? formatMoney(eq.payoffs[i] ?? NaN, currency) : "\u2013"}
+              </td>
+              <td data-testid={`${testPrefix}-status-${i}`}>
+                {!eq || efforts === null ? (
+                  "\u2013"
+                ) : active ? (
+                  <span className="badge accent">active</span>
+                ) : (
+                  <span className="badge off">drops out</span>
+                )}
+                {Number.isFinite(r.budget) && e !== undefined && e >= r.budget * (1 - 1e-9) ? (
+                  <span className="badge warn" style={{ marginLeft: 4 }}>
+                    at budget
+                  </span>
+                ) : null}
+              </td>
             </tr>
-          </thead>
-          <tbody>
-            {contest.rivals.map((r, i) => {
-              const e = efforts?.[i];
-              const active = eq?.active[i] ?? false;
-              return (
-                <tr key={`${r.name}-${i}`} className={eq && !active ? "dropout" : undefined}>
-                  <th scope="row" style={{ background: "transparent", fontWeight: 500 }}>
-                    {r.name}
-                  </th>
-                  <td className="num" data-testid={`${testPrefix}-effort-${i}`}>
-                    {e === undefined ? "\u2013" : formatMoney(e, currency)}
-                  </td>
-                  <td className="num" data-testid={`${testPrefix}-spend-${i}`}>
-                    {e === undefined ? "\u2013" : formatMoney(e * r.cost, currency)}
-                  </td>
-                  <td className="num" data-testid={`${testPrefix}-share-${i}`}>
-                    {eq?.shares ? formatPercent(eq.shares[i] ?? NaN) : "\u2013"}
-                  </td>
-                  <td className="num" data-testid={`${testPrefix}-payoff-${i}`}>
-                    {eq?.payoffs ? formatMoney(eq.payoffs[i] ?? NaN, currency) : "\u2013"}
-                  </td>
-                  <td data-testid={`${testPrefix}-status-${i}`}>
-                    {!eq || efforts === null ? (
-                      "\u2013"
-                    ) : active ? (
-                      <span className="badge accent">active</span>
-                    ) : (
-                      <span className="badge off">drops out</span>
-                    )}
-                    {Number.isFinite(r.budget) && e !== undefined && e >= r.budget * (1 - 1e-9) ? (
-                      <span className="badge warn" style={{ marginLeft: 4 }}>
-                        at budget
-                      </span>
-                    ) : null}
-                  </td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+          );
+        })}
+      </FigureTable>
       <div className="kpis" style={{ marginTop: "0.75rem" }}>
-        <div className="kpi">
-          <span className="label">Total effort</span>
-          <span className="value" data-testid={`${testPrefix}-total`}>
-            {eq && efforts ? formatMoney(eq.totalEffort, currency) : "\u2013"}
-          </span>
-        </div>
-        <div className="kpi">
-          <span className="label">Rent dissipation (spend / prize)</span>
-          <span className="value" data-testid={`${testPrefix}-dissipation`}>
-            {eq && efforts ? formatPercent(eq.dissipation) : "\u2013"}
-          </span>
-        </div>
-        <div className="kpi">
-          <span className="label">Measured Nash gap</span>
-          <span className="value" data-testid={`${testPrefix}-gap`}>
-            {eq && efforts ? formatMoney(eq.nashGap, currency, 4) : "\u2013"}
-          </span>
-        </div>
+        <Kpi label="Total effort" testId={`${testPrefix}-total`}>
+          {eq && efforts ? formatMoney(eq.totalEffort, currency) : "\u2013"}
+        </Kpi>
+        <Kpi label="Rent dissipation (spend / prize)" testId={`${testPrefix}-dissipation`}>
+          {eq && efforts ? formatPercent(eq.dissipation) : "\u2013"}
+        </Kpi>
+        <Kpi label="Measured Nash gap" testId={`${testPrefix}-gap`}>
+          {eq && efforts ? formatMoney(eq.nashGap, currency, 4) : "\u2013"}
+        </Kpi>
       </div>
       <p className="small muted" style={{ minHeight: "1.5em" }} data-testid={`${testPrefix}-note`}>
         {eq?.note ?? ""}

@@ -26,6 +26,7 @@ import { EquilibriumTable } from "./EquilibriumTable";
 import { SelectField, TextField } from "./Field";
 import { LineSeriesChart } from "./LineSeriesChart";
 import { ReactionChart } from "./ReactionChart";
+import { FigureTable, numCol, RowHeader, textCol } from "./FigureTable";
 
 /**
  * The two profile fields keep their own text (so "1." can be typed) and follow the profile when
@@ -309,51 +310,36 @@ export function Explorer() {
                   onChange={setProfile}
                 />
               </div>
-              <div className="table-wrap" style={{ minHeight: "9rem" }}>
-                <table data-testid="profile-table">
-                  <caption className="small muted" style={{ textAlign: "left" }}>
-                    At the picked profile
-                  </caption>
-                  <thead>
-                    <tr>
-                      <th scope="col">Rival</th>
-                      <th scope="col" className="num">
-                        Share
-                      </th>
-                      <th scope="col" className="num">
-                        Payoff
-                      </th>
-                      <th scope="col" className="num">
-                        Best reply
-                      </th>
-                      <th scope="col" className="num">
-                        Regret
-                      </th>
-                    </tr>
-                  </thead>
-                  <tbody>
-                    {contest.rivals.map((r, i) => (
-                      <tr key={i}>
-                        <th scope="row" style={{ background: "transparent", fontWeight: 500 }}>
-                          {r.name}
-                        </th>
-                        <td className="num" data-testid={`profile-share-${i}`}>
-                          {profileEval ? formatPercent(profileEval.shares[i] ?? NaN) : "\u2013"}
-                        </td>
-                        <td className="num" data-testid={`profile-payoff-${i}`}>
-                          {profileEval ? money(profileEval.payoffs[i] ?? NaN) : "\u2013"}
-                        </td>
-                        <td className="num" data-testid={`profile-br-${i}`}>
-                          {profileEval ? money(profileEval.bestResponses[i] ?? NaN) : "\u2013"}
-                        </td>
-                        <td className="num" data-testid={`profile-regret-${i}`}>
-                          {profileEval ? money(profileEval.regrets[i] ?? NaN) : "\u2013"}
-                        </td>
-                      </tr>
-                    ))}
-                  </tbody>
-                </table>
-              </div>
+              <FigureTable
+                head={[
+                  textCol("Rival"),
+                  numCol("Share"),
+                  numCol("Payoff"),
+                  numCol("Best reply"),
+                  numCol("Regret"),
+                ]}
+                caption="At the picked profile"
+                testId="profile-table"
+                wrapStyle={{ minHeight: "9rem" }}
+              >
+                {contest.rivals.map((r, i) => (
+                  <tr key={i}>
+                    <RowHeader>{r.name}</RowHeader>
+                    <td className="num" data-testid={`profile-share-${i}`}>
+                      {profileEval ? formatPercent(profileEval.shares[i] ?? NaN) : "\u2013"}
+                    </td>
+                    <td className="num" data-testid={`profile-payoff-${i}`}>
+                      {profileEval ? money(profileEval.payoffs[i] ?? NaN) : "\u2013"}
+                    </td>
+                    <td className="num" data-testid={`profile-br-${i}`}>
+                      {profileEval ? money(profileEval.bestResponses[i] ?? NaN) : "\u2013"}
+                    </td>
+                    <td className="num" data-testid={`profile-regret-${i}`}>
+                      {profileEval ? money(profileEval.regrets[i] ?? NaN) : "\u2013"}
+                    </td>
+                  </tr>
+                ))}
+              </FigureTable>
               <p className="small" data-testid="profile-gap" style={{ minHeight: "1.5em" }}>
                 {profileEval ? `Nash gap (largest regret): ${money(profileEval.nashGap)}` : ""}
               </p>
@@ -565,54 +551,47 @@ export function Explorer() {
             {statics.message}
           </p>
         ) : (
-          <div className="table-wrap">
-            <table data-testid="statics-table">
-              <thead>
-                <tr>
-                  <th scope="col">Parameter</th>
-                  <th scope="col" className="num">
-                    At
-                  </th>
-                  {statics.value.names.map((n) => (
-                    <th key={n} scope="col" className="num">
-                      d effort {n} <span className="muted">(elasticity)</span>
-                    </th>
-                  ))}
-                  <th scope="col" className="num">
-                    d total
-                  </th>
-                  <th scope="col">Method</th>
-                </tr>
-              </thead>
-              <tbody>
-                {statics.value.rows.map((row) => (
-                  <tr key={row.param}>
-                    <th scope="row" style={{ background: "transparent", fontWeight: 500 }}>
-                      {row.label}
-                    </th>
-                    <td className="num">{formatNumber(row.at)}</td>
-                    {row.effort.d.map((d, i) => (
-                      <td key={i} className="num" data-testid={`statics-${row.param}-effort-${i}`}>
-                        {formatSigned(d)}{" "}
-                        <span className="muted">
-                          (
-                          {row.effort.elasticity[i] === null
-                            ? "\u2013"
-                            : formatSigned(row.effort.elasticity[i] as number, 2)}
-                          )
-                        </span>
-                      </td>
-                    ))}
-                    <td className="num">{formatSigned(row.totalEffort.d)}</td>
-                    <td>
-                      <span className="badge">{row.method}</span>
-                      {row.note ? <span className="small muted"> {row.note}</span> : null}
-                    </td>
-                  </tr>
+          <FigureTable
+            head={[
+              textCol("Parameter"),
+              numCol("At"),
+              ...statics.value.names.map((n) =>
+                numCol(
+                  <>
+                    d effort {n} <span className="muted">(elasticity)</span>
+                  </>,
+                  `d effort ${n}`,
+                ),
+              ),
+              numCol("d total"),
+              textCol("Method"),
+            ]}
+            testId="statics-table"
+          >
+            {statics.value.rows.map((row) => (
+              <tr key={row.param}>
+                <RowHeader>{row.label}</RowHeader>
+                <td className="num">{formatNumber(row.at)}</td>
+                {row.effort.d.map((d, i) => (
+                  <td key={i} className="num" data-testid={`statics-${row.param}-effort-${i}`}>
+                    {formatSigned(d)}{" "}
+                    <span className="muted">
+                      (
+                      {row.effort.elasticity[i] === null
+                        ? "\u2013"
+                        : formatSigned(row.effort.elasticity[i] as number, 2)}
+                      )
+                    </span>
+                  </td>
                 ))}
-              </tbody>
-            </table>
-          </div>
+                <td className="num">{formatSigned(row.totalEffort.d)}</td>
+                <td>
+                  <span className="badge">{row.method}</span>
+                  {row.note ? <span className="small muted"> {row.note}</span> : null}
+                </td>
+              </tr>
+            ))}
+          </FigureTable>
         )}
       </section>
     </div>

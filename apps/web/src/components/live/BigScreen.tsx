@@ -9,6 +9,7 @@ import { ConnectionBanner } from "./ConnectionBanner";
 import { RoomHistory } from "./History";
 import { RoundClock } from "./RoundClock";
 import { RoundResults } from "./RoundResults";
+import { FigureTable, numCol, textCol } from "../FigureTable";
 
 export function BigScreen({
   sessionId,
@@ -103,27 +104,21 @@ function ScreenBody({ view }: { view: RoleView }) {
       ) : null}
       <div className="panel">
         <h2>Running totals</h2>
-        <table data-testid="screen-totals">
-          <thead>
-            <tr>
-              <th scope="col">Rival</th>
-              <th scope="col" className="num">
-                Total payoff
-              </th>
+        <FigureTable
+          head={[textCol("Rival"), numCol("Total payoff")]}
+          wrap={null}
+          testId="screen-totals"
+        >
+          {standings.map((s) => (
+            <tr key={s.index}>
+              <td>
+                {s.name}
+                {s.active ? "" : " (retired)"}
+              </td>
+              <td className="num">{formatMoney(s.total, currency)}</td>
             </tr>
-          </thead>
-          <tbody>
-            {standings.map((s) => (
-              <tr key={s.index}>
-                <td>
-                  {s.name}
-                  {s.active ? "" : " (retired)"}
-                </td>
-                <td className="num">{formatMoney(s.total, currency)}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
+          ))}
+        </FigureTable>
       </div>
       {view.rounds.length > 1 && (
         <div className="panel">

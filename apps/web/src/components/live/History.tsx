@@ -6,6 +6,40 @@ import { formatMoney, formatPlain } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";
 import { LineSeriesChart } from "../LineSeriesChart";
+import type { Series } from "../LineSeriesChart";
+import type { Row } from "../../lib/chart-data";
+
+/** A chart of something per round (rounds on x, whole numbers; values to 2 decimals). */
+function RoundsChart({
+  rows,
+  yLabel,
+  series,
+  testId,
+  dark,
+  height,
+}: {
+  rows: readonly Row[];
+  yLabel: string;
+  series: readonly Series[];
+  testId: string;
+  dark?: boolean;
+  height?: number;
+}) {
+  return (
+    <LineSeriesChart
+      rows={rows}
+      xKey="round"
+      xLabel="Round"
+      yLabel={yLabel}
+      formatY={(v) => formatPlain(v, 2)}
+      formatX={(v) => formatPlain(v, 0)}
+      testId={testId}
+      dark={dark}
+      height={height}
+      series={series}
+    />
+  );
+}
 
 /** One seat across rounds: what it played, the equilibrium, its best reply; and its regrets. */
 export function SeatHistory({
@@ -21,13 +55,9 @@ export function SeatHistory({
   const money = (v: number) => formatMoney(v, currency);
   return (
     <div>
-      <LineSeriesChart
+      <RoundsChart
         rows={rows}
-        xKey="round"
-        xLabel="Round"
         yLabel="Effort"
-        formatY={(v) => formatPlain(v, 2)}
-        formatX={(v) => formatPlain(v, 0)}
         testId="seat-history-chart"
         height={240}
         series={[
@@ -78,24 +108,21 @@ export function RoomHistory({
     return out;
   });
   const money = (v: number) => formatMoney(v, currency);
+  const nameOf = (s: number) => names[s] ?? `Seat ${s + 1}`;
   return (
     <div className="grid-2">
       <div>
         <h3>Efforts against equilibrium</h3>
-        <LineSeriesChart
+        <RoundsChart
           rows={merged}
-          xKey="round"
-          xLabel="Round"
           yLabel="Effort"
-          formatY={(v) => formatPlain(v, 2)}
-          formatX={(v) => formatPlain(v, 0)}
           testId={`${testPrefix}-effort-chart`}
           dark={dark}
           series={seats.flatMap((s) => [
-            { key: `s${s}`, name: names[s] ?? `Seat ${s + 1}`, colour: seriesColour(s) },
+            { key: `s${s}`, name: nameOf(s), colour: seriesColour(s) },
             {
               key: `eq${s}`,
-              name: `${names[s] ?? `Seat ${s + 1}`} (equilibrium)`,
+              name: `${nameOf(s)} (equilibrium)`,
               colour: seriesColour(s),
               dashed: true,
             },
@@ -118,26 +145,18 @@ export function RoomHistory({
           })}
           columns={[
             { key: "round", label: "Round" },
-            ...seats.map((s) => ({ key: `s${s}`, label: names[s] ?? `Seat ${s + 1}` })),
+            ...seats.map((s) => ({ key: `s${s}`, label: nameOf(s) })),
           ]}
         />
       </div>
       <div>
         <h3>Regret per seat</h3>
-        <LineSeriesChart
+        <RoundsChart
           rows={regret}
-          xKey="round"
-          xLabel="Round"
           yLabel="Regret"
-          formatY={(v) => formatPlain(v, 2)}
-          formatX={(v) => formatPlain(v, 0)}
           testId={`${testPrefix}-regret-chart`}
           dark={dark}
-          series={seats.map((s) => ({
-            key: `s${s}`,
-            name: names[s] ?? `Seat ${s + 1}`,
-            colour: seriesColour(s),
-          }))}
+          series={seats.map((s) => ({ key: `s${s}`, name: nameOf(s), colour: seriesColour(s) }))}
         />
         <DataTable
           caption="Regret by round: money left on the table given the others' efforts"
@@ -145,11 +164,7 @@ export function RoomHistory({
           rows={regret}
           columns={[
             { key: "round", label: "Round" },
-            ...seats.map((s) => ({
-              key: `s${s}`,
-              label: names[s] ?? `Seat ${s + 1}`,
-              format: money,
-            })),
+            ...seats.map((s) => ({ key: `s${s}`, label: nameOf(s), format: money })),
           ]}
         />
       </div>

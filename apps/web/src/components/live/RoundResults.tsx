@@ -15,6 +15,7 @@ import { roundSeatRows } from "../../lib/chart-data";
 import { formatMoney, formatNumber, formatPercent } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";
+import { Kpi } from "../Kpi";
 
 /** One revealed round: efforts against equilibrium, shares, payoffs, regrets, dissipation. */
 export function RoundResults({
@@ -39,33 +40,18 @@ export function RoundResults({
   return (
     <div data-testid={`${testPrefix}-results`}>
       <div className="kpis" style={{ marginBottom: "0.75rem" }}>
-        <div className="kpi">
-          <span className="label">Round</span>
-          <span className="value">{round.round}</span>
-        </div>
-        <div className="kpi">
-          <span className="label">Dissipation played</span>
-          <span className="value" data-testid={`${testPrefix}-dissipation`}>
-            {formatPercent(round.dissipation)}
-          </span>
-        </div>
-        <div className="kpi">
-          <span className="label">Dissipation at equilibrium</span>
-          <span className="value">{formatPercent(round.equilibrium.dissipation)}</span>
-        </div>
-        <div className="kpi">
-          <span className="label">Nash gap (largest regret)</span>
-          <span className="value" data-testid={`${testPrefix}-gap`}>
-            {money(round.nashGap)}
-          </span>
-        </div>
+        <Kpi label="Round">{round.round}</Kpi>
+        <Kpi label="Dissipation played" testId={`${testPrefix}-dissipation`}>
+          {formatPercent(round.dissipation)}
+        </Kpi>
+        <Kpi label="Dissipation at equilibrium">{formatPercent(round.equilibrium.dissipation)}</Kpi>
+        <Kpi label="Nash gap (largest regret)" testId={`${testPrefix}-gap`}>
+          {money(round.nashGap)}
+        </Kpi>
         {round.winner !== null && (
-          <div className="kpi">
-            <span className="label">Winner drawn</span>
-            <span className="value" data-testid={`${testPrefix}-winner`}>
-              {names[round.winner] ?? `Seat ${round.winner + 1}`}
-            </span>
-          </div>
+          <Kpi label="Winner drawn" testId={`${testPrefix}-winner`}>
+            {names[round.winner] ?? `Seat ${round.winner + 1}`}
+          </Kpi>
         )}
       </div>
       <div

@@ -16,6 +16,7 @@ import { ConnectionBanner } from "./ConnectionBanner";
 import { SeatHistory } from "./History";
 import { RoundClock } from "./RoundClock";
 import { RoundResults } from "./RoundResults";
+import { Kpi } from "../Kpi";
 
 function csfText(view: RoleView): string {
   const c = view.scenario.csf;
@@ -134,36 +135,19 @@ function SeatBody({
           {view.title}
         </p>
         <div className="kpis">
-          <div className="kpi">
-            <span className="label">Prize</span>
-            <span className="value" data-testid="seat-prize">
-              {money(view.scenario.prize)}
-            </span>
-          </div>
-          <div className="kpi">
-            <span className="label">Worth to you</span>
-            <span className="value" data-testid="seat-value">
-              {money(rival?.value ?? view.scenario.prize)}
-            </span>
-          </div>
-          <div className="kpi">
-            <span className="label">Cost per unit of effort</span>
-            <span className="value" data-testid="seat-cost">
-              {formatPlain(rival?.cost ?? NaN)}
-            </span>
-          </div>
-          <div className="kpi">
-            <span className="label">Head start (weight)</span>
-            <span className="value">{formatPlain(rival?.weight ?? 1)}</span>
-          </div>
-          <div className="kpi">
-            <span className="label">Budget</span>
-            <span className="value" data-testid="seat-budget">
-              {rival?.budget === null || rival?.budget === undefined
-                ? "no cap"
-                : money(rival.budget)}
-            </span>
-          </div>
+          <Kpi label="Prize" testId="seat-prize">
+            {money(view.scenario.prize)}
+          </Kpi>
+          <Kpi label="Worth to you" testId="seat-value">
+            {money(rival?.value ?? view.scenario.prize)}
+          </Kpi>
+          <Kpi label="Cost per unit of effort" testId="seat-cost">
+            {formatPlain(rival?.cost ?? NaN)}
+          </Kpi>
+          <Kpi label="Head start (weight)">{formatPlain(rival?.weight ?? 1)}</Kpi>
+          <Kpi label="Budget" testId="seat-budget">
+            {rival?.budget === null || rival?.budget === undefined ? "no cap" : money(rival.budget)}
+          </Kpi>
         </div>
         <p className="small muted" style={{ marginTop: "0.5rem" }}>
           Contest: {csfText(view)}.{" "}
@@ -316,48 +300,27 @@ function SeatBody({
         {showResult && last ? (
           <>
             <div className="kpis" data-testid="seat-result">
-              <div className="kpi">
-                <span className="label">Your payoff</span>
-                <span className="value" data-testid="seat-payoff">
-                  {money(last.payoffs[seat] ?? NaN)}
-                </span>
-              </div>
-              <div className="kpi">
-                <span className="label">Your share</span>
-                <span className="value" data-testid="seat-share">
-                  {formatPercent(last.shares[seat] ?? NaN)}
-                </span>
-              </div>
-              <div className="kpi">
-                <span className="label">You spent (effort)</span>
-                <span className="value" data-testid="seat-effort">
-                  {money(last.efforts[seat] ?? NaN)}
-                </span>
-              </div>
-              <div className="kpi">
-                <span className="label">Equilibrium effort</span>
-                <span className="value" data-testid="seat-eq-effort">
-                  {lastEq === null ? "\u2013" : money(lastEq)}
-                </span>
-              </div>
-              <div className="kpi">
-                <span className="label">Best reply to the others</span>
-                <span className="value" data-testid="seat-best-reply">
-                  {money(last.bestResponses[seat] ?? NaN)}
-                </span>
-              </div>
-              <div className="kpi">
-                <span className="label">It would have added</span>
-                <span className="value" data-testid="seat-regret">
-                  {money(last.regrets[seat] ?? NaN)}
-                </span>
-              </div>
-              <div className="kpi">
-                <span className="label">Running total</span>
-                <span className="value" data-testid="seat-total">
-                  {money(view.totals[seat] ?? NaN)}
-                </span>
-              </div>
+              <Kpi label="Your payoff" testId="seat-payoff">
+                {money(last.payoffs[seat] ?? NaN)}
+              </Kpi>
+              <Kpi label="Your share" testId="seat-share">
+                {formatPercent(last.shares[seat] ?? NaN)}
+              </Kpi>
+              <Kpi label="You spent (effort)" testId="seat-effort">
+                {money(last.efforts[seat] ?? NaN)}
+              </Kpi>
+              <Kpi label="Equilibrium effort" testId="seat-eq-effort">
+                {lastEq === null ? "\u2013" : money(lastEq)}
+              </Kpi>
+              <Kpi label="Best reply to the others" testId="seat-best-reply">
+                {money(last.bestResponses[seat] ?? NaN)}
+              </Kpi>
+              <Kpi label="It would have added" testId="seat-regret">
+                {money(last.regrets[seat] ?? NaN)}
+              </Kpi>
+              <Kpi label="Running total" testId="seat-total">
+                {money(view.totals[seat] ?? NaN)}
+              </Kpi>
             </div>
             <p className="small muted" style={{ marginTop: "0.5rem" }}>
               {last.defaulted[seat]

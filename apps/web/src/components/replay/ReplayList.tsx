@@ -7,6 +7,7 @@ import { listSessions } from "../../lib/api";
 import { formatDateTime } from "../../lib/format";
 import { STATUS_TEXT } from "../../lib/live";
 import { TextField } from "../Field";
+import { FigureTable, numCol, textCol } from "../FigureTable";
 
 export function ReplayList() {
   const [items, setItems] = useState<SessionListItem[] | null>(null);
@@ -63,37 +64,32 @@ export function ReplayList() {
       {items === null && !error && <p className="muted">Loading…</p>}
       {items !== null && items.length === 0 && <p data-testid="replays-empty">No sessions yet.</p>}
       {items !== null && items.length > 0 && (
-        <div className="card table-wrap">
-          <table data-testid="replays-table">
-            <thead>
-              <tr>
-                <th scope="col">Session</th>
-                <th scope="col">Status</th>
-                <th scope="col" className="num">
-                  Rounds played
-                </th>
-                <th scope="col">Last activity</th>
-              </tr>
-            </thead>
-            <tbody>
-              {items.map((s) => (
-                <tr key={s.id}>
-                  <td>
-                    <Link
-                      href={`/replays/${encodeURIComponent(s.id)}${key ? `?key=${encodeURIComponent(key)}` : ""}`}
-                      data-testid={`replay-link-${s.id}`}
-                    >
-                      {s.title}
-                    </Link>
-                  </td>
-                  <td>{STATUS_TEXT[s.status]}</td>
-                  <td className="num">{s.rounds}</td>
-                  <td>{formatDateTime(s.updatedAt)}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
+        <FigureTable
+          head={[
+            textCol("Session"),
+            textCol("Status"),
+            numCol("Rounds played"),
+            textCol("Last activity"),
+          ]}
+          wrap="card table-wrap"
+          testId="replays-table"
+        >
+          {items.map((s) => (
+            <tr key={s.id}>
+              <td>
+                <Link
+                  href={`/replays/${encodeURIComponent(s.id)}${key ? `?key=${encodeURIComponent(key)}` : ""}`}
+                  data-testid={`replay-link-${s.id}`}
+                >
+                  {s.title}
+                </Link>
+              </td>
+              <td>{STATUS_TEXT[s.status]}</td>
+              <td className="num">{s.rounds}</td>
+              <td>{formatDateTime(s.updatedAt)}</td>
+            </tr>
+          ))}
+        </FigureTable>
       )}
     </div>
   );

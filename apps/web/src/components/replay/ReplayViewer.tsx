@@ -9,6 +9,7 @@ import { describeEvent, parseExport, seatSummary, viewAfter } from "../../lib/re
 import { CAUTION_LINES } from "../Cautions";
 import { RoomHistory } from "../live/History";
 import { RoundResults } from "../live/RoundResults";
+import { FigureTable, numCol, textCol } from "../FigureTable";
 
 export function ReplayViewer({ sessionId, accessKey }: { sessionId: string; accessKey: string }) {
   const [data, setData] = useState<SessionExport | null>(null);
@@ -215,80 +216,51 @@ function ReplayBody({
           <p className="muted">No round was revealed.</p>
         ) : (
           <>
-            <div className="table-wrap">
-              <table data-testid="debrief-rounds">
-                <caption className="small muted" style={{ textAlign: "left" }}>
-                  Rounds: dissipation played against equilibrium, and the largest regret
-                </caption>
-                <thead>
-                  <tr>
-                    <th scope="col">Round</th>
-                    <th scope="col" className="num">
-                      Total effort
-                    </th>
-                    <th scope="col" className="num">
-                      Dissipation
-                    </th>
-                    <th scope="col" className="num">
-                      At equilibrium
-                    </th>
-                    <th scope="col" className="num">
-                      Nash gap
-                    </th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {data.rounds.map((r) => (
-                    <tr key={r.round}>
-                      <td>{r.round}</td>
-                      <td className="num">{money(r.efforts.reduce((a, b) => a + b, 0))}</td>
-                      <td className="num">{formatPercent(r.dissipation)}</td>
-                      <td className="num">{formatPercent(r.equilibrium.dissipation)}</td>
-                      <td className="num">{money(r.nashGap)}</td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
-            <div className="table-wrap" style={{ marginTop: "1rem" }}>
-              <table data-testid="debrief-seats">
-                <caption className="small muted" style={{ textAlign: "left" }}>
-                  Seats: what each spent against equilibrium, and what it left on the table
-                </caption>
-                <thead>
-                  <tr>
-                    <th scope="col">Rival</th>
-                    <th scope="col" className="num">
-                      Rounds
-                    </th>
-                    <th scope="col" className="num">
-                      Mean effort
-                    </th>
-                    <th scope="col" className="num">
-                      Mean equilibrium effort
-                    </th>
-                    <th scope="col" className="num">
-                      Total regret
-                    </th>
-                    <th scope="col" className="num">
-                      Total payoff
-                    </th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {seatSummary(data, names.length).map((r) => (
-                    <tr key={r.seat}>
-                      <td>{names[r.seat] ?? `Seat ${r.seat + 1}`}</td>
-                      <td className="num">{r.rounds}</td>
-                      <td className="num">{money(r.meanEffort)}</td>
-                      <td className="num">{r.meanEq === null ? "\u2013" : money(r.meanEq)}</td>
-                      <td className="num">{money(r.regret)}</td>
-                      <td className="num">{money(r.total)}</td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
-            </div>
+            <FigureTable
+              head={[
+                textCol("Round"),
+                numCol("Total effort"),
+                numCol("Dissipation"),
+                numCol("At equilibrium"),
+                numCol("Nash gap"),
+              ]}
+              caption="Rounds: dissipation played against equilibrium, and the largest regret"
+              testId="debrief-rounds"
+            >
+              {data.rounds.map((r) => (
+                <tr key={r.round}>
+                  <td>{r.round}</td>
+                  <td className="num">{money(r.efforts.reduce((a, b) => a + b, 0))}</td>
+                  <td className="num">{formatPercent(r.dissipation)}</td>
+                  <td className="num">{formatPercent(r.equilibrium.dissipation)}</td>
+                  <td className="num">{money(r.nashGap)}</td>
+                </tr>
+              ))}
+            </FigureTable>
+            <FigureTable
+              head={[
+                textCol("Rival"),
+                numCol("Rounds"),
+                numCol("Mean effort"),
+                numCol("Mean equilibrium effort"),
+                numCol("Total regret"),
+                numCol("Total payoff"),
+              ]}
+              caption="Seats: what each spent against equilibrium, and what it left on the table"
+              testId="debrief-seats"
+              wrapStyle={{ marginTop: "1rem" }}
+            >
+              {seatSummary(data, names.length).map((r) => (
+                <tr key={r.seat}>
+                  <td>{names[r.seat] ?? `Seat ${r.seat + 1}`}</td>
+                  <td className="num">{r.rounds}</td>
+                  <td className="num">{money(r.meanEffort)}</td>
+                  <td className="num">{r.meanEq === null ? "\u2013" : money(r.meanEq)}</td>
+                  <td className="num">{money(r.regret)}</td>
+                  <td className="num">{money(r.total)}</td>
+                </tr>
+              ))}
+            </FigureTable>
             <div style={{ marginTop: "1rem" }}>
               <RoomHistory
                 rounds={data.rounds}
