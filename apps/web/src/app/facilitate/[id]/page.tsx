@@ -1,16 +1,7 @@
 import type { Metadata } from "next";
 import { FacilitatorConsole } from "../../../components/live/FacilitatorConsole";
+import { sessionPage } from "../../../components/sessionPage";
 
 export const metadata: Metadata = { title: "Facilitator console" };
 
-export default async function FacilitatePage({
-  params,
-  searchParams,
-}: {
-  params: Promise<{ id: string }>;
-  searchParams: Promise<{ key?: string | string[] }>;
-}) {
-  const { id } = await params;
-  const { key } = await searchParams;
-  return <FacilitatorConsole sessionId={id} facilitatorKey={typeof key === "string" ? key : ""} />;
-}
+export default sessionPage((id, key) => <FacilitatorConsole sessionId={id} facilitatorKey={key} />);
