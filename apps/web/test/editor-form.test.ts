@@ -2,6 +2,7 @@ import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import {
+  bindField,
   defaultForm,
   formToScenario,
   parseNumberField,
@@ -19,6 +20,22 @@ function withRival(
 ): EditorForm {
   return { ...form, rivals: form.rivals.map((r, k) => (k === i ? { ...r, ...patch } : r)) };
 }
+
+describe("bindField", () => {
+  it("bindField(form, setForm, key) reads that field and writes only that field", () => {
+    let form: EditorForm = defaultForm();
+    const setForm = (update: (f: EditorForm) => EditorForm) => {
+      form = update(form);
+    };
+    const before = form;
+    const rounds = bindField(form, setForm, "rounds");
+    expect(rounds.value).toBe(before.rounds);
+    rounds.onChange("7");
+    expect(form).toEqual({ ...before, rounds: "7" });
+    bindField(form, setForm, "missingMove").onChange("repeat");
+    expect(form).toEqual({ ...before, rounds: "7", missingMove: "repeat" });
+  });
+});
 
 describe("parseNumberField", () => {
   it("parseNumberField(text) gives numbers, undefined for blank, and passes bad text through", () => {

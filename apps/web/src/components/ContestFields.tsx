@@ -1,7 +1,13 @@
 "use client";
 
 import type { EditorForm, FieldErrors, RivalRow } from "../lib/editor-form";
-import { blankRival, POLICY_ARGUMENT, POLICY_CHOICES, rivalFieldError } from "../lib/editor-form";
+import {
+  bindField,
+  blankRival,
+  POLICY_ARGUMENT,
+  POLICY_CHOICES,
+  rivalFieldError,
+} from "../lib/editor-form";
 import { RadioGroup, SelectField, TextField } from "./Field";
 
 const CSF_OPTIONS = [
@@ -22,31 +28,23 @@ export function ContestFields({
   setForm: Setter;
   errors: FieldErrors;
 }) {
-  const patch = (p: Partial<EditorForm>) => setForm((f) => ({ ...f, ...p }));
+  const bind = <K extends keyof EditorForm>(key: K) => bindField(form, setForm, key);
   return (
     <fieldset>
       <legend>Contest</legend>
       <div className="grid-3">
-        <TextField
-          label="Title"
-          value={form.title}
-          onChange={(v) => patch({ title: v })}
-          error={errors.title}
-          testId="field-title"
-        />
+        <TextField label="Title" {...bind("title")} error={errors.title} testId="field-title" />
         <TextField
           label="Prize"
           numeric
-          value={form.prize}
-          onChange={(v) => patch({ prize: v })}
+          {...bind("prize")}
           error={errors.prize}
           testId="field-prize"
           hint="(value at stake)"
         />
         <TextField
           label="Currency"
-          value={form.currency}
-          onChange={(v) => patch({ currency: v })}
+          {...bind("currency")}
           error={errors.currency}
           testId="field-currency"
           hint="($, EUR…)"
@@ -56,17 +54,15 @@ export function ContestFields({
         <RadioGroup
           legend="Contest form"
           name="csf-kind"
-          value={form.csfKind}
           options={CSF_OPTIONS}
-          onChange={(v) => patch({ csfKind: v })}
+          {...bind("csfKind")}
           testId="field-csf-kind"
         />
         {form.csfKind === "ratio" && (
           <TextField
             label="Decisiveness r"
             numeric
-            value={form.decisiveness}
-            onChange={(v) => patch({ decisiveness: v })}
+            {...bind("decisiveness")}
             error={errors["csf.decisiveness"]}
             testId="field-decisiveness"
             width="12rem"
@@ -76,8 +72,7 @@ export function ContestFields({
           <TextField
             label="Logit scale k"
             numeric
-            value={form.scale}
-            onChange={(v) => patch({ scale: v })}
+            {...bind("scale")}
             error={errors["csf.scale"]}
             testId="field-scale"
             width="12rem"

@@ -1,5 +1,7 @@
+import type { ReactNode } from "react";
 import type { Contest, Equilibrium } from "@contend/solver";
 import { formatMoney, formatPercent } from "../lib/format";
+import type { SolvedView } from "../lib/solve-view";
 import { Kpi } from "./Kpi";
 import { FigureTable, numCol, RowHeader, textCol } from "./FigureTable";
 
@@ -96,5 +98,41 @@ export function EquilibriumTable({
         {eq?.note ?? ""}
       </p>
     </div>
+  );
+}
+
+/**
+ * The equilibrium of a scenario being edited: a hint while fields are invalid, the table, or the
+ * solver's failure. `more` adds what one screen shows under the table.
+ */
+export function SolvedEquilibrium({
+  solved,
+  currency,
+  testPrefix,
+  more,
+}: {
+  solved: SolvedView | null;
+  currency: string | null | undefined;
+  testPrefix: string;
+  more?: (ok: Extract<SolvedView, { ok: true }>) => ReactNode;
+}) {
+  if (solved === null) {
+    return (
+      <p className="muted" data-testid={`${testPrefix}-empty`}>
+        Fix the highlighted fields to see the equilibrium.
+      </p>
+    );
+  }
+  if (!solved.ok) return <p className="notice error">{solved.message}</p>;
+  return (
+    <>
+      <EquilibriumTable
+        contest={solved.contest}
+        equilibrium={solved.result.equilibrium}
+        currency={currency}
+        testPrefix={testPrefix}
+      />
+      {more?.(solved)}
+    </>
   );
 }

@@ -22,7 +22,7 @@ import { solveForView } from "../lib/solve-view";
 import { useChunkedSweep } from "../hooks/useChunkedSweep";
 import { ContestFields, RivalsTable } from "./ContestFields";
 import { DataTable } from "./DataTable";
-import { EquilibriumTable } from "./EquilibriumTable";
+import { SolvedEquilibrium } from "./EquilibriumTable";
 import { SelectField, TextField } from "./Field";
 import { LineSeriesChart } from "./LineSeriesChart";
 import { ReactionChart } from "./ReactionChart";
@@ -249,22 +249,15 @@ export function Explorer() {
         </div>
         <section className="card" aria-labelledby="eq-title">
           <h2 id="eq-title">{deferred?.leader ? "Leader-follower outcome" : "Equilibrium"}</h2>
-          {solved === null ? (
-            <p className="muted" data-testid="eq-empty">
-              Fix the highlighted fields to see the equilibrium.
-            </p>
-          ) : solved.ok ? (
-            <>
-              <EquilibriumTable
-                contest={solved.contest}
-                equilibrium={solved.result.equilibrium}
-                currency={currency}
-                testPrefix="eq"
-              />
-              {solved.result.alternatives.length > 0 && (
+          <SolvedEquilibrium
+            solved={solved}
+            currency={currency}
+            testPrefix="eq"
+            more={(ok) =>
+              ok.result.alternatives.length > 0 && (
                 <div data-testid="eq-alternatives">
                   <h3>Further equilibria</h3>
-                  {solved.result.alternatives.map((alt, k) => (
+                  {ok.result.alternatives.map((alt, k) => (
                     <p key={k} className="small">
                       {k + 2}. efforts{" "}
                       {(alt.efforts ?? alt.expectedEfforts ?? []).map(money).join(", ")} ·
@@ -272,11 +265,9 @@ export function Explorer() {
                     </p>
                   ))}
                 </div>
-              )}
-            </>
-          ) : (
-            <p className="notice error">{solved.message}</p>
-          )}
+              )
+            }
+          />
         </section>
       </div>
 

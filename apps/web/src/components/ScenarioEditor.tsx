@@ -5,6 +5,7 @@ import { useSearchParams } from "next/navigation";
 import type { CreateSessionResponse } from "@contend/protocol";
 import { createSession } from "../lib/api";
 import {
+  bindField,
   defaultForm,
   formToContestRaw,
   formToScenario,
@@ -16,7 +17,7 @@ import { templateById } from "../lib/templates";
 import { solveForView } from "../lib/solve-view";
 import { encodeState } from "../lib/url-state";
 import { CreatedSession } from "./CreatedSession";
-import { EquilibriumTable } from "./EquilibriumTable";
+import { SolvedEquilibrium } from "./EquilibriumTable";
 import { ContestFields, RivalsTable } from "./ContestFields";
 import { RadioGroup, SelectField, TextField } from "./Field";
 
@@ -75,9 +76,7 @@ export function ScenarioEditor() {
     return contest ? solveForView(contest) : null;
   }, [deferredForm]);
 
-  function patch(p: Partial<EditorForm>) {
-    setForm((f) => ({ ...f, ...p }));
-  }
+  const bind = <K extends keyof EditorForm>(key: K) => bindField(form, setForm, key);
 
   function importJson(text: string) {
     const r = parseScenarioText(text);
@@ -130,9 +129,8 @@ export function ScenarioEditor() {
               <RadioGroup
                 legend="Outcome"
                 name="outcome"
-                value={form.outcome}
                 options={OUTCOME_OPTIONS}
-                onChange={(v) => patch({ outcome: v })}
+                {...bind("outcome")}
                 testId="field-outcome"
               />
             </div>
@@ -140,8 +138,7 @@ export function ScenarioEditor() {
               <TextField
                 label="Effort step"
                 numeric
-                value={form.effortStep}
-                onChange={(v) => patch({ effortStep: v })}
+                {...bind("effortStep")}
                 error={shown("session.effortStep")}
                 testId="field-effort-step"
                 hint="(efforts are multiples)"
@@ -149,25 +146,22 @@ export function ScenarioEditor() {
               <TextField
                 label="Rounds"
                 numeric
-                value={form.rounds}
-                onChange={(v) => patch({ rounds: v })}
+                {...bind("rounds")}
                 error={shown("session.rounds")}
                 testId="field-rounds"
               />
               <TextField
                 label="Round clock (seconds)"
                 numeric
-                value={form.clockSeconds}
-                onChange={(v) => patch({ clockSeconds: v })}
+                {...bind("clockSeconds")}
                 error={shown("session.clockSeconds")}
                 testId="field-clock"
                 placeholder="no clock"
               />
               <SelectField
                 label="Missing move"
-                value={form.missingMove}
                 options={MISSING_OPTIONS}
-                onChange={(v) => patch({ missingMove: v })}
+                {...bind("missingMove")}
                 testId="field-missing-move"
               />
             </div>
@@ -271,34 +265,27 @@ export function ScenarioEditor() {
         <aside aria-labelledby="preview-title">
           <div className="card" style={{ position: "sticky", top: "0.5rem" }}>
             <h2 id="preview-title">Equilibrium preview</h2>
-            {preview === null ? (
-              <p className="muted" data-testid="preview-empty">
-                Fix the highlighted fields to see the equilibrium.
-              </p>
-            ) : preview.ok ? (
-              <>
-                <EquilibriumTable
-                  contest={preview.contest}
-                  equilibrium={preview.result.equilibrium}
-                  currency={currency}
-                  testPrefix="preview"
-                />
-                {preview.result.alternatives.length > 0 && (
-                  <p className="small muted">
-                    {preview.result.alternatives.length} further equilibri
-                    {preview.result.alternatives.length > 1 ? "a" : "um"} found; see the explorer.
-                  </p>
-                )}
-                <a
-                  className="small"
-                  href={`/explore?s=${encodeState({ sc: formToContestRaw(form) })}`}
-                >
-                  Open this scenario in the explorer
-                </a>
-              </>
-            ) : (
-              <p className="notice error">{preview.message}</p>
-            )}
+            <SolvedEquilibrium
+              solved={preview}
+              currency={currency}
+              testPrefix="preview"
+              more={(ok) => (
+                <>
+                  {ok.result.alternatives.length > 0 && (
+                    <p className="small muted">
+                      {ok.result.alternatives.length} further equilibri
+                      {ok.result.alternatives.length > 1 ? "a" : "um"} found; see the explorer.
+                    </p>
+                  )}
+                  <a
+                    className="small"
+                    href={`/explore?s=${encodeState({ sc: formToContestRaw(form) })}`}
+                  >
+                    Open this scenario in the explorer
+                  </a>
+                </>
+              )}
+            />
           </div>
         </aside>
       </div>

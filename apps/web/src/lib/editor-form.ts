@@ -61,6 +61,15 @@ export interface EditorForm {
   missingMove: "zero" | "repeat";
 }
 
+/** value + onChange of one form field, for spreading into a field component. */
+export function bindField<K extends keyof EditorForm>(
+  form: EditorForm,
+  setForm: (update: (f: EditorForm) => EditorForm) => void,
+  key: K,
+): { value: EditorForm[K]; onChange: (v: EditorForm[K]) => void } {
+  return { value: form[key], onChange: (v) => setForm((f) => ({ ...f, [key]: v })) };
+}
+
 /** Field path (as the validators report it, e.g. "rivals.2.cost") -> message. */
 export type FieldErrors = Record<string, string>;
 
