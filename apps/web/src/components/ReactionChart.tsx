@@ -1,5 +1,6 @@
 "use client";
 
+import { Fragment } from "react";
 import type { KeyboardEvent, MouseEvent } from "react";
 import type { CurvePoint } from "../lib/br-curves";
 import { seriesColour } from "../lib/palette";
@@ -153,29 +154,22 @@ export function ReactionChart({
         </g>
       ) : null}
       <g fontSize="12">
-        <line
-          x1={PAD.left + 10}
-          x2={PAD.left + 34}
-          y1={PAD.top + 14}
-          y2={PAD.top + 14}
-          stroke={seriesColour(0)}
-          strokeWidth={2.5}
-        />
-        <text x={PAD.left + 40} y={PAD.top + 18} fill="#17202b">
-          best reply of {names[0]}
-        </text>
-        <line
-          x1={PAD.left + 10}
-          x2={PAD.left + 34}
-          y1={PAD.top + 32}
-          y2={PAD.top + 32}
-          stroke={seriesColour(1)}
-          strokeWidth={2.5}
-          strokeDasharray="7 4"
-        />
-        <text x={PAD.left + 40} y={PAD.top + 36} fill="#17202b">
-          best reply of {names[1]}
-        </text>
+        {[0, 1].map((k) => (
+          <Fragment key={k}>
+            <line
+              x1={PAD.left + 10}
+              x2={PAD.left + 34}
+              y1={PAD.top + 14 + 18 * k}
+              y2={PAD.top + 14 + 18 * k}
+              stroke={seriesColour(k)}
+              strokeWidth={2.5}
+              strokeDasharray={k === 1 ? "7 4" : undefined}
+            />
+            <text x={PAD.left + 40} y={PAD.top + 18 + 18 * k} fill="#17202b">
+              best reply of {names[k]}
+            </text>
+          </Fragment>
+        ))}
       </g>
     </svg>
   );
