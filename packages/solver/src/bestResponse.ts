@@ -19,6 +19,7 @@
  * When every other rival spends nothing in the ratio form, the supremum (the whole prize at
  * vanishing cost) is not attained: the result carries supremumOnly and the limit payoff.
  */
+import { logWeight } from "./csf";
 import { gridMaximize } from "./gridMaximize";
 import type { BestResponse, Contest, Responses } from "./types";
 
@@ -73,14 +74,7 @@ export function oppositions(contest: Contest, efforts: readonly number[]): Oppos
   const logs = new Float64Array(n);
   let shift = -Infinity;
   for (let i = 0; i < n; i++) {
-    const rv = contest.rivals[i]!;
-    const e = efforts[i] ?? 0;
-    const l =
-      csf.kind === "logit"
-        ? Math.log(rv.weight) + csf.scale * e
-        : e > 0
-          ? Math.log(rv.weight) + rv.r * Math.log(e)
-          : -Infinity;
+    const l = logWeight(contest, i, efforts[i] ?? 0);
     logs[i] = l;
     if (l > shift) shift = l;
   }

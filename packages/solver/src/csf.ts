@@ -8,6 +8,17 @@
  */
 import type { Contest } from "./types";
 
+/**
+ * ln of rival i's weight in the success function at effort e: ln w_i + r_i ln e for the ratio
+ * form (-Infinity at e = 0), ln w_i + k e for logit. Not defined for the all-pay auction.
+ */
+export function logWeight(contest: Contest, i: number, e: number): number {
+  const rv = contest.rivals[i]!;
+  const csf = contest.csf;
+  if (csf.kind === "logit") return Math.log(rv.weight) + csf.scale * e;
+  return e > 0 ? Math.log(rv.weight) + rv.r * Math.log(e) : -Infinity;
+}
+
 export function shares(contest: Contest, efforts: readonly number[]): number[] {
   const rivals = contest.rivals;
   const n = rivals.length;
@@ -22,18 +33,10 @@ export function shares(contest: Contest, efforts: readonly number[]): number[] {
     for (let i = 0; i < n; i++) out[i] = (efforts[i] ?? 0) === top ? 1 / ties : 0;
     return out;
   }
-  // log-weights: ln(w_i) + r_i ln(e_i) for the ratio form, ln(w_i) + k e_i for logit
   const logs = new Array<number>(n);
   let top = -Infinity;
   for (let i = 0; i < n; i++) {
-    const rv = rivals[i]!;
-    const e = efforts[i] ?? 0;
-    const l =
-      csf.kind === "logit"
-        ? Math.log(rv.weight) + csf.scale * e
-        : e > 0
-          ? Math.log(rv.weight) + rv.r * Math.log(e)
-          : -Infinity;
+    const l = logWeight(contest, i, efforts[i] ?? 0);
     logs[i] = l;
     if (l > top) top = l;
   }
