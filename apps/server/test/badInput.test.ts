@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { mulberry32 } from "@contend/solver";
 import type { Rng } from "@contend/solver";
 import { ERROR_CODES } from "@contend/protocol";
@@ -6,35 +6,19 @@ import type { Ack } from "@contend/protocol";
 import { createApplication } from "../src/app";
 import {
   command,
-  connect,
   createSessionOverHttp,
   eventLog,
   expectOk,
   hello,
-  removeDataDir,
   request,
-  startServer,
+  serverForFile,
 } from "./helpers";
-import type { Client, TestServer } from "./helpers";
+import type { Client } from "./helpers";
 import { printShops } from "./fixtures";
 
-let server: TestServer;
-const clients: Client[] = [];
-beforeAll(async () => {
-  // generous rate limits here, so that the flood reaches validation instead of the limiter
-  server = await startServer({ limits: { ratePerSecond: 1e6, rateBurst: 1e6 } });
-});
-afterAll(async () => {
-  for (const c of clients) c.disconnect();
-  await server.stop();
-  removeDataDir(server.dataDir);
-});
-
-async function client(url = server.url) {
-  const c = await connect(url);
-  clients.push(c);
-  return c;
-}
+// generous rate limits here, so that the flood reaches validation instead of the limiter
+const file = serverForFile({ limits: { ratePerSecond: 1e6, rateBurst: 1e6 } });
+const client = file.client;
 
 /** emit without the typed event map, as a hostile client would */
 function rawEmit(socket: Client, event: string, payload: unknown) {
@@ -157,8 +141,8 @@ function refusedCommand(
 
 describe("bad input", () => {
   it("thousands of random and malformed messages leave the server up and the event log unchanged", async () => {
-    const a = await createSessionOverHttp(server.url, printShops({ rounds: 2 }));
-    const b = await createSessionOverHttp(server.url, printShops({ rounds: 2 }));
+    const a = await createSessionOverHttp(file.server.url, printShops({ rounds: 2 }));
+    const b = await createSessionOverHttp(file.server.url, printShops({ rounds: 2 }));
     const fac = await client();
     const seat = await client();
     const screen = await client();
@@ -170,8 +154,8 @@ describe("bad input", () => {
     expectOk(await hello(guest, { role: "guest", joinCode: a.joinCode }));
     expectOk(await command(fac, { type: "openRound" }));
     expectOk(await command(seat, { type: "sealMove", clientMoveId: "real", effort: 10 }));
-    const logA = await eventLog(server.db, a.id);
-    const logB = await eventLog(server.db, b.id);
+    const logA = await eventLog(file.server.db, a.id);
+    const logB = await eventLog(file.server.db, b.id);
 
     const badHellos = [
       { protocol: 2, credentials: { role: "facilitator", sessionId: a.id, key: a.facilitatorKey } },
@@ -284,21 +268,21 @@ describe("bad input", () => {
     } as never);
     expect(await closed).toMatch(/transport close|transport error|io server disconnect/);
 
-    expect(await eventLog(server.db, a.id)).toEqual(logA);
-    expect(await eventLog(server.db, b.id)).toEqual(logB);
-    const health = await fetch(`${server.url}/api/health`);
+    expect(await eventLog(file.server.db, a.id)).toEqual(logA);
+    expect(await eventLog(file.server.db, b.id)).toEqual(logB);
+    const health = await fetch(`${file.server.url}/api/health`);
     expect(health.status).toBe(200);
     // and the session still works for well-formed commands
     const seat1 = await client();
     expectOk(await hello(seat1, { role: "seat", sessionId: a.id, key: a.seats[1]!.key }));
     const ok = await command(seat1, { type: "sealMove", clientMoveId: "after", effort: 11.25 });
     expect(ok.ok).toBe(true);
-    expect((await eventLog(server.db, a.id)).length).toBeGreaterThan(logA.length);
+    expect((await eventLog(file.server.db, a.id)).length).toBeGreaterThan(logA.length);
   });
 
   it("a flood from one connection is answered rate-limited past the burst (token bucket 20/s, burst 40)", async () => {
     // a second application on the same database, with the default limits
-    const app = createApplication({ db: server.db });
+    const app = createApplication({ db: file.server.db });
     const { port } = await app.listen(0, "127.0.0.1");
     try {
       const socket = await client(`http://127.0.0.1:${port}`);

@@ -16,7 +16,7 @@ import type {
 } from "@contend/protocol";
 import { io as connectClient } from "socket.io-client";
 import type { Socket } from "socket.io-client";
-import { inject } from "vitest";
+import { afterAll, beforeAll, inject } from "vitest";
 import { createApplication } from "../src/app";
 import type { Application, ApplicationDeps } from "../src/app";
 import type { Clock } from "../src/clock";
@@ -152,4 +152,35 @@ export function lastView(socket: Client) {
   const msg = socket.views.at(-1);
   if (!msg) throw new Error("no view received yet");
   return msg.view;
+}
+
+/**
+ * One server for a whole test file (started before its tests, stopped and its data removed
+ * after) and a `client()` whose sockets are all closed at the end.
+ */
+export function serverForFile(opts: Parameters<typeof startServer>[0] = {}) {
+  let current: TestServer | null = null;
+  const clients: Client[] = [];
+  beforeAll(async () => {
+    current = await startServer(opts);
+  });
+  afterAll(async () => {
+    for (const c of clients) c.disconnect();
+    if (!current) return;
+    await current.stop();
+    removeDataDir(current.dataDir);
+  });
+  const file = {
+    get server(): TestServer {
+      if (!current) throw new Error("the server starts in beforeAll");
+      return current;
+    },
+    /** a connected client (to this file's server unless another url is given) */
+    async client(url?: string): Promise<Client> {
+      const c = await connect(url ?? file.server.url);
+      clients.push(c);
+      return c;
+    },
+  };
+  return file;
 }

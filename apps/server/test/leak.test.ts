@@ -1,34 +1,18 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import {
   command,
-  connect,
   createSessionOverHttp,
   eventually,
   expectOk,
   hello,
   lastView,
-  removeDataDir,
-  startServer,
+  serverForFile,
 } from "./helpers";
-import type { Client, TestServer } from "./helpers";
+import type { Client } from "./helpers";
 import { printShops } from "./fixtures";
 
-let server: TestServer;
-const clients: Client[] = [];
-beforeAll(async () => {
-  server = await startServer();
-});
-afterAll(async () => {
-  for (const c of clients) c.disconnect();
-  await server.stop();
-  removeDataDir(server.dataDir);
-});
-
-async function client() {
-  const c = await connect(server.url);
-  clients.push(c);
-  return c;
-}
+const file = serverForFile();
+const client = file.client;
 
 // Distinctive values that appear nowhere else in a session's traffic (keys are base64url,
 // ids have no dots, the scenario uses round numbers).
@@ -40,7 +24,7 @@ function everything(c: Client): string {
 
 describe("sealed moves stay private", () => {
   it("no other client receives a sealed effort before the round resolves, and the export leaves the open round out", async () => {
-    const created = await createSessionOverHttp(server.url, printShops({ rounds: 2 }));
+    const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 2 }));
     const id = created.id;
     const fac = await client();
     const screen = await client();
@@ -67,9 +51,9 @@ describe("sealed moves stay private", () => {
       expect(lastView(seats[2]!).seats.filter((s) => s.sealed)).toHaveLength(2),
     );
 
-    const exportBefore = await (await fetch(`${server.url}/api/sessions/${id}/export`)).text();
+    const exportBefore = await (await fetch(`${file.server.url}/api/sessions/${id}/export`)).text();
     const csvBefore = await (
-      await fetch(`${server.url}/api/sessions/${id}/export?format=csv`)
+      await fetch(`${file.server.url}/api/sessions/${id}/export?format=csv`)
     ).text();
 
     const others: [Client, string][] = [
@@ -104,7 +88,7 @@ describe("sealed moves stay private", () => {
       await eventually(() => expect(lastView(c).rounds).toHaveLength(1));
       for (const secret of SECRET) expect(everything(c)).toContain(secret);
     }
-    const exportAfter = await (await fetch(`${server.url}/api/sessions/${id}/export`)).text();
+    const exportAfter = await (await fetch(`${file.server.url}/api/sessions/${id}/export`)).text();
     for (const secret of SECRET) expect(exportAfter).toContain(secret);
   });
 });

@@ -1,38 +1,22 @@
 /** issueLinks: a facilitator in any browser can hand out fresh seat and big-screen links. */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import type { IssueLinksAckData } from "@contend/protocol";
 import { createManualClock } from "../src/clock";
 import {
   command,
-  connect,
   createSessionOverHttp,
   eventLog,
   expectOk,
   hello,
   removeDataDir,
+  serverForFile,
   startServer,
 } from "./helpers";
-import type { Client, TestServer } from "./helpers";
 import { printShops } from "./fixtures";
 
 const clock = createManualClock();
-let server: TestServer;
-const clients: Client[] = [];
-
-beforeAll(async () => {
-  server = await startServer({ clock });
-});
-afterAll(async () => {
-  for (const c of clients) c.disconnect();
-  await server.stop();
-  removeDataDir(server.dataDir);
-});
-
-async function client() {
-  const c = await connect(server.url);
-  clients.push(c);
-  return c;
-}
+const file = serverForFile({ clock });
+const client = file.client;
 
 async function facilitatorOf(sessionId: string, key: string) {
   const f = await client();
@@ -46,7 +30,7 @@ function keyOf(link: string): string {
 
 describe("issueLinks over sockets", () => {
   it("the facilitator's view carries the join code; seat and spectator views do not", async () => {
-    const created = await createSessionOverHttp(server.url, printShops());
+    const created = await createSessionOverHttp(file.server.url, printShops());
     const { view } = await facilitatorOf(created.id, created.facilitatorKey);
     expect(view.joinCode).toBe(created.joinCode);
     const seat = expectOk(
@@ -68,19 +52,21 @@ describe("issueLinks over sockets", () => {
   });
 
   it("issueLinks(seat 1) returns a new seat key that opens seat 1 and seals; the old key still works", async () => {
-    const created = await createSessionOverHttp(server.url, printShops({ rounds: 1 }));
+    const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 1 }));
     const { socket: f } = await facilitatorOf(created.id, created.facilitatorKey);
-    const before = (await eventLog(server.db, created.id)).length;
+    const before = (await eventLog(file.server.db, created.id)).length;
     const data = expectOk(
       await command(f, { type: "issueLinks", seatIndex: 1 }),
     ) as IssueLinksAckData;
     expect(data).toMatchObject({ role: "seat", seatIndex: 1, seq: before });
     expect(data.key).toMatch(/^[A-Za-z0-9_-]{43}$/);
     expect(data.key).not.toBe(created.seats[1]!.key);
-    expect(data.link).toBe(`${server.url}/seat/${encodeURIComponent(created.id)}?key=${data.key}`);
+    expect(data.link).toBe(
+      `${file.server.url}/seat/${encodeURIComponent(created.id)}?key=${data.key}`,
+    );
     expect(keyOf(data.link)).toBe(data.key);
     // no event for a link
-    expect(await eventLog(server.db, created.id)).toHaveLength(before);
+    expect(await eventLog(file.server.db, created.id)).toHaveLength(before);
 
     const fresh = await client();
     const s = expectOk(await hello(fresh, { role: "seat", sessionId: created.id, key: data.key }));
@@ -103,13 +89,13 @@ describe("issueLinks over sockets", () => {
   });
 
   it("issueLinks(null) returns a spectator key for the big screen, which is no seat key", async () => {
-    const created = await createSessionOverHttp(server.url, printShops());
+    const created = await createSessionOverHttp(file.server.url, printShops());
     const { socket: f } = await facilitatorOf(created.id, created.facilitatorKey);
     for (const cmd of [{ type: "issueLinks", seatIndex: null }, { type: "issueLinks" }]) {
       const data = expectOk(await command(f, cmd)) as IssueLinksAckData;
       expect(data).toMatchObject({ role: "spectator", seatIndex: null });
       expect(data.link).toBe(
-        `${server.url}/screen/${encodeURIComponent(created.id)}?key=${data.key}`,
+        `${file.server.url}/screen/${encodeURIComponent(created.id)}?key=${data.key}`,
       );
       const screen = expectOk(
         await hello(await client(), { role: "spectator", sessionId: created.id, key: data.key }),
@@ -125,7 +111,7 @@ describe("issueLinks over sockets", () => {
   });
 
   it("a seat, a spectator or a guest sending issueLinks is forbidden and no key is made", async () => {
-    const created = await createSessionOverHttp(server.url, printShops());
+    const created = await createSessionOverHttp(file.server.url, printShops());
     const seat = await client();
     expectOk(
       await hello(seat, { role: "seat", sessionId: created.id, key: created.seats[0]!.key }),
@@ -146,7 +132,7 @@ describe("issueLinks over sockets", () => {
   });
 
   it("issueLinks for a missing seat is not-found", async () => {
-    const created = await createSessionOverHttp(server.url, printShops());
+    const created = await createSessionOverHttp(file.server.url, printShops());
     const { socket: f } = await facilitatorOf(created.id, created.facilitatorKey);
     expect(await command(f, { type: "issueLinks", seatIndex: 7 })).toMatchObject({
       ok: false,
@@ -161,8 +147,7 @@ describe("issueLinks with PUBLIC_URL", () => {
     const other = await startServer({ clock, publicUrl: "https://contest.example.test" });
     try {
       const created = await createSessionOverHttp(other.url, printShops());
-      const f = await connect(other.url);
-      clients.push(f);
+      const f = await client(other.url);
       expectOk(
         await hello(f, { role: "facilitator", sessionId: created.id, key: created.facilitatorKey }),
       );

@@ -1,41 +1,23 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { normalize, respond, solve } from "@contend/solver";
 import type { RoleView } from "@contend/protocol";
 import { createApplication } from "../src/app";
 import { createManualClock } from "../src/clock";
 import {
   command,
-  connect,
   createSessionOverHttp,
   eventLog,
   eventually,
   expectOk,
   hello,
   lastView,
-  removeDataDir,
-  startServer,
+  serverForFile,
 } from "./helpers";
-import type { Client, TestServer } from "./helpers";
 import { printShops } from "./fixtures";
 
 const clock = createManualClock();
-let server: TestServer;
-const clients: Client[] = [];
-
-beforeAll(async () => {
-  server = await startServer({ clock });
-});
-afterAll(async () => {
-  for (const c of clients) c.disconnect();
-  await server.stop();
-  removeDataDir(server.dataDir);
-});
-
-async function client() {
-  const c = await connect(server.url);
-  clients.push(c);
-  return c;
-}
+const file = serverForFile({ clock });
+const client = file.client;
 
 function roundsOf(view: RoleView) {
   return view.rounds;
@@ -44,7 +26,7 @@ function roundsOf(view: RoleView) {
 describe("a full live session over sockets", () => {
   it("three rounds with a computer seat and a shock before round 3 match the solver, and export the log", async () => {
     const created = await createSessionOverHttp(
-      server.url,
+      file.server.url,
       printShops({ computer: { "Cobble Copy": { kind: "equilibrium" } } }),
     );
     expect(created.seats.map((s) => s.kind)).toEqual(["human", "human", "computer"]);
@@ -81,12 +63,12 @@ describe("a full live session over sockets", () => {
     );
     expect(m0).toMatchObject({ round: 1, seatIndex: 0, clientMoveId: "r1-a", effort: 37.25 });
     // same clientMoveId again: same ack, nothing new in the log
-    const before = (await eventLog(server.db, id)).length;
+    const before = (await eventLog(file.server.db, id)).length;
     const again = expectOk(
       await command(seat0, { type: "sealMove", clientMoveId: "r1-a", effort: 37.25 }),
     );
     expect(again).toEqual(m0);
-    expect((await eventLog(server.db, id)).length).toBe(before);
+    expect((await eventLog(file.server.db, id)).length).toBe(before);
     expectOk(await command(seat1, { type: "sealMove", clientMoveId: "r1-b", effort: 12.5 }));
     await eventually(() => expect(roundsOf(lastView(fac))).toHaveLength(1));
     expect(lastView(fac).rounds[0]!.reason).toBe("all-sealed");
@@ -160,8 +142,10 @@ describe("a full live session over sockets", () => {
     expect(final.rounds[2]!.defaulted).toEqual([true, false, false]);
 
     // Export: the JSON record is the event log, the rounds are the views' rounds.
-    const log = await eventLog(server.db, id);
-    const exported = (await (await fetch(`${server.url}/api/sessions/${id}/export`)).json()) as {
+    const log = await eventLog(file.server.db, id);
+    const exported = (await (
+      await fetch(`${file.server.url}/api/sessions/${id}/export`)
+    ).json()) as {
       session: { id: string; status: string; rounds: number };
       events: unknown[];
       rounds: unknown[];
@@ -171,7 +155,7 @@ describe("a full live session over sockets", () => {
     expect(exported.session).toMatchObject({ id, status: "ended", rounds: 3 });
     expect(log.map((e) => e.seq)).toEqual(log.map((_, i) => i + 1));
 
-    const csvRes = await fetch(`${server.url}/api/sessions/${id}/export?format=csv`);
+    const csvRes = await fetch(`${file.server.url}/api/sessions/${id}/export?format=csv`);
     expect(csvRes.headers.get("content-type")).toMatch(/text\/csv/);
     const lines = (await csvRes.text()).trimEnd().split("\r\n");
     expect(lines[0]).toBe(
@@ -185,7 +169,7 @@ describe("a full live session over sockets", () => {
   });
 
   it("a guest claims a free seat with the join code and then plays it with the returned key", async () => {
-    const created = await createSessionOverHttp(server.url, printShops({ rounds: 1 }));
+    const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 1 }));
     const guest = await client();
     const g = expectOk(
       await hello(guest, { role: "guest", joinCode: created.joinCode.toLowerCase() }),
@@ -218,17 +202,16 @@ describe("a full live session over sockets", () => {
 
 describe("two server processes sharing one database", () => {
   it("the event log's seq check serialises them: a stale server reloads and decides again", async () => {
-    const other = createApplication({ db: server.db, clock });
+    const other = createApplication({ db: file.server.db, clock });
     const { port } = await other.listen(0, "127.0.0.1");
     try {
-      const created = await createSessionOverHttp(server.url, printShops({ rounds: 2 }));
+      const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 2 }));
       const id = created.id;
       const creds = { role: "facilitator", sessionId: id, key: created.facilitatorKey };
       // both processes load the session at seq 1 (lobby)
       const here = await client();
       expectOk(await hello(here, creds));
-      const there = await connect(`http://127.0.0.1:${port}`);
-      clients.push(there);
+      const there = await client(`http://127.0.0.1:${port}`);
       expectOk(await hello(there, creds));
       // this process appends seq 2; the other still holds seq 1
       expectOk(
@@ -237,7 +220,7 @@ describe("two server processes sharing one database", () => {
       // the other decides openRound on its stale state, loses the seq check, reloads, decides again
       const opened = expectOk(await command(there, { type: "openRound" }));
       expect(opened).toEqual({ seq: 3 });
-      const log = await eventLog(server.db, id);
+      const log = await eventLog(file.server.db, id);
       expect(log.map((e) => [e.seq, e.type])).toEqual([
         [1, "session-created"],
         [2, "shock-applied"],
