@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { normalize, respond, solve } from "@contend/solver";
 import type { RoleView } from "@contend/protocol";
+import { apply, initialState } from "@contend/session";
 import { createApplication } from "../src/app";
 import { createManualClock } from "../src/clock";
 import {
@@ -101,6 +102,12 @@ describe("a full live session over sockets", () => {
     clock.advance(29_000);
     await new Promise((r) => setTimeout(r, 100));
     expect(lastView(fac).status).toBe("open");
+    // The live state, advanced from the appended events without reading them back, equals a
+    // fresh fold of the stored log (what a restart rebuilds).
+    const live = await file.server.app.hub.get(id);
+    const folded = (await eventLog(file.server.db, id)).reduce(apply, initialState());
+    expect(live?.state).toStrictEqual(folded);
+    expect(folded.seq).toBeGreaterThan(10);
     clock.advance(1_000);
     await eventually(() => expect(lastView(fac).status).toBe("ended"));
     const final = lastView(fac);

@@ -55,6 +55,20 @@ export function toSessionEvent(row: StoredEvent): SessionEvent {
   return { ...(row.payload as object), type: row.type, seq: row.seq, at: row.at } as SessionEvent;
 }
 
+/**
+ * An appended event as a read of its row returns it: the payload through JSON (the column
+ * keeps exactly the digits JSON.stringify writes; undefined fields vanish), `at` as whole ms.
+ */
+function asStored(event: SessionEvent, seq: number): SessionEvent {
+  const row = toNewEvent(event);
+  return toSessionEvent({
+    seq,
+    type: row.type,
+    at: new Date(row.at).getTime(),
+    payload: JSON.parse(JSON.stringify(row.payload)) as unknown,
+  });
+}
+
 function toNewEvent(event: SessionEvent): NewEvent {
   const { seq: _seq, at, ...body } = event;
   return { type: event.type, at, payload: body };
@@ -162,17 +176,12 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
         effects.status = trial.status;
       const result = await db.events.append(live.id, base, stamped.map(toNewEvent), effects);
       if (result.ok) {
-        // Apply what the database holds, not what we sent, so the live state is exactly what
-        // a restart or a replay folds from the same rows (JSON columns once rounded doubles).
-        const stored = (await db.events.list(live.id, base)).map(toSessionEvent);
-        applyAll(live, stored);
-        const ours = stored.slice(0, stamped.length);
-        return {
-          ok: true,
-          seq: ours.at(-1)?.seq ?? live.state.seq,
-          data: decision.data,
-          events: ours,
-        };
+        // Apply the rows as the database now holds them (seqs it confirmed, JSON and
+        // millisecond timestamps as they read back), without reading them back: the live state
+        // is then exactly what a restart or a replay folds from the same rows.
+        const ours = stamped.map((e, i) => asStored(e, result.seqs[i] ?? e.seq));
+        applyAll(live, ours);
+        return { ok: true, seq: live.state.seq, data: decision.data, events: ours };
       }
       if (result.code === "not-found")
         return { ok: false, code: "not-found", message: "no such session" };
