@@ -112,7 +112,7 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<Database> {
     kind: connection.kind,
     prisma,
     sessions: sessionsRepository(prisma),
-    events: eventsRepository(prisma),
+    events: eventsRepository(prisma, connection.runner),
     keys: keysRepository(prisma),
     seats: seatsRepository(prisma),
     scenarios: scenariosRepository(prisma),

@@ -191,6 +191,40 @@ describe.each(backends)("repositories on $name", (backend) => {
     expect(["first", "second"]).toContain(log[1]!.type);
   });
 
+  it("appends to many sessions at once (group commit): a stale and an unknown one fail alone", async () => {
+    const inputs = Array.from({ length: 6 }, () => sessionInput().input);
+    for (const input of inputs) await db.sessions.create(input);
+    const [stale, ...fresh] = inputs;
+    await db.events.append(stale!.id, 1, [event("earlier", 5)]);
+    // All calls start in the same turn of the event loop, so they share transactions.
+    const results = await Promise.all([
+      db.events.append(stale!.id, 1, [event("late", 6)]),
+      db.events.append("no-such-session", 0, [event("lost", 6)]),
+      ...fresh.map((input, k) =>
+        db.events.append(input.id, 1, [event("a", 7, { k }), event("b", 8, { x: 0.1 + 0.2 })], {
+          status: k === 0 ? "open" : undefined,
+        }),
+      ),
+    ]);
+    expect(results).toEqual([
+      { ok: false, code: "conflict", lastSeq: 2 },
+      { ok: false, code: "not-found" },
+      ...fresh.map(() => ({ ok: true, seqs: [2, 3] })),
+    ]);
+    expect((await db.events.list(stale!.id)).map((e) => e.type)).toEqual([
+      "session-created",
+      "earlier",
+    ]);
+    for (const [k, input] of fresh.entries()) {
+      expect(await db.events.list(input.id, 1)).toEqual([
+        { seq: 2, type: "a", at: 7, payload: { k } },
+        { seq: 3, type: "b", at: 8, payload: { x: 0.1 + 0.2 } },
+      ]);
+      const session = await db.sessions.get(input.id);
+      expect(session).toMatchObject({ lastSeq: 3, status: k === 0 ? "open" : "lobby" });
+    }
+  });
+
   it("eight writers that retry on conflict leave a gapless log with every event once", async () => {
     const { input } = sessionInput();
     await db.sessions.create(input);

@@ -1,4 +1,6 @@
+import type { SqlRunner } from "../sql-runner";
 import type { Db, KeyInput, NewEvent, StoredEvent } from "../types";
+import { createGroupCommit, groupMember } from "./group-commit";
 import { keyRows } from "./keys";
 import { Prisma } from "../generated/prisma/client";
 import { isUniqueViolation, jsonb, storedEvent } from "./rows";
@@ -38,7 +40,9 @@ class Abort extends Error {
 // longer than Prisma's default 2 s to start one.
 const TX_OPTIONS = { maxWait: 10_000, timeout: 10_000 };
 
-export function eventsRepository(db: Db) {
+export function eventsRepository(db: Db, runner: SqlRunner) {
+  const group = createGroupCommit<AppendResult>(runner);
+
   async function lastSeqOf(sessionId: string): Promise<AppendResult> {
     const session = await db.session.findUnique({
       where: { id: sessionId },
@@ -49,6 +53,54 @@ export function eventsRepository(db: Db) {
       : { ok: false, code: "not-found" };
   }
 
+  /** One interactive transaction: for seat claims and keys, and for a failed group's members. */
+  async function appendAlone(
+    sessionId: string,
+    expectedLastSeq: number,
+    events: NewEvent[],
+    effects: AppendEffects = {},
+  ): Promise<AppendResult> {
+    const seqs = events.map((_, i) => expectedLastSeq + 1 + i);
+    try {
+      return await db
+        .$transaction(async (tx) => {
+          const moved = await tx.session.updateMany({
+            where: { id: sessionId, lastSeq: expectedLastSeq },
+            data: {
+              lastSeq: expectedLastSeq + events.length,
+              ...(effects.status !== undefined ? { status: effects.status } : {}),
+            },
+          });
+          // Nothing written yet: commit the empty transaction and report outside it.
+          if (moved.count === 0) return { ok: false, code: "conflict", lastSeq: -1 } as const;
+          await tx.$executeRaw(insertEvents(sessionId, expectedLastSeq + 1, events));
+          for (const claim of effects.claimSeats ?? []) {
+            const claimed = await tx.seat.updateMany({
+              where: { sessionId, index: claim.seatIndex, claimedAt: null },
+              data: { displayName: claim.displayName, claimedAt: new Date() },
+            });
+            if (claimed.count === 0) {
+              throw new Abort({ ok: false, code: "seat-claimed", seatIndex: claim.seatIndex });
+            }
+          }
+          if (effects.addKeys?.length) {
+            await tx.accessKey.createMany({ data: keyRows(sessionId, effects.addKeys) });
+          }
+          return { ok: true, seqs } as const;
+        }, TX_OPTIONS)
+        .then((result) => (result.ok ? result : lastSeqOf(sessionId)));
+    } catch (error) {
+      if (error instanceof Abort) return error.result;
+      if (isUniqueViolation(error)) {
+        // Another writer took these seqs; any other unique clash (a reused key) is a bug.
+        const now = await lastSeqOf(sessionId);
+        if (now.ok === false && now.code === "conflict" && now.lastSeq !== expectedLastSeq)
+          return now;
+      }
+      throw error;
+    }
+  }
+
   return {
     /**
      * Appends events after expectedLastSeq, atomically. The version check is a conditional
@@ -56,6 +108,8 @@ export function eventsRepository(db: Db) {
      * when several processes share one PostgreSQL, the second writer waits on the row lock,
      * then finds lastSeq moved and gets {code:"conflict"}; the (sessionId, seq) primary key
      * backs this up. On conflict the caller reloads events after its seq, re-decides and retries.
+     * Appends without seat claims or keys are group-committed with other sessions' (see
+     * createGroupCommit); each caller gets the result it would have got alone.
      */
     async append(
       sessionId: string,
@@ -64,45 +118,11 @@ export function eventsRepository(db: Db) {
       effects: AppendEffects = {},
     ): Promise<AppendResult> {
       if (events.length === 0) throw new Error("events.append needs at least one event");
-      const seqs = events.map((_, i) => expectedLastSeq + 1 + i);
-      try {
-        return await db
-          .$transaction(async (tx) => {
-            const moved = await tx.session.updateMany({
-              where: { id: sessionId, lastSeq: expectedLastSeq },
-              data: {
-                lastSeq: expectedLastSeq + events.length,
-                ...(effects.status !== undefined ? { status: effects.status } : {}),
-              },
-            });
-            // Nothing written yet: commit the empty transaction and report outside it.
-            if (moved.count === 0) return { ok: false, code: "conflict", lastSeq: -1 } as const;
-            await tx.$executeRaw(insertEvents(sessionId, expectedLastSeq + 1, events));
-            for (const claim of effects.claimSeats ?? []) {
-              const claimed = await tx.seat.updateMany({
-                where: { sessionId, index: claim.seatIndex, claimedAt: null },
-                data: { displayName: claim.displayName, claimedAt: new Date() },
-              });
-              if (claimed.count === 0) {
-                throw new Abort({ ok: false, code: "seat-claimed", seatIndex: claim.seatIndex });
-              }
-            }
-            if (effects.addKeys?.length) {
-              await tx.accessKey.createMany({ data: keyRows(sessionId, effects.addKeys) });
-            }
-            return { ok: true, seqs } as const;
-          }, TX_OPTIONS)
-          .then((result) => (result.ok ? result : lastSeqOf(sessionId)));
-      } catch (error) {
-        if (error instanceof Abort) return error.result;
-        if (isUniqueViolation(error)) {
-          // Another writer took these seqs; any other unique clash (a reused key) is a bug.
-          const now = await lastSeqOf(sessionId);
-          if (now.ok === false && now.code === "conflict" && now.lastSeq !== expectedLastSeq)
-            return now;
-        }
-        throw error;
+      if (effects.claimSeats?.length || effects.addKeys?.length) {
+        return appendAlone(sessionId, expectedLastSeq, events, effects);
       }
+      const member = groupMember(sessionId, expectedLastSeq, events, effects.status);
+      return group.append(member, () => appendAlone(sessionId, expectedLastSeq, events, effects));
     },
 
     /** Events with seq > afterSeq, in order. */
