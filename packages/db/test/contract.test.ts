@@ -225,6 +225,27 @@ describe.each(backends)("repositories on $name", (backend) => {
     }
   });
 
+  it("a 0 ms timer set behind a backlog of appends fires before the backlog is committed", async () => {
+    const inputs = Array.from({ length: 10 }, () => sessionInput().input);
+    for (const input of inputs) await db.sessions.create(input);
+    const rounds = 10;
+    let committed = 0;
+    let committedWhenTimerFired = -1;
+    const writers = inputs.map(async (input) => {
+      for (let seq = 1; seq <= rounds; seq++) {
+        const result = await db.events.append(input.id, seq, [event("tick", seq)]);
+        expect(result.ok).toBe(true);
+        committed++;
+      }
+    });
+    setTimeout(() => (committedWhenTimerFired = committed), 0);
+    await Promise.all(writers);
+    expect(committed).toBe(inputs.length * rounds);
+    // Commits start from a fresh turn of the event loop, so the timer's phase comes round.
+    expect(committedWhenTimerFired).toBeGreaterThanOrEqual(0);
+    expect(committedWhenTimerFired).toBeLessThan(inputs.length * rounds);
+  });
+
   it("eight writers that retry on conflict leave a gapless log with every event once", async () => {
     const { input } = sessionInput();
     await db.sessions.create(input);
