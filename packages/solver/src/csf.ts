@@ -1,7 +1,8 @@
 /**
  * Contest success functions and the payoff bookkeeping built on them.
  * - Ratio form (Tullock 1980): p_i = w_i e_i^r_i / sum_j w_j e_j^r_j, with per-rival r_i.
- *   Convention: when every effort is zero the prize is split equally among all rivals.
+ *   Convention: when every effort is zero the prize is split equally among all rivals (also when
+ *   every w_i e_i^r_i underflows to zero in double precision, e.g. efforts near 1e-300).
  * - Logit / difference form (Hirshleifer 1989): p_i = w_i exp(k e_i) / sum_j w_j exp(k e_j),
  *   evaluated in log space (subtract the largest exponent) so large k*e never overflows.
  * - All-pay auction: the highest effort wins; rivals tied at the top split the prize.
@@ -18,6 +19,9 @@ export function logWeight(contest: Contest, i: number, e: number): number {
   if (csf.kind === "logit") return Math.log(rv.weight) + csf.scale * e;
   return e > 0 ? Math.log(rv.weight) + rv.r * Math.log(e) : -Infinity;
 }
+
+/** ln of the smallest positive double: below it w e^r is 0 in natural units. */
+const LOG_MIN_POSITIVE = Math.log(Number.MIN_VALUE);
 
 export function shares(contest: Contest, efforts: readonly number[]): number[] {
   const rivals = contest.rivals;
@@ -40,8 +44,10 @@ export function shares(contest: Contest, efforts: readonly number[]): number[] {
     logs[i] = l;
     if (l > top) top = l;
   }
-  if (top === -Infinity) {
-    // ratio form with every effort zero: equal split (documented convention)
+  if (top === -Infinity || (csf.kind === "ratio" && top < LOG_MIN_POSITIVE)) {
+    // ratio form with every effort zero: equal split (documented convention). Efforts so small
+    // that every w e^r underflows to 0 in double precision count as zero too, so shares agree
+    // with the payoff and best-response code, which works in natural units.
     return out.fill(1 / n);
   }
   let sum = 0;

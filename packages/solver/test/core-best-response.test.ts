@@ -43,7 +43,15 @@ const contestArb = fc
     ),
   );
 const profileArb = (c: Contest) =>
-  fc.tuple(...c.rivals.map((x) => fc.double({ min: 0, max: x.value / x.cost, noNaN: true })));
+  fc.tuple(
+    ...c.rivals.map((x) =>
+      // Money-like efforts: zero or at least 1e-9 of the range. Efforts near 1e-100, where
+      // w e^r nears double-precision underflow, are outside what the solver promises.
+      fc
+        .double({ min: 0, max: x.value / x.cost, noNaN: true })
+        .map((e) => (e < (1e-9 * x.value) / x.cost ? 0 : e)),
+    ),
+  );
 const withProfile = contestArb.chain((c) => profileArb(c).map((e) => ({ c, e: e as number[] })));
 
 describe("success functions", () => {
