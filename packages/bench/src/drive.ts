@@ -3,6 +3,7 @@
  * and seat, then play rounds in all sessions at once. Every wait is bounded; a missing ack or
  * view is counted, never waited for forever.
  */
+import { mulberry32 } from "@contend/solver";
 import { inBatches, SessionClient, sleep } from "./client";
 import type { AckedMove } from "./api";
 import { cpuSeconds, rssMiB, selfCpuSeconds } from "./proc";
@@ -61,17 +62,8 @@ export interface DriveResult {
   acked: AckedMove[];
 }
 
-/** mulberry32: a small seeded generator, so reruns draw the same delays and efforts. */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+// Seeded draws (the solver's mulberry32), so reruns draw the same values.
+const rng = mulberry32;
 
 interface Live {
   plan: SessionPlan;

@@ -7,6 +7,7 @@
  * 4. fuzzed messages; the event log must be unchanged except for legit events.
  * Asserts nothing; reports pass/fail per check.
  */
+import { mulberry32 } from "@contend/solver";
 import { isDeepStrictEqual } from "node:util";
 import { fileURLToPath } from "node:url";
 import { createSession, exportEvents, healthy, kioskScenario, missingMoves } from "./api";
@@ -575,17 +576,8 @@ export async function slowRun(opts: { slow: number; rounds: number }): Promise<F
 
 // ---------------------------------------------------------------------------------------------
 
-/** Deterministic generator for the fuzzer (mulberry32). */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+// Seeded draws (the solver's mulberry32), so reruns draw the same values.
+const rng = mulberry32;
 
 interface FuzzIdentity {
   sessionId: string | null;
