@@ -1,7 +1,8 @@
 /**
  * socket.io transport. Handlers stay thin: rate-limit -> validate (protocol) -> authorise ->
  * hub.execute (engine + database) -> ack. Views are pushed by the hub's commit listener, each
- * socket getting the view of its own role, so a sealed effort reaches only its owner.
+ * socket getting the view of its own role (as a patch from the one it holds), so a sealed
+ * effort reaches only its owner.
  */
 import type { Server, Socket } from "socket.io";
 import type { Database } from "@contend/db";
@@ -9,6 +10,7 @@ import { newKey, normaliseJoinCode } from "@contend/db";
 import {
   ackError,
   COMMAND_ROLES,
+  diffJson,
   parseCommand,
   parseHello,
   PROTOCOL_VERSION,
@@ -22,7 +24,9 @@ import type {
   Credentials,
   HelloAckData,
   IssueLinksAckData,
+  PatchOp,
   Role,
+  RoleView,
   ServerToClientEvents,
 } from "@contend/protocol";
 import { viewFor } from "@contend/session";
@@ -48,6 +52,8 @@ interface SocketData {
   identity: Identity | null;
   /** consecutive rate-limited messages; a client that keeps flooding is disconnected */
   strikes: number;
+  /** the view this connection holds (hello ack or last push): the base of the next patch */
+  shown: { seq: number; view: RoleView } | null;
 }
 
 type AppSocket = Socket<
@@ -64,6 +70,9 @@ export type AppServer = Server<
 >;
 
 type AnyAck = (res: Ack<unknown>) => void;
+
+/** A patch with more operations than this goes as a full view (e.g. after a restart of the round). */
+const MAX_PATCH_OPS = 200;
 
 /** Past this many refused messages in a row the connection is closed. */
 const MAX_STRIKES = 200;
@@ -99,6 +108,7 @@ export function attachSockets(deps: SocketDeps) {
     room?.delete(socket);
     if (room && room.size === 0) rooms.delete(identity.sessionId);
     socket.data.identity = null;
+    socket.data.shown = null;
   }
 
   function viewerOf(identity: Identity): Viewer {
@@ -109,19 +119,35 @@ export function attachSockets(deps: SocketDeps) {
     return { role: identity.role };
   }
 
-  /** After every commit: each socket of the session gets its role's view (one build per role). */
+  /**
+   * After every commit: each socket of the session gets the patch from the view it holds to
+   * its role's new view. Sockets of one role that hold the same view object share one view
+   * build and one diff; a patch that would rewrite most of the view goes as a full view.
+   */
   hub.onCommit((live) => {
     const room = rooms.get(live.id);
     if (!room || live.state.status === "empty") return;
-    const cache = new Map<string, ReturnType<typeof viewFor>>();
+    const seq = live.state.seq;
+    const views = new Map<string, RoleView>();
+    const patches = new Map<RoleView, { next: RoleView; ops: PatchOp[] | null }>();
     for (const socket of room) {
       const identity = socket.data.identity;
       if (!identity) continue;
       const viewer = viewerOf(identity);
       const key = `${viewer.role}:${viewer.seatIndex ?? ""}`;
-      let view = cache.get(key);
-      if (!view) cache.set(key, (view = viewFor(live.state, viewer)));
-      socket.emit("view", { seq: live.state.seq, view });
+      let view = views.get(key);
+      if (!view) views.set(key, (view = viewFor(live.state, viewer)));
+      const shown = socket.data.shown;
+      if (shown && shown.seq >= seq) continue;
+      let patch = shown ? patches.get(shown.view) : undefined;
+      if (shown && (!patch || patch.next !== view)) {
+        const ops = diffJson(shown.view, view);
+        patch = { next: view, ops: ops.length > MAX_PATCH_OPS ? null : ops };
+        patches.set(shown.view, patch);
+      }
+      if (shown && patch?.ops) socket.emit("viewPatch", { seq, base: shown.seq, ops: patch.ops });
+      else socket.emit("view", { seq, view });
+      socket.data.shown = { seq, view };
     }
   });
 
@@ -209,6 +235,7 @@ export function attachSockets(deps: SocketDeps) {
       view: viewFor(state, viewerOf(identity)),
     };
     if (identity.seatIndex !== undefined) data.seatIndex = identity.seatIndex;
+    socket.data.shown = { seq: state.seq, view: data.view };
     ack({ ok: true, data });
   }
 
@@ -298,6 +325,7 @@ export function attachSockets(deps: SocketDeps) {
     socket.data.bucket = createTokenBucket(limits.ratePerSecond, limits.rateBurst, clock.now());
     socket.data.identity = null;
     socket.data.strikes = 0;
+    socket.data.shown = null;
     socket.on("disconnect", () => leave(socket));
     socket.onAny((event: unknown, ...args: unknown[]) => {
       const last = args[args.length - 1];

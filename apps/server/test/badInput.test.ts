@@ -158,15 +158,15 @@ describe("bad input", () => {
     const logB = await eventLog(file.server.db, b.id);
 
     const badHellos = [
-      { protocol: 2, credentials: { role: "facilitator", sessionId: a.id, key: a.facilitatorKey } },
-      { protocol: 1, credentials: { role: "facilitator", sessionId: a.id, key: a.spectatorKey } },
-      { protocol: 1, credentials: { role: "facilitator", sessionId: b.id, key: a.facilitatorKey } },
-      { protocol: 1, credentials: { role: "seat", sessionId: b.id, key: a.seats[1]!.key } },
-      { protocol: 1, credentials: { role: "seat", sessionId: a.id, key: "k".repeat(129) } },
-      { protocol: 1, credentials: { role: "guest", joinCode: "ZZZZZZ" } },
-      { protocol: 1, credentials: { role: "admin", sessionId: a.id, key: a.facilitatorKey } },
+      { protocol: 1, credentials: { role: "facilitator", sessionId: a.id, key: a.facilitatorKey } },
+      { protocol: 2, credentials: { role: "facilitator", sessionId: a.id, key: a.spectatorKey } },
+      { protocol: 2, credentials: { role: "facilitator", sessionId: b.id, key: a.facilitatorKey } },
+      { protocol: 2, credentials: { role: "seat", sessionId: b.id, key: a.seats[1]!.key } },
+      { protocol: 2, credentials: { role: "seat", sessionId: a.id, key: "k".repeat(129) } },
+      { protocol: 2, credentials: { role: "guest", joinCode: "ZZZZZZ" } },
+      { protocol: 2, credentials: { role: "admin", sessionId: a.id, key: a.facilitatorKey } },
       {
-        protocol: 1,
+        protocol: 2,
         credentials: { role: "spectator", sessionId: "s".repeat(65), key: a.spectatorKey },
       },
       { protocol: "1", credentials: { role: "spectator", sessionId: a.id, key: a.spectatorKey } },

@@ -13,7 +13,9 @@ import type {
   ServerToClientEvents,
   SessionEvent,
   ViewMessage,
+  ViewTracker,
 } from "@contend/protocol";
+import { createViewTracker } from "@contend/protocol";
 import { io as connectClient } from "socket.io-client";
 import type { Socket } from "socket.io-client";
 import { afterAll, beforeAll, inject } from "vitest";
@@ -67,7 +69,11 @@ export async function startServer(
 }
 
 export type Client = Socket<ServerToClientEvents, ClientToServerEvents> & {
+  /** every view this client held, in order: full views, and each pushed patch applied */
   views: ViewMessage[];
+  /** patches that did not fit the view held (a client would say hello again) */
+  patchGaps: number;
+  tracker: ViewTracker;
   /** every payload this client received, as JSON text, in order */
   received: string[];
 };
@@ -80,7 +86,16 @@ export async function connect(url: string): Promise<Client> {
   }) as Client;
   socket.views = [];
   socket.received = [];
-  socket.on("view", (msg) => socket.views.push(msg));
+  socket.patchGaps = 0;
+  socket.tracker = createViewTracker();
+  socket.on("view", (msg) => {
+    if (socket.tracker.snapshot(msg.seq, msg.view)) socket.views.push(msg);
+  });
+  socket.on("viewPatch", (msg) => {
+    const outcome = socket.tracker.patch(msg);
+    if (outcome === "resync") socket.patchGaps++;
+    if (outcome === "applied") socket.views.push({ seq: msg.seq, view: socket.tracker.view! });
+  });
   socket.onAny((event: string, ...args: unknown[]) =>
     socket.received.push(JSON.stringify([event, ...args])),
   );
@@ -91,19 +106,30 @@ export async function connect(url: string): Promise<Client> {
   return socket;
 }
 
-/** Emits with an ack and a timeout; records the ack in `received` as well. */
-export async function request<T>(socket: Client, event: string, payload: unknown): Promise<Ack<T>> {
+/**
+ * Emits with an ack and a timeout; records the ack in `received` as well. A hello ack's view
+ * goes to the tracker inside the ack callback, before any push queued behind it is handled.
+ */
+export function request<T>(socket: Client, event: string, payload: unknown): Promise<Ack<T>> {
   const emitter = socket.timeout(10_000) as unknown as {
-    emitWithAck(event: string, payload: unknown): Promise<Ack<T>>;
+    emit(event: string, payload: unknown, cb: (err: Error | null, res: Ack<T>) => void): void;
   };
-  const res = await emitter.emitWithAck(event, payload);
-  socket.received.push(JSON.stringify(["ack", res]));
-  return res;
+  return new Promise((resolve, reject) => {
+    emitter.emit(event, payload, (err, res) => {
+      if (err) return reject(err);
+      socket.received.push(JSON.stringify(["ack", res]));
+      if (event === "hello" && res.ok) {
+        const data = res.data as HelloAckData;
+        socket.tracker.snapshot(data.seq, data.view, true);
+      }
+      resolve(res);
+    });
+  });
 }
 
 export function hello(socket: Client, credentials: unknown, lastSeq?: number) {
   return request<HelloAckData>(socket, "hello", {
-    protocol: 1,
+    protocol: 2,
     credentials,
     ...(lastSeq === undefined ? {} : { lastSeq }),
   });

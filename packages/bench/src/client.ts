@@ -1,12 +1,13 @@
 /**
  * One socket.io connection speaking the session protocol: hello, commands with acks, pushed
- * views. The same class drives the real server and the bare baseline. Each client has its own
+ * views and view patches (applied with the protocol's own tracker, as the web client does). The same class drives the real server and the bare baseline. Each client has its own
  * engine.io connection (forceNew), as a browser tab would; without it socket.io multiplexes
  * every client of one URL over a single WebSocket.
  */
 import { io } from "socket.io-client";
 import type { Socket } from "socket.io-client";
-import { PROTOCOL_VERSION } from "@contend/protocol";
+import { createViewTracker, PROTOCOL_VERSION } from "@contend/protocol";
+import type { RoleView, ViewPatchMessage } from "@contend/protocol";
 
 export type Credentials =
   | { role: "facilitator"; sessionId: string; key: string }
@@ -46,6 +47,10 @@ export class SessionClient {
   readonly credentials: Credentials;
   lastSeq = 0;
   lastView: ViewLike | null = null;
+  /** patches that did not fit the view held (each answered with a new hello) */
+  patchGaps = 0;
+  private readonly tracker = createViewTracker();
+  private helloInFlight = false;
   viewsReceived = 0;
   viewBytes = 0;
   hellos = 0;
@@ -67,12 +72,19 @@ export class SessionClient {
       reconnectionDelayMax: 1000,
       timeout: 20_000,
     });
-    this.socket.on("view", (msg: { seq: number; view: ViewLike }, ...rest: unknown[]) => {
-      void rest;
+    this.socket.on("view", (msg: { seq: number; view: ViewLike }) => {
       this.viewsReceived++;
-      this.lastSeq = Math.max(this.lastSeq, msg.seq);
-      this.lastView = msg.view;
-      this.checkWaiters(msg.view);
+      if (this.tracker.snapshot(msg.seq, msg.view as unknown as RoleView)) this.took();
+    });
+    this.socket.on("viewPatch", (msg: ViewPatchMessage) => {
+      this.viewsReceived++;
+      if (this.helloInFlight) return;
+      const outcome = this.tracker.patch(msg);
+      if (outcome === "applied") this.took();
+      else if (outcome === "resync") {
+        this.patchGaps++;
+        void this.hello();
+      }
     });
     this.socket.on("disconnect", (reason) => {
       if (reason !== "io client disconnect") this.disconnects.push(reason);
@@ -87,11 +99,19 @@ export class SessionClient {
     }
   }
 
-  /** Measures view sizes too (costs a JSON.stringify per view; only used while sampling). */
+  /** Measures pushed sizes too (a JSON.stringify per push; only used while sampling). */
   sampleViewSizes() {
-    this.socket.on("view", (msg: unknown) => {
-      this.viewBytes += JSON.stringify(msg).length;
-    });
+    for (const event of ["view", "viewPatch"]) {
+      this.socket.on(event, (msg: unknown) => {
+        this.viewBytes += JSON.stringify(msg).length;
+      });
+    }
+  }
+
+  private took() {
+    this.lastSeq = this.tracker.seq;
+    this.lastView = this.tracker.view as unknown as ViewLike;
+    this.checkWaiters(this.lastView);
   }
 
   onRehello(listener: (ack: AckLike) => void) {
@@ -121,22 +141,32 @@ export class SessionClient {
     }
   }
 
-  async hello(): Promise<AckLike> {
-    const ack = await this.emit("hello", {
+  /** The ack's view goes to the tracker inside the ack callback, before any push behind it. */
+  hello(): Promise<AckLike> {
+    const msg = {
       protocol: PROTOCOL_VERSION,
       credentials: this.credentials,
       ...(this.lastSeq > 0 ? { lastSeq: this.lastSeq } : {}),
+    };
+    this.helloInFlight = true;
+    return new Promise((resolve) => {
+      this.socket.timeout(this.ackTimeoutMs).emit("hello", msg, (err: unknown, ack: AckLike) => {
+        this.helloInFlight = false;
+        if (err) {
+          resolve({ ok: false, code: "timeout", message: `no ack within ${this.ackTimeoutMs} ms` });
+          return;
+        }
+        if (ack.ok) {
+          this.hellos++;
+          const view = ack.data?.view;
+          if (view && typeof ack.data?.seq === "number") {
+            this.tracker.snapshot(ack.data.seq, view as unknown as RoleView, true);
+            this.took();
+          }
+        }
+        resolve(ack);
+      });
     });
-    if (ack.ok) {
-      this.hellos++;
-      const view = ack.data?.view;
-      if (typeof ack.data?.seq === "number") this.lastSeq = Math.max(this.lastSeq, ack.data.seq);
-      if (view) {
-        this.lastView = view;
-        this.checkWaiters(view);
-      }
-    }
-    return ack;
   }
 
   command(cmd: Record<string, unknown>): Promise<AckLike> {

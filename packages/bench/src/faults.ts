@@ -492,7 +492,7 @@ export async function slowRun(opts: { slow: number; rounds: number }): Promise<F
       const c = new RawClient(server.url);
       if (await c.open()) {
         const hello = {
-          protocol: 1,
+          protocol: 2,
           credentials: { role: "spectator", sessionId: created.id, key: spectatorKey },
         };
         const ack = (await c.emit("hello", hello)) as AckLike | undefined;
@@ -505,7 +505,7 @@ export async function slowRun(opts: { slow: number; rounds: number }): Promise<F
     const stuckSeat = new RawClient(server.url);
     await stuckSeat.open();
     await stuckSeat.emit("hello", {
-      protocol: 1,
+      protocol: 2,
       credentials: { role: "seat", sessionId: created.id, key: created.seats[0]!.key! },
     });
     stuckSeat.stopReading();

@@ -95,6 +95,15 @@ export type {
   ViewMessage,
 } from "./view";
 export {
+  applyPatch,
+  createViewTracker,
+  diffJson,
+  PatchError,
+  patchOpSchema,
+  viewPatchMessageSchema,
+} from "./viewPatch";
+export type { PatchOp, ViewPatchMessage, ViewTracker } from "./viewPatch";
+export {
   ackError,
   ackErrorSchema,
   ackSchema,

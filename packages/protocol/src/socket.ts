@@ -3,6 +3,7 @@ import type { Ack, CommandAckData, HelloAckData } from "./ack";
 import type { Command } from "./commands";
 import type { Hello } from "./hello";
 import type { ViewMessage } from "./view";
+import type { ViewPatchMessage } from "./viewPatch";
 
 export interface ClientToServerEvents {
   /** first message on every connection, and again after each reconnect */
@@ -11,6 +12,8 @@ export interface ClientToServerEvents {
 }
 
 export interface ServerToClientEvents {
-  /** the sender's role view after every committed change */
+  /** a full role view (when a patch would not be smaller) */
   view: (msg: ViewMessage) => void;
+  /** after every committed change: the patch from the view this connection holds */
+  viewPatch: (msg: ViewPatchMessage) => void;
 }

@@ -4,8 +4,8 @@ import { parseHello, PROTOCOL_VERSION } from "../src/index";
 const key = "q".repeat(43);
 
 describe("parseHello", () => {
-  it("PROTOCOL_VERSION is 1", () => {
-    expect(PROTOCOL_VERSION).toBe(1);
+  it("PROTOCOL_VERSION is 2 (pushed views became patches)", () => {
+    expect(PROTOCOL_VERSION).toBe(2);
   });
 
   it("parseHello(each role's credentials) is accepted", () => {
@@ -17,13 +17,13 @@ describe("parseHello", () => {
       { role: "guest", joinCode: "KIOSK7" },
     ];
     for (const credentials of creds) {
-      expect(parseHello({ protocol: 1, credentials }).ok, credentials.role).toBe(true);
+      expect(parseHello({ protocol: 2, credentials }).ok, credentials.role).toBe(true);
     }
-    expect(parseHello({ protocol: 1, credentials: creds[0], lastSeq: 12 }).ok).toBe(true);
+    expect(parseHello({ protocol: 2, credentials: creds[0], lastSeq: 12 }).ok).toBe(true);
   });
 
-  it("parseHello(protocol 2) is version-mismatch", () => {
-    const r = parseHello({ protocol: 2, credentials: { role: "guest", joinCode: "KIOSK7" } });
+  it("parseHello(protocol 1, the previous version) is version-mismatch", () => {
+    const r = parseHello({ protocol: 1, credentials: { role: "guest", joinCode: "KIOSK7" } });
     expect(r).toMatchObject({ ok: false, code: "version-mismatch", path: "protocol" });
   });
 
@@ -50,7 +50,7 @@ describe("parseHello", () => {
       [{ role: "guest", joinCode: "KIOSK7", sessionId: "s" }, "credentials.sessionId"],
     ];
     for (const [credentials, path] of cases) {
-      expect(parseHello({ protocol: 1, credentials }), path).toMatchObject({
+      expect(parseHello({ protocol: 2, credentials }), path).toMatchObject({
         ok: false,
         code: "bad-request",
         path,
@@ -60,7 +60,7 @@ describe("parseHello", () => {
 
   it("parseHello(negative lastSeq) is refused", () => {
     const r = parseHello({
-      protocol: 1,
+      protocol: 2,
       credentials: { role: "guest", joinCode: "KIOSK7" },
       lastSeq: -1,
     });

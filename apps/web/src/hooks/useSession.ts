@@ -3,7 +3,7 @@
 import { useCallback, useEffect, useRef, useState } from "react";
 import { io } from "socket.io-client";
 import type { Socket } from "socket.io-client";
-import { PROTOCOL_VERSION } from "@contend/protocol";
+import { createViewTracker, PROTOCOL_VERSION } from "@contend/protocol";
 import type {
   Ack,
   ClientToServerEvents,
@@ -41,8 +41,9 @@ export interface SessionHandle {
 
 /**
  * One live session connection. On every (re)connect it says hello with its credentials and the
- * last event seq it saw; the ack carries a full view, and later commits arrive as pushed views.
- * A view older than the one held is ignored, so a late push never rolls the screen back.
+ * last event seq it saw; the ack carries a full view, and later commits arrive as patches of the
+ * view held (or, rarely, full views). A patch for another base makes it say hello again, and a
+ * view older than the one held is ignored, so a late push never rolls the screen back.
  */
 export function useSession(credentials: Credentials | null): SessionHandle {
   const [connection, setConnection] = useState<Connection>({ status: "connecting", message: null });
@@ -66,14 +67,16 @@ export function useSession(credentials: Credentials | null): SessionHandle {
     });
     socketRef.current = socket;
 
-    const accept = (nextSeq: number, nextView: RoleView) => {
-      if (nextSeq < seqRef.current) return;
-      seqRef.current = nextSeq;
-      setSeq(nextSeq);
-      setView(nextView);
+    const tracker = createViewTracker();
+    const show = () => {
+      seqRef.current = tracker.seq;
+      setSeq(tracker.seq);
+      setView(tracker.view);
     };
 
-    socket.on("connect", () => {
+    let helloInFlight = false;
+    const sayHello = () => {
+      helloInFlight = true;
       const msg: Hello = {
         protocol: PROTOCOL_VERSION,
         credentials: creds,
@@ -83,6 +86,7 @@ export function useSession(credentials: Credentials | null): SessionHandle {
         .timeout(ACK_TIMEOUT_MS)
         .emitWithAck("hello", msg)
         .then((ack) => {
+          helloInFlight = false;
           if (!ack.ok) {
             const permanent = [
               "unauthorized",
@@ -99,9 +103,8 @@ export function useSession(credentials: Credentials | null): SessionHandle {
             return;
           }
           // The hello view is a full snapshot of the committed state: it always replaces ours.
-          seqRef.current = ack.data.seq;
-          setSeq(ack.data.seq);
-          setView(ack.data.view);
+          tracker.snapshot(ack.data.seq, ack.data.view, true);
+          show();
           setHello(ack.data);
           if (connectedBefore) {
             setConnection({ status: "resynced", message: null });
@@ -116,14 +119,26 @@ export function useSession(credentials: Credentials | null): SessionHandle {
           connectedBefore = true;
         })
         .catch(() => {
+          helloInFlight = false;
           setConnection({
             status: "reconnecting",
             message: "the server did not answer the hello; retrying",
           });
           socket.disconnect().connect();
         });
+    };
+
+    socket.on("connect", sayHello);
+    socket.on("view", (msg) => {
+      if (tracker.snapshot(msg.seq, msg.view)) show();
     });
-    socket.on("view", (msg) => accept(msg.seq, msg.view));
+    socket.on("viewPatch", (msg) => {
+      // Patches queued before the hello's answer are for the old base; the ack replaces them.
+      if (helloInFlight) return;
+      const outcome = tracker.patch(msg);
+      if (outcome === "applied") show();
+      else if (outcome === "resync") sayHello();
+    });
     socket.on("disconnect", (reason) => {
       if (fatal) return;
       setConnection({ status: "reconnecting", message: `connection lost (${reason})` });
