@@ -58,12 +58,21 @@ export function mentions(text: string, n: number): boolean {
   return new RegExp(`(?<![\\d.])${token}(?![\\d])`).test(text);
 }
 
-/** Longest `rounds` array (resolved rounds of a role view) anywhere in a packet, or -1. */
+/**
+ * How many resolved rounds a packet shows, or -1: the longest `rounds` array of a role view
+ * anywhere in it, or, in a view patch (RFC 6902), an `add` at `/rounds/k` (k + 1 rounds) or a
+ * whole `/rounds` value.
+ */
 export function roundsIn(value: unknown): number {
   if (Array.isArray(value)) return value.reduce((m: number, v) => Math.max(m, roundsIn(v)), -1);
   if (value && typeof value === "object") {
     const o = value as Record<string, unknown>;
     let best = Array.isArray(o.rounds) && "status" in o ? o.rounds.length : -1;
+    if (typeof o.path === "string" && (o.op === "add" || o.op === "replace")) {
+      const at = /^\/rounds\/(\d+)$/.exec(o.path);
+      if (at && o.op === "add") best = Math.max(best, Number(at[1]) + 1);
+      if (o.path === "/rounds" && Array.isArray(o.value)) best = Math.max(best, o.value.length);
+    }
     for (const v of Object.values(o)) best = Math.max(best, roundsIn(v));
     return best;
   }
