@@ -5,6 +5,8 @@ import type pg from "pg";
 export interface SqlRunner {
   /** Runs fn inside one transaction: committed if fn resolves, rolled back if it throws. */
   transaction<T>(fn: (tx: SqlTx) => Promise<T>): Promise<T>;
+  /** One statement on its own, committed as its own transaction. */
+  query<Row extends Record<string, unknown>>(sql: string, params?: unknown[]): Promise<Row[]>;
 }
 
 export interface SqlTx {
@@ -25,6 +27,8 @@ export function pgliteRunner(db: PGlite): SqlRunner {
             (await tx.query<Row>(sql, params)).rows,
         }),
       ),
+    query: async <Row extends Record<string, unknown>>(sql: string, params?: unknown[]) =>
+      (await db.query<Row>(sql, params)).rows,
   };
 }
 
@@ -52,5 +56,7 @@ export function poolRunner(pool: pg.Pool): SqlRunner {
         client.release();
       }
     },
+    query: async <Row extends Record<string, unknown>>(sql: string, params?: unknown[]) =>
+      (await pool.query<Row>(sql, params)).rows,
   };
 }

@@ -41,11 +41,11 @@ const MAX_ROWS = 4_000;
 /**
  * Commits the appends of many sessions in one transaction (group commit): every append
  * queued while the previous transaction was in flight, or in the same turn of the event
- * loop, shares the next one. A single UPDATE ... RETURNING applies all version checks, so
- * each member learns its own outcome and a stale member costs the others nothing; one
- * multi-row INSERT then writes the events of the members that passed. A session appears at
+ * loop, shares the next one: a single statement (see commitGroup) applies all version checks,
+ * so each member learns its own outcome and a stale member costs the others nothing, and
+ * writes the events of the members that passed. A session appears at
  * most once per transaction (later appends to it wait for the next), so outcomes keep the
- * order of the calls. If the transaction fails as a whole (a seq clash with another
+ * order of the calls. If the statement fails as a whole (a seq clash with another
  * process, a deadlock between two processes' groups, a lost connection), each member is
  * retried on its own through `single`, which reports or throws for that caller alone.
  * Commits run one after another, each from a fresh turn of the event loop, so timers and
@@ -131,59 +131,65 @@ export function createGroupCommit<F = never>(runner: SqlRunner) {
   };
 }
 
+/**
+ * The whole group in one statement (one round trip, its own transaction): data-modifying CTEs
+ * run exactly once and atomically, the INSERT takes only the rows of sessions whose version
+ * check passed, and the final SELECT says which members won.
+ */
 async function commitGroup(runner: SqlRunner, members: GroupMember[]): Promise<GroupResult[]> {
-  return runner.transaction(async (tx) => {
-    const params: unknown[] = [new Date().toISOString()];
-    const values = members.map((m) => {
-      params.push(m.sessionId, m.expectedLastSeq, m.expectedLastSeq + m.rows.length, m.status);
-      const n = params.length;
-      return `($${n - 3}::text, $${n - 2}::int, $${n - 1}::int, $${n}::text)`;
-    });
-    const moved = await tx.query<{ id: string }>(
-      `UPDATE "Session" AS s SET "lastSeq" = v.next, "status" = COALESCE(v.status, s."status"),
+  const params: unknown[] = [new Date().toISOString()];
+  const bind = (value: unknown, type: string) => {
+    params.push(value);
+    return `$${params.length}::${type}`;
+  };
+  const versions = members.map(
+    (m, i) =>
+      `(${bind(i, "int")}, ${bind(m.sessionId, "text")}, ${bind(m.expectedLastSeq, "int")}, ${bind(m.expectedLastSeq + m.rows.length, "int")}, ${bind(m.status ?? null, "text")})`,
+  );
+  const rows = members.flatMap((m) =>
+    m.rows.map(
+      (row, i) =>
+        `(${bind(m.sessionId, "text")}, ${bind(m.expectedLastSeq + 1 + i, "int")}, ${bind(row.type, "text")}, ${bind(row.at, "timestamptz")}, ${bind(row.payload, "jsonb")})`,
+    ),
+  );
+  const result = await runner.query<{ i: number; won: boolean }>(
+    `WITH v(i, id, expected, next, status) AS (VALUES ${versions.join(", ")}),
+     moved AS (
+       UPDATE "Session" AS s SET "lastSeq" = v.next, "status" = COALESCE(v.status, s."status"),
          "updatedAt" = $1::timestamptz
-       FROM (VALUES ${values.join(", ")}) AS v(id, expected, next, status)
-       WHERE s."id" = v.id AND s."lastSeq" = v.expected
-       RETURNING s."id"`,
-      params,
+       FROM v WHERE s."id" = v.id AND s."lastSeq" = v.expected
+       RETURNING s."id"
+     ),
+     r("sessionId", "seq", "type", "at", "payload") AS (VALUES ${rows.join(", ")}),
+     ins AS (
+       INSERT INTO "Event" ("sessionId", "seq", "type", "at", "payload")
+       SELECT r.* FROM r JOIN moved ON moved."id" = r."sessionId"
+     )
+     SELECT v.i, moved."id" IS NOT NULL AS won FROM v LEFT JOIN moved ON moved."id" = v.id
+     ORDER BY v.i`,
+    params,
+  );
+  const won = members.map((_, i) => {
+    const row = result[i];
+    if (!row || Number(row.i) !== i) throw new Error("group commit: a member's outcome is missing");
+    return row.won;
+  });
+  // A stale member learns the lastSeq that beat it from a fresh read: the statement's own
+  // snapshot predates a writer in another process that it waited for.
+  const losers = members.filter((_, i) => !won[i]).map((m) => m.sessionId);
+  const current = new Map<string, number>();
+  if (losers.length > 0) {
+    const rows = await runner.query<{ id: string; lastSeq: number }>(
+      `SELECT "id", "lastSeq" FROM "Session" WHERE "id" = ANY($1::text[])`,
+      [losers],
     );
-    const won = new Set(moved.map((r) => r.id));
-    const winners = members.filter((m) => won.has(m.sessionId));
-    if (winners.length > 0) {
-      const rowParams: unknown[] = [];
-      const rowValues: string[] = [];
-      for (const m of winners) {
-        m.rows.forEach((row, i) => {
-          rowParams.push(m.sessionId, m.expectedLastSeq + 1 + i, row.type, row.at, row.payload);
-          const n = rowParams.length;
-          rowValues.push(
-            `($${n - 4}::text, $${n - 3}::int, $${n - 2}::text, $${n - 1}::timestamptz, $${n}::jsonb)`,
-          );
-        });
-      }
-      await tx.query(
-        `INSERT INTO "Event" ("sessionId", "seq", "type", "at", "payload") VALUES ${rowValues.join(", ")}`,
-        rowParams,
-      );
-    }
-    const losers = members.filter((m) => !won.has(m.sessionId));
-    const current = new Map<string, number>();
-    if (losers.length > 0) {
-      const ids = losers.map((m) => m.sessionId);
-      const rows = await tx.query<{ id: string; lastSeq: number }>(
-        `SELECT "id", "lastSeq" FROM "Session" WHERE "id" IN (${ids.map((_, i) => `$${i + 1}::text`).join(", ")})`,
-        ids,
-      );
-      for (const r of rows) current.set(r.id, Number(r.lastSeq));
-    }
-    return members.map((m): GroupResult => {
-      if (won.has(m.sessionId)) {
-        return { ok: true, seqs: m.rows.map((_, i) => m.expectedLastSeq + 1 + i) };
-      }
-      const lastSeq = current.get(m.sessionId);
-      return lastSeq === undefined
-        ? { ok: false, code: "not-found" }
-        : { ok: false, code: "conflict", lastSeq };
-    });
+    for (const r of rows) current.set(r.id, Number(r.lastSeq));
+  }
+  return members.map((m, i): GroupResult => {
+    if (won[i]) return { ok: true, seqs: m.rows.map((_, k) => m.expectedLastSeq + 1 + k) };
+    const lastSeq = current.get(m.sessionId);
+    return lastSeq === undefined
+      ? { ok: false, code: "not-found" }
+      : { ok: false, code: "conflict", lastSeq };
   });
 }
