@@ -140,6 +140,11 @@ export async function waitForHttp(url: string, child: Child, timeoutMs = 60_000)
   throw new Error(`no answer from ${url} within ${timeoutMs} ms:\n${child.tail()}`);
 }
 
+/** Which database the real server gets: what the reports print. */
+export function benchDatabase(): string {
+  return process.env.BENCH_DATABASE_URL || "embedded PGlite";
+}
+
 export interface ServerOptions {
   dataDir: string;
   port: number;
@@ -147,7 +152,10 @@ export interface ServerOptions {
   env?: Record<string, string>;
 }
 
-/** The real server: API and sockets only (WEB=off), embedded PGlite in dataDir, no demo session. */
+/**
+ * The real server: API and sockets only (WEB=off), no demo session, embedded PGlite in dataDir;
+ * or PostgreSQL when BENCH_DATABASE_URL names an empty database (the server migrates it).
+ */
 export async function startServer(opts: ServerOptions): Promise<Child> {
   const child = startChild(
     SERVER_MAIN,
@@ -157,7 +165,7 @@ export async function startServer(opts: ServerOptions): Promise<Child> {
       HOST,
       PORT: String(opts.port),
       CONTEND_DATA_DIR: opts.dataDir,
-      DATABASE_URL: "",
+      DATABASE_URL: benchDatabase() === "embedded PGlite" ? "" : benchDatabase(),
       LOG_LEVEL: "warn",
       ...opts.env,
     },

@@ -9,7 +9,7 @@
 import { fileURLToPath } from "node:url";
 import { createSession, exportEvents, kioskScenario, missingMoves } from "./api";
 import type { ExportedEvent } from "./api";
-import { freePort, startBareServer, startServer, tempDir } from "./child";
+import { benchDatabase, freePort, startBareServer, startServer, tempDir } from "./child";
 import { inBatches, SessionClient } from "./client";
 import { drive } from "./drive";
 import type { DriveResult, SessionPlan } from "./drive";
@@ -257,6 +257,7 @@ export function formatLoad(r: LoadReport): string {
     `Load: ${c.sessions} sessions x ${c.seats} human seats (+1 facilitator each), ${c.rounds} rounds,`,
     `seals spread over ${c.spreadMs} ms after each opening, close mode ${c.closeMode}`,
     `(even rounds closed by the facilitator with one seat missing). Load average before ${r.loadBefore}, after ${r.loadAfter}.`,
+    `Database: ${benchDatabase().replace(/\/\/[^@/]*@/, "//")}.`,
     `Sessions created over REST in ${r.createSeconds.toFixed(1)} s. Server RSS at start ${r.serverStartRssMiB.toFixed(1)} MiB;`,
     `peak RSS growth per session ${perSession.toFixed(2)} MiB. ${r.checkedMoves} acked moves checked against the exported logs`,
     `after a drain (${r.drainFailures} drain failures): ${r.lostMoves} lost.`,
