@@ -1,0 +1,70 @@
+import { describe, expect, it } from "vitest";
+import {
+  command,
+  createSessionOverHttp,
+  eventually,
+  expectOk,
+  hello,
+  serverForFile,
+} from "./helpers";
+import type { Client } from "./helpers";
+import { printShops } from "./fixtures";
+
+const file = serverForFile();
+const client = file.client;
+
+/** The full view a fresh connection with the same credentials gets now. */
+async function freshView(credentials: unknown) {
+  const c = await client();
+  return expectOk(await hello(c, credentials));
+}
+
+describe("pushed view patches", () => {
+  it("every connection's patched view equals the full view a fresh hello gets, for every role, after two rounds", async () => {
+    const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 2 }));
+    const id = created.id;
+    const creds: [string, unknown][] = [
+      ["facilitator", { role: "facilitator", sessionId: id, key: created.facilitatorKey }],
+      ["spectator", { role: "spectator", sessionId: id, key: created.spectatorKey }],
+      ...created.seats.map((s, i): [string, unknown] => [
+        `seat ${i}`,
+        { role: "seat", sessionId: id, key: s.key },
+      ]),
+    ];
+    const clients: Client[] = [];
+    for (const [, c] of creds) {
+      const socket = await client();
+      expectOk(await hello(socket, c));
+      clients.push(socket);
+    }
+    const [fac, , ...seats] = clients;
+    let lastSeq = 0;
+    for (let round = 1; round <= 2; round++) {
+      lastSeq = expectOk(await command(fac!, { type: "openRound" })).seq;
+      for (const [i, s] of seats.entries()) {
+        if (round === 2 && i === seats.length - 1) continue; // round 2 is closed by hand
+        lastSeq = expectOk(
+          await command(s, { type: "sealMove", clientMoveId: `r${round}s${i}`, effort: 5 + i }),
+        ).seq;
+      }
+      if (round === 2) lastSeq = expectOk(await command(fac!, { type: "closeRound" })).seq;
+    }
+
+    for (const [k, [who, c]] of creds.entries()) {
+      const socket = clients[k]!;
+      await eventually(() => expect(socket.tracker.seq, who).toBeGreaterThanOrEqual(lastSeq));
+      const fresh = await freshView(c);
+      expect(socket.tracker.seq, who).toBe(fresh.seq);
+      expect(socket.tracker.view, who).toEqual(fresh.view);
+      expect(socket.patchGaps, `${who}: patches that did not fit`).toBe(0);
+      const patches = socket.received.filter((r) => r.startsWith('["viewPatch"'));
+      // openRound, the seals and closes of two rounds: every commit after the hello is a patch
+      expect(patches.length, who).toBeGreaterThan(5);
+      const fulls = socket.received.filter((r) => r.startsWith('["view"'));
+      expect(fulls, `${who}: no full view was needed`).toEqual([]);
+      // a patch is a small fraction of a full view
+      const mean = patches.reduce((n, p) => n + p.length, 0) / patches.length;
+      expect(mean, who).toBeLessThan(JSON.stringify(fresh.view).length / 2);
+    }
+  });
+});
