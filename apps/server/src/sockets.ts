@@ -71,7 +71,7 @@ export type AppServer = Server<
 
 type AnyAck = (res: Ack<unknown>) => void;
 
-/** A patch with more operations than this goes as a full view (e.g. after a restart of the round). */
+/** A patch with more operations than this goes as a full view (e.g. a round closing with many seats). */
 const MAX_PATCH_OPS = 200;
 
 /** Past this many refused messages in a row the connection is closed. */
