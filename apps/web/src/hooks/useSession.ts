@@ -82,11 +82,20 @@ export function useSession(credentials: Credentials | null): SessionHandle {
         credentials: creds,
         ...(seqRef.current > 0 ? { lastSeq: seqRef.current } : {}),
       };
+      // The ack is handled in its callback, not after an await: a patch queued right behind it
+      // is then applied to the ack's view instead of being dropped.
       socket
         .timeout(ACK_TIMEOUT_MS)
-        .emitWithAck("hello", msg)
-        .then((ack) => {
+        .emit("hello", msg, (err: Error | null, ack: Ack<HelloAckData>) => {
           helloInFlight = false;
+          if (err) {
+            setConnection({
+              status: "reconnecting",
+              message: "the server did not answer the hello; retrying",
+            });
+            socket.disconnect().connect();
+            return;
+          }
           if (!ack.ok) {
             const permanent = [
               "unauthorized",
@@ -117,14 +126,6 @@ export function useSession(credentials: Credentials | null): SessionHandle {
             setConnection({ status: "live", message: null });
           }
           connectedBefore = true;
-        })
-        .catch(() => {
-          helloInFlight = false;
-          setConnection({
-            status: "reconnecting",
-            message: "the server did not answer the hello; retrying",
-          });
-          socket.disconnect().connect();
         });
     };
 
