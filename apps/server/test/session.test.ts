@@ -1,4 +1,4 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import { normalize, respond, solve } from "@contend/solver";
 import type { RoleView } from "@contend/protocol";
 import { apply, initialState } from "@contend/session";
@@ -70,7 +70,15 @@ describe("a full live session over sockets", () => {
     );
     expect(again).toEqual(m0);
     expect((await eventLog(file.server.db, id)).length).toBe(before);
+    // The last seal and the close it causes go to the database as one append (one commit
+    // before the reveal instead of two), with the seal right before the round's result.
+    const appends = vi.spyOn(file.server.db.events, "append");
     expectOk(await command(seat1, { type: "sealMove", clientMoveId: "r1-b", effort: 12.5 }));
+    expect(appends).toHaveBeenCalledTimes(1);
+    appends.mockRestore();
+    const log1 = await eventLog(file.server.db, id);
+    const lastSeal = log1.findLast((e) => e.type === "move-sealed")!;
+    expect(log1.find((e) => e.seq === lastSeal.seq + 1)?.type).toBe("round-resolved");
     await eventually(() => expect(roundsOf(lastView(fac))).toHaveLength(1));
     expect(lastView(fac).rounds[0]!.reason).toBe("all-sealed");
 

@@ -49,6 +49,7 @@ export interface SessionHub {
 }
 
 const SYSTEM: Actor = { role: "system" };
+const ALL_SEALED: EngineCommand = { type: "closeRound", reason: "all-sealed" };
 
 /** Stored rows -> protocol events. The log is written only by this hub, so it is trusted. */
 export function toSessionEvent(row: StoredEvent): SessionEvent {
@@ -167,11 +168,24 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
       }
       const base = live.state.seq;
       const at = Math.max(now, live.state.status === "empty" ? 0 : live.state.at);
-      const stamped = decision.events.map(
-        (e, i) => ({ ...e, seq: base + 1 + i, at }) as SessionEvent,
-      );
-      const trial = stamped.reduce(apply, live.state);
-      const effects = effectsOf(decision.events, options);
+      const bodies = [...decision.events];
+      const stamp = (e: EventBody, i: number) => ({ ...e, seq: base + 1 + i, at }) as SessionEvent;
+      let trial = bodies.map(stamp).reduce(apply, live.state);
+      // When the last active seat has sealed, the round closes in the same append: one commit,
+      // one push, and no command can slip in between the last seal and the close.
+      if (allSealed(trial)) {
+        const closing = decide(trial, ALL_SEALED, { now, actor: SYSTEM });
+        if (closing.ok) {
+          const first = bodies.length;
+          bodies.push(...closing.events);
+          trial = bodies
+            .slice(first)
+            .map((e, i) => stamp(e, first + i))
+            .reduce(apply, trial);
+        } else logger.warn("all-sealed close failed", { sessionId: live.id, code: closing.code });
+      }
+      const stamped = bodies.map(stamp);
+      const effects = effectsOf(bodies, options);
       if (trial.status !== live.state.status && trial.status !== "empty")
         effects.status = trial.status;
       const result = await db.events.append(live.id, base, stamped.map(toNewEvent), effects);
@@ -212,21 +226,8 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
       const live = await get(sessionId);
       if (!live) return { ok: false, code: "not-found", message: "no such session" };
       const result = await commit(live, command, actor, options);
-      const committed = result.ok ? [...result.events] : [];
-      // When the last active seat has sealed, the round closes at once, in the same turn of
-      // the queue, so no other command can slip in between.
-      if (result.ok && allSealed(live.state)) {
-        const closing = await commit(
-          live,
-          { type: "closeRound", reason: "all-sealed" },
-          SYSTEM,
-          {},
-        );
-        if (closing.ok) committed.push(...closing.events);
-        else logger.warn("all-sealed close failed", { sessionId, code: closing.code });
-      }
       armClock(live);
-      if (committed.length > 0) notify(live, committed);
+      if (result.ok && result.events.length > 0) notify(live, result.events);
       // An ended session never changes again; a later hello reloads it from the log.
       if (live.state.status === "ended") sessions.delete(sessionId);
       return result;
