@@ -107,7 +107,7 @@ export function createApplication(deps: ApplicationDeps): Application {
       void webUpgrade(req, socket, head).catch(() => socket.destroy());
     });
   }
-  attachSockets({
+  const sockets = attachSockets({
     io,
     db: deps.db,
     hub,
@@ -138,6 +138,7 @@ export function createApplication(deps: ApplicationDeps): Application {
     close() {
       closing ??= (async () => {
         await hub.close();
+        sockets.stop();
         // io.close() disconnects every client and closes the HTTP server as well.
         await new Promise<void>((resolve) => {
           io.close(() => resolve());

@@ -37,6 +37,8 @@ const EnvSchema = z.object({
   MAX_MESSAGE_BYTES: positiveInt(64 * 1024),
   /** largest REST body in bytes */
   MAX_BODY_BYTES: positiveInt(256 * 1024),
+  /** ms another seat's seal may wait to reach the rest of a session, merged with others; 0: at once */
+  PROGRESS_PUSH_MS: z.coerce.number().int().min(0).max(5_000).default(200),
   /** "off" skips creating the demo session on an empty database */
   DEMO: z.enum(["on", "off"]).default("on"),
   LOG_LEVEL: z.enum(["debug", "info", "warn", "error"]).default("info"),
@@ -63,6 +65,8 @@ export interface Limits {
   rateBurst: number;
   maxMessageBytes: number;
   maxBodyBytes: number;
+  /** see PROGRESS_PUSH_MS */
+  progressPushMs: number;
 }
 
 export const DEFAULT_LIMITS: Limits = {
@@ -70,6 +74,7 @@ export const DEFAULT_LIMITS: Limits = {
   rateBurst: 40,
   maxMessageBytes: 64 * 1024,
   maxBodyBytes: 256 * 1024,
+  progressPushMs: 200,
 };
 
 /** Parses an environment (process.env by default); throws with every problem listed. */
@@ -100,6 +105,7 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
       rateBurst: e.RATE_LIMIT_BURST,
       maxMessageBytes: e.MAX_MESSAGE_BYTES,
       maxBodyBytes: e.MAX_BODY_BYTES,
+      progressPushMs: e.PROGRESS_PUSH_MS,
     },
     demo: e.DEMO === "on",
     logLevel: e.LOG_LEVEL,

@@ -120,25 +120,25 @@ export function attachSockets(deps: SocketDeps) {
   }
 
   /**
-   * After every commit: each socket of the session gets the patch from the view it holds to
-   * its role's new view. Sockets of one role that hold the same view object share one view
-   * build and one diff; a patch that would rewrite most of the view goes as a full view.
+   * Brings the given sockets of a session up to its current state: each gets the patch from
+   * the view it holds to its role's new view. Sockets of one role that hold the same view
+   * object share one view build and one diff; a patch that would rewrite most of the view goes
+   * as a full view; a socket already at this seq gets nothing.
    */
-  hub.onCommit((live) => {
-    const room = rooms.get(live.id);
-    if (!room || live.state.status === "empty") return;
+  function push(live: LiveSession, sockets: Iterable<AppSocket>) {
+    if (live.state.status === "empty") return;
     const seq = live.state.seq;
     const views = new Map<string, RoleView>();
     const patches = new Map<RoleView, { next: RoleView; ops: PatchOp[] | null }>();
-    for (const socket of room) {
+    for (const socket of sockets) {
       const identity = socket.data.identity;
-      if (!identity) continue;
+      if (!identity || identity.sessionId !== live.id) continue;
+      const shown = socket.data.shown;
+      if (shown && shown.seq >= seq) continue;
       const viewer = viewerOf(identity);
       const key = `${viewer.role}:${viewer.seatIndex ?? ""}`;
       let view = views.get(key);
       if (!view) views.set(key, (view = viewFor(live.state, viewer)));
-      const shown = socket.data.shown;
-      if (shown && shown.seq >= seq) continue;
       let patch = shown ? patches.get(shown.view) : undefined;
       if (shown && (!patch || patch.next !== view)) {
         const ops = diffJson(shown.view, view);
@@ -149,6 +149,44 @@ export function attachSockets(deps: SocketDeps) {
       else socket.emit("view", { seq, view });
       socket.data.shown = { seq, view };
     }
+  }
+
+  /** sessions whose progress push to the other sockets is waiting, with its timer */
+  const pendingProgress = new Map<string, ReturnType<typeof setTimeout>>();
+
+  /**
+   * After every commit. A commit that only seals moves changes, for everyone but the sealers,
+   * one `sealed` flag: the sealers' own sockets get it at once and everyone else within
+   * `limits.progressPushMs` (short enough to read as live on a progress display, long enough
+   * to merge the seals of a busy round), merged with any other seals in that window (one frame instead of one per
+   * seal). Any other commit (a round opening or resolving, a pause, a shock) goes to every
+   * socket at once and takes the waiting progress with it.
+   */
+  hub.onCommit((live, events) => {
+    const room = rooms.get(live.id);
+    if (!room) return;
+    if (limits.progressPushMs === 0 || !events.every((e) => e.type === "move-sealed")) {
+      const waiting = pendingProgress.get(live.id);
+      if (waiting) clearTimeout(waiting);
+      pendingProgress.delete(live.id);
+      push(live, room);
+      return;
+    }
+    const sealers = new Set(events.map((e) => e.seatIndex));
+    push(
+      live,
+      [...room].filter(
+        (s) => s.data.identity?.role === "seat" && sealers.has(s.data.identity.seatIndex ?? -1),
+      ),
+    );
+    if (pendingProgress.has(live.id)) return;
+    const timer = setTimeout(() => {
+      pendingProgress.delete(live.id);
+      const current = rooms.get(live.id);
+      if (current) push(live, current);
+    }, limits.progressPushMs);
+    timer.unref();
+    pendingProgress.set(live.id, timer);
   });
 
   async function authenticate(
@@ -362,6 +400,11 @@ export function attachSockets(deps: SocketDeps) {
   });
 
   return {
+    /** drops the progress pushes still waiting (the server is closing) */
+    stop() {
+      for (const timer of pendingProgress.values()) clearTimeout(timer);
+      pendingProgress.clear();
+    },
     /** sockets currently registered with a session (for tests and health) */
     connectedTo(sessionId: string): number {
       return rooms.get(sessionId)?.size ?? 0;

@@ -91,6 +91,7 @@ describe("parseEnv(source)", () => {
       rateBurst: 40,
       maxMessageBytes: 65536,
       maxBodyBytes: 262144,
+      progressPushMs: 200,
     });
     expect(env.databaseUrl).toMatch(/data\/pglite$/);
   });

@@ -3,8 +3,10 @@
  * database or solver. It answers the same messages as the real server the way the transport
  * alone would: hello joins a room and acks; every command is acknowledged at once and, like a
  * real commit, pushes one view of VIEW_BYTES to every socket of the room; when SEATS seals are
- * in (or the facilitator closes) the pushed view reveals the round.
- *   PORT=... HOST=127.0.0.1 SEATS=8 VIEW_BYTES=4000 node --import tsx src/bare-server.ts
+ * in (or the facilitator closes) the pushed view reveals the round. As in the real server, a
+ * seal that does not reveal goes at once only to the sealer and to the rest of the room within
+ * PROGRESS_MS, merged with the other seals of that window (0: to everyone at once).
+ *   PORT=... HOST=127.0.0.1 SEATS=8 VIEW_BYTES=4000 PROGRESS_MS=200 node --import tsx src/bare-server.ts
  */
 import { createServer } from "node:http";
 import { Server } from "socket.io";
@@ -13,6 +15,7 @@ const port = Number(process.env.PORT ?? 0);
 const host = process.env.HOST ?? "127.0.0.1";
 const seats = Number(process.env.SEATS ?? 8);
 const viewBytes = Number(process.env.VIEW_BYTES ?? 2000);
+const progressMs = Number(process.env.PROGRESS_MS ?? 200);
 
 interface Room {
   seq: number;
@@ -20,6 +23,10 @@ interface Room {
   round: number;
   sealed: Set<number>;
   rounds: Array<{ round: number }>;
+  /** the room push waiting for the end of the progress window */
+  pending: ReturnType<typeof setTimeout> | null;
+  /** the socket that already holds the latest progress (the real server skips it too) */
+  lastSealer: string | null;
 }
 
 const rooms = new Map<string, Room>();
@@ -48,7 +55,22 @@ io.on("connection", (socket) => {
 
   function push(room: Room) {
     room.seq++;
+    if (room.pending) clearTimeout(room.pending);
+    room.pending = null;
     io.to(sessionId!).emit("view", { seq: room.seq, view: viewOf(room) });
+  }
+
+  function pushProgress(room: Room) {
+    room.seq++;
+    socket.emit("view", { seq: room.seq, view: viewOf(room) });
+    room.lastSealer = socket.id;
+    const id = sessionId!;
+    room.pending ??= setTimeout(() => {
+      room.pending = null;
+      io.to(id)
+        .except(room.lastSealer ?? [])
+        .emit("view", { seq: room.seq, view: viewOf(room) });
+    }, progressMs);
   }
 
   socket.on("hello", (msg: { credentials: { sessionId: string; key: string } }, ack: Ack) => {
@@ -58,7 +80,15 @@ io.on("connection", (socket) => {
     seatIndex = m ? Number(m[1]) : null;
     let room = rooms.get(sessionId);
     if (!room) {
-      room = { seq: 1, status: "lobby", round: 0, sealed: new Set(), rounds: [] };
+      room = {
+        seq: 1,
+        status: "lobby",
+        round: 0,
+        sealed: new Set(),
+        rounds: [],
+        pending: null,
+        lastSealer: null,
+      };
       rooms.set(sessionId, room);
     }
     void socket.join(sessionId);
@@ -88,8 +118,11 @@ io.on("connection", (socket) => {
       }
       if (cmd.type === "sealMove" && seatIndex !== null) {
         room.sealed.add(seatIndex);
-        if (room.sealed.size >= seats && room.status === "open") reveal();
-        push(room);
+        if (room.sealed.size >= seats && room.status === "open") {
+          reveal();
+          push(room);
+        } else if (progressMs > 0) pushProgress(room);
+        else push(room);
         return ack({
           ok: true,
           data: {

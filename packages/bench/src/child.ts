@@ -177,13 +177,14 @@ export async function startServer(opts: ServerOptions): Promise<Child> {
 
 export async function startBareServer(
   port: number,
-  opts: { seats: number; viewBytes: number },
+  opts: { seats: number; viewBytes: number; progressMs: number },
 ): Promise<Child> {
   const env = {
     PORT: String(port),
     HOST,
     SEATS: String(opts.seats),
     VIEW_BYTES: String(opts.viewBytes),
+    PROGRESS_MS: String(opts.progressMs),
   };
   const child = startChild(BARE_MAIN, env, port);
   await waitForHttp(`${child.url}/health`, child);

@@ -3,7 +3,8 @@
  * same machine in one run, then a check that every acknowledged move is in the event log.
  *   npx tsx src/load.ts                # quick: 20 sessions x 8 seats, 4 rounds
  *   npx tsx src/load.ts --full         # 200 sessions x 8 seats (1,600 seats)
- *   flags: --sessions K --seats S --rounds R --spread ms --close mixed|all-sealed --no-bare --json
+ *   flags: --sessions K --seats S --rounds R --spread ms --close mixed|all-sealed --progress ms
+ *          --no-bare --json
  * Prints numbers and pass/fail against the targets; asserts nothing.
  */
 import { fileURLToPath } from "node:url";
@@ -25,6 +26,8 @@ export interface LoadConfig {
   rounds: number;
   spreadMs: number;
   closeMode: "all-sealed" | "mixed";
+  /** the servers' progress window (PROGRESS_PUSH_MS); 0 pushes every seal to everyone at once */
+  progressMs: number;
   bare: boolean;
 }
 
@@ -57,6 +60,7 @@ export function configFrom(argv: readonly string[]): LoadConfig {
     rounds: intFlag(argv, "rounds", 4, 1),
     spreadMs: intFlag(argv, "spread", 1000, 0),
     closeMode: close,
+    progressMs: intFlag(argv, "progress", 200, 0),
     bare: !hasFlag(argv, "no-bare"),
   };
 }
@@ -66,7 +70,11 @@ const strip = ({ acked: _acked, ...rest }: DriveResult) => rest;
 export async function runLoad(config: LoadConfig, log = console.error): Promise<LoadReport> {
   const loadBefore = loadAverage();
   const port = await freePort();
-  const server = await startServer({ dataDir: tempDir("contend-load-"), port });
+  const server = await startServer({
+    dataDir: tempDir("contend-load-"),
+    port,
+    env: { PROGRESS_PUSH_MS: String(config.progressMs) },
+  });
   let report: LoadReport;
   try {
     const serverStartRssMiB = rssMiB(server.pid) ?? Number.NaN;
@@ -132,7 +140,11 @@ export async function runLoad(config: LoadConfig, log = console.error): Promise<
     if (config.bare) {
       const barePort = await freePort();
       const viewBytes = Number.isFinite(ours.meanViewBytes) ? Math.round(ours.meanViewBytes) : 4000;
-      const bareServer = await startBareServer(barePort, { seats: config.seats, viewBytes });
+      const bareServer = await startBareServer(barePort, {
+        seats: config.seats,
+        viewBytes,
+        progressMs: config.progressMs,
+      });
       try {
         log(`load: bare socket.io baseline (pid ${bareServer.pid}), views of ${viewBytes} bytes`);
         bare = await drive({
@@ -256,7 +268,8 @@ export function formatLoad(r: LoadReport): string {
   return [
     `Load: ${c.sessions} sessions x ${c.seats} human seats (+1 facilitator each), ${c.rounds} rounds,`,
     `seals spread over ${c.spreadMs} ms after each opening, close mode ${c.closeMode}`,
-    `(even rounds closed by the facilitator with one seat missing). Load average before ${r.loadBefore}, after ${r.loadAfter}.`,
+    `(even rounds closed by the facilitator with one seat missing), progress window ${c.progressMs} ms`,
+    `(other seats see a seal within it). Load average before ${r.loadBefore}, after ${r.loadAfter}.`,
     `Database: ${benchDatabase().replace(/\/\/[^@/]*@/, "//")}.`,
     `Sessions created over REST in ${r.createSeconds.toFixed(1)} s. Server RSS at start ${r.serverStartRssMiB.toFixed(1)} MiB;`,
     `peak RSS growth per session ${perSession.toFixed(2)} MiB. ${r.checkedMoves} acked moves checked against the exported logs`,
