@@ -37,6 +37,7 @@ export function groupMember(
 // Bounds one transaction's statements well under PostgreSQL's 65,535 bind parameters.
 const MAX_MEMBERS = 256;
 const MAX_ROWS = 4_000;
+const MAX_IN_FLIGHT = 2;
 
 /**
  * Commits the appends of many sessions in one transaction (group commit): every append
@@ -48,8 +49,10 @@ const MAX_ROWS = 4_000;
  * order of the calls. If the statement fails as a whole (a seq clash with another
  * process, a deadlock between two processes' groups, a lost connection), each member is
  * retried on its own through `single`, which reports or throws for that caller alone.
- * Commits run one after another, each from a fresh turn of the event loop, so timers and
- * socket pings get their turn between them.
+ * Each commit starts from a fresh turn of the event loop, so timers and socket pings get their
+ * turn between them, and up to MAX_IN_FLIGHT run at once: the next group goes to the database
+ * while this thread is still handling the results of the previous one (acks, view pushes),
+ * instead of the two taking turns. Groups in flight never share a session.
  */
 /** F: what the single-append fallback may also return. */
 export function createGroupCommit<F = never>(runner: SqlRunner) {
@@ -61,10 +64,12 @@ export function createGroupCommit<F = never>(runner: SqlRunner) {
   };
   let queue: Waiter[] = [];
   let scheduled = false;
-  let running = false;
+  let inFlight = 0;
+  /** sessions whose append is in a group in flight */
+  const busy = new Set<string>();
 
   function schedule() {
-    if (scheduled || running || queue.length === 0) return;
+    if (scheduled || inFlight >= MAX_IN_FLIGHT || queue.length === 0) return;
     scheduled = true;
     setImmediate(() => {
       scheduled = false;
@@ -82,7 +87,8 @@ export function createGroupCommit<F = never>(runner: SqlRunner) {
         group.length < MAX_MEMBERS &&
         rows + w.member.rows.length <= MAX_ROWS &&
         !sessions.has(w.member.sessionId);
-      if (fits || group.length === 0) {
+      if (busy.has(w.member.sessionId)) rest.push(w);
+      else if (fits || group.length === 0) {
         group.push(w);
         sessions.add(w.member.sessionId);
         rows += w.member.rows.length;
@@ -95,8 +101,11 @@ export function createGroupCommit<F = never>(runner: SqlRunner) {
   }
 
   async function flush() {
-    running = true;
     const group = take();
+    if (group.length === 0) return;
+    inFlight++;
+    for (const w of group) busy.add(w.member.sessionId);
+    schedule();
     try {
       let results: GroupResult[] | null = null;
       try {
@@ -115,7 +124,8 @@ export function createGroupCommit<F = never>(runner: SqlRunner) {
         );
       }
     } finally {
-      running = false;
+      inFlight--;
+      for (const w of group) busy.delete(w.member.sessionId);
       schedule();
     }
   }
