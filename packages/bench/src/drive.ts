@@ -3,10 +3,11 @@
  * and seat, then play rounds in all sessions at once. Every wait is bounded; a missing ack or
  * view is counted, never waited for forever.
  */
+import { monitorEventLoopDelay } from "node:perf_hooks";
 import { mulberry32 } from "@contend/solver";
 import { inBatches, SessionClient, sleep } from "./client";
 import type { AckedMove } from "./api";
-import { cpuSeconds, rssMiB, selfCpuSeconds } from "./proc";
+import { cpuSeconds, mainThreadCpuSeconds, rssMiB, selfCpuSeconds } from "./proc";
 import { summarize } from "./stats";
 import type { Summary } from "./stats";
 
@@ -49,6 +50,13 @@ export interface DriveResult {
   serverCpuSeconds: number;
   serverCpuPercent: number;
   serverCpuMsPerMove: number;
+  /** the server's main thread (event loop) alone, % of one core */
+  serverMainThreadCpuPercent: number;
+  /**
+   * how late the driving process's own event loop ran (ms) during the rounds: time that every
+   * latency above includes on the client side, since all clients share that one loop
+   */
+  clientLoopDelay: { p50: number; p99: number; max: number };
   clientCpuSeconds: number;
   clientCpuPercent: number;
   serverRssAfterConnectMiB: number;
@@ -130,7 +138,10 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
   };
 
   const cpuServer0 = cpuSeconds(opts.serverPid) ?? Number.NaN;
+  const cpuMain0 = mainThreadCpuSeconds(opts.serverPid) ?? Number.NaN;
   const cpuClient0 = selfCpuSeconds();
+  const loopDelay = monitorEventLoopDelay({ resolution: 5 });
+  loopDelay.enable();
   const tRounds = performance.now();
   for (let round = 1; round <= opts.rounds; round++) {
     await Promise.all(
@@ -180,7 +191,14 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
   }
   const roundsSeconds = (performance.now() - tRounds) / 1000;
   const serverCpuSeconds = (cpuSeconds(opts.serverPid) ?? Number.NaN) - cpuServer0;
+  const mainCpuSeconds = (mainThreadCpuSeconds(opts.serverPid) ?? Number.NaN) - cpuMain0;
   const clientCpuSeconds = selfCpuSeconds() - cpuClient0;
+  loopDelay.disable();
+  const clientLoopDelay = {
+    p50: loopDelay.percentile(50) / 1e6,
+    p99: loopDelay.percentile(99) / 1e6,
+    max: loopDelay.max / 1e6,
+  };
   const serverRssEndMiB = rssMiB(opts.serverPid) ?? Number.NaN;
   clearInterval(rssSampler);
 
@@ -210,6 +228,8 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     serverCpuSeconds,
     serverCpuPercent: (100 * serverCpuSeconds) / roundsSeconds,
     serverCpuMsPerMove: (1000 * serverCpuSeconds) / Math.max(1, acked.length),
+    serverMainThreadCpuPercent: (100 * mainCpuSeconds) / roundsSeconds,
+    clientLoopDelay,
     clientCpuSeconds,
     clientCpuPercent: (100 * clientCpuSeconds) / roundsSeconds,
     serverRssAfterConnectMiB,

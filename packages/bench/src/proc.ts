@@ -39,6 +39,21 @@ export function cpuSeconds(pid: number): number | null {
   }
 }
 
+/**
+ * CPU seconds of pid's main thread alone (its task with tid = pid): the event loop that serves
+ * the sockets, without the database, garbage-collector or other threads of the process.
+ */
+export function mainThreadCpuSeconds(pid: number): number | null {
+  try {
+    const { utimeTicks, stimeTicks } = parseStat(
+      readFileSync(`/proc/${pid}/task/${pid}/stat`, "utf8"),
+    );
+    return (utimeTicks + stimeTicks) / clockTicks();
+  } catch {
+    return null;
+  }
+}
+
 /** resident set size in MiB; null once the process is gone */
 export function rssMiB(pid: number): number | null {
   try {
