@@ -1,19 +1,22 @@
 import { describe, expect, it } from "vitest";
 import { createGroupCommit, groupMember } from "../src/repos/group-commit";
-import type { SqlRunner } from "../src/sql-runner";
+import type { PreparedStatement, PreparedValue, SqlRunner } from "../src/sql-runner";
 
 /**
  * A database stand-in that records each group statement and answers only when the test says
- * so, to see how many groups are in flight and which sessions each holds. The statement's
- * parameters are $1 = time, then five per member: index, session id, expected, next, status.
+ * so, to see how many groups are in flight and which sessions each holds ($3 is the array of
+ * the members' session ids).
  */
 function heldRunner() {
   const calls: Array<{ sessions: string[]; answer: () => void }> = [];
   const runner: SqlRunner = {
     transaction: () => Promise.reject(new Error("not used")),
-    query: <Row extends Record<string, unknown>>(_sql: string, params: unknown[] = []) => {
-      const sessions: string[] = [];
-      for (let i = 0; params[1 + 5 * i] === i; i++) sessions.push(params[2 + 5 * i] as string);
+    query: () => Promise.reject(new Error("not used")),
+    prepared: <Row extends Record<string, unknown>>(
+      _statement: PreparedStatement,
+      params: readonly PreparedValue[],
+    ) => {
+      const sessions = [...(params[2] as string[])];
       return new Promise<Row[]>((resolve) => {
         calls.push({
           sessions,

@@ -1,4 +1,4 @@
-import type { SqlRunner } from "../sql-runner";
+import type { PreparedStatement, SqlRunner } from "../sql-runner";
 import type { NewEvent } from "../types";
 import { jsonText } from "./rows";
 
@@ -34,7 +34,7 @@ export function groupMember(
   };
 }
 
-// Bounds one transaction's statements well under PostgreSQL's 65,535 bind parameters.
+// Bounds the size of one transaction.
 const MAX_MEMBERS = 256;
 const MAX_ROWS = 4_000;
 const MAX_IN_FLIGHT = 2;
@@ -144,41 +144,63 @@ export function createGroupCommit<F = never>(runner: SqlRunner) {
 /**
  * The whole group in one statement (one round trip, its own transaction): data-modifying CTEs
  * run exactly once and atomically, the INSERT takes only the rows of sessions whose version
- * check passed, and the final SELECT says which members won.
+ * check passed, and the final SELECT says which members won. Members and rows travel as
+ * arrays, so the text never changes and the statement is prepared once per connection.
  */
-async function commitGroup(runner: SqlRunner, members: GroupMember[]): Promise<GroupResult[]> {
-  const params: unknown[] = [new Date().toISOString()];
-  const bind = (value: unknown, type: string) => {
-    params.push(value);
-    return `$${params.length}::${type}`;
-  };
-  const versions = members.map(
-    (m, i) =>
-      `(${bind(i, "int")}, ${bind(m.sessionId, "text")}, ${bind(m.expectedLastSeq, "int")}, ${bind(m.expectedLastSeq + m.rows.length, "int")}, ${bind(m.status ?? null, "text")})`,
-  );
-  const rows = members.flatMap((m) =>
-    m.rows.map(
-      (row, i) =>
-        `(${bind(m.sessionId, "text")}, ${bind(m.expectedLastSeq + 1 + i, "int")}, ${bind(row.type, "text")}, ${bind(row.at, "timestamptz")}, ${bind(row.payload, "jsonb")})`,
-    ),
-  );
-  const result = await runner.query<{ i: number; won: boolean }>(
-    `WITH v(i, id, expected, next, status) AS (VALUES ${versions.join(", ")}),
+const GROUP_COMMIT: PreparedStatement = {
+  name: "contend_group_commit",
+  types: [
+    "timestamptz",
+    "int[]",
+    "text[]",
+    "int[]",
+    "int[]",
+    "text[]",
+    "text[]",
+    "int[]",
+    "text[]",
+    "timestamptz[]",
+    "jsonb[]",
+  ],
+  sql: `WITH v AS (
+       SELECT * FROM unnest($2::int[], $3::text[], $4::int[], $5::int[], $6::text[])
+         AS v(i, id, expected, next, status)
+     ),
      moved AS (
        UPDATE "Session" AS s SET "lastSeq" = v.next, "status" = COALESCE(v.status, s."status"),
          "updatedAt" = $1::timestamptz
        FROM v WHERE s."id" = v.id AND s."lastSeq" = v.expected
        RETURNING s."id"
      ),
-     r("sessionId", "seq", "type", "at", "payload") AS (VALUES ${rows.join(", ")}),
+     r AS (
+       SELECT * FROM unnest($7::text[], $8::int[], $9::text[], $10::timestamptz[], $11::jsonb[])
+         AS r("sessionId", "seq", "type", "at", "payload")
+     ),
      ins AS (
        INSERT INTO "Event" ("sessionId", "seq", "type", "at", "payload")
        SELECT r.* FROM r JOIN moved ON moved."id" = r."sessionId"
      )
      SELECT v.i, moved."id" IS NOT NULL AS won FROM v LEFT JOIN moved ON moved."id" = v.id
      ORDER BY v.i`,
-    params,
+};
+
+async function commitGroup(runner: SqlRunner, members: GroupMember[]): Promise<GroupResult[]> {
+  const rows = members.flatMap((m) =>
+    m.rows.map((row, k) => ({ sessionId: m.sessionId, seq: m.expectedLastSeq + 1 + k, ...row })),
   );
+  const result = await runner.prepared<{ i: number; won: boolean }>(GROUP_COMMIT, [
+    new Date().toISOString(),
+    members.map((_, i) => i),
+    members.map((m) => m.sessionId),
+    members.map((m) => m.expectedLastSeq),
+    members.map((m) => m.expectedLastSeq + m.rows.length),
+    members.map((m) => m.status ?? null),
+    rows.map((r) => r.sessionId),
+    rows.map((r) => r.seq),
+    rows.map((r) => r.type),
+    rows.map((r) => r.at),
+    rows.map((r) => r.payload),
+  ]);
   const won = members.map((_, i) => {
     const row = result[i];
     if (!row || Number(row.i) !== i) throw new Error("group commit: a member's outcome is missing");
