@@ -1,8 +1,9 @@
 /**
  * The live sessions of this process: each session's folded state, its round clock and the
- * one queue its commands pass through. The pipeline for every command is
- *   decide (pure engine) -> append to the database (the seq check is the authority)
- *   -> apply -> arm the clock -> notify (views are pushed by the caller's listener).
+ * one queue its commands pass through. The pipeline for every batch of commands (those of
+ * one session that arrived while its previous batch was committing) is
+ *   decide each in turn (pure engine) -> one append to the database (the seq check is the
+ *   authority) -> apply -> arm the clock -> notify (views are pushed by the caller's listener).
  * Nothing is acknowledged before the database has committed it.
  */
 import type { AppendEffects, Database, KeyInput, NewEvent, StoredEvent } from "@contend/db";
@@ -28,6 +29,33 @@ export type ExecuteResult =
 export interface ExecuteOptions {
   /** keys stored in the same transaction as the events (e.g. the key of a claimed seat) */
   addKeys?: KeyInput[];
+}
+
+interface Request {
+  command: EngineCommand;
+  actor: Actor;
+  options: ExecuteOptions;
+}
+
+interface Pending extends Request {
+  resolve: (result: ExecuteResult) => void;
+  reject: (error: unknown) => void;
+}
+
+/** Most commands one append carries. */
+const MAX_BATCH = 64;
+
+function batchable(r: Request): boolean {
+  return !r.options.addKeys?.length && r.command.type !== "claimSeat";
+}
+
+/** The first waiting command and, if it is plain, the plain ones right behind it. */
+function takeBatch(waiting: Pending[]): Pending[] {
+  let n = 1;
+  if (batchable(waiting[0]!)) {
+    while (n < waiting.length && n < MAX_BATCH && batchable(waiting[n]!)) n++;
+  }
+  return waiting.splice(0, n);
 }
 
 export type CommitListener = (live: LiveSession, events: SessionEvent[]) => void;
@@ -153,39 +181,56 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
     }, at - clock.now());
   }
 
-  async function commit(
-    live: LiveSession,
-    command: EngineCommand,
-    actor: Actor,
-    options: ExecuteOptions,
-  ): Promise<ExecuteResult> {
+  /**
+   * Decides the requests one after another, each on the state the ones before it left, and
+   * commits all their events in one append (with an all-sealed close right behind the seal
+   * that caused it). Each request gets the result it would have got alone; a conflict with
+   * another writer reloads the log and decides the whole batch again, once.
+   */
+  async function commit(live: LiveSession, requests: Request[]): Promise<ExecuteResult[]> {
     for (let attempt = 0; ; attempt++) {
       const now = clock.now();
-      const decision = decide(live.state, command, { now, actor });
-      if (!decision.ok) return decision;
-      if (decision.events.length === 0) {
-        return { ok: true, seq: live.state.seq, data: decision.data, events: [] };
-      }
       const base = live.state.seq;
       const at = Math.max(now, live.state.status === "empty" ? 0 : live.state.at);
-      const bodies = [...decision.events];
-      const stamp = (e: EventBody, i: number) => ({ ...e, seq: base + 1 + i, at }) as SessionEvent;
-      let trial = bodies.map(stamp).reduce(apply, live.state);
-      // When the last active seat has sealed, the round closes in the same append: one commit,
-      // one push, and no command can slip in between the last seal and the close.
-      if (allSealed(trial)) {
-        const closing = decide(trial, ALL_SEALED, { now, actor: SYSTEM });
-        if (closing.ok) {
-          const first = bodies.length;
-          bodies.push(...closing.events);
-          trial = bodies
-            .slice(first)
-            .map((e, i) => stamp(e, first + i))
-            .reduce(apply, trial);
-        } else logger.warn("all-sealed close failed", { sessionId: live.id, code: closing.code });
-      }
-      const stamped = bodies.map(stamp);
-      const effects = effectsOf(bodies, options);
+      const bodies: EventBody[] = [];
+      let trial = live.state;
+      const add = (events: readonly EventBody[]) => {
+        for (const e of events) {
+          bodies.push(e);
+          trial = apply(trial, { ...e, seq: base + bodies.length, at } as SessionEvent);
+        }
+      };
+      const outcomes = requests.map((req) => {
+        const decision = decide(trial, req.command, { now, actor: req.actor });
+        if (!decision.ok) return decision;
+        const from = bodies.length;
+        add(decision.events);
+        // When the last active seat has sealed, the round closes in the same append: one
+        // commit, one push, and no command can slip in between the last seal and the close.
+        if (decision.events.length > 0 && allSealed(trial)) {
+          const closing = decide(trial, ALL_SEALED, { now, actor: SYSTEM });
+          if (closing.ok) add(closing.events);
+          else logger.warn("all-sealed close failed", { sessionId: live.id, code: closing.code });
+        }
+        return { data: decision.data, from, to: bodies.length };
+      });
+      const settle = (events: SessionEvent[]): ExecuteResult[] =>
+        outcomes.map((o) =>
+          "ok" in o
+            ? o
+            : {
+                ok: true,
+                seq: base + o.to,
+                data: o.data,
+                events: events.slice(o.from, o.to),
+              },
+        );
+      if (bodies.length === 0) return settle([]);
+      const stamped = bodies.map((e, i) => ({ ...e, seq: base + 1 + i, at }) as SessionEvent);
+      const effects = effectsOf(
+        bodies,
+        requests.flatMap((r) => r.options.addKeys ?? []),
+      );
       if (trial.status !== live.state.status && trial.status !== "empty")
         effects.status = trial.status;
       const result = await db.events.append(live.id, base, stamped.map(toNewEvent), effects);
@@ -195,43 +240,76 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
         // is then exactly what a restart or a replay folds from the same rows.
         const ours = stamped.map((e, i) => asStored(e, result.seqs[i] ?? e.seq));
         applyAll(live, ours);
-        return { ok: true, seq: live.state.seq, data: decision.data, events: ours };
+        return settle(ours);
       }
-      if (result.code === "not-found")
-        return { ok: false, code: "not-found", message: "no such session" };
+      const failed = (code: ErrorCode, message: string): ExecuteResult[] =>
+        requests.map(() => ({ ok: false, code, message }));
+      if (result.code === "not-found") return failed("not-found", "no such session");
       if (result.code === "seat-claimed") {
         await catchUp(live);
-        return {
-          ok: false,
-          code: "conflict",
-          message: `seat ${result.seatIndex} is already taken`,
-        };
+        return failed("conflict", `seat ${result.seatIndex} is already taken`);
       }
       // conflict: someone else appended first; reload and decide again, once.
       await catchUp(live);
-      if (attempt >= 1) {
-        return { ok: false, code: "conflict", message: "the session changed meanwhile; try again" };
-      }
+      if (attempt >= 1) return failed("conflict", "the session changed meanwhile; try again");
     }
   }
 
-  async function execute(
+  /** commands waiting for their session's turn, in arrival order */
+  const inbox = new Map<string, Pending[]>();
+
+  /**
+   * Commands of one session are handled one batch at a time. Whatever arrived while the
+   * previous batch was being committed goes together in the next (plain commands only: a
+   * seat claim or a command that stores keys goes alone, so its failure is its own), so seals
+   * that arrive together cost one append and one push, and none waits behind a chain of
+   * single commits.
+   */
+  function execute(
     sessionId: string,
     command: EngineCommand,
     actor: Actor,
     options: ExecuteOptions = {},
   ): Promise<ExecuteResult> {
-    return queue.run(sessionId, async () => {
-      if (closed) return { ok: false, code: "internal", message: "the server is shutting down" };
-      const live = await get(sessionId);
-      if (!live) return { ok: false, code: "not-found", message: "no such session" };
-      const result = await commit(live, command, actor, options);
-      armClock(live);
-      if (result.ok && result.events.length > 0) notify(live, result.events);
-      // An ended session never changes again; a later hello reloads it from the log.
-      if (live.state.status === "ended") sessions.delete(sessionId);
-      return result;
+    return new Promise((resolve, reject) => {
+      let waiting = inbox.get(sessionId);
+      const idle = !waiting;
+      if (!waiting) inbox.set(sessionId, (waiting = []));
+      waiting.push({ command, actor, options, resolve, reject });
+      if (idle) void queue.run(sessionId, () => drain(sessionId));
     });
+  }
+
+  async function drain(sessionId: string) {
+    for (;;) {
+      const waiting = inbox.get(sessionId);
+      if (!waiting || waiting.length === 0) {
+        inbox.delete(sessionId);
+        return;
+      }
+      const batch = takeBatch(waiting);
+      try {
+        const results = await runBatch(sessionId, batch);
+        batch.forEach((p, i) => p.resolve(results[i]!));
+      } catch (error) {
+        for (const p of batch) p.reject(error);
+      }
+    }
+  }
+
+  async function runBatch(sessionId: string, batch: Request[]): Promise<ExecuteResult[]> {
+    const refuse = (code: ErrorCode, message: string): ExecuteResult[] =>
+      batch.map(() => ({ ok: false, code, message }));
+    if (closed) return refuse("internal", "the server is shutting down");
+    const live = await get(sessionId);
+    if (!live) return refuse("not-found", "no such session");
+    const results = await commit(live, batch);
+    armClock(live);
+    const events = results.flatMap((r) => (r.ok ? r.events : []));
+    if (events.length > 0) notify(live, events);
+    // An ended session never changes again; a later hello reloads it from the log.
+    if (live.state.status === "ended") sessions.delete(sessionId);
+    return results;
   }
 
   function notify(live: LiveSession, events: SessionEvent[]) {
@@ -281,12 +359,12 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
 }
 
 /** Seat rows and keys that must change in the same transaction as the events. */
-function effectsOf(events: readonly EventBody[], options: ExecuteOptions): AppendEffects {
+function effectsOf(events: readonly EventBody[], addKeys: KeyInput[]): AppendEffects {
   const effects: AppendEffects = {};
   const claims = events.flatMap((e) =>
     e.type === "seat-claimed" ? [{ seatIndex: e.seatIndex, displayName: e.displayName }] : [],
   );
   if (claims.length > 0) effects.claimSeats = claims;
-  if (options.addKeys?.length) effects.addKeys = options.addKeys;
+  if (addKeys.length > 0) effects.addKeys = addKeys;
   return effects;
 }
