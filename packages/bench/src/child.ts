@@ -5,7 +5,7 @@
  */
 import { spawn } from "node:child_process";
 import type { ChildProcess } from "node:child_process";
-import { mkdtempSync, rmSync } from "node:fs";
+import { mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { createServer } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -14,6 +14,17 @@ import { fileURLToPath } from "node:url";
 const here = path.dirname(fileURLToPath(import.meta.url));
 export const REPO_ROOT = path.resolve(here, "../../..");
 export const SERVER_MAIN = path.join(REPO_ROOT, "apps/server/src/main.ts");
+
+/**
+ * The Node flags `npm start` gives the server (apps/server/package.json, config.nodeOptions),
+ * given here to both the real server and the bare baseline, so both run as deployed.
+ */
+export function serverNodeFlags(): string[] {
+  const pkg = JSON.parse(
+    readFileSync(path.join(REPO_ROOT, "apps/server/package.json"), "utf8"),
+  ) as { config?: { nodeOptions?: string } };
+  return (pkg.config?.nodeOptions ?? "").split(" ").filter(Boolean);
+}
 export const BARE_MAIN = path.join(here, "bare-server.ts");
 export const HOST = "127.0.0.1";
 
@@ -75,11 +86,15 @@ function startChild(script: string, env: Record<string, string>, port: number): 
   hookExit();
   // BENCH_NODE_ARGS adds flags to the children, e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof"
   const extra = (process.env.BENCH_NODE_ARGS ?? "").split(" ").filter(Boolean);
-  const proc = spawn(process.execPath, [...extra, "--import", "tsx", script], {
-    cwd: REPO_ROOT,
-    env: { ...process.env, ...env },
-    stdio: ["ignore", "pipe", "pipe"],
-  });
+  const proc = spawn(
+    process.execPath,
+    [...serverNodeFlags(), ...extra, "--import", "tsx", script],
+    {
+      cwd: REPO_ROOT,
+      env: { ...process.env, ...env },
+      stdio: ["ignore", "pipe", "pipe"],
+    },
+  );
   children.add(proc);
   const lines: string[] = [];
   const problemLines: string[] = [];

@@ -10,7 +10,14 @@
 import { fileURLToPath } from "node:url";
 import { createSession, exportEvents, kioskScenario, missingMoves } from "./api";
 import type { ExportedEvent } from "./api";
-import { benchDatabase, freePort, startBareServer, startServer, tempDir } from "./child";
+import {
+  benchDatabase,
+  freePort,
+  serverNodeFlags,
+  startBareServer,
+  startServer,
+  tempDir,
+} from "./child";
 import { inBatches, SessionClient } from "./client";
 import { drive } from "./drive";
 import type { DriveResult, SessionPlan } from "./drive";
@@ -273,7 +280,7 @@ export function formatLoad(r: LoadReport): string {
     `seals spread over ${c.spreadMs} ms after each opening, close mode ${c.closeMode}`,
     `(even rounds closed by the facilitator with one seat missing), progress window ${c.progressMs} ms`,
     `(other seats see a seal within it). Load average before ${r.loadBefore}, after ${r.loadAfter}.`,
-    `Database: ${benchDatabase().replace(/\/\/[^@/]*@/, "//")}.`,
+    `Database: ${benchDatabase().replace(/\/\/[^@/]*@/, "//")}. Node flags of both servers: ${serverNodeFlags().join(" ") || "none"}.`,
     `Sessions created over REST in ${r.createSeconds.toFixed(1)} s. Server RSS at start ${r.serverStartRssMiB.toFixed(1)} MiB;`,
     `peak RSS growth per session ${perSession.toFixed(2)} MiB. ${r.checkedMoves} acked moves checked against the exported logs`,
     `after a drain (${r.drainFailures} drain failures): ${r.lostMoves} lost.`,
