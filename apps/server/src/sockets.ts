@@ -156,11 +156,11 @@ export function attachSockets(deps: SocketDeps) {
 
   /**
    * After every commit. A commit that only seals moves changes, for everyone but the sealers,
-   * one `sealed` flag: the sealers' own sockets get it at once and everyone else within
-   * `limits.progressPushMs` (short enough to read as live on a progress display, long enough
-   * to merge the seals of a busy round), merged with any other seals in that window (one frame instead of one per
-   * seal). Any other commit (a round opening or resolving, a pause, a shock) goes to every
-   * socket at once and takes the waiting progress with it.
+   * one `sealed` flag: the sealers' own sockets get it at once, everyone else within
+   * `limits.progressPushMs` as one frame for all the seals of that window (short enough to
+   * read as live on a progress display, long enough to merge the seals of a busy round). Any
+   * other commit (a round opening or resolving, a pause, a shock) goes to every socket at once
+   * and takes the waiting progress with it.
    */
   hub.onCommit((live, events) => {
     const room = rooms.get(live.id);
