@@ -41,6 +41,7 @@ function escapeToken(key: string): string {
 }
 
 function unescapeToken(token: string): string {
+  if (!token.includes("~")) return token;
   return token.replace(/~1/g, "/").replace(/~0/g, "~");
 }
 
@@ -119,18 +120,21 @@ export class PatchError extends Error {}
  */
 export function applyPatch<T>(doc: T, ops: readonly PatchOp[]): T {
   let root: Json = doc;
-  for (const op of ops) root = applyOne(root, op);
+  // Containers this call has copied already: later operations change them in place, so a
+  // patch of many operations under one array copies that array once, not once per operation.
+  const copies = new Set<object>();
+  for (const op of ops) root = applyOne(root, op, copies);
   return root as T;
 }
 
-function applyOne(root: Json, op: PatchOp): Json {
+function applyOne(root: Json, op: PatchOp, copies: Set<object>): Json {
   if (op.path === "") {
     if (op.op === "remove") throw new PatchError("cannot remove the whole document");
     return op.value;
   }
   if (!op.path.startsWith("/")) throw new PatchError(`bad JSON Pointer ${op.path}`);
   const tokens = op.path.slice(1).split("/").map(unescapeToken);
-  return update(root, tokens, 0, op);
+  return update(root, tokens, 0, op, copies);
 }
 
 function arrayIndex(token: string, length: number, allowEnd: boolean): number {
@@ -143,16 +147,26 @@ function arrayIndex(token: string, length: number, allowEnd: boolean): number {
 
 /** A plain own property even for a key like "__proto__", which `o[k] = v` would not make. */
 function setMember(o: JsonObject, key: string, value: Json) {
-  Object.defineProperty(o, key, { value, enumerable: true, writable: true, configurable: true });
+  // Assignment is much faster, and makes an own data property for every key but this one
+  // (Object.prototype has no other setter).
+  if (key !== "__proto__") o[key] = value;
+  else
+    Object.defineProperty(o, key, { value, enumerable: true, writable: true, configurable: true });
 }
 
-function update(node: Json, tokens: string[], depth: number, op: PatchOp): Json {
+function update(
+  node: Json,
+  tokens: string[],
+  depth: number,
+  op: PatchOp,
+  copies: Set<object>,
+): Json {
   const token = tokens[depth]!;
   const last = depth === tokens.length - 1;
   if (Array.isArray(node)) {
     const i = arrayIndex(token, node.length, last && op.op === "add");
-    const copy = node.slice();
-    if (!last) copy[i] = update(node[i], tokens, depth + 1, op);
+    const copy = copies.has(node) ? node : owned(node.slice(), copies);
+    if (!last) copy[i] = update(node[i], tokens, depth + 1, op, copies);
     else if (op.op === "add") copy.splice(i, 0, op.value);
     else if (op.op === "remove") copy.splice(i, 1);
     else copy[i] = op.value;
@@ -160,19 +174,20 @@ function update(node: Json, tokens: string[], depth: number, op: PatchOp): Json 
   }
   if (isObject(node)) {
     const has = Object.prototype.hasOwnProperty.call(node, token);
-    if (!last) {
-      if (!has) throw new PatchError(`no member ${token}`);
-      const copy: JsonObject = { ...node };
-      setMember(copy, token, update(node[token], tokens, depth + 1, op));
-      return copy;
-    }
-    if (op.op !== "add" && !has) throw new PatchError(`no member ${token} to ${op.op}`);
-    const copy: JsonObject = { ...node };
-    if (op.op === "remove") delete copy[token];
+    if (!last && !has) throw new PatchError(`no member ${token}`);
+    if (last && op.op !== "add" && !has) throw new PatchError(`no member ${token} to ${op.op}`);
+    const copy: JsonObject = copies.has(node) ? node : owned({ ...node }, copies);
+    if (!last) setMember(copy, token, update(node[token], tokens, depth + 1, op, copies));
+    else if (op.op === "remove") delete copy[token];
     else setMember(copy, token, op.value);
     return copy;
   }
   throw new PatchError(`cannot descend into a ${node === null ? "null" : typeof node}`);
+}
+
+function owned<T extends object>(copy: T, copies: Set<object>): T {
+  copies.add(copy);
+  return copy;
 }
 
 /**

@@ -112,6 +112,40 @@ describe("diffJson / applyPatch", () => {
     expect(seats[1]!.sealed).toBe(false);
   });
 
+  it("many operations in one patch give what they give one at a time, leaving doc, the ops' values and other branches alone", () => {
+    fc.assert(
+      fc.property(related, ([a, b]) => {
+        const before = clone(a);
+        const ops = diffJson(a, b);
+        const opsBefore = clone(ops);
+        const stepwise = ops.reduce<unknown>((doc, op) => applyPatch(doc, [op]), a);
+        const together = applyPatch(a, ops);
+        expect(together).toEqual(stepwise);
+        expect(a).toEqual(before);
+        expect(ops).toEqual(opsBefore);
+      }),
+      { numRuns: 400 },
+    );
+    // A value added by one operation and changed by a later one is copied, not mutated.
+    const added = { n: 1 };
+    const out = applyPatch({ list: [] as unknown[] }, [
+      { op: "add", path: "/list/-", value: added },
+      { op: "replace", path: "/list/0/n", value: 2 },
+      { op: "add", path: "/list/-", value: 3 },
+    ]);
+    expect(out).toEqual({ list: [{ n: 2 }, 3] });
+    expect(added).toEqual({ n: 1 });
+    const seats = [{ s: false }, { s: false }, { s: false }];
+    const view = { seats, rounds: [1] };
+    const next = applyPatch(view, [
+      { op: "replace", path: "/seats/0/s", value: true },
+      { op: "replace", path: "/seats/2/s", value: true },
+    ]);
+    expect(next.seats[1]).toBe(seats[1]);
+    expect(next.rounds).toBe(view.rounds);
+    expect(seats.map((x) => x.s)).toEqual([false, false, false]);
+  });
+
   it("an object key holding undefined counts as absent, as in JSON", () => {
     expect(diffJson({ a: 1, b: undefined }, { a: 1 })).toEqual([]);
     expect(diffJson({ a: 1 }, { a: 1, b: undefined })).toEqual([]);
