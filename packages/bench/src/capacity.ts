@@ -6,12 +6,10 @@
  */
 import { fileURLToPath } from "node:url";
 import { flag } from "./flags";
-import { configFrom, runLoad } from "./load";
+import { configFrom, REVEAL_P99_TARGET_MS, runLoad } from "./load";
 import type { LoadReport } from "./load";
 import { ratio } from "./stats";
 import { markdownTable } from "./table";
-
-export const REVEAL_P99_TARGET_MS = 100;
 
 /** "50,100,150" -> [50, 100, 150]; refuses anything but positive integers. */
 export function parseSizes(text: string): number[] {
