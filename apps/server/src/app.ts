@@ -17,6 +17,8 @@ import { sendError, sendText } from "./http/io";
 import { createRestHandler } from "./http/rest";
 import { createSessionHub } from "./live/hub";
 import type { SessionHub } from "./live/hub";
+import { eventLoopGauge } from "./loadGauge";
+import type { LoadGauge } from "./loadGauge";
 import { silentLogger } from "./logger";
 import type { Logger } from "./logger";
 import { attachSockets } from "./sockets";
@@ -39,6 +41,8 @@ export interface ApplicationDeps {
   publicUrl?: string | null;
   /** origins allowed to open sockets besides the server's own (e.g. a separate dev server) */
   allowedOrigins?: string[];
+  /** how busy the process is (default: its event-loop utilisation) */
+  load?: LoadGauge;
 }
 
 export interface Application {
@@ -58,6 +62,7 @@ export function createApplication(deps: ApplicationDeps): Application {
   const logger = deps.logger ?? silentLogger;
   const limits: Limits = { ...DEFAULT_LIMITS, ...deps.limits };
   const hub = createSessionHub({ db: deps.db, clock, logger });
+  const load = deps.load ?? eventLoopGauge();
   const api = createRestHandler({
     db: deps.db,
     clock,
@@ -115,6 +120,7 @@ export function createApplication(deps: ApplicationDeps): Application {
     logger,
     limits,
     publicUrl: deps.publicUrl ?? null,
+    load,
   });
 
   let closing: Promise<void> | null = null;
@@ -139,6 +145,7 @@ export function createApplication(deps: ApplicationDeps): Application {
       closing ??= (async () => {
         await hub.close();
         sockets.stop();
+        load.stop();
         // io.close() disconnects every client and closes the HTTP server as well.
         await new Promise<void>((resolve) => {
           io.close(() => resolve());

@@ -39,6 +39,8 @@ const EnvSchema = z.object({
   MAX_BODY_BYTES: positiveInt(256 * 1024),
   /** ms another seat's seal may wait to reach the rest of a session, merged with others; 0: at once */
   PROGRESS_PUSH_MS: z.coerce.number().int().min(0).max(5_000).default(200),
+  /** the same window when the event loop is near full (longer merges fewer frames); see loadGauge.ts */
+  PROGRESS_PUSH_BUSY_MS: z.coerce.number().int().min(0).max(5_000).default(1_000),
   /** "off" skips creating the demo session on an empty database */
   DEMO: z.enum(["on", "off"]).default("on"),
   LOG_LEVEL: z.enum(["debug", "info", "warn", "error"]).default("info"),
@@ -67,6 +69,8 @@ export interface Limits {
   maxBodyBytes: number;
   /** see PROGRESS_PUSH_MS */
   progressPushMs: number;
+  /** see PROGRESS_PUSH_BUSY_MS; at or below progressPushMs the window never stretches */
+  progressPushBusyMs: number;
 }
 
 export const DEFAULT_LIMITS: Limits = {
@@ -75,6 +79,7 @@ export const DEFAULT_LIMITS: Limits = {
   maxMessageBytes: 64 * 1024,
   maxBodyBytes: 256 * 1024,
   progressPushMs: 200,
+  progressPushBusyMs: 1_000,
 };
 
 /** Parses an environment (process.env by default); throws with every problem listed. */
@@ -106,6 +111,7 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
       maxMessageBytes: e.MAX_MESSAGE_BYTES,
       maxBodyBytes: e.MAX_BODY_BYTES,
       progressPushMs: e.PROGRESS_PUSH_MS,
+      progressPushBusyMs: e.PROGRESS_PUSH_BUSY_MS,
     },
     demo: e.DEMO === "on",
     logLevel: e.LOG_LEVEL,

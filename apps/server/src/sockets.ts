@@ -35,6 +35,8 @@ import type { Clock } from "./clock";
 import type { Limits } from "./env";
 import type { ExecuteResult, LiveSession, SessionHub } from "./live/hub";
 import { baseUrlOf, sessionLinks } from "./live/links";
+import { progressWindowMs } from "./loadGauge";
+import type { LoadGauge } from "./loadGauge";
 import type { Logger } from "./logger";
 import { createTokenBucket } from "./rateLimit";
 import type { TokenBucket } from "./rateLimit";
@@ -86,10 +88,12 @@ export interface SocketDeps {
   limits: Limits;
   /** base of the links issueLinks returns; null: the Host the socket connected to */
   publicUrl: string | null;
+  /** how busy the process is; stretches the progress window under load */
+  load: LoadGauge;
 }
 
 export function attachSockets(deps: SocketDeps) {
-  const { io, db, hub, clock, logger, limits, publicUrl } = deps;
+  const { io, db, hub, clock, logger, limits, publicUrl, load } = deps;
   /** sockets that said hello, by session */
   const rooms = new Map<string, Set<AppSocket>>();
 
@@ -158,9 +162,10 @@ export function attachSockets(deps: SocketDeps) {
    * After every commit. A commit that only seals moves changes, for everyone but the sealers,
    * one `sealed` flag: the sealers' own sockets get it at once, everyone else within
    * `limits.progressPushMs` as one frame for all the seals of that window (short enough to
-   * read as live on a progress display, long enough to merge the seals of a busy round). Any
-   * other commit (a round opening or resolving, a pause, a shock) goes to every socket at once
-   * and takes the waiting progress with it.
+   * read as live on a progress display, long enough to merge the seals of a busy round), and
+   * up to `limits.progressPushBusyMs` while the event loop is near full. Any other commit (a
+   * round opening or resolving, a pause, a shock) goes to every socket at once and takes the
+   * waiting progress with it.
    */
   hub.onCommit((live, events) => {
     const room = rooms.get(live.id);
@@ -180,11 +185,14 @@ export function attachSockets(deps: SocketDeps) {
       ),
     );
     if (pendingProgress.has(live.id)) return;
-    const timer = setTimeout(() => {
-      pendingProgress.delete(live.id);
-      const current = rooms.get(live.id);
-      if (current) push(live, current);
-    }, limits.progressPushMs);
+    const timer = setTimeout(
+      () => {
+        pendingProgress.delete(live.id);
+        const current = rooms.get(live.id);
+        if (current) push(live, current);
+      },
+      progressWindowMs(limits.progressPushMs, limits.progressPushBusyMs, load.busy()),
+    );
     timer.unref();
     pendingProgress.set(live.id, timer);
   });

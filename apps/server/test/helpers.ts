@@ -22,6 +22,7 @@ import { afterAll, beforeAll, inject } from "vitest";
 import { createApplication } from "../src/app";
 import type { Application, ApplicationDeps } from "../src/app";
 import type { Clock } from "../src/clock";
+import { fixedGauge } from "../src/loadGauge";
 import { toSessionEvent } from "../src/live/hub";
 
 export interface TestServer {
@@ -50,7 +51,8 @@ export async function startServer(
   const dataDir = opts.dataDir ?? freshDataDir();
   const db = await openDatabase({ url: dataDir });
   const { dataDir: _d, ...deps } = opts;
-  const app = createApplication({ ...deps, db });
+  // A fixed quiet reading: the test machine's own load must not change the progress window.
+  const app = createApplication({ load: fixedGauge(0), ...deps, db });
   await app.restore();
   const { port } = await app.listen(0, "127.0.0.1");
   let stopped = false;

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { createManualClock } from "../src/clock";
 import { parseEnv } from "../src/env";
 import { toCsv } from "../src/http/csv";
+import { BUSY_FROM, BUSY_FULL, eventLoopGauge, progressWindowMs } from "../src/loadGauge";
 import { createTokenBucket } from "../src/rateLimit";
 import { createSerialQueue } from "../src/serialQueue";
 
@@ -92,8 +93,17 @@ describe("parseEnv(source)", () => {
       maxMessageBytes: 65536,
       maxBodyBytes: 262144,
       progressPushMs: 200,
+      progressPushBusyMs: 1000,
     });
     expect(env.databaseUrl).toMatch(/data\/pglite$/);
+  });
+
+  it("parseEnv reads PROGRESS_PUSH_BUSY_MS and rejects one out of range, naming it", () => {
+    expect(parseEnv({ PROGRESS_PUSH_BUSY_MS: "2500", WEB: "off" }).limits.progressPushBusyMs).toBe(
+      2500,
+    );
+    expect(() => parseEnv({ PROGRESS_PUSH_BUSY_MS: "9000" })).toThrow(/PROGRESS_PUSH_BUSY_MS/);
+    expect(() => parseEnv({ PROGRESS_PUSH_BUSY_MS: "-1" })).toThrow(/PROGRESS_PUSH_BUSY_MS/);
   });
 
   it("parseEnv rejects a non-numeric PORT naming the variable", () => {
@@ -119,5 +129,49 @@ describe("toCsv(header, rows)", () => {
       ],
     );
     expect(text).toBe('a,b,c\r\n"x,y","say ""hi""",1.5\r\n\'=SUM(A1),,true\r\n');
+  });
+});
+
+describe("progressWindowMs(quiet, busy, reading)", () => {
+  it("keeps the quiet window up to BUSY_FROM and the busy one from BUSY_FULL", () => {
+    for (const r of [0, 0.3, BUSY_FROM, Number.NaN])
+      expect(progressWindowMs(200, 1000, r)).toBe(200);
+    for (const r of [BUSY_FULL, 0.95, 1]) expect(progressWindowMs(200, 1000, r)).toBe(1000);
+  });
+
+  it("moves linearly in between: halfway there is the mean of the two windows", () => {
+    expect(progressWindowMs(200, 1000, (BUSY_FROM + BUSY_FULL) / 2)).toBe(600);
+    let previous = 200;
+    for (let r = BUSY_FROM; r <= BUSY_FULL; r += 0.01) {
+      const w = progressWindowMs(200, 1000, r);
+      expect(w).toBeGreaterThanOrEqual(previous);
+      previous = w;
+    }
+  });
+
+  it("never shortens the quiet window: a busy window below it is read as the quiet one", () => {
+    for (const r of [0, 0.75, 1]) expect(progressWindowMs(500, 100, r)).toBe(500);
+    for (const r of [0, 1]) expect(progressWindowMs(0, 0, r)).toBe(0);
+  });
+});
+
+describe("eventLoopGauge()", () => {
+  it("reads high after the loop was kept busy for several periods, and low when idle", async () => {
+    const gauge = eventLoopGauge(100);
+    try {
+      await new Promise((r) => setTimeout(r, 250));
+      // idle: the loop waited for the timer the whole time (a loaded machine delays the timer,
+      // not the waiting, so this stays low)
+      expect(gauge.busy()).toBeLessThan(BUSY_FROM);
+      const until = Date.now() + 400;
+      while (Date.now() < until) {
+        // spin: the loop cannot wait for anything
+      }
+      await new Promise((r) => setTimeout(r, 0));
+      // the period read holds the 400 ms spin and at most 100 ms of waiting before it
+      expect(gauge.busy()).toBeGreaterThan(0.75);
+    } finally {
+      gauge.stop();
+    }
   });
 });

@@ -9,6 +9,7 @@ import {
 } from "./helpers";
 import type { Client } from "./helpers";
 import { printShops } from "./fixtures";
+import { fixedGauge } from "../src/loadGauge";
 
 const file = serverForFile();
 const client = file.client;
@@ -104,5 +105,42 @@ describe("progress pushes", () => {
     const closed = expectOk(await command(fac, { type: "closeRound" })).seq;
     for (const s of seats) await eventually(() => expect(s.tracker.seq).toBe(closed), 500);
     expect(seats[0]!.tracker.view!.rounds).toHaveLength(1);
+  });
+});
+
+describe("progress pushes on a busy server", () => {
+  // The gauge reads a full event loop, so the window is the busy one (1.2 s), not 50 ms.
+  const busy = serverForFile({
+    limits: { progressPushMs: 50, progressPushBusyMs: 1_200 },
+    load: fixedGauge(1),
+  });
+
+  it("other seats' progress waits for the busy window; the sealer's ack and a result do not", async () => {
+    const created = await createSessionOverHttp(busy.server.url, printShops({ rounds: 2 }));
+    const fac = await busy.client();
+    expectOk(
+      await hello(fac, { role: "facilitator", sessionId: created.id, key: created.facilitatorKey }),
+    );
+    const seat = await busy.client();
+    expectOk(
+      await hello(seat, { role: "seat", sessionId: created.id, key: created.seats[0]!.key }),
+    );
+    const opened = expectOk(await command(fac, { type: "openRound" })).seq;
+    await eventually(() => expect(seat.tracker.seq).toBe(opened));
+    const sealedAt = Date.now();
+    const ack = expectOk(await command(seat, { type: "sealMove", clientMoveId: "b0", effort: 4 }));
+    expect(seat.tracker.seq).toBe(ack.seq);
+    // timers never fire early: well past the quiet window the facilitator still holds the opening
+    await new Promise((r) => setTimeout(r, 600));
+    expect(fac.tracker.seq).toBe(opened);
+    await eventually(() => expect(fac.tracker.seq).toBe(ack.seq), 5_000);
+    expect(Date.now() - sealedAt).toBeGreaterThanOrEqual(1_100);
+    // a close goes out at once, busy or not
+    const seal2 = expectOk(
+      await command(seat, { type: "sealMove", clientMoveId: "b1", effort: 5 }),
+    );
+    const closed = expectOk(await command(fac, { type: "closeRound" })).seq;
+    expect(closed).toBeGreaterThan(seal2.seq);
+    await eventually(() => expect(fac.tracker.seq).toBe(closed), 500);
   });
 });
