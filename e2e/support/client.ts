@@ -29,7 +29,7 @@ export async function connectAs(origin: string, credentials: Credentials): Promi
   });
   const hello = (await socket
     .timeout(10_000)
-    .emitWithAck("hello", { protocol: 3, credentials })) as Ack;
+    .emitWithAck("hello", { protocol: 2, credentials })) as Ack;
   if (!hello.ok) throw new Error(`hello as ${credentials.role}: ${hello.code} ${hello.message}`);
   return {
     socket,

@@ -28,7 +28,6 @@ import type {
   Role,
   RoleView,
   ServerToClientEvents,
-  ViewUpdate,
 } from "@contend/protocol";
 import { viewFor } from "@contend/session";
 import type { Viewer } from "@contend/session";
@@ -57,13 +56,6 @@ interface SocketData {
   strikes: number;
   /** the view this connection holds (hello ack or last push): the base of the next patch */
   shown: { seq: number; view: RoleView } | null;
-  /** commands sent on this connection and not yet acknowledged */
-  inFlight: number;
-  /**
-   * the session whose seal commit this connection's update was held back for: it goes inside
-   * the next command ack instead of as a frame of its own just before that ack
-   */
-  held: LiveSession | null;
 }
 
 type AppSocket = Socket<
@@ -121,7 +113,6 @@ export function attachSockets(deps: SocketDeps) {
     if (room && room.size === 0) rooms.delete(identity.sessionId);
     socket.data.identity = null;
     socket.data.shown = null;
-    socket.data.held = null;
   }
 
   function viewerOf(identity: Identity): Viewer {
@@ -139,57 +130,29 @@ export function attachSockets(deps: SocketDeps) {
    * as a full view; a socket already at this seq gets nothing.
    */
   function push(live: LiveSession, sockets: Iterable<AppSocket>) {
-    const shared: UpdateCache = { views: new Map(), patches: new Map() };
-    for (const socket of sockets) {
-      const update = updateFor(live, socket, shared);
-      if (!update) continue;
-      if ("ops" in update) socket.emit("viewPatch", update);
-      else socket.emit("view", update);
-    }
-  }
-
-  interface UpdateCache {
-    views: Map<string, RoleView>;
-    patches: Map<RoleView, { next: RoleView; ops: PatchOp[] | null }>;
-  }
-
-  /** What brings one socket up to the session's state (recorded as shown); null: nothing. */
-  function updateFor(live: LiveSession, socket: AppSocket, shared: UpdateCache): ViewUpdate | null {
-    if (live.state.status === "empty") return null;
+    if (live.state.status === "empty") return;
     const seq = live.state.seq;
-    const identity = socket.data.identity;
-    if (!identity || identity.sessionId !== live.id) return null;
-    const shown = socket.data.shown;
-    if (shown && shown.seq >= seq) return null;
-    const viewer = viewerOf(identity);
-    const key = `${viewer.role}:${viewer.seatIndex ?? ""}`;
-    let view = shared.views.get(key);
-    if (!view) shared.views.set(key, (view = viewFor(live.state, viewer)));
-    let patch = shown ? shared.patches.get(shown.view) : undefined;
-    if (shown && (!patch || patch.next !== view)) {
-      const ops = diffJson(shown.view, view);
-      patch = { next: view, ops: ops.length > MAX_PATCH_OPS ? null : ops };
-      shared.patches.set(shown.view, patch);
+    const views = new Map<string, RoleView>();
+    const patches = new Map<RoleView, { next: RoleView; ops: PatchOp[] | null }>();
+    for (const socket of sockets) {
+      const identity = socket.data.identity;
+      if (!identity || identity.sessionId !== live.id) continue;
+      const shown = socket.data.shown;
+      if (shown && shown.seq >= seq) continue;
+      const viewer = viewerOf(identity);
+      const key = `${viewer.role}:${viewer.seatIndex ?? ""}`;
+      let view = views.get(key);
+      if (!view) views.set(key, (view = viewFor(live.state, viewer)));
+      let patch = shown ? patches.get(shown.view) : undefined;
+      if (shown && (!patch || patch.next !== view)) {
+        const ops = diffJson(shown.view, view);
+        patch = { next: view, ops: ops.length > MAX_PATCH_OPS ? null : ops };
+        patches.set(shown.view, patch);
+      }
+      if (shown && patch?.ops) socket.emit("viewPatch", { seq, base: shown.seq, ops: patch.ops });
+      else socket.emit("view", { seq, view });
+      socket.data.shown = { seq, view };
     }
-    socket.data.shown = { seq, view };
-    return shown && patch?.ops ? { seq, base: shown.seq, ops: patch.ops } : { seq, view };
-  }
-
-  /**
-   * Just before a command's ack: a held update rides inside a successful seal ack (one frame
-   * instead of two), or goes as its own frame ahead of any other ack, so a client always has
-   * its view moved before it reads an ack.
-   */
-  function releaseHeld(socket: AppSocket, res: Ack<CommandAckData>): Ack<CommandAckData> {
-    const live = socket.data.held;
-    socket.data.held = null;
-    if (!live) return res;
-    if (res.ok && "clientMoveId" in res.data) {
-      const update = updateFor(live, socket, { views: new Map(), patches: new Map() });
-      return update ? { ok: true, data: { ...res.data, push: update } } : res;
-    }
-    push(live, [socket]);
-    return res;
   }
 
   /** sessions whose progress push to the other sockets is waiting, with its timer */
@@ -197,8 +160,7 @@ export function attachSockets(deps: SocketDeps) {
 
   /**
    * After every commit. A commit that only seals moves changes, for everyone but the sealers,
-   * one `sealed` flag: the sealers' own sockets get it at once (the one that sent the seal inside
-   * its ack, see releaseHeld), everyone else within
+   * one `sealed` flag: the sealers' own sockets get it at once, everyone else within
    * `limits.progressPushMs` as one frame for all the seals of that window (short enough to
    * read as live on a progress display, long enough to merge the seals of a busy round), and
    * up to `limits.progressPushBusyMs` while the event loop is near full. Any other commit (a
@@ -216,15 +178,12 @@ export function attachSockets(deps: SocketDeps) {
       return;
     }
     const sealers = new Set(events.map((e) => e.seatIndex));
-    const now: AppSocket[] = [];
-    for (const s of room) {
-      if (s.data.identity?.role !== "seat" || !sealers.has(s.data.identity.seatIndex ?? -1))
-        continue;
-      // The connection that sent a seal is waiting for its ack: the update goes inside it.
-      if (s.data.inFlight > 0) s.data.held = live;
-      else now.push(s);
-    }
-    push(live, now);
+    push(
+      live,
+      [...room].filter(
+        (s) => s.data.identity?.role === "seat" && sealers.has(s.data.identity.seatIndex ?? -1),
+      ),
+    );
     if (pendingProgress.has(live.id)) return;
     const timer = setTimeout(
       () => {
@@ -413,8 +372,6 @@ export function attachSockets(deps: SocketDeps) {
     socket.data.identity = null;
     socket.data.strikes = 0;
     socket.data.shown = null;
-    socket.data.inFlight = 0;
-    socket.data.held = null;
     socket.on("disconnect", () => leave(socket));
     socket.onAny((event: unknown, ...args: unknown[]) => {
       const last = args[args.length - 1];
@@ -433,20 +390,8 @@ export function attachSockets(deps: SocketDeps) {
       const payload = typeof last === "function" ? args.slice(0, -1) : args;
       let work: Promise<void>;
       if (event === "hello") work = hello(socket, payload[0], ack);
-      else if (event === "command") {
-        socket.data.inFlight++;
-        work = command(socket, payload[0]).then(
-          (res) => {
-            socket.data.inFlight--;
-            ack(releaseHeld(socket, res));
-          },
-          (error: unknown) => {
-            socket.data.inFlight--;
-            releaseHeld(socket, ackError("internal", "internal error"));
-            throw error;
-          },
-        );
-      } else {
+      else if (event === "command") work = command(socket, payload[0]).then(ack);
+      else {
         ack(
           ackError(
             "bad-request",

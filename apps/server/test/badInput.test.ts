@@ -159,14 +159,14 @@ describe("bad input", () => {
 
     const badHellos = [
       { protocol: 1, credentials: { role: "facilitator", sessionId: a.id, key: a.facilitatorKey } },
-      { protocol: 3, credentials: { role: "facilitator", sessionId: a.id, key: a.spectatorKey } },
-      { protocol: 3, credentials: { role: "facilitator", sessionId: b.id, key: a.facilitatorKey } },
-      { protocol: 3, credentials: { role: "seat", sessionId: b.id, key: a.seats[1]!.key } },
-      { protocol: 3, credentials: { role: "seat", sessionId: a.id, key: "k".repeat(129) } },
-      { protocol: 3, credentials: { role: "guest", joinCode: "ZZZZZZ" } },
-      { protocol: 3, credentials: { role: "admin", sessionId: a.id, key: a.facilitatorKey } },
+      { protocol: 2, credentials: { role: "facilitator", sessionId: a.id, key: a.spectatorKey } },
+      { protocol: 2, credentials: { role: "facilitator", sessionId: b.id, key: a.facilitatorKey } },
+      { protocol: 2, credentials: { role: "seat", sessionId: b.id, key: a.seats[1]!.key } },
+      { protocol: 2, credentials: { role: "seat", sessionId: a.id, key: "k".repeat(129) } },
+      { protocol: 2, credentials: { role: "guest", joinCode: "ZZZZZZ" } },
+      { protocol: 2, credentials: { role: "admin", sessionId: a.id, key: a.facilitatorKey } },
       {
-        protocol: 3,
+        protocol: 2,
         credentials: { role: "spectator", sessionId: "s".repeat(65), key: a.spectatorKey },
       },
       { protocol: "1", credentials: { role: "spectator", sessionId: a.id, key: a.spectatorKey } },

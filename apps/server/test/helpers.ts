@@ -10,12 +10,10 @@ import type {
   CommandAckData,
   CreateSessionResponse,
   HelloAckData,
-  SealMoveAckData,
   ServerToClientEvents,
   SessionEvent,
   ViewMessage,
   ViewTracker,
-  ViewUpdate,
 } from "@contend/protocol";
 import { createViewTracker } from "@contend/protocol";
 import { io as connectClient } from "socket.io-client";
@@ -112,8 +110,7 @@ export async function connect(url: string): Promise<Client> {
 
 /**
  * Emits with an ack and a timeout; records the ack in `received` as well. A hello ack's view
- * and a command ack's `push` go to the tracker inside the ack callback, before any push queued
- * behind it is handled.
+ * goes to the tracker inside the ack callback, before any push queued behind it is handled.
  */
 export function request<T>(socket: Client, event: string, payload: unknown): Promise<Ack<T>> {
   const emitter = socket.timeout(10_000) as unknown as {
@@ -127,27 +124,14 @@ export function request<T>(socket: Client, event: string, payload: unknown): Pro
         const data = res.data as HelloAckData;
         socket.tracker.snapshot(data.seq, data.view, true);
       }
-      const push = res.ok ? (res.data as { push?: ViewUpdate }).push : undefined;
-      if (event === "command" && push) {
-        const outcome = socket.tracker.update(push);
-        if (outcome === "resync") socket.patchGaps++;
-        if (outcome === "applied") socket.views.push({ seq: push.seq, view: socket.tracker.view! });
-      }
       resolve(res);
     });
   });
 }
 
-/** A seal ack's move data: its `push` is this connection's view update, not part of the move. */
-export function moveOf(data: CommandAckData): Omit<SealMoveAckData, "push"> {
-  if (!("clientMoveId" in data)) throw new Error(`not a seal ack: ${JSON.stringify(data)}`);
-  const { push: _push, ...move } = data;
-  return move;
-}
-
 export function hello(socket: Client, credentials: unknown, lastSeq?: number) {
   return request<HelloAckData>(socket, "hello", {
-    protocol: 3,
+    protocol: 2,
     credentials,
     ...(lastSeq === undefined ? {} : { lastSeq }),
   });

@@ -108,49 +108,6 @@ describe("progress pushes", () => {
   });
 });
 
-describe("a seal's own update", () => {
-  const file = serverForFile({ limits: { progressPushMs: 1_500 } });
-
-  it("rides inside the sealing connection's ack; the seat's other connection gets it at once as a frame", async () => {
-    const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 2 }));
-    const id = created.id;
-    const fac = await file.client();
-    expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
-    const key = created.seats[0]!.key;
-    const sender = await file.client();
-    const otherTab = await file.client();
-    for (const s of [sender, otherTab])
-      expectOk(await hello(s, { role: "seat", sessionId: id, key }));
-    const opened = expectOk(await command(fac, { type: "openRound" })).seq;
-    for (const s of [sender, otherTab]) await eventually(() => expect(s.tracker.seq).toBe(opened));
-    const before = sender.received.length;
-    const ack = expectOk(
-      await command(sender, { type: "sealMove", clientMoveId: "t1", effort: 6 }),
-    );
-    expect(ack).toHaveProperty("push");
-    const push = (ack as { push: { seq: number; base: number; ops: unknown[] } }).push;
-    expect([push.seq, push.base]).toEqual([ack.seq, opened]);
-    // the ack was the only thing this connection received for the seal
-    expect(sender.received.slice(before).map((r) => (JSON.parse(r) as [string])[0])).toEqual([
-      "ack",
-    ]);
-    expect(sender.tracker.seq).toBe(ack.seq);
-    expect(sender.tracker.view!.you?.sealedEffort).toBe(6);
-    // well inside the 1.5 s progress window: the other tab is a sealer's connection too
-    await eventually(() => expect(otherTab.tracker.seq).toBe(ack.seq), 500);
-    expect(otherTab.tracker.view).toEqual(sender.tracker.view);
-    expect(sender.patchGaps + otherTab.patchGaps).toBe(0);
-    // a fresh hello sees exactly what the ack's update produced
-    const fresh = await file.client();
-    const view = expectOk(await hello(fresh, { role: "seat", sessionId: id, key })).view;
-    expect(sender.tracker.view).toEqual(view);
-    // a refused seal carries nothing and changes nothing
-    const refused = await command(sender, { type: "sealMove", clientMoveId: "t2", effort: -1 });
-    expect(refused.ok).toBe(false);
-    expect(sender.tracker.seq).toBe(ack.seq);
-  });
-});
-
 describe("progress pushes on a busy server", () => {
   // The gauge reads a full event loop, so the window is the busy one (1.2 s), not 50 ms.
   const busy = serverForFile({

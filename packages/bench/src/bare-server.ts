@@ -4,8 +4,7 @@
  * alone would: hello joins a room and acks; every command is acknowledged at once and, like a
  * real commit, pushes one view of VIEW_BYTES to every socket of the room; when SEATS seals are
  * in (or the facilitator closes) the pushed view reveals the round. As in the real server, a
- * seal that does not reveal goes at once only to the sealer (inside its ack, as the real server
- * sends it) and to the rest of the room within
+ * seal that does not reveal goes at once only to the sealer and to the rest of the room within
  * PROGRESS_MS, merged with the other seals of that window (0: to everyone at once). The real
  * server stretches its window while its event loop is near full; this one's loop never is
  * (about a quarter of a core in the full run), so the same rule would keep PROGRESS_MS here.
@@ -63,10 +62,9 @@ io.on("connection", (socket) => {
     io.to(sessionId!).emit("view", { seq: room.seq, view: viewOf(room) });
   }
 
-  /** the sealer's own update, for its ack; the rest of the room gets it within the window */
   function pushProgress(room: Room) {
     room.seq++;
-    const own = { seq: room.seq, view: viewOf(room) };
+    socket.emit("view", { seq: room.seq, view: viewOf(room) });
     room.lastSealer = socket.id;
     const id = sessionId!;
     room.pending ??= setTimeout(() => {
@@ -75,7 +73,6 @@ io.on("connection", (socket) => {
         .except(room.lastSealer ?? [])
         .emit("view", { seq: room.seq, view: viewOf(room) });
     }, progressMs);
-    return own;
   }
 
   socket.on("hello", (msg: { credentials: { sessionId: string; key: string } }, ack: Ack) => {
@@ -123,11 +120,10 @@ io.on("connection", (socket) => {
       }
       if (cmd.type === "sealMove" && seatIndex !== null) {
         room.sealed.add(seatIndex);
-        let own: { seq: number; view: unknown } | undefined;
         if (room.sealed.size >= seats && room.status === "open") {
           reveal();
           push(room);
-        } else if (progressMs > 0) own = pushProgress(room);
+        } else if (progressMs > 0) pushProgress(room);
         else push(room);
         return ack({
           ok: true,
@@ -137,7 +133,6 @@ io.on("connection", (socket) => {
             seatIndex,
             clientMoveId: cmd.clientMoveId,
             effort: cmd.effort,
-            ...(own ? { push: own } : {}),
           },
         });
       }

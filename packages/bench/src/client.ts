@@ -7,7 +7,7 @@
 import { io } from "socket.io-client";
 import type { Socket } from "socket.io-client";
 import { createViewTracker, PROTOCOL_VERSION } from "@contend/protocol";
-import type { RoleView, ViewPatchMessage, ViewUpdate } from "@contend/protocol";
+import type { RoleView, ViewPatchMessage } from "@contend/protocol";
 
 export type Credentials =
   | { role: "facilitator"; sessionId: string; key: string }
@@ -76,7 +76,16 @@ export class SessionClient {
       this.viewsReceived++;
       if (this.tracker.snapshot(msg.seq, msg.view as unknown as RoleView)) this.took();
     });
-    this.socket.on("viewPatch", (msg: ViewPatchMessage) => this.takePatch(msg));
+    this.socket.on("viewPatch", (msg: ViewPatchMessage) => {
+      this.viewsReceived++;
+      if (this.helloInFlight) return;
+      const outcome = this.tracker.patch(msg);
+      if (outcome === "applied") this.took();
+      else if (outcome === "resync") {
+        this.patchGaps++;
+        void this.hello();
+      }
+    });
     this.socket.on("disconnect", (reason) => {
       if (reason !== "io client disconnect") this.disconnects.push(reason);
     });
@@ -90,32 +99,8 @@ export class SessionClient {
     }
   }
 
-  private takePatch(msg: ViewPatchMessage) {
-    this.viewsReceived++;
-    if (this.helloInFlight) return;
-    const outcome = this.tracker.patch(msg);
-    if (outcome === "applied") this.took();
-    else if (outcome === "resync") {
-      this.patchGaps++;
-      void this.hello();
-    }
-  }
-
-  /** A command ack's `push`: this connection's view update, taken like a pushed one. */
-  private takeAckPush(push: ViewUpdate) {
-    if (this.sampling) this.viewBytes += JSON.stringify(push).length;
-    if ("ops" in push) this.takePatch(push);
-    else {
-      this.viewsReceived++;
-      if (this.tracker.snapshot(push.seq, push.view)) this.took();
-    }
-  }
-
-  private sampling = false;
-
   /** Measures pushed sizes too (a JSON.stringify per push; only used while sampling). */
   sampleViewSizes() {
-    this.sampling = true;
     for (const event of ["view", "viewPatch"]) {
       this.socket.on(event, (msg: unknown) => {
         this.viewBytes += JSON.stringify(msg).length;
@@ -184,19 +169,8 @@ export class SessionClient {
     });
   }
 
-  /** An ack's `push` goes to the tracker inside the ack callback, before any push behind it. */
   command(cmd: Record<string, unknown>): Promise<AckLike> {
-    return new Promise((resolve) => {
-      this.socket.timeout(this.ackTimeoutMs).emit("command", cmd, (err: unknown, ack: AckLike) => {
-        if (err) {
-          resolve({ ok: false, code: "timeout", message: `no ack within ${this.ackTimeoutMs} ms` });
-          return;
-        }
-        const push = ack.ok ? (ack.data as { push?: ViewUpdate } | undefined)?.push : undefined;
-        if (push) this.takeAckPush(push);
-        resolve(ack);
-      });
-    });
+    return this.emit("command", cmd);
   }
 
   /** Resolves with the arrival time (performance.now) of the first view passing test. */

@@ -3,8 +3,7 @@ import { z } from "zod";
 import { ERROR_CODES } from "./result";
 import type { ErrorCode } from "./result";
 import { ROLES } from "./hello";
-import { roleViewSchema, viewMessageSchema } from "./view";
-import { viewPatchMessageSchema } from "./viewPatch";
+import { roleViewSchema } from "./view";
 
 export const ackErrorSchema = z.object({
   ok: z.literal(false),
@@ -42,12 +41,6 @@ export const sealMoveAckDataSchema = z.object({
   seatIndex: z.int().min(0),
   clientMoveId: z.string(),
   effort: z.number(),
-  /**
-   * The sending connection's view update for this commit (a patch, or a full view when most
-   * of the view changed), sent here instead of as a frame before the ack. A client applies it
-   * inside the ack callback exactly as it would a `viewPatch` or `view` message.
-   */
-  push: z.union([viewPatchMessageSchema, viewMessageSchema]).optional(),
 });
 export type SealMoveAckData = z.output<typeof sealMoveAckDataSchema>;
 

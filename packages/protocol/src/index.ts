@@ -102,7 +102,7 @@ export {
   patchOpSchema,
   viewPatchMessageSchema,
 } from "./viewPatch";
-export type { PatchOp, ViewPatchMessage, ViewTracker, ViewUpdate } from "./viewPatch";
+export type { PatchOp, ViewPatchMessage, ViewTracker } from "./viewPatch";
 export {
   ackError,
   ackErrorSchema,

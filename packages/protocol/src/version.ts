@@ -4,7 +4,5 @@
  * with the error code "version-mismatch".
  *   1: full views pushed after every commit
  *   2: views after the hello ack arrive as patches (`viewPatch`, RFC 6902)
- *   3: a sealMove ack may carry the sealing connection's own view update (`push`) instead of
- *      a separate frame before it
  */
-export const PROTOCOL_VERSION = 3;
+export const PROTOCOL_VERSION = 2;

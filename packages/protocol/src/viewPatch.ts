@@ -201,12 +201,7 @@ export interface ViewTracker {
   /** a full view (`view` message); `replace`: even if older (a hello ack is authoritative) */
   snapshot(seq: number, view: RoleView, replace?: boolean): boolean;
   patch(msg: ViewPatchMessage): "applied" | "ignored" | "resync";
-  /** an update carried by an ack (`push`): a patch as `patch`, a full view as `snapshot` */
-  update(msg: ViewUpdate): "applied" | "ignored" | "resync";
 }
-
-/** What an ack's `push` holds: the same as a `viewPatch` or a `view` message. */
-export type ViewUpdate = ViewPatchMessage | { seq: number; view: RoleView };
 
 export function createViewTracker(): ViewTracker {
   let seq = 0;
@@ -235,10 +230,6 @@ export function createViewTracker(): ViewTracker {
       }
       seq = msg.seq;
       return "applied";
-    },
-    update(msg) {
-      if ("ops" in msg) return this.patch(msg);
-      return this.snapshot(msg.seq, msg.view) ? "applied" : "ignored";
     },
   };
 }

@@ -4,8 +4,8 @@ import { parseHello, PROTOCOL_VERSION } from "../src/index";
 const key = "q".repeat(43);
 
 describe("parseHello", () => {
-  it("PROTOCOL_VERSION is 3 (a seal ack carries the sealer's own view update)", () => {
-    expect(PROTOCOL_VERSION).toBe(3);
+  it("PROTOCOL_VERSION is 2 (pushed views became patches)", () => {
+    expect(PROTOCOL_VERSION).toBe(2);
   });
 
   it("parseHello(each role's credentials) is accepted", () => {
@@ -17,9 +17,9 @@ describe("parseHello", () => {
       { role: "guest", joinCode: "KIOSK7" },
     ];
     for (const credentials of creds) {
-      expect(parseHello({ protocol: 3, credentials }).ok, credentials.role).toBe(true);
+      expect(parseHello({ protocol: 2, credentials }).ok, credentials.role).toBe(true);
     }
-    expect(parseHello({ protocol: 3, credentials: creds[0], lastSeq: 12 }).ok).toBe(true);
+    expect(parseHello({ protocol: 2, credentials: creds[0], lastSeq: 12 }).ok).toBe(true);
   });
 
   it("parseHello(protocol 1, the previous version) is version-mismatch", () => {
@@ -50,7 +50,7 @@ describe("parseHello", () => {
       [{ role: "guest", joinCode: "KIOSK7", sessionId: "s" }, "credentials.sessionId"],
     ];
     for (const [credentials, path] of cases) {
-      expect(parseHello({ protocol: 3, credentials }), path).toMatchObject({
+      expect(parseHello({ protocol: 2, credentials }), path).toMatchObject({
         ok: false,
         code: "bad-request",
         path,
@@ -60,7 +60,7 @@ describe("parseHello", () => {
 
   it("parseHello(negative lastSeq) is refused", () => {
     const r = parseHello({
-      protocol: 3,
+      protocol: 2,
       credentials: { role: "guest", joinCode: "KIOSK7" },
       lastSeq: -1,
     });

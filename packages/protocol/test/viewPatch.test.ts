@@ -237,18 +237,4 @@ describe("createViewTracker", () => {
     expect(t.snapshot(2, v(0), true)).toBe(true);
     expect(t.seq).toBe(2);
   });
-
-  it("update() takes an ack's push: a patch as patch(), a full view as snapshot()", () => {
-    const t = createViewTracker();
-    t.snapshot(5, v(1));
-    const patch = { seq: 6, base: 5, ops: [{ op: "replace", path: "/round", value: 2 }] } as const;
-    expect(t.update({ ...patch, ops: [...patch.ops] })).toBe("applied");
-    expect(t.view?.round).toBe(2);
-    expect(t.update({ seq: 6, base: 5, ops: [] })).toBe("ignored");
-    expect(t.update({ seq: 8, base: 7, ops: [] })).toBe("resync");
-    expect(t.update({ seq: 9, view: v(4) })).toBe("applied");
-    expect([t.seq, t.view?.round]).toEqual([9, 4]);
-    expect(t.update({ seq: 7, view: v(3) })).toBe("ignored");
-    expect(t.seq).toBe(9);
-  });
 });

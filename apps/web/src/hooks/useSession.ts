@@ -14,7 +14,6 @@ import type {
   HelloAckData,
   RoleView,
   ServerToClientEvents,
-  ViewUpdate,
 } from "@contend/protocol";
 import { SERVER_URL } from "../lib/env";
 
@@ -44,8 +43,7 @@ export interface SessionHandle {
  * One live session connection. On every (re)connect it says hello with its credentials and the
  * last event seq it saw; the ack carries a full view, and later commits arrive as patches of the
  * view held (or, rarely, full views). A patch for another base makes it say hello again, and a
- * view older than the one held is ignored, so a late push never rolls the screen back. A seal's
- * own update arrives inside its ack (`push`) and is taken the same way.
+ * view older than the one held is ignored, so a late push never rolls the screen back.
  */
 export function useSession(credentials: Credentials | null): SessionHandle {
   const [connection, setConnection] = useState<Connection>({ status: "connecting", message: null });
@@ -53,8 +51,6 @@ export function useSession(credentials: Credentials | null): SessionHandle {
   const [seq, setSeq] = useState(0);
   const [hello, setHello] = useState<HelloAckData | null>(null);
   const socketRef = useRef<ClientSocket | null>(null);
-  /** takes a command ack's `push` into the connection's view (set while connected) */
-  const takePushRef = useRef<((push: ViewUpdate) => void) | null>(null);
   const seqRef = useRef(0);
   const credKey = credentials === null ? "" : JSON.stringify(credentials);
 
@@ -144,12 +140,6 @@ export function useSession(credentials: Credentials | null): SessionHandle {
       if (outcome === "applied") show();
       else if (outcome === "resync") sayHello();
     });
-    takePushRef.current = (push) => {
-      if (helloInFlight) return;
-      const outcome = tracker.update(push);
-      if (outcome === "applied") show();
-      else if (outcome === "resync") sayHello();
-    };
     socket.on("disconnect", (reason) => {
       if (fatal) return;
       setConnection({ status: "reconnecting", message: `connection lost (${reason})` });
@@ -166,7 +156,6 @@ export function useSession(credentials: Credentials | null): SessionHandle {
 
     return () => {
       if (settle) clearTimeout(settle);
-      takePushRef.current = null;
       socket.removeAllListeners();
       socket.disconnect();
       socketRef.current = null;
@@ -182,23 +171,15 @@ export function useSession(credentials: Credentials | null): SessionHandle {
         message: "not connected: wait for the connection to return and try again",
       };
     }
-    // The ack's push is taken inside the callback, before a patch queued behind it is handled.
-    return new Promise((resolve) => {
-      socket
-        .timeout(ACK_TIMEOUT_MS)
-        .emit("command", cmd, (err: Error | null, ack: Ack<CommandAckData>) => {
-          if (err) {
-            resolve({
-              ok: false,
-              code: "internal",
-              message: "no answer from the server in time; check the connection and try again",
-            });
-            return;
-          }
-          if (ack.ok && "push" in ack.data && ack.data.push) takePushRef.current?.(ack.data.push);
-          resolve(ack);
-        });
-    });
+    try {
+      return await socket.timeout(ACK_TIMEOUT_MS).emitWithAck("command", cmd);
+    } catch {
+      return {
+        ok: false,
+        code: "internal",
+        message: "no answer from the server in time; check the connection and try again",
+      };
+    }
   }, []);
 
   return { connection, view, seq, hello, send };
