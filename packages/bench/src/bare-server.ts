@@ -7,7 +7,8 @@
  * seal that does not reveal goes at once only to the sealer and to the rest of the room within
  * PROGRESS_MS, merged with the other seals of that window (0: to everyone at once). The real
  * server stretches its window while its event loop is near full; this one's loop never is
- * (about a quarter of a core in the full run), so the same rule would keep PROGRESS_MS here.
+ * (40-43% of a core in the full run, below where the window starts to stretch), so the same
+ * rule would keep PROGRESS_MS here.
  *   PORT=... HOST=127.0.0.1 SEATS=8 VIEW_BYTES=4000 PROGRESS_MS=200 node --import tsx src/bare-server.ts
  */
 import { createServer } from "node:http";
