@@ -320,10 +320,14 @@ export function attachSockets(deps: SocketDeps) {
     }
     if (result.data.kind === "sealMove") {
       const d = result.data;
+      // Only a repeated seal (already in the log) needs the live session to find its seq; a
+      // fresh one carries it, and looking the session up anyway would reload the whole log of
+      // a session that this very seal ended (the hub drops ended sessions from memory).
       const sealed = result.events.find((e) => e.type === "move-sealed");
-      const live = await hub.get(identity.sessionId);
       const seq =
-        sealed?.seq ?? live?.moveSeqs.get(`${d.seatIndex}:${d.clientMoveId}`) ?? result.seq;
+        sealed?.seq ??
+        (await hub.get(identity.sessionId))?.moveSeqs.get(`${d.seatIndex}:${d.clientMoveId}`) ??
+        result.seq;
       return {
         ok: true,
         data: {

@@ -72,4 +72,30 @@ describe("commands of one session that arrive together", () => {
       await eventually(() => expect(s.tracker.view?.rounds).toHaveLength(1));
     }
   });
+
+  it("the seal that ends the session is acked from its own commit, without reading the log", async () => {
+    const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 1 }));
+    const id = created.id;
+    const fac = await file.client();
+    expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
+    const seats = await Promise.all(created.seats.map(() => file.client()));
+    for (const [i, s] of seats.entries()) {
+      expectOk(await hello(s, { role: "seat", sessionId: id, key: created.seats[i]!.key }));
+    }
+    expectOk(await command(fac, { type: "openRound" }));
+    const [last, ...others] = seats as [Client, ...Client[]];
+    for (const [i, s] of others.entries()) {
+      expectOk(await command(s, { type: "sealMove", clientMoveId: `e${i}`, effort: 5 }));
+    }
+    // The hub forgets a session once it has ended; a lookup for the ack would load it again.
+    const reads = vi.spyOn(file.server.db.events, "list");
+    const ack = expectOk(await command(last, { type: "sealMove", clientMoveId: "end", effort: 4 }));
+    const readsDuringAck = reads.mock.calls.length;
+    reads.mockRestore();
+    expect(readsDuringAck).toBe(0);
+    const log = await eventLog(file.server.db, id);
+    const sealed = log.find((e) => e.type === "move-sealed" && e.clientMoveId === "end");
+    expect(ack).toMatchObject({ seq: sealed?.seq, seatIndex: 0, clientMoveId: "end", effort: 4 });
+    expect(log.at(-1)?.type).toBe("session-ended");
+  });
 });
