@@ -5,6 +5,7 @@ import { PrismaPg } from "@prisma/adapter-pg";
 import pg from "pg";
 import { PrismaPGlite } from "pglite-prisma-adapter";
 import { lockDataDir } from "./dir-lock";
+import { useLeanParsers } from "./pglite-parsers";
 import { PrismaClient } from "./generated/prisma/client";
 import { applyMigrations, DEFAULT_MIGRATIONS_DIR, readMigrations } from "./migrate";
 import { eventsRepository } from "./repos/events";
@@ -56,6 +57,7 @@ async function connectPglite(dataDir: string | null): Promise<Connection> {
   }
   try {
     const pglite = dataDir ? await PGlite.create(dataDir) : await PGlite.create();
+    await useLeanParsers(pglite);
     const prisma = new PrismaClient({
       adapter: new PrismaPGlite(pglite) as unknown as AdapterFactory,
     });
