@@ -21,7 +21,13 @@ export interface DriveOptions {
   url: string;
   serverPid: number;
   sessions: SessionPlan[];
+  /** measured rounds, played after the warm-up rounds */
   rounds: number;
+  /**
+   * rounds played first and reported apart (default 0): the first round after start-up runs
+   * while V8 is still compiling the hot paths of the server and of this driving process
+   */
+  warmupRounds?: number;
   /** each seat seals after a uniform random delay in [0, spreadMs] from the round opening */
   spreadMs: number;
   /** "mixed": even rounds are closed by the facilitator with the last seat not sealing */
@@ -32,6 +38,14 @@ export interface DriveOptions {
   seed?: number;
   /** how long to wait for an ack or a reveal before counting it missing (default 120 s) */
   timeoutMs?: number;
+}
+
+export interface WarmupResult {
+  rounds: number;
+  ack: Summary;
+  reveal: Summary;
+  serverCpuSeconds: number;
+  clientCpuSeconds: number;
 }
 
 export interface DriveResult {
@@ -67,6 +81,11 @@ export interface DriveResult {
   /** connections dropped during the run, by reason (clients do not reconnect in load runs) */
   disconnects: Record<string, number>;
   meanViewBytes: number;
+  /** the warm-up rounds' own figures, not included in any of the above */
+  warmup: WarmupResult;
+  /** close -> reveal of each round on its own, warm-up rounds first (a slow round shows here) */
+  revealByRound: Summary[];
+  /** every acknowledged move, warm-up rounds included (all must survive) */
   acked: AckedMove[];
 }
 
@@ -127,8 +146,13 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
   const facilitatorsConnected = lives.filter((l) => helloOk.has(l.facilitator)).length;
   const serverRssAfterConnectMiB = rssMiB(opts.serverPid) ?? Number.NaN;
 
+  const warmupRounds = opts.warmupRounds ?? 0;
   const ackMs: number[] = [];
   const revealMs: number[] = [];
+  const warmAckMs: number[] = [];
+  const warmRevealMs: number[] = [];
+  const byRound: number[][] = [];
+  let movesAcked = 0;
   const moveErrors: Record<string, number> = {};
   const acked: AckedMove[] = [];
   let revealMissing = 0;
@@ -137,17 +161,34 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     moveErrors[k] = (moveErrors[k] ?? 0) + 1;
   };
 
-  const cpuServer0 = cpuSeconds(opts.serverPid) ?? Number.NaN;
-  const cpuMain0 = mainThreadCpuSeconds(opts.serverPid) ?? Number.NaN;
-  const cpuClient0 = selfCpuSeconds();
+  const warmServer0 = cpuSeconds(opts.serverPid) ?? Number.NaN;
+  const warmClient0 = selfCpuSeconds();
+  let cpuServer0 = warmServer0;
+  let cpuMain0 = mainThreadCpuSeconds(opts.serverPid) ?? Number.NaN;
+  let cpuClient0 = warmClient0;
   const loopDelay = monitorEventLoopDelay({ resolution: 5 });
-  loopDelay.enable();
-  const tRounds = performance.now();
-  for (let round = 1; round <= opts.rounds; round++) {
+  const seatClients = lives.flatMap((l) => l.seats);
+  let viewsBefore = 0;
+  let tRounds = performance.now();
+  for (let round = 1; round <= warmupRounds + opts.rounds; round++) {
+    const measured = round > warmupRounds;
+    if (round === warmupRounds + 1) {
+      // The measured rounds start here: everything below counts from this point.
+      cpuServer0 = cpuSeconds(opts.serverPid) ?? Number.NaN;
+      cpuMain0 = mainThreadCpuSeconds(opts.serverPid) ?? Number.NaN;
+      cpuClient0 = selfCpuSeconds();
+      viewsBefore = seatClients.reduce((n, c) => n + c.viewsReceived, 0);
+      loopDelay.enable();
+      tRounds = performance.now();
+    }
+    const acks = measured ? ackMs : warmAckMs;
+    const reveals = measured ? revealMs : warmRevealMs;
+    const thisRound: number[] = [];
+    byRound.push(thisRound);
     await Promise.all(
       lives.map(async (live, sessionIndex) => {
         const watchers = [live.facilitator, ...live.seats].filter((c) => helloOk.has(c));
-        const reveals = watchers.map((c) =>
+        const viewed = watchers.map((c) =>
           c.waitForView((v) => v.rounds.length >= round, timeoutMs),
         );
         const opened = await live.facilitator.command({ type: "openRound", durationSeconds: null });
@@ -171,8 +212,9 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
             lastEmit = Math.max(lastEmit, sent);
             const ack = await seat.command({ type: "sealMove", clientMoveId, effort, round });
             if (ack.ok) {
-              ackMs.push(performance.now() - sent);
+              acks.push(performance.now() - sent);
               acked.push({ sessionId: live.plan.id, round, seatIndex, clientMoveId, effort });
+              if (measured) movesAcked++;
             } else countError(ack.code);
           }),
         );
@@ -182,14 +224,24 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
           const closed = await live.facilitator.command({ type: "closeRound" });
           if (!closed.ok) countError(`closeRound:${closed.code}`);
         }
-        for (const at of await Promise.all(reveals)) {
+        for (const at of await Promise.all(viewed)) {
           if (at === null) revealMissing++;
-          else revealMs.push(Math.max(0, at - closedAt));
+          else {
+            reveals.push(Math.max(0, at - closedAt));
+            thisRound.push(Math.max(0, at - closedAt));
+          }
         }
       }),
     );
   }
   const roundsSeconds = (performance.now() - tRounds) / 1000;
+  const warmup: WarmupResult = {
+    rounds: warmupRounds,
+    ack: summarize(warmAckMs),
+    reveal: summarize(warmRevealMs),
+    serverCpuSeconds: cpuServer0 - warmServer0,
+    clientCpuSeconds: cpuClient0 - warmClient0,
+  };
   const serverCpuSeconds = (cpuSeconds(opts.serverPid) ?? Number.NaN) - cpuServer0;
   const mainCpuSeconds = (mainThreadCpuSeconds(opts.serverPid) ?? Number.NaN) - cpuMain0;
   const clientCpuSeconds = selfCpuSeconds() - cpuClient0;
@@ -205,9 +257,9 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
   const sampled = lives[0] ? [lives[0].facilitator, ...lives[0].seats] : [];
   const sampledViews = sampled.reduce((n, c) => n + c.viewsReceived, 0);
   const sampledBytes = sampled.reduce((n, c) => n + c.viewBytes, 0);
-  const seatClients = lives.flatMap((l) => l.seats);
   const viewsPerSeat =
-    seatClients.reduce((n, c) => n + c.viewsReceived, 0) / Math.max(1, seatClients.length);
+    (seatClients.reduce((n, c) => n + c.viewsReceived, 0) - viewsBefore) /
+    Math.max(1, seatClients.length);
   const disconnects: Record<string, number> = {};
   for (const c of all) for (const r of c.disconnects) disconnects[r] = (disconnects[r] ?? 0) + 1;
   for (const c of all) c.close();
@@ -219,15 +271,15 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     facilitatorsConnected,
     connectSeconds,
     roundsSeconds,
-    movesAcked: acked.length,
+    movesAcked,
     moveErrors,
-    movesPerSecond: acked.length / roundsSeconds,
+    movesPerSecond: movesAcked / roundsSeconds,
     ack: summarize(ackMs),
     reveal: summarize(revealMs),
     revealMissing,
     serverCpuSeconds,
     serverCpuPercent: (100 * serverCpuSeconds) / roundsSeconds,
-    serverCpuMsPerMove: (1000 * serverCpuSeconds) / Math.max(1, acked.length),
+    serverCpuMsPerMove: (1000 * serverCpuSeconds) / Math.max(1, movesAcked),
     serverMainThreadCpuPercent: (100 * mainCpuSeconds) / roundsSeconds,
     clientLoopDelay,
     clientCpuSeconds,
@@ -238,6 +290,8 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     viewsPerSeat,
     disconnects,
     meanViewBytes: opts.sampleViews && sampledViews > 0 ? sampledBytes / sampledViews : Number.NaN,
+    warmup,
+    revealByRound: byRound.map(summarize),
     acked,
   };
 }

@@ -3,8 +3,8 @@
  * same machine in one run, then a check that every acknowledged move is in the event log.
  *   npx tsx src/load.ts                # quick: 20 sessions x 8 seats, 4 rounds
  *   npx tsx src/load.ts --full         # 200 sessions x 8 seats (1,600 seats)
- *   flags: --sessions K --seats S --rounds R --spread ms --close mixed|all-sealed --progress ms
- *          --progress-busy ms --no-bare --json
+ *   flags: --sessions K --seats S --rounds R --warmup W --spread ms --close mixed|all-sealed
+ *          --progress ms --progress-busy ms --no-bare --json
  * Prints numbers and pass/fail against the targets; asserts nothing.
  */
 import { fileURLToPath } from "node:url";
@@ -33,7 +33,14 @@ export const REVEAL_P99_TARGET_MS = 100;
 export interface LoadConfig {
   sessions: number;
   seats: number;
+  /** measured rounds */
   rounds: number;
+  /**
+   * rounds played before them by the same clients and reported apart: without one, the first
+   * round after start-up is also V8's warm-up of the driving process, which runs the real
+   * server's load first and the bare baseline's second, so only ours would pay it
+   */
+  warmupRounds: number;
   spreadMs: number;
   closeMode: "all-sealed" | "mixed";
   /** the servers' progress window (PROGRESS_PUSH_MS); 0 pushes every seal to everyone at once */
@@ -73,6 +80,7 @@ export function configFrom(argv: readonly string[]): LoadConfig {
     sessions: intFlag(argv, "sessions", full ? 200 : 20, 1),
     seats: intFlag(argv, "seats", 8, 2),
     rounds: intFlag(argv, "rounds", 4, 1),
+    warmupRounds: intFlag(argv, "warmup", 1, 0),
     spreadMs: intFlag(argv, "spread", 1000, 0),
     closeMode: close,
     progressMs: intFlag(argv, "progress", 200, 0),
@@ -100,7 +108,7 @@ export async function runLoad(config: LoadConfig, log = console.error): Promise<
     log(`load: server pid ${server.pid} on ${server.url}; creating ${config.sessions} sessions`);
     const tc = performance.now();
     const created = await inBatches(Array.from({ length: config.sessions }), 8, () =>
-      createSession(server.url, kioskScenario(config.seats, config.rounds)),
+      createSession(server.url, kioskScenario(config.seats, config.warmupRounds + config.rounds)),
     );
     const createSeconds = (performance.now() - tc) / 1000;
     const plans: SessionPlan[] = created.map((c) => ({
@@ -114,6 +122,7 @@ export async function runLoad(config: LoadConfig, log = console.error): Promise<
       serverPid: server.pid,
       sessions: plans,
       rounds: config.rounds,
+      warmupRounds: config.warmupRounds,
       spreadMs: config.spreadMs,
       closeMode: config.closeMode,
       connectConcurrency: 32,
@@ -175,6 +184,7 @@ export async function runLoad(config: LoadConfig, log = console.error): Promise<
             seatKeys: p.seatKeys.map((_, i) => `seat:${i}`),
           })),
           rounds: config.rounds,
+          warmupRounds: config.warmupRounds,
           spreadMs: config.spreadMs,
           closeMode: config.closeMode,
           connectConcurrency: 32,
@@ -238,6 +248,12 @@ export async function runLoad(config: LoadConfig, log = console.error): Promise<
   return report;
 }
 
+function byRound(d: Omit<DriveResult, "acked">): string {
+  return d.revealByRound
+    .map((s, i) => (i < d.warmup.rounds ? `[${s.p99.toFixed(1)}]` : s.p99.toFixed(1)))
+    .join(" ");
+}
+
 export function formatLoad(r: LoadReport): string {
   const c = r.config;
   const rows: Array<[string, (d: Omit<DriveResult, "acked">) => Cell]> = [
@@ -268,6 +284,10 @@ export function formatLoad(r: LoadReport): string {
     ["server RSS after connect (MiB)", (d) => d.serverRssAfterConnectMiB],
     ["server RSS at end (MiB)", (d) => d.serverRssEndMiB],
     ["server RSS peak (MiB)", (d) => d.serverRssPeakMiB],
+    ["warm-up: move -> ack p99 (ms)", (d) => (d.warmup.rounds > 0 ? d.warmup.ack.p99 : "-")],
+    ["warm-up: close -> reveal p99 (ms)", (d) => (d.warmup.rounds > 0 ? d.warmup.reveal.p99 : "-")],
+    ["warm-up: server CPU (s)", (d) => (d.warmup.rounds > 0 ? d.warmup.serverCpuSeconds : "-")],
+    ["warm-up: client CPU (s)", (d) => (d.warmup.rounds > 0 ? d.warmup.clientCpuSeconds : "-")],
   ];
   const table = markdownTable(
     ["figure", "contend server", "bare socket.io", "ours / bare"],
@@ -288,7 +308,8 @@ export function formatLoad(r: LoadReport): string {
     ]),
   );
   return [
-    `Load: ${c.sessions} sessions x ${c.seats} human seats (+1 facilitator each), ${c.rounds} rounds,`,
+    `Load: ${c.sessions} sessions x ${c.seats} human seats (+1 facilitator each), ${c.rounds} measured rounds`,
+    `after ${c.warmupRounds} warm-up round(s) (played the same way, figures in the "warm-up" rows only),`,
     `seals spread over ${c.spreadMs} ms after each opening, close mode ${c.closeMode}`,
     `(even rounds closed by the facilitator with one seat missing), progress window ${c.progressMs} ms,`,
     `up to ${Math.max(c.progressMs, c.progressBusyMs)} ms while the server's event loop is near full (other seats see a seal`,
@@ -298,6 +319,7 @@ export function formatLoad(r: LoadReport): string {
     `peak RSS growth per session ${perSession.toFixed(2)} MiB. ${r.checkedMoves} acked moves checked against the exported logs`,
     `after a drain (${r.drainFailures} drain failures): ${r.lostMoves} lost.`,
     `Server log: ${r.serverProblems.count} warn/error lines${r.serverProblems.count ? `; last: ${r.serverProblems.last.join(" | ")}` : ""}.`,
+    `Close -> reveal p99 by round (ms, warm-up in brackets): ours ${byRound(r.ours)}${r.bare ? `; bare ${byRound(r.bare)}` : ""}.`,
     "",
     table,
     "",
