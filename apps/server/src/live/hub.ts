@@ -112,8 +112,12 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
   let closed = false;
 
   function applyAll(live: LiveSession, events: readonly SessionEvent[]) {
+    for (const event of events) live.state = apply(live.state, event);
+    trackMoves(live, events);
+  }
+
+  function trackMoves(live: LiveSession, events: readonly SessionEvent[]) {
     for (const event of events) {
-      live.state = apply(live.state, event);
       if (event.type === "round-opened") live.moveSeqs.clear();
       if (event.type === "move-sealed") {
         live.moveSeqs.set(`${event.seatIndex}:${event.clientMoveId}`, event.seq);
@@ -192,18 +196,23 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
       const now = clock.now();
       const base = live.state.seq;
       const at = Math.max(now, live.state.status === "empty" ? 0 : live.state.at);
-      const bodies: EventBody[] = [];
+      // Each event in the form a read of its row gives back (see asStored), so the state
+      // folded here is exactly what a restart or a replay folds from the same rows, and it
+      // becomes the live state as it is once the append has committed.
+      const stamped: SessionEvent[] = [];
       let trial = live.state;
       const add = (events: readonly EventBody[]) => {
         for (const e of events) {
-          bodies.push(e);
-          trial = apply(trial, { ...e, seq: base + bodies.length, at } as SessionEvent);
+          const seq = base + stamped.length + 1;
+          const event = asStored({ ...e, seq, at } as SessionEvent, seq);
+          stamped.push(event);
+          trial = apply(trial, event);
         }
       };
       const outcomes = requests.map((req) => {
         const decision = decide(trial, req.command, { now, actor: req.actor });
         if (!decision.ok) return decision;
-        const from = bodies.length;
+        const from = stamped.length;
         add(decision.events);
         // When the last active seat has sealed, the round closes in the same append: one
         // commit, one push, and no command can slip in between the last seal and the close.
@@ -212,7 +221,7 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
           if (closing.ok) add(closing.events);
           else logger.warn("all-sealed close failed", { sessionId: live.id, code: closing.code });
         }
-        return { data: decision.data, from, to: bodies.length };
+        return { data: decision.data, from, to: stamped.length };
       });
       const settle = (events: SessionEvent[]): ExecuteResult[] =>
         outcomes.map((o) =>
@@ -225,22 +234,21 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
                 events: events.slice(o.from, o.to),
               },
         );
-      if (bodies.length === 0) return settle([]);
-      const stamped = bodies.map((e, i) => ({ ...e, seq: base + 1 + i, at }) as SessionEvent);
+      if (stamped.length === 0) return settle([]);
       const effects = effectsOf(
-        bodies,
+        stamped,
         requests.flatMap((r) => r.options.addKeys ?? []),
       );
       if (trial.status !== live.state.status && trial.status !== "empty")
         effects.status = trial.status;
       const result = await db.events.append(live.id, base, stamped.map(toNewEvent), effects);
       if (result.ok) {
-        // Apply the rows as the database now holds them (seqs it confirmed, JSON and
-        // millisecond timestamps as they read back), without reading them back: the live state
-        // is then exactly what a restart or a replay folds from the same rows.
-        const ours = stamped.map((e, i) => asStored(e, result.seqs[i] ?? e.seq));
-        applyAll(live, ours);
-        return settle(ours);
+        if (result.seqs.some((seq, i) => seq !== stamped[i]?.seq)) {
+          throw new Error("the database stored these events under other seqs than asked");
+        }
+        live.state = trial;
+        trackMoves(live, stamped);
+        return settle(stamped);
       }
       const failed = (code: ErrorCode, message: string): ExecuteResult[] =>
         requests.map(() => ({ ok: false, code, message }));
