@@ -23,6 +23,7 @@ import { drive } from "./drive";
 import type { DriveResult, SessionPlan } from "./drive";
 import { flag, hasFlag, intFlag } from "./flags";
 import { loadAverage, rssMiB } from "./proc";
+import { speedCheckMs } from "./speed";
 import { ratio } from "./stats";
 import { markdownTable } from "./table";
 import type { Cell } from "./table";
@@ -57,6 +58,8 @@ export interface LoadReport {
   config: LoadConfig;
   loadBefore: string;
   loadAfter: string;
+  /** the fixed work of speedCheckMs before and after the run (ms; lower is faster) */
+  speedCheckMs: { before: number; after: number };
   serverStartRssMiB: number;
   ours: Omit<DriveResult, "acked">;
   bare: Omit<DriveResult, "acked"> | null;
@@ -93,6 +96,7 @@ const strip = ({ acked: _acked, ...rest }: DriveResult) => rest;
 
 export async function runLoad(config: LoadConfig, log = console.error): Promise<LoadReport> {
   const loadBefore = loadAverage();
+  const speedBefore = speedCheckMs();
   const port = await freePort();
   const server = await startServer({
     dataDir: tempDir("contend-load-"),
@@ -202,6 +206,7 @@ export async function runLoad(config: LoadConfig, log = console.error): Promise<
       config,
       loadBefore,
       loadAfter: loadAverage(),
+      speedCheckMs: { before: speedBefore, after: speedCheckMs() },
       serverStartRssMiB,
       ours: oursR,
       bare: bareR,
@@ -313,7 +318,8 @@ export function formatLoad(r: LoadReport): string {
     `seals spread over ${c.spreadMs} ms after each opening, close mode ${c.closeMode}`,
     `(even rounds closed by the facilitator with one seat missing), progress window ${c.progressMs} ms,`,
     `up to ${Math.max(c.progressMs, c.progressBusyMs)} ms while the server's event loop is near full (other seats see a seal`,
-    `within it). Load average before ${r.loadBefore}, after ${r.loadAfter}.`,
+    `within it). Load average before ${r.loadBefore}, after ${r.loadAfter}. Speed check (fixed work,`,
+    `lower is faster): ${r.speedCheckMs.before.toFixed(1)} ms before, ${r.speedCheckMs.after.toFixed(1)} ms after.`,
     `Database: ${benchDatabase().replace(/\/\/[^@/]*@/, "//")}. Node flags of both servers: ${serverNodeFlags().join(" ") || "none"}.`,
     `Sessions created over REST in ${r.createSeconds.toFixed(1)} s. Server RSS at start ${r.serverStartRssMiB.toFixed(1)} MiB;`,
     `peak RSS growth per session ${perSession.toFixed(2)} MiB. ${r.checkedMoves} acked moves checked against the exported logs`,
