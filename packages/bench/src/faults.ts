@@ -165,12 +165,21 @@ export async function crashRun(opts: { sessions: number; seats: number }): Promi
     const rehelloed = everyone.filter((c) => c.hellos >= 2).length;
     const reconnectSeconds = (performance.now() - tRestart) / 1000;
 
-    // Acked before the kill: the seat's own view after restart must show that move.
+    // Acked before the kill: the seat's own view after restart must show that move, as its
+    // sealed effort while the round is open, or in the round's result if every seat of that
+    // session had sealed before the kill (the last seal and the close are one commit).
     let presentInViews = 0;
     for (const m of preKillSnapshot) {
       const t = tables.find((x) => x.created.id === m.sessionId)!;
-      const you = t.seats[m.seatIndex]!.lastView?.you;
-      if (you && you.clientMoveId === m.clientMoveId && you.sealedEffort === m.effort)
+      const view = t.seats[m.seatIndex]!.lastView;
+      const you = view?.you;
+      const resolved = (view?.rounds as { round: number; efforts: number[] }[] | undefined)?.find(
+        (r) => r.round === m.round,
+      );
+      if (
+        (you && you.clientMoveId === m.clientMoveId && you.sealedEffort === m.effort) ||
+        resolved?.efforts[m.seatIndex] === m.effort
+      )
         presentInViews++;
     }
 
