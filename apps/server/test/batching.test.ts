@@ -13,16 +13,22 @@ import { printShops } from "./fixtures";
 
 const file = serverForFile();
 
+/** A session of `rounds` rounds with its facilitator and every seat connected and greeted. */
+async function seatedSession(rounds: number) {
+  const created = await createSessionOverHttp(file.server.url, printShops({ rounds }));
+  const id = created.id;
+  const fac = await file.client();
+  expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
+  const seats = await Promise.all(created.seats.map(() => file.client()));
+  for (const [i, s] of seats.entries()) {
+    expectOk(await hello(s, { role: "seat", sessionId: id, key: created.seats[i]!.key }));
+  }
+  return { id, fac, seats };
+}
+
 describe("commands of one session that arrive together", () => {
   it("share one append, and each gets the ack it would have got alone", async () => {
-    const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 2 }));
-    const id = created.id;
-    const fac = await file.client();
-    expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
-    const seats = await Promise.all(created.seats.map(() => file.client()));
-    for (const [i, s] of seats.entries()) {
-      expectOk(await hello(s, { role: "seat", sessionId: id, key: created.seats[i]!.key }));
-    }
+    const { id, fac, seats } = await seatedSession(2);
     expect(seats.length).toBeGreaterThanOrEqual(3);
     const [s0, s1, s2] = seats as [Client, Client, Client];
     expectOk(await command(fac, { type: "openRound" }));
@@ -74,14 +80,7 @@ describe("commands of one session that arrive together", () => {
   });
 
   it("the seal that ends the session is acked from its own commit, without reading the log", async () => {
-    const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 1 }));
-    const id = created.id;
-    const fac = await file.client();
-    expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
-    const seats = await Promise.all(created.seats.map(() => file.client()));
-    for (const [i, s] of seats.entries()) {
-      expectOk(await hello(s, { role: "seat", sessionId: id, key: created.seats[i]!.key }));
-    }
+    const { id, fac, seats } = await seatedSession(1);
     expectOk(await command(fac, { type: "openRound" }));
     const [last, ...others] = seats as [Client, ...Client[]];
     for (const [i, s] of others.entries()) {
