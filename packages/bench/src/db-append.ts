@@ -1,8 +1,9 @@
 /**
  * The database alone: how long one event-log append (the commit behind every ack) takes on
  * embedded PGlite in a fresh directory, without sockets, engine or solver. One writer appending
- * to one session, then many sessions appending at once (each session serial, as the server's
- * queues are). Runs in this process; CPU is this process's.
+ * to one session back to back, the same with the appends spaced out (its appends/s is the
+ * offered rate, its CPU includes the idle timers), then many sessions appending at once (each
+ * session serial, as the server's queues are). Runs in this process; CPU is this process's.
  *   npx tsx src/db-append.ts [--appends 400] [--sessions 40] [--json]
  */
 import path from "node:path";
