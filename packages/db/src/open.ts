@@ -1,11 +1,8 @@
 import { mkdirSync } from "node:fs";
 import path from "node:path";
-import { PGlite } from "@electric-sql/pglite";
 import { PrismaPg } from "@prisma/adapter-pg";
 import pg from "pg";
-import { PrismaPGlite } from "pglite-prisma-adapter";
 import { lockDataDir } from "./dir-lock";
-import { useLeanParsers } from "./pglite-parsers";
 import { PrismaClient } from "./generated/prisma/client";
 import { applyMigrations, DEFAULT_MIGRATIONS_DIR, readMigrations } from "./migrate";
 import { eventsRepository } from "./repos/events";
@@ -13,7 +10,8 @@ import { keysRepository } from "./repos/keys";
 import { scenariosRepository } from "./repos/scenarios";
 import { seatsRepository } from "./repos/seats";
 import { sessionsRepository } from "./repos/sessions";
-import { pgliteRunner, poolRunner, type SqlRunner } from "./sql-runner";
+import { startPgliteThread } from "./pglite-thread/proxy";
+import { poolRunner, type SqlRunner } from "./sql-runner";
 import { resolveTarget } from "./target";
 import type { Db } from "./types";
 
@@ -37,8 +35,9 @@ export interface Database {
   close(): Promise<void>;
 }
 
-// pglite-prisma-adapter 0.6.1 is typed against @prisma/driver-adapter-utils 6.10, whose
-// ArgType differs from 6.19's; it never reads argTypes, so only the type needs bridging.
+// The PGlite thread's adapter factory is built from plain objects (the real adapter,
+// pglite-prisma-adapter, runs on that thread); Prisma reads it through the driver-adapter
+// interface that PrismaPg implements, so only the type needs bridging.
 type AdapterFactory = PrismaPg;
 
 interface Connection {
@@ -56,19 +55,17 @@ async function connectPglite(dataDir: string | null): Promise<Connection> {
     mkdirSync(dataDir, { recursive: true });
   }
   try {
-    const pglite = dataDir ? await PGlite.create(dataDir) : await PGlite.create();
-    await useLeanParsers(pglite);
-    const prisma = new PrismaClient({
-      adapter: new PrismaPGlite(pglite) as unknown as AdapterFactory,
-    });
+    // PGlite on its own thread: its commits would otherwise hold up every socket in the server.
+    const thread = await startPgliteThread(dataDir);
+    const prisma = new PrismaClient({ adapter: thread.adapter as AdapterFactory });
     return {
       kind: "pglite",
       prisma,
-      runner: pgliteRunner(pglite),
+      runner: thread.runner,
       async close() {
         try {
           await prisma.$disconnect();
-          await pglite.close();
+          await thread.close();
         } finally {
           release();
         }

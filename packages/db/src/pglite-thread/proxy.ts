@@ -1,0 +1,166 @@
+/**
+ * The main thread's side of the PGlite thread (thread.ts): starts it, and hands out a Prisma
+ * driver-adapter factory and a SqlRunner whose calls travel to it as messages. The adapter
+ * itself (pglite-prisma-adapter) runs on the PGlite thread, so its result parsing and error
+ * translation are unchanged; only the results cross over.
+ */
+import { readFileSync } from "node:fs";
+import { createRequire } from "node:module";
+import path from "node:path";
+import { pathToFileURL } from "node:url";
+import { Worker } from "node:worker_threads";
+import type { PreparedStatement, PreparedValue, SqlRunner, SqlTx } from "../sql-runner";
+import { fromWire, type Envelope, type Ready, type Reply, type Request } from "./messages";
+
+const THREAD_MAIN = new URL("./thread.ts", import.meta.url).href;
+
+/**
+ * tsx's ESM API, found through its package exports: vitest's module runner has no
+ * import.meta.resolve, and the API's CommonJS build cannot load files from ESM.
+ */
+function tsxEsmApi(): string {
+  const require = createRequire(import.meta.url);
+  const manifest = require.resolve("tsx/package.json");
+  const { exports } = JSON.parse(readFileSync(manifest, "utf8")) as {
+    exports: Record<string, { import?: { default?: string } }>;
+  };
+  const entry = exports["./esm/api"]?.import?.default;
+  if (!entry) throw new Error("tsx no longer exports ./esm/api for import");
+  return pathToFileURL(path.join(path.dirname(manifest), entry)).href;
+}
+
+/**
+ * The thread's first code: it loads thread.ts through tsx, as the rest of the project runs.
+ * (Node 20 applies neither the parent's nor an `--import`ed module loader to a worker's entry.)
+ */
+const BOOT = `import(${JSON.stringify(tsxEsmApi())}).then(({ tsImport }) => tsImport(${JSON.stringify(THREAD_MAIN)}, ${JSON.stringify(import.meta.url)}));`;
+
+export interface PgliteThread {
+  /** for `new PrismaClient({ adapter })` */
+  adapter: unknown;
+  runner: SqlRunner;
+  /** closes the database, then ends the thread */
+  close(): Promise<void>;
+}
+
+/** Opens the database (a directory, or in memory for null) on a new thread. */
+export async function startPgliteThread(dataDir: string | null): Promise<PgliteThread> {
+  const worker = new Worker(BOOT, { eval: true, workerData: { dataDir } });
+  const pending = new Map<number, { resolve(v: unknown): void; reject(e: unknown): void }>();
+  let nextId = 1;
+  let stopped: Error | null = null;
+
+  const ready = new Promise<void>((resolve, reject) => {
+    const onMessage = (message: Ready) => {
+      worker.off("message", onMessage);
+      if (message.ready) resolve();
+      else reject(fromWire(message.error));
+    };
+    worker.on("message", onMessage);
+    worker.once("error", reject);
+    worker.once("exit", (code) => reject(new Error(`the database thread exited (code ${code})`)));
+  });
+  try {
+    await ready;
+  } catch (error) {
+    await worker.terminate();
+    throw error;
+  }
+
+  // Like PGlite in-process, an idle database does not keep the process alive; a waiting call does.
+  worker.unref();
+  worker.on("message", (reply: Reply) => {
+    const waiter = pending.get(reply.id);
+    if (!waiter) return;
+    pending.delete(reply.id);
+    if (pending.size === 0) worker.unref();
+    if (reply.ok) waiter.resolve(reply.value);
+    else waiter.reject(fromWire(reply.error));
+  });
+  // A thread that dies takes the database with it: every waiting and later call fails.
+  const fail = (error: Error) => {
+    stopped ??= error;
+    for (const waiter of pending.values()) waiter.reject(stopped);
+    pending.clear();
+  };
+  worker.on("error", fail);
+  worker.on("exit", (code) => fail(new Error(`the database thread exited (code ${code})`)));
+
+  function call<T>(request: Request): Promise<T> {
+    if (stopped) return Promise.reject(stopped);
+    const id = nextId++;
+    if (pending.size === 0) worker.ref();
+    return new Promise<T>((resolve, reject) => {
+      pending.set(id, { resolve: resolve as (v: unknown) => void, reject });
+      worker.postMessage({ ...request, id } satisfies Envelope);
+    });
+  }
+
+  function queryable(tx: number | null) {
+    return {
+      provider: "postgres" as const,
+      adapterName: "pglite-prisma-adapter",
+      queryRaw: (query: unknown) => call({ op: "adapter.query", tx, query, rows: true }),
+      executeRaw: (query: unknown) => call<number>({ op: "adapter.query", tx, query, rows: false }),
+    };
+  }
+
+  const connection = {
+    ...queryable(null),
+    executeScript: (script: string) => call<void>({ op: "adapter.script", script }),
+    async startTransaction(isolationLevel?: string) {
+      const tx = await call<number>({ op: "adapter.begin", isolationLevel });
+      return {
+        ...queryable(tx),
+        options: { usePhantomQuery: true },
+        commit: () => call<void>({ op: "adapter.end", tx, commit: true }),
+        rollback: () => call<void>({ op: "adapter.end", tx, commit: false }),
+      };
+    },
+    getConnectionInfo: () => ({ supportsRelationJoins: true }),
+    dispose: () => Promise.resolve(),
+  };
+
+  const adapter = {
+    provider: "postgres" as const,
+    adapterName: "pglite-prisma-adapter",
+    connect: () => Promise.resolve(connection),
+  };
+
+  const runner: SqlRunner = {
+    async transaction<T>(fn: (tx: SqlTx) => Promise<T>): Promise<T> {
+      const tx = await call<number>({ op: "runner.begin" });
+      let result: T;
+      try {
+        result = await fn({
+          exec: (script) => call<void>({ op: "runner.exec", tx, script }),
+          query: <Row extends Record<string, unknown>>(sql: string, params?: unknown[]) =>
+            call<Row[]>({ op: "runner.query", tx, sql, params }),
+        });
+      } catch (error) {
+        await call({ op: "runner.end", tx, commit: false }).catch(() => undefined);
+        throw error;
+      }
+      await call({ op: "runner.end", tx, commit: true });
+      return result;
+    },
+    query: <Row extends Record<string, unknown>>(sql: string, params?: unknown[]) =>
+      call<Row[]>({ op: "runner.query", tx: null, sql, params }),
+    prepared: <Row extends Record<string, unknown>>(
+      statement: PreparedStatement,
+      params: readonly PreparedValue[],
+    ) => call<Row[]>({ op: "runner.prepared", statement, params }),
+  };
+
+  return {
+    adapter,
+    runner,
+    async close() {
+      try {
+        if (!stopped) await call({ op: "close" });
+      } finally {
+        await worker.terminate();
+      }
+    },
+  };
+}

@@ -1,0 +1,86 @@
+import { spawnSync } from "node:child_process";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { startPgliteThread, type PgliteThread } from "../src/pglite-thread/proxy";
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+
+describe("PGlite on its own thread", () => {
+  let thread: PgliteThread;
+  beforeAll(async () => {
+    thread = await startPgliteThread(null);
+    await thread.runner.query("CREATE TABLE note (id int PRIMARY KEY, body text)");
+  });
+  afterAll(() => thread.close());
+
+  it("keeps the main thread's timers running while a long statement runs", async () => {
+    // In-process, PGlite runs the statement as one synchronous WebAssembly call: no timer fires
+    // until it returns. On its own thread the statement blocks only that thread.
+    let ticks = 0;
+    const timer = setInterval(() => ticks++, 5);
+    const t0 = performance.now();
+    const [row] = await thread.runner.query<{ n: string }>(
+      "SELECT count(*)::text AS n FROM generate_series(1, 3000000) AS g(i) WHERE i % 7 = 0",
+    );
+    const elapsed = performance.now() - t0;
+    clearInterval(timer);
+    expect(row?.n).toBe(String(Math.floor(3_000_000 / 7)));
+    // Loose on purpose (a busy CI machine): a blocked thread would give no tick at all.
+    expect(elapsed).toBeGreaterThan(100);
+    expect(ticks).toBeGreaterThanOrEqual(5);
+  });
+
+  it("brings a PostgreSQL error over with its code and message", async () => {
+    await thread.runner.query("INSERT INTO note VALUES (1, 'first')");
+    const error = await thread.runner
+      .query("INSERT INTO note VALUES (1, 'again')")
+      .catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(Error);
+    // 23505 unique_violation (PostgreSQL manual, Appendix A)
+    expect((error as { code?: string }).code).toBe("23505");
+    expect((error as Error).message).toMatch(/duplicate key/);
+  });
+
+  it("a transaction that throws leaves nothing, and one that returns is kept", async () => {
+    await expect(
+      thread.runner.transaction(async (tx) => {
+        await tx.query("INSERT INTO note VALUES (2, 'rolled back')");
+        throw new Error("stop here");
+      }),
+    ).rejects.toThrow("stop here");
+    const kept = await thread.runner.transaction(async (tx) => {
+      await tx.exec("INSERT INTO note VALUES (3, 'kept'); INSERT INTO note VALUES (4, 'kept too')");
+      return (await tx.query<{ n: number }>("SELECT count(*)::int AS n FROM note"))[0]?.n;
+    });
+    expect(kept).toBe(3);
+    const ids = await thread.runner.query<{ id: number }>("SELECT id FROM note ORDER BY id");
+    expect(ids.map((r) => r.id)).toEqual([1, 3, 4]);
+  });
+
+  it("fails every call clearly once the thread has ended, instead of waiting forever", async () => {
+    const other = await startPgliteThread(null);
+    await other.close();
+    await expect(other.runner.query("SELECT 1")).rejects.toThrow(/database thread exited/);
+  });
+
+  it("an idle database does not keep a finished process alive", () => {
+    // A script that opens, queries and never closes must still end, as with PGlite in-process.
+    const script = `
+      import { startPgliteThread } from ${JSON.stringify(path.join(here, "../src/pglite-thread/proxy.ts"))};
+      const t = await startPgliteThread(null);
+      const rows = await t.runner.query("SELECT 41 + 1 AS answer");
+      console.log(JSON.stringify(rows));
+    `;
+    const child = spawnSync(
+      process.execPath,
+      ["--import", "tsx", "--input-type=module", "-e", script],
+      {
+        encoding: "utf8",
+        timeout: 60_000,
+      },
+    );
+    expect(child.signal).toBeNull();
+    expect(child.stdout.trim()).toBe('[{"answer":42}]');
+  });
+});
