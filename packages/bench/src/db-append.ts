@@ -3,7 +3,8 @@
  * embedded PGlite in a fresh directory, without sockets, engine or solver. One writer appending
  * to one session back to back, the same with the appends spaced out (its appends/s is the
  * offered rate, its CPU includes the idle timers), then many sessions appending at once (each
- * session serial, as the server's queues are). Runs in this process; CPU is this process's.
+ * session serial, as the server's queues are). The database runs on its own thread of this
+ * process, as in the server; CPU is this process's, both threads.
  *   npx tsx src/db-append.ts [--appends 400] [--sessions 40] [--json]
  */
 import path from "node:path";
@@ -138,7 +139,7 @@ export async function runDbAppend(opts: {
 export function formatDbAppend(rows: AppendFigures[]): string {
   return markdownTable(
     [
-      "database append (PGlite, in process)",
+      "database append (PGlite on its own thread)",
       "appends",
       "appends/s",
       "p50 ms",
