@@ -17,6 +17,12 @@ async function main() {
     where: db.kind === "pglite" ? path.relative(process.cwd(), env.databaseUrl) || "." : "postgres",
     migrationsApplied: db.migrationsApplied,
   });
+  // Without its database the server could only refuse every command; exiting lets a
+  // supervisor restart it, and the restart restores every session from the log.
+  void db.lost.then((error) => {
+    logger.error("database lost; exiting", { error: error.message });
+    process.exit(1);
+  });
   const web = env.web
     ? await loadWebApp({
         dir: WEB_DIR,

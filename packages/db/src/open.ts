@@ -32,6 +32,12 @@ export interface Database {
   scenarios: ReturnType<typeof scenariosRepository>;
   /** migrations applied by this open (empty when the database was up to date) */
   migrationsApplied: string[];
+  /**
+   * Resolves if the database is gone for good while open (the PGlite thread crashed): every
+   * call fails from then on, and the process should restart. A PostgreSQL pool replaces lost
+   * connections itself, so there it never resolves.
+   */
+  lost: Promise<Error>;
   close(): Promise<void>;
 }
 
@@ -44,6 +50,7 @@ interface Connection {
   kind: Database["kind"];
   prisma: Db;
   runner: SqlRunner;
+  lost: Promise<Error>;
   close(): Promise<void>;
 }
 
@@ -62,6 +69,7 @@ async function connectPglite(dataDir: string | null): Promise<Connection> {
       kind: "pglite",
       prisma,
       runner: thread.runner,
+      lost: thread.lost,
       async close() {
         try {
           await prisma.$disconnect();
@@ -86,6 +94,7 @@ function connectPostgres(url: string): Connection {
     kind: "postgres",
     prisma,
     runner: poolRunner(pool),
+    lost: new Promise<Error>(() => undefined),
     async close() {
       await prisma.$disconnect();
       await pool.end();
@@ -116,6 +125,7 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<Database> {
     seats: seatsRepository(prisma),
     scenarios: scenariosRepository(prisma),
     migrationsApplied,
+    lost: connection.lost,
     close: connection.close,
   };
 }

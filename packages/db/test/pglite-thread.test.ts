@@ -1,7 +1,9 @@
 import { spawnSync } from "node:child_process";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import { Worker } from "node:worker_threads";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { openChannel } from "../src/pglite-thread/channel";
 import { startPgliteThread, type PgliteThread } from "../src/pglite-thread/proxy";
 
 const here = path.dirname(fileURLToPath(import.meta.url));
@@ -82,5 +84,34 @@ describe("PGlite on its own thread", () => {
     );
     expect(child.signal).toBeNull();
     expect(child.stdout.trim()).toBe('[{"answer":42}]');
+  });
+});
+
+describe("the channel to a database thread", () => {
+  // A stand-in thread: answers its first request, then dies as a crashed database would.
+  const DIES_ON_SECOND = `
+    const { parentPort } = require("node:worker_threads");
+    let n = 0;
+    parentPort.on("message", (m) => {
+      if (++n === 1) parentPort.postMessage({ id: m.id, ok: true, value: "first" });
+      else process.exit(3);
+    });`;
+  const pendingAfter = (p: Promise<unknown>, ms: number) =>
+    Promise.race([p.then(() => "settled"), new Promise((r) => setTimeout(() => r("pending"), ms))]);
+
+  it("a thread that dies fails the waiting call and every later one, and reports itself lost", async () => {
+    const channel = openChannel(new Worker(DIES_ON_SECOND, { eval: true }));
+    await expect(channel.call({ op: "runner.begin" })).resolves.toBe("first");
+    await expect(channel.call({ op: "runner.begin" })).rejects.toThrow(/exited \(code 3\)/);
+    await expect(channel.call({ op: "runner.begin" })).rejects.toThrow(/exited \(code 3\)/);
+    const lost = await channel.lost;
+    expect(lost.message).toMatch(/database thread exited \(code 3\)/);
+  });
+
+  it("a thread ended by close is not reported lost", async () => {
+    const channel = openChannel(new Worker(DIES_ON_SECOND, { eval: true }));
+    await channel.close({ op: "close" });
+    expect(await pendingAfter(channel.lost, 300)).toBe("pending");
+    await expect(channel.call({ op: "runner.begin" })).rejects.toThrow(/exited/);
   });
 });

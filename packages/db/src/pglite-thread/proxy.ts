@@ -10,7 +10,8 @@ import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
 import type { PreparedStatement, PreparedValue, SqlRunner, SqlTx } from "../sql-runner";
-import { fromWire, type Envelope, type Ready, type Reply, type Request } from "./messages";
+import { openChannel } from "./channel";
+import { fromWire, type Ready } from "./messages";
 
 const THREAD_MAIN = new URL("./thread.ts", import.meta.url).href;
 
@@ -39,6 +40,8 @@ export interface PgliteThread {
   /** for `new PrismaClient({ adapter })` */
   adapter: unknown;
   runner: SqlRunner;
+  /** resolves if the thread ends on its own (a crash): the database is gone until a restart */
+  lost: Promise<Error>;
   /** closes the database, then ends the thread */
   close(): Promise<void>;
 }
@@ -46,10 +49,6 @@ export interface PgliteThread {
 /** Opens the database (a directory, or in memory for null) on a new thread. */
 export async function startPgliteThread(dataDir: string | null): Promise<PgliteThread> {
   const worker = new Worker(BOOT, { eval: true, workerData: { dataDir } });
-  const pending = new Map<number, { resolve(v: unknown): void; reject(e: unknown): void }>();
-  let nextId = 1;
-  let stopped: Error | null = null;
-
   const ready = new Promise<void>((resolve, reject) => {
     const onMessage = (message: Ready) => {
       worker.off("message", onMessage);
@@ -67,34 +66,7 @@ export async function startPgliteThread(dataDir: string | null): Promise<PgliteT
     throw error;
   }
 
-  // Like PGlite in-process, an idle database does not keep the process alive; a waiting call does.
-  worker.unref();
-  worker.on("message", (reply: Reply) => {
-    const waiter = pending.get(reply.id);
-    if (!waiter) return;
-    pending.delete(reply.id);
-    if (pending.size === 0) worker.unref();
-    if (reply.ok) waiter.resolve(reply.value);
-    else waiter.reject(fromWire(reply.error));
-  });
-  // A thread that dies takes the database with it: every waiting and later call fails.
-  const fail = (error: Error) => {
-    stopped ??= error;
-    for (const waiter of pending.values()) waiter.reject(stopped);
-    pending.clear();
-  };
-  worker.on("error", fail);
-  worker.on("exit", (code) => fail(new Error(`the database thread exited (code ${code})`)));
-
-  function call<T>(request: Request): Promise<T> {
-    if (stopped) return Promise.reject(stopped);
-    const id = nextId++;
-    if (pending.size === 0) worker.ref();
-    return new Promise<T>((resolve, reject) => {
-      pending.set(id, { resolve: resolve as (v: unknown) => void, reject });
-      worker.postMessage({ ...request, id } satisfies Envelope);
-    });
-  }
+  const { call, lost, close } = openChannel(worker);
 
   function queryable(tx: number | null) {
     return {
@@ -155,12 +127,7 @@ export async function startPgliteThread(dataDir: string | null): Promise<PgliteT
   return {
     adapter,
     runner,
-    async close() {
-      try {
-        if (!stopped) await call({ op: "close" });
-      } finally {
-        await worker.terminate();
-      }
-    },
+    lost,
+    close: () => close({ op: "close" }),
   };
 }
