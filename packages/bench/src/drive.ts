@@ -66,6 +66,8 @@ export interface DriveResult {
   serverCpuMsPerMove: number;
   /** the server's main thread (event loop) alone, % of one core */
   serverMainThreadCpuPercent: number;
+  /** the main thread's share of serverCpuMsPerMove: what limits a server whose other cores are free */
+  serverMainThreadCpuMsPerMove: number;
   /**
    * how late the driving process's own event loop ran (ms) during the rounds: time that every
    * latency above includes on the client side, since all clients share that one loop
@@ -281,6 +283,7 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     serverCpuPercent: (100 * serverCpuSeconds) / roundsSeconds,
     serverCpuMsPerMove: (1000 * serverCpuSeconds) / Math.max(1, movesAcked),
     serverMainThreadCpuPercent: (100 * mainCpuSeconds) / roundsSeconds,
+    serverMainThreadCpuMsPerMove: (1000 * mainCpuSeconds) / Math.max(1, movesAcked),
     clientLoopDelay,
     clientCpuSeconds,
     clientCpuPercent: (100 * clientCpuSeconds) / roundsSeconds,

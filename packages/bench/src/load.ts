@@ -282,6 +282,7 @@ export function formatLoad(r: LoadReport): string {
     ["server CPU (% of one core)", (d) => d.serverCpuPercent],
     ["server CPU per move (ms)", (d) => d.serverCpuMsPerMove],
     ["server main thread CPU (% of one core)", (d) => d.serverMainThreadCpuPercent],
+    ["server main thread CPU per move (ms)", (d) => d.serverMainThreadCpuMsPerMove],
     ["client event-loop delay p99 (ms)", (d) => d.clientLoopDelay.p99],
     ["client event-loop delay max (ms)", (d) => d.clientLoopDelay.max],
     ["client CPU in rounds (s)", (d) => d.clientCpuSeconds],
