@@ -35,11 +35,16 @@ class Rollback extends Error {}
 async function main() {
   const port = parentPort;
   if (!port) throw new Error("pglite thread: not started as a worker");
-  const { dataDir } = workerData as { dataDir: string | null };
+  const { dataDir, wasmModule } = workerData as {
+    dataDir: string | null;
+    wasmModule: WebAssembly.Module;
+  };
   let pglite: PGlite;
   let adapter: Adapter;
   try {
-    pglite = dataDir ? await PGlite.create(dataDir) : await PGlite.create();
+    pglite = dataDir
+      ? await PGlite.create(dataDir, { wasmModule })
+      : await PGlite.create({ wasmModule });
     await useLeanParsers(pglite);
     adapter = (await new PrismaPGlite(pglite).connect()) as unknown as Adapter;
   } catch (error) {
