@@ -36,11 +36,17 @@ function tsxEsmApi(): string {
  */
 const BOOT = `import(${JSON.stringify(tsxEsmApi())}).then(({ tsImport }) => tsImport(${JSON.stringify(THREAD_MAIN)}, ${JSON.stringify(import.meta.url)}));`;
 
-let compiled: Promise<WebAssembly.Module> | null = null;
-// @types/node 20 declares the WebAssembly types (through PGlite's) but not the global itself.
+/**
+ * A compiled WebAssembly.Module, kept opaque here: @types/node 20 declares neither the global
+ * nor its namespace, and packages that import this file without PGlite's types (the benchmarks)
+ * would not see them. Only the thread (thread.ts), which imports PGlite, names the real type.
+ */
+type CompiledWasm = object;
+
+let compiled: Promise<CompiledWasm> | null = null;
 const wasm = (
   globalThis as unknown as {
-    WebAssembly: { compile(bytes: Uint8Array): Promise<WebAssembly.Module> };
+    WebAssembly: { compile(bytes: Uint8Array): Promise<CompiledWasm> };
   }
 ).WebAssembly;
 
@@ -50,7 +56,7 @@ const wasm = (
  * database), as V8 shares the compiled code between threads. The file sits beside PGlite's
  * entry point, which is where PGlite itself loads it from.
  */
-function pgliteWasm(): Promise<WebAssembly.Module> {
+function pgliteWasm(): Promise<CompiledWasm> {
   compiled ??= (async () => {
     const entry = createRequire(import.meta.url).resolve("@electric-sql/pglite");
     return wasm.compile(readFileSync(path.join(path.dirname(entry), "pglite.wasm")));
