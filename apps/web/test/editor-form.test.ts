@@ -5,12 +5,14 @@ import {
   bindField,
   defaultForm,
   formToScenario,
+  keptPolicyFields,
   parseNumberField,
   parseScenarioText,
   rivalFieldError,
   scenarioToForm,
 } from "../src/lib/editor-form";
 import type { EditorForm } from "../src/lib/editor-form";
+import type { SessionScenarioInput } from "../src/lib/session-types";
 import { TEMPLATES } from "../src/lib/templates";
 
 function withRival(
@@ -113,6 +115,46 @@ describe("formToScenario", () => {
       expect(r.scenario.prize).toBe(t.scenario.prize);
       expect(r.scenario.session).toEqual(t.scenario.session);
     }
+  });
+});
+
+describe("computer policy settings without a field", () => {
+  const imported = {
+    ...TEMPLATES[0]!.scenario,
+    session: {
+      ...TEMPLATES[0]!.scenario.session,
+      computer: {
+        [TEMPLATES[0]!.scenario.rivals[0]!.name]: {
+          kind: "overspender",
+          factor: 1.4,
+          noise: 0.1,
+          decay: 0.8,
+        },
+      },
+    },
+  } as SessionScenarioInput;
+
+  it("an imported overspender keeps its noise and decay through the form", () => {
+    const r = formToScenario(scenarioToForm(imported));
+    expect(r.ok).toBe(true);
+    if (r.ok) expect(r.scenario.session).toEqual(imported.session);
+  });
+
+  it("kept settings apply only while the same policy is chosen", () => {
+    const form = scenarioToForm(imported);
+    expect(keptPolicyFields(form.rivals[0]!)).toEqual([
+      ["noise", 0.1],
+      ["decay", 0.8],
+    ]);
+    const fixed = withRival(form, 0, { policy: "fixed", policyArg: "3" });
+    expect(keptPolicyFields(fixed.rivals[0]!)).toEqual([]);
+    const r = formToScenario(fixed);
+    expect(r.ok).toBe(true);
+    if (r.ok)
+      expect(r.scenario.session?.computer?.[imported.rivals[0]!.name]).toEqual({
+        kind: "fixed",
+        effort: 3,
+      });
   });
 });
 

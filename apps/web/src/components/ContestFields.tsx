@@ -4,6 +4,7 @@ import type { EditorForm, FieldErrors, RivalRow } from "../lib/editor-form";
 import {
   bindField,
   blankRival,
+  keptPolicyFields,
   POLICY_ARGUMENT,
   POLICY_CHOICES,
   rivalFieldError,
@@ -194,6 +195,14 @@ export function RivalsTable({
                         placeholder={POLICY_ARGUMENT[r.policy]?.placeholder}
                         testId={`rival-${i}-policy-arg`}
                       />
+                    )}
+                    {keptPolicyFields(r).length > 0 && (
+                      <p className="muted" data-testid={`rival-${i}-policy-kept`}>
+                        Also from the imported file:{" "}
+                        {keptPolicyFields(r)
+                          .map(([k, v]) => `${k} ${JSON.stringify(v)}`)
+                          .join(", ")}
+                      </p>
                     )}
                   </td>
                 )}

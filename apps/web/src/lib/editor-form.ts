@@ -44,6 +44,11 @@ export interface RivalRow {
   policy: PolicyChoice;
   /** the policy's one number (overspender factor, fixed effort); blank = its default */
   policyArg: string;
+  /**
+   * Settings of an imported policy that the form has no field for (the overspender's noise and
+   * decay), kept so an import and export loses nothing; they apply while the same kind is chosen.
+   */
+  policyKept: { kind: PolicyKind; fields: Record<string, unknown> } | null;
 }
 
 export interface EditorForm {
@@ -94,6 +99,7 @@ export function blankRival(index: number): RivalRow {
     decisiveness: "",
     policy: "human",
     policyArg: "",
+    policyKept: null,
   };
 }
 
@@ -147,10 +153,17 @@ function rivalOf(row: RivalRow): Record<string, unknown> {
 
 function policyOf(row: RivalRow): Record<string, unknown> | null {
   if (row.policy === "human") return null;
+  const kept = row.policyKept?.kind === row.policy ? row.policyKept.fields : {};
+  const policy: Record<string, unknown> = { kind: row.policy, ...kept };
   const arg = POLICY_ARGUMENT[row.policy];
-  if (arg === undefined) return { kind: row.policy };
-  const v = parseNumberField(row.policyArg);
-  return v === undefined ? { kind: row.policy } : { kind: row.policy, [arg.field]: v };
+  const v = arg === undefined ? undefined : parseNumberField(row.policyArg);
+  if (arg !== undefined && v !== undefined) policy[arg.field] = v;
+  return policy;
+}
+
+/** The kept settings of a row's chosen policy, for showing beside its select. */
+export function keptPolicyFields(row: RivalRow): [string, unknown][] {
+  return row.policyKept?.kind === row.policy ? Object.entries(row.policyKept.fields) : [];
 }
 
 /** The raw (unvalidated) contest object the form describes. */
@@ -287,7 +300,10 @@ export function rivalFieldError(
   return errors[`rivals.${index}.${field}`];
 }
 
-/** A session scenario (template, import, CLI file) -> form text. Unknown extras are dropped. */
+/**
+ * A session scenario (template, import, CLI file) -> form text. Policy settings without a field
+ * are kept on the row (policyKept); other unknown extras are dropped.
+ */
 export function scenarioToForm(s: SessionScenarioInput): EditorForm {
   const session = s.session ?? {};
   const computer = (session.computer ?? {}) as Record<string, Record<string, unknown>>;
@@ -296,6 +312,9 @@ export function scenarioToForm(s: SessionScenarioInput): EditorForm {
     const kind = (policy?.kind as PolicyKind | undefined) ?? null;
     const argField = kind === null ? undefined : POLICY_ARGUMENT[kind]?.field;
     const arg = argField === undefined ? undefined : policy?.[argField];
+    const fields = Object.fromEntries(
+      Object.entries(policy ?? {}).filter(([k]) => k !== "kind" && k !== argField),
+    );
     return {
       key: newRowKey(),
       name: r.name,
@@ -306,6 +325,7 @@ export function scenarioToForm(s: SessionScenarioInput): EditorForm {
       decisiveness: numberText(r.decisiveness),
       policy: kind ?? "human",
       policyArg: typeof arg === "number" ? String(arg) : "",
+      policyKept: kind !== null && Object.keys(fields).length > 0 ? { kind, fields } : null,
     };
   });
   return {
