@@ -279,6 +279,7 @@ export function attachSockets(deps: SocketDeps) {
       sessionId: identity.role === "guest" ? null : identity.sessionId,
       seq: state.seq,
       view: viewFor(state, viewerOf(identity)),
+      serverNow: clock.now(),
     };
     if (identity.seatIndex !== undefined) data.seatIndex = identity.seatIndex;
     socket.data.shown = { seq: state.seq, view: data.view };

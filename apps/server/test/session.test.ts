@@ -213,6 +213,24 @@ describe("a full live session over sockets", () => {
       code: "forbidden",
     });
   });
+
+  it("the hello ack gives the server's clock, on which the round deadline lies, whatever the client's clock says", async () => {
+    const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 1 }));
+    const fac = await client();
+    expectOk(
+      await hello(fac, { role: "facilitator", sessionId: created.id, key: created.facilitatorKey }),
+    );
+    expectOk(await command(fac, { type: "openRound", durationSeconds: 45 }));
+    clock.advance(5_000);
+    const screen = await client();
+    const ack = expectOk(
+      await hello(screen, { role: "spectator", sessionId: created.id, key: created.spectatorKey }),
+    );
+    // the test's server clock stands months away from this machine's, as a skewed browser's would
+    expect(Math.abs(Date.now() - clock.now())).toBeGreaterThan(86_400_000);
+    expect(ack.serverNow).toBe(clock.now());
+    expect(ack.view.deadline! - ack.serverNow).toBe(40_000);
+  });
 });
 
 describe("two server processes sharing one database", () => {

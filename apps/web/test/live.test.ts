@@ -7,6 +7,7 @@ import {
   invitesFor,
   isOnStep,
   issuedLinkOf,
+  clockOffsetMs,
   remainingMs,
   snapToStep,
   withIssuedLink,
@@ -27,6 +28,37 @@ describe("effort steps", () => {
     expect(isOnStep(1500, 500)).toBe(true);
     expect(isOnStep(1501, 500)).toBe(false);
     expect(isOnStep(0.25, 0.1)).toBe(false);
+  });
+});
+
+describe("clockOffsetMs", () => {
+  it("clockOffsetMs(sent, received, serverNow) recovers a server clock 30 s ahead over a symmetric 80 ms round trip (Cristian 1989)", () => {
+    const trueOffset = 30_000;
+    const sentAt = 1_000_000;
+    const oneWay = 40;
+    const serverNow = sentAt + oneWay + trueOffset;
+    expect(clockOffsetMs(sentAt, sentAt + 2 * oneWay, serverNow)).toBe(trueOffset);
+  });
+  it("clockOffsetMs errs by at most half the round trip when the delays are lopsided", () => {
+    // every split of a 100 ms round trip between the two directions
+    for (let there = 0; there <= 100; there += 10) {
+      const serverNow = 5_000 + there - 7_000; // the server's clock 7 s behind ours
+      const estimate = clockOffsetMs(5_000, 5_100, serverNow);
+      expect(Math.abs(estimate - -7_000)).toBeLessThanOrEqual(50);
+    }
+  });
+  it("a countdown read on the corrected clock matches the server's remaining time", () => {
+    const view = {
+      status: "open",
+      paused: false,
+      remainingMs: null,
+      deadline: 60_000,
+    } as unknown as RoleView;
+    const serverNow = 20_000; // 40 s left on the server
+    const ourNow = serverNow - 90_000; // our clock 90 s slow
+    const offset = clockOffsetMs(ourNow, ourNow, serverNow);
+    expect(remainingMs(view, ourNow)).toBe(130_000); // uncorrected: 2 min 10 s instead of 40 s
+    expect(remainingMs(view, ourNow + offset)).toBe(40_000);
   });
 });
 

@@ -31,6 +31,11 @@ export const helloAckDataSchema = z.object({
   /** seq of the last committed event the view reflects */
   seq: z.int().min(0),
   view: roleViewSchema,
+  /**
+   * The server's clock (ms since the epoch) as it sent this ack: round deadlines are on this
+   * clock, so a client whose own clock is off can still count down correctly.
+   */
+  serverNow: z.number(),
 });
 export type HelloAckData = z.output<typeof helloAckDataSchema>;
 

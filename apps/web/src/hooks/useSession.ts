@@ -16,6 +16,7 @@ import type {
   ServerToClientEvents,
 } from "@contend/protocol";
 import { SERVER_URL } from "../lib/env";
+import { clockOffsetMs } from "../lib/live";
 
 export type ConnectionStatus = "connecting" | "live" | "reconnecting" | "resynced" | "failed";
 
@@ -35,6 +36,8 @@ export interface SessionHandle {
   view: RoleView | null;
   seq: number;
   hello: HelloAckData | null;
+  /** the server's clock minus ours, measured at the last hello (0 until then) */
+  clockOffsetMs: number;
   /** sends a command and resolves with the server's ack (or a local timeout error) */
   send: (cmd: Command) => Promise<Ack<CommandAckData>>;
 }
@@ -50,6 +53,7 @@ export function useSession(credentials: Credentials | null): SessionHandle {
   const [view, setView] = useState<RoleView | null>(null);
   const [seq, setSeq] = useState(0);
   const [hello, setHello] = useState<HelloAckData | null>(null);
+  const [offset, setOffset] = useState(0);
   const socketRef = useRef<ClientSocket | null>(null);
   const seqRef = useRef(0);
   const credKey = credentials === null ? "" : JSON.stringify(credentials);
@@ -84,6 +88,7 @@ export function useSession(credentials: Credentials | null): SessionHandle {
       };
       // The ack is handled in its callback, not after an await: a patch queued right behind it
       // is then applied to the ack's view instead of being dropped.
+      const sentAt = Date.now();
       socket
         .timeout(ACK_TIMEOUT_MS)
         .emit("hello", msg, (err: Error | null, ack: Ack<HelloAckData>) => {
@@ -115,6 +120,7 @@ export function useSession(credentials: Credentials | null): SessionHandle {
           tracker.snapshot(ack.data.seq, ack.data.view, true);
           show();
           setHello(ack.data);
+          setOffset(clockOffsetMs(sentAt, Date.now(), ack.data.serverNow));
           if (connectedBefore) {
             setConnection({ status: "resynced", message: null });
             if (settle) clearTimeout(settle);
@@ -182,7 +188,7 @@ export function useSession(credentials: Credentials | null): SessionHandle {
     }
   }, []);
 
-  return { connection, view, seq, hello, send };
+  return { connection, view, seq, hello, clockOffsetMs: offset, send };
 }
 
 /** Current time, refreshed every `ms` (for countdowns). */

@@ -1,7 +1,20 @@
 /** Small pure helpers shared by the live views. */
 import type { CommandAckData, IssueLinksAckData, RoleView } from "@contend/protocol";
 
-/** Milliseconds left on the round clock, or null when the round has no clock. */
+/**
+ * How far the server's clock is ahead of ours (ms), from one request and its answer: the
+ * server read its clock at `serverNow`, which we take to be the midpoint of the round trip
+ * from `sentAt` to `receivedAt` on our clock (Cristian 1989, "Probabilistic clock
+ * synchronization"); the error is at most half the round trip.
+ */
+export function clockOffsetMs(sentAt: number, receivedAt: number, serverNow: number): number {
+  return serverNow - (sentAt + receivedAt) / 2;
+}
+
+/**
+ * Milliseconds left on the round clock, or null when the round has no clock. `now` is on the
+ * server's clock (the deadline is): our clock plus clockOffsetMs.
+ */
 export function remainingMs(view: RoleView, now: number): number | null {
   if (view.status !== "open") return null;
   if (view.paused) return view.remainingMs;

@@ -22,7 +22,7 @@ export function BigScreen({
     () => (spectatorKey ? { role: "spectator", sessionId, key: spectatorKey } : null),
     [sessionId, spectatorKey],
   );
-  const { connection, view } = useSession(credentials);
+  const { connection, view, clockOffsetMs } = useSession(credentials);
   return (
     <div className="big-screen" data-testid="big-screen">
       {spectatorKey ? (
@@ -31,7 +31,7 @@ export function BigScreen({
         <p className="notice error">This big-screen link has no key.</p>
       )}
       {view ? (
-        <ScreenBody view={view} />
+        <ScreenBody view={view} clockOffsetMs={clockOffsetMs} />
       ) : (
         <p className="muted" style={{ minHeight: "60vh" }}>
           {connection.status === "failed" ? "This link does not open the session." : "Loading…"}
@@ -41,7 +41,7 @@ export function BigScreen({
   );
 }
 
-function ScreenBody({ view }: { view: RoleView }) {
+function ScreenBody({ view, clockOffsetMs }: { view: RoleView; clockOffsetMs: number }) {
   const names = seatNames(view);
   const currency = view.scenario.currency ?? null;
   const last = view.rounds[view.rounds.length - 1];
@@ -64,7 +64,7 @@ function ScreenBody({ view }: { view: RoleView }) {
               {view.paused ? " · paused" : ""} · prize {formatMoney(view.scenario.prize, currency)}
             </p>
           </div>
-          <RoundClock view={view} big />
+          <RoundClock view={view} clockOffsetMs={clockOffsetMs} big />
         </div>
       </div>
       <div className="panel" style={{ minHeight: "8rem" }}>

@@ -42,7 +42,7 @@ export function FacilitatorConsole({
     () => (facilitatorKey ? { role: "facilitator", sessionId, key: facilitatorKey } : null),
     [sessionId, facilitatorKey],
   );
-  const { connection, view, send } = useSession(credentials);
+  const { connection, view, send, clockOffsetMs } = useSession(credentials);
   if (!facilitatorKey) return <p className="notice error">This facilitator link has no key.</p>;
   return (
     <div>
@@ -57,6 +57,7 @@ export function FacilitatorConsole({
         <ConsoleBody
           view={view}
           send={send}
+          clockOffsetMs={clockOffsetMs}
           sessionId={sessionId}
           facilitatorKey={facilitatorKey}
         />
@@ -68,11 +69,13 @@ export function FacilitatorConsole({
 function ConsoleBody({
   view,
   send,
+  clockOffsetMs,
   sessionId,
   facilitatorKey,
 }: {
   view: RoleView;
   send: ReturnType<typeof useSession>["send"];
+  clockOffsetMs: number;
   sessionId: string;
   facilitatorKey: string;
 }) {
@@ -161,7 +164,7 @@ function ConsoleBody({
               · {view.settings.outcome === "winner" ? "one winner drawn" : "prize shared"}
             </p>
           </div>
-          <RoundClock view={view} />
+          <RoundClock view={view} clockOffsetMs={clockOffsetMs} />
         </div>
         <div className="row" style={{ alignItems: "flex-end" }}>
           <TextField

@@ -5,9 +5,18 @@ import { useNow } from "../../hooks/useSession";
 import { formatClock } from "../../lib/format";
 import { remainingMs, STATUS_TEXT } from "../../lib/live";
 
-export function RoundClock({ view, big }: { view: RoleView; big?: boolean }) {
+/** `clockOffsetMs`: the server's clock minus this browser's (see useSession). */
+export function RoundClock({
+  view,
+  clockOffsetMs,
+  big,
+}: {
+  view: RoleView;
+  clockOffsetMs: number;
+  big?: boolean;
+}) {
   const now = useNow(250);
-  const left = remainingMs(view, now);
+  const left = remainingMs(view, now + clockOffsetMs);
   return (
     <div className="kpi" data-testid="round-clock">
       <span className="label">

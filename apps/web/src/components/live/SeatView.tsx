@@ -30,7 +30,7 @@ export function SeatView({ sessionId, seatKey }: { sessionId: string; seatKey: s
     () => (seatKey ? { role: "seat", sessionId, key: seatKey } : null),
     [sessionId, seatKey],
   );
-  const { connection, view, send } = useSession(credentials);
+  const { connection, view, send, clockOffsetMs } = useSession(credentials);
 
   if (!seatKey) {
     return (
@@ -52,6 +52,7 @@ export function SeatView({ sessionId, seatKey }: { sessionId: string; seatKey: s
         <SeatBody
           view={view}
           send={send}
+          clockOffsetMs={clockOffsetMs}
           connected={connection.status === "live" || connection.status === "resynced"}
         />
       )}
@@ -62,10 +63,12 @@ export function SeatView({ sessionId, seatKey }: { sessionId: string; seatKey: s
 function SeatBody({
   view,
   send,
+  clockOffsetMs,
   connected,
 }: {
   view: RoleView;
   send: ReturnType<typeof useSession>["send"];
+  clockOffsetMs: number;
   connected: boolean;
 }) {
   const you = view.you!;
@@ -161,7 +164,7 @@ function SeatBody({
       <section className="card" aria-labelledby="move-title">
         <div className="row" style={{ justifyContent: "space-between" }}>
           <h2 id="move-title">Your move</h2>
-          <RoundClock view={view} />
+          <RoundClock view={view} clockOffsetMs={clockOffsetMs} />
         </div>
         <div style={{ minHeight: "9.5rem" }}>
           {view.status === "lobby" && (
