@@ -312,6 +312,63 @@ describe.each(backends)("repositories on $name", (backend) => {
     expect(await db.keys.resolve(input.id, lateKey)).toBeNull();
   });
 
+  it("seat claims without keys share a group commit: claims commit with their events, a taken seat fails its member alone", async () => {
+    const inputs = Array.from({ length: 4 }, () => sessionInput().input);
+    for (const input of inputs) await db.sessions.create(input);
+    const [plain, claiming, takenOne, missing] = inputs;
+    expect((await db.seats.claim(takenOne!.id, 0, "Early")).ok).toBe(true);
+    // names a person may type, which the statement binds as array elements
+    const awkward = `O'Neil "Ned" \\ {1,2} NULL é漢`;
+    const claim = (id: string, seatIndex: number, displayName: string) =>
+      db.events.append(id, 1, [event("seat-claimed", 9, { seatIndex, displayName })], {
+        claimSeats: [{ seatIndex, displayName }],
+      });
+    // All calls start in the same turn of the event loop, so they share transactions.
+    const results = await Promise.all([
+      db.events.append(plain!.id, 1, [event("plain", 9)]),
+      claim(claiming!.id, 0, awkward),
+      claim(takenOne!.id, 0, "Late"),
+      claim(missing!.id, 7, "Nobody"),
+    ]);
+    expect(results).toEqual([
+      { ok: true, seqs: [2] },
+      { ok: true, seqs: [2] },
+      { ok: false, code: "seat-claimed", seatIndex: 0 },
+      { ok: false, code: "seat-claimed", seatIndex: 7 },
+    ]);
+    const seat = (await db.seats.list(claiming!.id))[0]!;
+    expect(seat.displayName).toBe(awkward);
+    expect(seat.claimedAt).toBeInstanceOf(Date);
+    expect((await db.events.list(claiming!.id, 1))[0]?.payload).toEqual({
+      seatIndex: 0,
+      displayName: awkward,
+    });
+    for (const failed of [takenOne!, missing!]) {
+      expect((await db.sessions.get(failed.id))?.lastSeq).toBe(1);
+      expect(await db.events.list(failed.id)).toHaveLength(1);
+    }
+    expect((await db.seats.list(takenOne!.id))[0]?.displayName).toBe("Early");
+  });
+
+  it("two claims of one seat with the same expectedLastSeq: the first wins, the second is a conflict", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    const claim = (displayName: string) =>
+      db.events.append(input.id, 1, [event("seat-claimed", 9, { displayName })], {
+        claimSeats: [{ seatIndex: 0, displayName }],
+      });
+    const [first, second] = await Promise.all([claim("Ann"), claim("Ben")]);
+    expect(first).toEqual({ ok: true, seqs: [2] });
+    expect(second).toEqual({ ok: false, code: "conflict", lastSeq: 2 });
+    expect((await db.seats.list(input.id))[0]?.displayName).toBe("Ann");
+    // asked again on the current seq, the taken seat is what stops it
+    expect(
+      await db.events.append(input.id, 2, [event("seat-claimed", 9)], {
+        claimSeats: [{ seatIndex: 0, displayName: "Ben" }],
+      }),
+    ).toEqual({ ok: false, code: "seat-claimed", seatIndex: 0 });
+  });
+
   it("seats.claim: first claim wins, a second or concurrent one gets seat-claimed", async () => {
     const { input } = sessionInput();
     await db.sessions.create(input);
@@ -421,6 +478,19 @@ describe.skipIf(!TEST_DATABASE_URL)("two server processes sharing one PostgreSQL
         ]);
       }
       expect((await b.events.list(input.id)).map((e) => e.seq)).toEqual([1, 2, 3, 4, 5, 6]);
+      // racing seat claims: the seat goes to exactly one, with exactly one event
+      const claim = (db: Database, displayName: string) =>
+        db.events.append(input.id, 6, [event("seat-claimed", 9, { displayName })], {
+          claimSeats: [{ seatIndex: 0, displayName }],
+        });
+      const claims = await Promise.all([claim(a, "from-a"), claim(b, "from-b")]);
+      expect(claims.filter((r) => r.ok)).toEqual([{ ok: true, seqs: [7] }]);
+      expect(claims.filter((r) => !r.ok)).toEqual([{ ok: false, code: "conflict", lastSeq: 7 }]);
+      const winner = claims[0]!.ok ? "from-a" : "from-b";
+      expect((await a.seats.list(input.id))[0]?.displayName).toBe(winner);
+      expect((await a.events.list(input.id, 6)).map((e) => e.payload)).toEqual([
+        { displayName: winner },
+      ]);
     } finally {
       await a.close();
       await b.close();

@@ -8,7 +8,11 @@ import type { PreparedStatement, PreparedValue, SqlRunner } from "../src/sql-run
  * the members' session ids).
  */
 function heldRunner() {
-  const calls: Array<{ sessions: string[]; answer: () => void }> = [];
+  const calls: Array<{
+    sessions: string[];
+    params: readonly PreparedValue[];
+    answer: () => void;
+  }> = [];
   const runner: SqlRunner = {
     transaction: () => Promise.reject(new Error("not used")),
     query: () => Promise.reject(new Error("not used")),
@@ -20,6 +24,7 @@ function heldRunner() {
       return new Promise<Row[]>((resolve) => {
         calls.push({
           sessions,
+          params,
           answer: () => resolve(sessions.map((_, i) => ({ i, won: true }) as unknown as Row)),
         });
       });
@@ -60,6 +65,29 @@ describe("group commit", () => {
     expect(await Promise.all([c1, a2, d1])).toEqual([
       { ok: true, seqs: [2] },
       { ok: true, seqs: [3] },
+      { ok: true, seqs: [2] },
+    ]);
+  });
+
+  it("sends each member's seat claims with the member's position in the group", async () => {
+    const { runner, calls } = heldRunner();
+    const group = createGroupCommit(runner);
+    const claim = groupMember("b", 1, [{ type: "seat-claimed", at: 1, payload: {} }], undefined, [
+      { seatIndex: 2, displayName: "Bo" },
+      { seatIndex: 3, displayName: "Cy" },
+    ]);
+    const results = [group.append(member("a", 1), never), group.append(claim, never)];
+    await turn();
+    expect(calls).toHaveLength(1);
+    // $12..$14: the claiming member's index in the group, seat indices, display names
+    expect(calls[0]!.params.slice(11)).toEqual([
+      [1, 1],
+      [2, 3],
+      ["Bo", "Cy"],
+    ]);
+    calls[0]!.answer();
+    expect(await Promise.all(results)).toEqual([
+      { ok: true, seqs: [2] },
       { ok: true, seqs: [2] },
     ]);
   });

@@ -53,7 +53,7 @@ export function eventsRepository(db: Db, runner: SqlRunner) {
       : { ok: false, code: "not-found" };
   }
 
-  /** One interactive transaction: for seat claims and keys, and for a failed group's members. */
+  /** One interactive transaction: for appends that store keys, and for a failed group's members. */
   async function appendAlone(
     sessionId: string,
     expectedLastSeq: number,
@@ -108,8 +108,8 @@ export function eventsRepository(db: Db, runner: SqlRunner) {
      * when several processes share one PostgreSQL, the second writer waits on the row lock,
      * then finds lastSeq moved and gets {code:"conflict"}; the (sessionId, seq) primary key
      * backs this up. On conflict the caller reloads events after its seq, re-decides and retries.
-     * Appends without seat claims or keys are group-committed with other sessions' (see
-     * createGroupCommit); each caller gets the result it would have got alone.
+     * Appends that store no keys (seat claims included) are group-committed with other
+     * sessions' (see createGroupCommit); each caller gets the result it would have got alone.
      */
     async append(
       sessionId: string,
@@ -118,10 +118,14 @@ export function eventsRepository(db: Db, runner: SqlRunner) {
       effects: AppendEffects = {},
     ): Promise<AppendResult> {
       if (events.length === 0) throw new Error("events.append needs at least one event");
-      if (effects.claimSeats?.length || effects.addKeys?.length) {
-        return appendAlone(sessionId, expectedLastSeq, events, effects);
-      }
-      const member = groupMember(sessionId, expectedLastSeq, events, effects.status);
+      if (effects.addKeys?.length) return appendAlone(sessionId, expectedLastSeq, events, effects);
+      const member = groupMember(
+        sessionId,
+        expectedLastSeq,
+        events,
+        effects.status,
+        effects.claimSeats ?? [],
+      );
       return group.append(member, () => appendAlone(sessionId, expectedLastSeq, events, effects));
     },
 
