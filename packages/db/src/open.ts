@@ -121,7 +121,7 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<Database> {
     prisma,
     sessions: sessionsRepository(prisma),
     events: eventsRepository(prisma, connection.runner),
-    keys: keysRepository(prisma),
+    keys: keysRepository(prisma, connection.runner),
     seats: seatsRepository(prisma),
     scenarios: scenariosRepository(prisma),
     migrationsApplied,

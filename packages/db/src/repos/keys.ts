@@ -1,5 +1,6 @@
 import { randomUUID } from "node:crypto";
 import { hashKey } from "../credentials";
+import type { SqlRunner } from "../sql-runner";
 import type { Db, KeyInput, Role } from "../types";
 
 export function keyRows(sessionId: string, keys: KeyInput[]) {
@@ -12,7 +13,7 @@ export function keyRows(sessionId: string, keys: KeyInput[]) {
   }));
 }
 
-export function keysRepository(db: Db) {
+export function keysRepository(db: Db, runner: SqlRunner) {
   return {
     /** Stores the sha256 of a key for a role (and seat). The plaintext is never written. */
     async add(sessionId: string, role: Role, seatIndex: number | null, plaintext: string) {
@@ -30,9 +31,20 @@ export function keysRepository(db: Db) {
       sessionId: string,
       plaintext: string,
     ): Promise<{ role: Role; seatIndex: number | null } | null> {
-      const row = await db.accessKey.findUnique({ where: { hash: hashKey(plaintext) } });
+      // Every hello asks this, so it goes straight to SQL: through Prisma, compiling the query
+      // cost more of a join storm's CPU than running it.
+      const [row] = await runner.query<{
+        sessionId: string;
+        role: string;
+        seatIndex: number | null;
+      }>(`SELECT "sessionId", "role", "seatIndex" FROM "AccessKey" WHERE "hash" = $1`, [
+        hashKey(plaintext),
+      ]);
       if (!row || row.sessionId !== sessionId) return null;
-      return { role: row.role as Role, seatIndex: row.seatIndex };
+      return {
+        role: row.role as Role,
+        seatIndex: row.seatIndex === null ? null : Number(row.seatIndex),
+      };
     },
   };
 }
