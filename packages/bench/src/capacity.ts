@@ -30,6 +30,8 @@ export function largestMeeting(rows: readonly CapacityRow[]): number | null {
 export interface CapacityRow {
   sessions: number;
   seats: number;
+  /** every client (seats and facilitators) connected and said hello, from the first connect */
+  joinSeconds: number;
   movesPerSecond: number;
   ackP99: number;
   revealP50: number;
@@ -44,6 +46,7 @@ export function rowOf(r: LoadReport): CapacityRow {
   return {
     sessions: r.config.sessions,
     seats: r.ours.seatsConnected,
+    joinSeconds: r.ours.connectSeconds,
     movesPerSecond: r.ours.movesPerSecond,
     ackP99: r.ours.ack.p99,
     revealP50: r.ours.reveal.p50,
@@ -62,6 +65,7 @@ export function formatCapacity(rows: readonly CapacityRow[]): string {
       [
         "sessions",
         "seats",
+        "join (s)",
         "moves/s",
         "ack p99 (ms)",
         "reveal p50 (ms)",
@@ -77,6 +81,7 @@ export function formatCapacity(rows: readonly CapacityRow[]): string {
         return [
           r.sessions,
           r.seats,
+          r.joinSeconds,
           r.movesPerSecond,
           r.ackP99,
           r.revealP50,

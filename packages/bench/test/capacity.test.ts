@@ -5,6 +5,7 @@ import type { CapacityRow } from "../src/capacity";
 const row = (seats: number, revealP99: number, lost = 0): CapacityRow => ({
   sessions: seats / 8,
   seats,
+  joinSeconds: 1,
   movesPerSecond: 100,
   ackP99: 10,
   revealP50: 5,
@@ -31,5 +32,6 @@ describe("capacity", () => {
     expect(largestMeeting([row(800, 150)])).toBeNull();
     expect(formatCapacity([row(800, 150)])).toContain("No size met");
     expect(formatCapacity([row(400, 20)])).toMatch(/400 seats\.$/);
+    expect(formatCapacity([row(400, 20)])).toMatch(/\| seats \| join \(s\) \|/);
   });
 });
