@@ -150,10 +150,10 @@ export function createGroupCommit<F = never>(runner: SqlRunner) {
  * The whole group in one statement (one round trip, its own transaction): data-modifying CTEs
  * run exactly once and atomically. A member that claims a taken (or missing) seat does not
  * move its session; the claims and the INSERT take only the members whose session moved, and
- * the final SELECT says which members won and which seat stopped a loser. (Before this took
- * claims, each seat's first hello ran an interactive transaction that held PGlite's one lock
- * for several round trips: 1,800 clients connecting 32 at a time needed 13-20 s, now 6-9 s.) Members and rows travel as
- * arrays, so the text never changes and the statement is prepared once per connection.
+ * the final SELECT says which members won and which seat stopped a loser. Claims ride here
+ * rather than in an interactive transaction, which would hold PGlite's one lock for several
+ * round trips while every seat of a workshop joins. Members, rows and claims travel as arrays,
+ * so the text never changes and the statement is prepared once per connection.
  */
 const GROUP_COMMIT: PreparedStatement = {
   name: "contend_group_commit",
@@ -241,10 +241,9 @@ async function commitGroup(runner: SqlRunner, members: GroupMember[]): Promise<G
     const taken = row.taken === null || row.taken === undefined ? null : Number(row.taken);
     return { won: row.won, taken };
   });
-  const won = outcomes.map((o) => o.won);
   // A stale member learns the lastSeq that beat it from a fresh read: the statement's own
   // snapshot predates a writer in another process that it waited for.
-  const losers = members.filter((_, i) => !won[i]).map((m) => m.sessionId);
+  const losers = members.filter((_, i) => !outcomes[i]!.won).map((m) => m.sessionId);
   const current = new Map<string, number>();
   if (losers.length > 0) {
     const rows = await runner.query<{ id: string; lastSeq: number }>(
@@ -254,11 +253,11 @@ async function commitGroup(runner: SqlRunner, members: GroupMember[]): Promise<G
     for (const r of rows) current.set(r.id, Number(r.lastSeq));
   }
   return members.map((m, i): GroupResult => {
-    if (won[i]) return { ok: true, seqs: m.rows.map((_, k) => m.expectedLastSeq + 1 + k) };
+    const { won, taken } = outcomes[i]!;
+    if (won) return { ok: true, seqs: m.rows.map((_, k) => m.expectedLastSeq + 1 + k) };
     const lastSeq = current.get(m.sessionId);
     if (lastSeq === undefined) return { ok: false, code: "not-found" };
     // As in a transaction of its own: a moved session is a conflict before a taken seat is.
-    const taken = outcomes[i]!.taken;
     if (taken !== null && lastSeq === m.expectedLastSeq)
       return { ok: false, code: "seat-claimed", seatIndex: taken };
     return { ok: false, code: "conflict", lastSeq };
