@@ -96,6 +96,8 @@ export function attachSockets(deps: SocketDeps) {
   const { io, db, hub, clock, logger, limits, publicUrl, load } = deps;
   /** sockets that said hello, by session */
   const rooms = new Map<string, Set<AppSocket>>();
+  /** per session: seat index -> how many seat sockets of that seat are connected */
+  const present = new Map<string, Map<number, number>>();
 
   function join(socket: AppSocket, identity: Identity) {
     leave(socket);
@@ -103,6 +105,7 @@ export function attachSockets(deps: SocketDeps) {
     let room = rooms.get(identity.sessionId);
     if (!room) rooms.set(identity.sessionId, (room = new Set()));
     room.add(socket);
+    if (identity.role === "seat") countPresence(identity.sessionId, identity.seatIndex, +1);
   }
 
   function leave(socket: AppSocket) {
@@ -113,6 +116,31 @@ export function attachSockets(deps: SocketDeps) {
     if (room && room.size === 0) rooms.delete(identity.sessionId);
     socket.data.identity = null;
     socket.data.shown = null;
+    if (identity.role === "seat") countPresence(identity.sessionId, identity.seatIndex, -1);
+  }
+
+  /**
+   * Presence (facilitator only, not part of the event log): which seats have a connected seat
+   * page. The facilitator's sockets get the list when a seat goes from no page to one or back.
+   */
+  function countPresence(sessionId: string, seatIndex: number | undefined, delta: 1 | -1) {
+    if (seatIndex === undefined) return;
+    let counts = present.get(sessionId);
+    if (!counts) present.set(sessionId, (counts = new Map()));
+    const before = counts.get(seatIndex) ?? 0;
+    const after = Math.max(0, before + delta);
+    if (after === 0) counts.delete(seatIndex);
+    else counts.set(seatIndex, after);
+    if (counts.size === 0) present.delete(sessionId);
+    if ((before === 0) === (after === 0)) return;
+    for (const s of rooms.get(sessionId) ?? []) {
+      if (s.data.identity?.role === "facilitator") sendPresence(s, sessionId);
+    }
+  }
+
+  function sendPresence(socket: AppSocket, sessionId: string) {
+    const seats = [...(present.get(sessionId)?.keys() ?? [])].sort((a, b) => a - b);
+    socket.emit("presence", { seats });
   }
 
   function viewerOf(identity: Identity): Viewer {
@@ -284,6 +312,7 @@ export function attachSockets(deps: SocketDeps) {
     if (identity.seatIndex !== undefined) data.seatIndex = identity.seatIndex;
     socket.data.shown = { seq: state.seq, view: data.view };
     ack({ ok: true, data });
+    if (identity.role === "facilitator") sendPresence(socket, identity.sessionId);
   }
 
   async function command(socket: AppSocket, raw: unknown): Promise<Ack<CommandAckData>> {

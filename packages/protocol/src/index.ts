@@ -140,4 +140,4 @@ export type {
   SessionExport,
   SessionListItem,
 } from "./rest";
-export type { ClientToServerEvents, ServerToClientEvents } from "./socket";
+export type { ClientToServerEvents, PresenceMessage, ServerToClientEvents } from "./socket";

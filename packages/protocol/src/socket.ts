@@ -16,4 +16,14 @@ export interface ServerToClientEvents {
   view: (msg: ViewMessage) => void;
   /** after every committed change: the patch from the view this connection holds */
   viewPatch: (msg: ViewPatchMessage) => void;
+  /**
+   * facilitator only, after its hello ack and whenever a seat gets its first connected page or
+   * loses its last: the seats (indices, ascending) with at least one connected seat page
+   */
+  presence: (msg: PresenceMessage) => void;
+}
+
+/** Who is connected right now. Not an event: it is never logged, exported or replayed. */
+export interface PresenceMessage {
+  seats: number[];
 }

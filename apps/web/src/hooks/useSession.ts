@@ -38,6 +38,8 @@ export interface SessionHandle {
   hello: HelloAckData | null;
   /** the server's clock minus ours, measured at the last hello (0 until then) */
   clockOffsetMs: number;
+  /** facilitator only: seats with a connected page (null until the server says) */
+  presence: readonly number[] | null;
   /** sends a command and resolves with the server's ack (or a local timeout error) */
   send: (cmd: Command) => Promise<Ack<CommandAckData>>;
 }
@@ -54,6 +56,7 @@ export function useSession(credentials: Credentials | null): SessionHandle {
   const [seq, setSeq] = useState(0);
   const [hello, setHello] = useState<HelloAckData | null>(null);
   const [offset, setOffset] = useState(0);
+  const [presence, setPresence] = useState<readonly number[] | null>(null);
   const socketRef = useRef<ClientSocket | null>(null);
   const seqRef = useRef(0);
   const credKey = credentials === null ? "" : JSON.stringify(credentials);
@@ -146,7 +149,9 @@ export function useSession(credentials: Credentials | null): SessionHandle {
       if (outcome === "applied") show();
       else if (outcome === "resync") sayHello();
     });
+    socket.on("presence", (msg) => setPresence(msg.seats));
     socket.on("disconnect", (reason) => {
+      setPresence(null);
       if (fatal) return;
       setConnection({ status: "reconnecting", message: `connection lost (${reason})` });
       // A server-side disconnect is not retried by socket.io itself.
@@ -188,7 +193,7 @@ export function useSession(credentials: Credentials | null): SessionHandle {
     }
   }, []);
 
-  return { connection, view, seq, hello, clockOffsetMs: offset, send };
+  return { connection, view, seq, hello, clockOffsetMs: offset, presence, send };
 }
 
 /** Current time, refreshed every `ms` (for countdowns). */
