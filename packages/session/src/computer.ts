@@ -33,7 +33,7 @@ export function computerMoves(input: {
     if (!spec) return;
     const policy = createPolicy(spec, computerSeed(input.seed, input.round, seatIndex));
     const raw = policy.decide({ contest, self, history, step: input.step });
-    const budget = Math.min(contest.rivals[self]!.budget, LIMITS.effortMax);
+    const budget = Math.min(contest.rivals[self]!.maxEffort, LIMITS.effortMax);
     out.push({
       type: "move-sealed",
       round: input.round,

@@ -270,11 +270,11 @@ function sealMove(state: LiveState, command: CommandOf<"sealMove">, seatIndex: n
       "effort",
     );
   }
-  const budget = open.scenario.rivals[k]!.budget;
-  if (!withinBudget(command.effort, budget)) {
+  const { budget, cost } = open.scenario.rivals[k]!;
+  if (!withinBudget(command.effort, cost, budget)) {
     return reject(
       "bad-request",
-      `effort: R12: must be at most the budget ${budget} (got ${command.effort})`,
+      `effort: R12: costs ${cost * command.effort}, more than the budget ${budget} (cost ${cost} x effort ${command.effort})`,
       "effort",
     );
   }

@@ -9,7 +9,12 @@ export function onStep(effort: number, step: number): boolean {
   return Math.abs(effort - k * step) <= EFFORT_TOLERANCE * Math.max(1, Math.abs(effort));
 }
 
-export function withinBudget(effort: number, budget: number | null | undefined): boolean {
+/** True when the money an effort costs (cost x effort) is within the budget (money), within 1e-9. */
+export function withinBudget(
+  effort: number,
+  cost: number,
+  budget: number | null | undefined,
+): boolean {
   if (budget === null || budget === undefined) return true;
-  return effort <= budget + EFFORT_TOLERANCE * Math.max(1, budget);
+  return cost * effort <= budget + EFFORT_TOLERANCE * Math.max(1, budget);
 }

@@ -41,7 +41,7 @@ export function playedEfforts(core: SessionCore, open: OpenRound) {
         ? (last.efforts[seatIndex] ?? 0)
         : 0;
     // A repeated effort may no longer fit a budget cut by a shock since.
-    efforts.push(clampEffort(before, contest.rivals[k]!.budget, core.settings.effortStep));
+    efforts.push(clampEffort(before, contest.rivals[k]!.maxEffort, core.settings.effortStep));
   });
   return { contest, efforts, defaulted };
 }

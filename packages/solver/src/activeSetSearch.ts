@@ -50,7 +50,7 @@ export function verifyProfile(
     const o = os[i]!;
     const e = efforts[i] ?? 0;
     // 12 significant digits: identical rivals in mirrored profiles differ only by rounding
-    const key = `${rv.value}|${rv.cost}|${rv.weight}|${rv.r}|${rv.budget}|${e.toPrecision(12)}|${o.z.toPrecision(12)}|${o.lnZ.toPrecision(12)}`;
+    const key = `${rv.value}|${rv.cost}|${rv.weight}|${rv.r}|${rv.maxEffort}|${e.toPrecision(12)}|${o.z.toPrecision(12)}|${o.lnZ.toPrecision(12)}`;
     let reg = memo?.get(key);
     if (reg === undefined) {
       const now = payoffAgainst(contest, i, e, o);
@@ -95,7 +95,7 @@ function* strengthPrefixes(contest: Contest): Generator<boolean[]> {
 /** True when two profiles agree up to a small fraction of the largest reachable effort. */
 export function sameProfile(contest: Contest, a: readonly number[], b: readonly number[]): boolean {
   let scale = 0;
-  for (const x of contest.rivals) scale = Math.max(scale, Math.min(x.budget, x.value / x.cost));
+  for (const x of contest.rivals) scale = Math.max(scale, Math.min(x.maxEffort, x.value / x.cost));
   const tol = 1e-7 * scale;
   return a.every((x, i) => Math.abs(x - (b[i] ?? 0)) <= tol);
 }
@@ -133,7 +133,7 @@ export function ratioActiveSetSearch(
   }
   if (!exhaustive) {
     // beyond the exhaustive range, best-response iteration may reach other active sets
-    const start = contest.rivals.map((x) => Math.min(x.budget, (x.r * x.value) / (x.cost * n)));
+    const start = contest.rivals.map((x) => Math.min(x.maxEffort, (x.r * x.value) / (x.cost * n)));
     const end = bestResponseIteration(contest, start, { sweeps: 100, damping: 0.5 });
     // damping only halves the efforts of rivals on their way out: re-solve on the active set
     const members = end?.map(

@@ -25,13 +25,13 @@ export function allPayLeaderPreemption(contest: Contest): AllPayLeaderOutcome {
   contest.rivals.forEach((x, i) => {
     if (i !== L) vMax = Math.max(vMax, x.value / x.cost);
   });
-  if (contest.rivals.some((x, i) => i !== L && x.budget < x.value / x.cost)) {
+  if (contest.rivals.some((x, i) => i !== L && x.maxEffort < x.value / x.cost)) {
     return {
       ok: false,
       reason: "a follower's budget is below its value-to-cost ratio (not solved here)",
     };
   }
-  if (!(leader.value / leader.cost > vMax) || leader.budget < vMax) {
+  if (!(leader.value / leader.cost > vMax) || leader.maxEffort < vMax) {
     return {
       ok: false,
       reason:

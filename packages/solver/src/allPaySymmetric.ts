@@ -18,7 +18,7 @@ export function allPaySymmetric(contest: Contest, gridPoints = 2001): Equilibriu
   if (contest.csf.kind !== "allpay" || n < 2 || !a || !identicalRivals(contest)) return null;
   if (a.weight !== 1) return null;
   const top = a.value / a.cost;
-  if (a.budget < top) return null;
+  if (a.maxEffort < top) return null;
   const s: MixedStrategy = {
     atomAtZero: 0,
     low: 0,

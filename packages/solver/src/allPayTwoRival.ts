@@ -34,7 +34,7 @@ export function allPayTwoRival(contest: Contest, gridPoints = 2001): Equilibrium
   const b = rivals[i2]!;
   const V1 = a.value / a.cost;
   const V2 = b.value / b.cost;
-  if (a.budget < V2 || b.budget < V2) return null;
+  if (a.maxEffort < V2 || b.maxEffort < V2) return null;
   const strategies: MixedStrategy[] = rivals.map(() => ({
     atomAtZero: 1,
     low: 0,

@@ -119,7 +119,7 @@ export function bestResponseAgainst(
   current?: number,
 ): BestResponse {
   const rv = contest.rivals[i]!;
-  const { value: v, cost: m, weight: w, budget: B, r } = rv;
+  const { value: v, cost: m, weight: w, maxEffort: B, r } = rv;
   const hi = Math.min(B, v / m);
   const step = Math.min(opts.step ?? (1e-6 * v) / m, B);
   let bestE = 0;
@@ -296,7 +296,7 @@ function respondRatio(
   let gap = 0;
   for (let i = 0; i < n; i++) {
     const rv = rivals[i]!;
-    const { value: v, cost: m, weight: w, budget: B, r } = rv;
+    const { value: v, cost: m, weight: w, maxEffort: B, r } = rv;
     const z = pre[i]! + suf[i + 1]!;
     const cur = efforts[i] ?? 0;
     const yi = y[i]!;

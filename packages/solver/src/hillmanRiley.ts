@@ -52,6 +52,6 @@ export function hillmanRileySolution(contest: Contest): HillmanRileySolution | n
 export function hillmanRileyEquilibrium(contest: Contest): number[] | null {
   const sol = hillmanRileySolution(contest);
   if (!sol) return null;
-  if (sol.efforts.some((e, i) => e > contest.rivals[i]!.budget)) return null;
+  if (sol.efforts.some((e, i) => e > contest.rivals[i]!.maxEffort)) return null;
   return sol.efforts;
 }

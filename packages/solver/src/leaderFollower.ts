@@ -33,7 +33,7 @@ export function leaderFollowerTwoRival(contest: Contest): number[] | null {
   const F = 1 - L;
   const l = contest.rivals[L]!;
   const f = contest.rivals[F]!;
-  if (l.r !== 1 || f.r !== 1 || l.budget < Infinity || f.budget < Infinity) return null;
+  if (l.r !== 1 || f.r !== 1 || l.maxEffort < Infinity || f.maxEffort < Infinity) return null;
   const c = (f.weight * f.value) / f.cost;
   const yStar = (l.value * l.value * l.weight * l.weight) / (4 * l.cost * l.cost * c);
   const yL = Math.min(yStar, c);
@@ -70,7 +70,7 @@ export function leaderFollowerNumeric(contest: Contest, gridPoints = 401): numbe
     if (!prof) return 0;
     return payoffs(contest, prof)[L]!;
   };
-  const best = gridMaximize(payoffOf, Math.min(l.budget, l.value / l.cost), gridPoints);
+  const best = gridMaximize(payoffOf, Math.min(l.maxEffort, l.value / l.cost), gridPoints);
   return followerEfforts(contest, best.x);
 }
 

@@ -35,7 +35,7 @@ export function logitSearch(contest: Contest, opts: SearchOptions = {}): FoundEq
   const tol = opts.tolerance ?? 1e-6 * contest.prize;
   const brOpts: BestResponseOptions =
     opts.gridPoints === undefined ? {} : { gridPoints: opts.gridPoints };
-  const capIdx = rivals.map((x, i) => i).filter((i) => rivals[i]!.budget < Infinity);
+  const capIdx = rivals.map((x, i) => i).filter((i) => rivals[i]!.maxEffort < Infinity);
   const capPatterns: boolean[][] = [];
   if (capIdx.length <= EXHAUSTIVE_CAPS) {
     for (let mask = 0; mask < 1 << capIdx.length; mask++) {
@@ -57,7 +57,7 @@ export function logitSearch(contest: Contest, opts: SearchOptions = {}): FoundEq
   for (const pattern of capPatterns) {
     const base = new Array<number>(n).fill(0);
     capIdx.forEach((i, b) => {
-      if (pattern[b]) base[i] = rivals[i]!.budget;
+      if (pattern[b]) base[i] = rivals[i]!.maxEffort;
     });
     consider(base.slice());
     for (let i = 0; i < n; i++) {
@@ -71,7 +71,7 @@ export function logitSearch(contest: Contest, opts: SearchOptions = {}): FoundEq
       const lnZ = logSumExp(others);
       if (lnZ === -Infinity) continue;
       const e = (Math.log(p / (1 - p)) + lnZ - Math.log(rv.weight)) / k;
-      if (!(e > 0) || e > rv.budget) continue;
+      if (!(e > 0) || e > rv.maxEffort) continue;
       const prof = base.slice();
       prof[i] = e;
       consider(prof);
@@ -81,7 +81,7 @@ export function logitSearch(contest: Contest, opts: SearchOptions = {}): FoundEq
     for (const pattern of capPatterns) {
       const start = new Array<number>(n).fill(0);
       capIdx.forEach((i, b) => {
-        if (pattern[b]) start[i] = rivals[i]!.budget;
+        if (pattern[b]) start[i] = rivals[i]!.maxEffort;
       });
       const end = bestResponseIteration(contest, start, { sweeps: 60 });
       if (end) consider(end);

@@ -73,7 +73,7 @@ export function allPayMixedGap(
     const own = allPayMixedPayoff(contest, strategies, i, points);
     let top = 0;
     for (let j = 0; j < n; j++) if (j !== i) top = Math.max(top, strategies[j]!.high);
-    const hi = Math.min(contest.rivals[i]!.budget, top * 1.05 + 1e-12);
+    const hi = Math.min(contest.rivals[i]!.maxEffort, top * 1.05 + 1e-12);
     let best = allPayDeviationPayoff(contest, strategies, i, 0);
     for (let k = 1; k < points; k++) {
       best = Math.max(best, allPayDeviationPayoff(contest, strategies, i, (hi * k) / (points - 1)));

@@ -27,6 +27,6 @@ export function ntiTwoRival(contest: Contest): number[] | null {
   const vb = (b.value * Math.pow(b.weight, 1 / r)) / b.cost;
   const ea = ntiEffort(va, vb, r) / Math.pow(a.weight, 1 / r);
   const eb = ntiEffort(vb, va, r) / Math.pow(b.weight, 1 / r);
-  if (ea > a.budget || eb > b.budget) return null;
+  if (ea > a.maxEffort || eb > b.maxEffort) return null;
   return [ea, eb];
 }

@@ -13,7 +13,7 @@
  *   r_i > 1:  q < 0, the equation has 0 or 2 roots; the larger one is the local maximum of the
  *             payoff (the smaller is a local minimum), s_i = 0 when there is none. Only a
  *             candidate: the caller must verify it with a global best-response check.
- * A budget B_i caps the share: s_i <= w_i B_i^r_i / Y. The equilibrium aggregate solves
+ * A budget B_i (money) caps effort at B_i / m_i and so the share: s_i <= w_i (B_i / m_i)^r_i / Y. The equilibrium aggregate solves
  * sum_i s_i(Y) (+ F / Y for a fixed contribution F, e.g. a committed leader) = 1, whose left
  * side falls in Y; the root is bracketed in log Y and found by safeguarded Newton steps
  * (the slope comes from implicit differentiation of each share). For r_i <= 1
@@ -80,7 +80,7 @@ export function rivalShare(
   m: number,
   w: number,
   r: number,
-  budget: number,
+  maxEffort: number,
   aggregate: number,
 ): { share: number; capped: boolean } {
   const Y = aggregate;
@@ -91,8 +91,8 @@ export function rivalShare(
     const t = solveShareLogit(lnC, 1 / r - 1, -lnC);
     s = Number.isNaN(t) ? 0 : sigmoid(t);
   }
-  if (budget < Infinity) {
-    const cap = (w * Math.pow(budget, r)) / Y;
+  if (maxEffort < Infinity) {
+    const cap = (w * Math.pow(maxEffort, r)) / Y;
     if (s >= cap) return { share: cap, capped: true };
   }
   return { share: s, capped: false };
@@ -128,7 +128,7 @@ export function shareFunctionEquilibrium(
   const idx: number[] = [];
   for (let i = 0; i < n; i++) {
     const rv = rivals[i]!;
-    if ((opts.members?.[i] ?? true) && rv.budget > 0) idx.push(i);
+    if ((opts.members?.[i] ?? true) && rv.maxEffort > 0) idx.push(i);
   }
   const k = idx.length;
   if (k === 0) return null;
@@ -149,9 +149,10 @@ export function shareFunctionEquilibrium(
         : Math.log(rv.cost) - Math.log(rv.weight) / rv.r - Math.log(rv.value * rv.r);
     invR[j] = 1 / rv.r;
     q[j] = 1 / rv.r - 1;
-    lnCap[j] = rv.budget < Infinity ? Math.log(rv.weight) + rv.r * Math.log(rv.budget) : Infinity;
+    lnCap[j] =
+      rv.maxEffort < Infinity ? Math.log(rv.weight) + rv.r * Math.log(rv.maxEffort) : Infinity;
     t[j] = Number.NaN;
-    const e0 = Math.min(rv.budget, (rv.r * rv.value) / (rv.cost * Math.max(2, k)));
+    const e0 = Math.min(rv.maxEffort, (rv.r * rv.value) / (rv.cost * Math.max(2, k)));
     guess += rv.weight * Math.pow(e0, rv.r);
   }
   const shareArr = new Float64Array(k);
@@ -260,7 +261,7 @@ export function shareFunctionEquilibrium(
     const i = idx[j]!;
     const rv = rivals[i]!;
     capped[i] = cappedArr[j] === 1;
-    efforts[i] = capped[i] ? rv.budget : Math.pow((shareArr[j]! * Y) / rv.weight, invR[j]!);
+    efforts[i] = capped[i] ? rv.maxEffort : Math.pow((shareArr[j]! * Y) / rv.weight, invR[j]!);
   }
   return { efforts, aggregate: Y, capped };
 }

@@ -17,7 +17,7 @@ export function identicalRivals(contest: Contest): boolean {
       b.cost === a.cost &&
       b.weight === a.weight &&
       b.r === a.r &&
-      b.budget === a.budget,
+      b.maxEffort === a.maxEffort,
   );
 }
 
@@ -41,6 +41,6 @@ export function symmetricRatioEquilibrium(contest: Contest): number[] | null {
   if (contest.csf.kind !== "ratio" || n < 2 || !a || !identicalRivals(contest)) return null;
   if (a.r > symmetricExistenceBound(n)) return null;
   const e = symmetricRatioEffort(n, a.value, a.cost, a.r);
-  if (e > a.budget) return null;
+  if (e > a.maxEffort) return null;
   return new Array<number>(n).fill(e);
 }

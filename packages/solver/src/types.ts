@@ -3,7 +3,8 @@
  * between the solver, the protocol, the server and the web app: change it deliberately.
  *
  * Conventions (all arrays are in rival order):
- * - effort e_i >= 0 is in money (or hours); a rival's expenditure is cost * effort.
+ * - effort e_i >= 0 is the model's internal quantity; what a rival spends (money) is
+ *   spend_i = cost_i * effort_i. Budgets cap money: cost_i * effort_i <= budget_i.
  * - shares p_i are winning probabilities (or market shares) and sum to 1.
  * - payoff u_i = v_i * p_i - m_i * e_i (risk neutral).
  * - dissipation = (sum_i m_i e_i) / prize, using expected efforts for mixed equilibria.
@@ -24,7 +25,11 @@ export interface RivalSpec {
   value?: number | null;
   /** weight (head start) w_i > 0; defaults to 1 */
   weight?: number | null;
-  /** most this rival can spend, in effort units; null = no cap */
+  /**
+   * most this rival may spend, in money: cost * effort <= budget (Che & Gale 1997 read budgets
+   * as money). null = no cap. Files written when this field was an effort cap read the same
+   * wherever cost is 1.
+   */
   budget?: number | null;
   /** own decisiveness r_i (ratio form only); defaults to csf.decisiveness */
   decisiveness?: number | null;
@@ -43,13 +48,20 @@ export interface Scenario {
   currency?: string | null;
 }
 
-/** A rival with every default filled in. budget = Infinity when uncapped. */
+/**
+ * A rival with every default filled in. The scenario's budget (money) becomes two caps:
+ * maxSpend = budget and maxEffort = budget / cost, both Infinity when uncapped. Algorithms
+ * compare efforts with maxEffort; screens speak maxSpend.
+ */
 export interface Rival {
   name: string;
   cost: number;
   value: number;
   weight: number;
-  budget: number;
+  /** the budget in money (cost * effort <= maxSpend); Infinity when uncapped */
+  maxSpend: number;
+  /** the same cap in effort units: maxSpend / cost; Infinity when uncapped */
+  maxEffort: number;
   /** decisiveness for the ratio form (ignored by logit and all-pay) */
   r: number;
 }

@@ -123,3 +123,55 @@ describe("budget caps (Che & Gale 1997)", () => {
     expect(refGap(c, eq.efforts!)).toBeLessThan(1e-8);
   });
 });
+
+// Budgets are money: cost x effort <= budget. Che & Gale 1997 (Public Choice 92, "Rent
+// dissipation when rent seekers are budget constrained"; volume and title from memory) solve
+// the r = 1 contest in which a budget binds: the capped rival spends its whole budget and the
+// other plays its best reply e_2 = sqrt(v e_1 / m_2) - e_1 (Tullock 1980 best response).
+describe("budgets cap money, cost x effort <= budget (Che & Gale 1997)", () => {
+  test("solve(two rivals, cost 2 with budget 20 money): spends 20, i.e. effort 10, the other replies", () => {
+    const v = 100;
+    const [m1, m2, B] = [2, 1, 20];
+    // Unconstrained (Hillman & Riley 1989): e_1 = v m_2 / (m_1 + m_2)^2 = 11.1, a spend of 22.2 > 20.
+    expect((m1 * v * m2) / (m1 + m2) ** 2).toBeGreaterThan(B);
+    // Read as an effort cap, 20 would not bind at all: only the money reading binds.
+    expect((v * m2) / (m1 + m2) ** 2).toBeLessThan(B);
+    const c = contest([
+      { name: "capped", cost: m1, budget: B },
+      { name: "free", cost: m2 },
+    ]);
+    expect(c.rivals[0]!.maxSpend).toBe(B);
+    const eq = solve(c).equilibrium;
+    const e1 = B / m1;
+    const e2 = Math.sqrt((v * e1) / m2) - e1;
+    expect(m1 * eq.efforts![0]!).toBeCloseTo(B, 9);
+    expect(eq.efforts![0]!).toBeCloseTo(e1, 9);
+    expect(eq.efforts![1]!).toBeCloseTo(e2, 7);
+    // the cap binds: rival 1's unconstrained reply to e_2 is above B / m_1
+    expect(Math.sqrt((v * e2) / m1) - e2).toBeGreaterThan(e1);
+    expect(refGap(c, eq.efforts!)).toBeLessThan(1e-8);
+  });
+
+  test("solve(n identical rivals, cost 1.5, budget below the equilibrium spend): all spend the budget", () => {
+    const [n, m, B, v] = [4, 1.5, 12, 100];
+    // Tullock 1980 symmetric spend m e* = v (n - 1) / n^2 = 18.75 > 12, so every budget binds.
+    expect((v * (n - 1)) / n ** 2).toBeGreaterThan(B);
+    const c = contest(Array.from({ length: n }, (_, i) => ({ name: `r${i}`, cost: m, budget: B })));
+    const eq = solve(c).equilibrium;
+    for (const e of eq.efforts!) expect(m * e).toBeCloseTo(B, 9);
+    expect(eq.dissipation).toBeCloseTo((n * B) / v, 9);
+    expect(refGap(c, eq.efforts!)).toBeLessThan(1e-8);
+  });
+
+  test("bestResponse caps money: budget 6 at cost 1.2 buys at most effort 5", () => {
+    const c = contest([
+      { name: "a", cost: 1.2, budget: 6 },
+      { name: "b", cost: 1 },
+    ]);
+    // Unconstrained reply (Tullock 1980, r = 1): sqrt(v Z / m) - Z = 20.8 effort against Z = 20,
+    // a spend of 25 > 6; the money cap leaves effort 6 / 1.2 = 5 (the payoff is concave).
+    expect(Math.sqrt((100 * 20) / 1.2) - 20).toBeGreaterThan(6);
+    expect(bestResponse(c, 0, [0, 20]).effort).toBeCloseTo(5, 12);
+    expect(refBestResponse(c, 0, [0, 20]).effort).toBeCloseTo(5, 6);
+  });
+});

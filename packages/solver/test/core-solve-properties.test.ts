@@ -39,7 +39,10 @@ describe("solve over random contests", () => {
           const eq = solve(c).equilibrium;
           expect(eq.kind).toBe("pure");
           expect(eq.nashGap).toBeLessThan(1e-6 * 100);
-          eq.efforts!.forEach((e, i) => expect(e).toBeLessThanOrEqual(c.rivals[i]!.budget));
+          // budgets cap money: cost x effort <= budget
+          eq.efforts!.forEach((e, i) =>
+            expect(c.rivals[i]!.cost * e).toBeLessThanOrEqual(c.rivals[i]!.maxSpend * (1 + 1e-12)),
+          );
         },
       ),
       { numRuns: 150 },

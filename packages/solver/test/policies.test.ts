@@ -99,7 +99,7 @@ describe("createPolicy", () => {
     const p = createPolicy({ kind: "fixed", effort: 77.3 }, 1);
     expect(p.decide(ctx(0))).toBe(77.3);
     expect(p.decide(ctx(0, history, 5))).toBe(75);
-    expect(p.decide(ctx(2))).toBe(50); // rival C's budget
+    expect(p.decide(ctx(2))).toBe(50 / 1.6); // rival C's budget of 50 (money) at cost 1.6
     expect(clampEffort(49, 50, 20)).toBe(40); // rounding up would break the budget
     expect(clampEffort(-3, 50)).toBe(0);
     expect(clampEffort(0.1 + 0.2, 50, 0.1)).toBe(0.3);

@@ -34,8 +34,10 @@ export function refBestResponse(
   efforts: readonly number[],
 ): { effort: number; payoff: number } {
   const rv = c.rivals[i]!;
-  const top = Math.min(rv.budget, rv.value / rv.cost);
-  const f = (z: number[]) => -refPayoff(c, i, Math.min(rv.budget, z[0]! * z[0]!), efforts);
+  // The budget is money: the most effort it buys is maxSpend / cost (computed here, not read).
+  const cap = rv.maxSpend / rv.cost;
+  const top = Math.min(cap, rv.value / rv.cost);
+  const f = (z: number[]) => -refPayoff(c, i, Math.min(cap, z[0]! * z[0]!), efforts);
   let best = { effort: 0, payoff: refPayoff(c, i, 0, efforts) };
   if (top < Infinity) {
     const atCap = refPayoff(c, i, top, efforts);
@@ -46,7 +48,7 @@ export function refBestResponse(
       minErrorDelta: 1e-13,
       maxIterations: 400,
     });
-    const e = Math.min(rv.budget, r.x[0]! * r.x[0]!);
+    const e = Math.min(cap, r.x[0]! * r.x[0]!);
     const u = refPayoff(c, i, e, efforts);
     if (u > best.payoff) best = { effort: e, payoff: u };
   }

@@ -138,23 +138,26 @@ describe("comparativeStatics", () => {
     expect(got.errorEstimate).toBeLessThan(1e-6);
   });
 
-  it("comparativeStatics(binding budget) reports the budget row numerically with d e_i/d B_i = 1", () => {
+  it("comparativeStatics(binding budget) reports the budget row numerically with d e_i/d B_i = 1/m_i", () => {
+    // Budgets are money: a capped rival's effort is B / m, so d e_1 / d B = 1 / m_1.
+    const m1 = 2;
     const s: Scenario = {
       ...twoRivals(1, 1),
       rivals: [
-        { name: "One", cost: 1, budget: 10 },
+        { name: "One", cost: m1, budget: 10 },
         { name: "Two", cost: 1 },
       ],
     };
     const res = comparativeStatics(s);
     if (!res.ok) throw new Error(res.message);
-    expect(res.value.efforts[0]).toBeCloseTo(10, 9);
+    const e1 = 10 / m1;
+    expect(res.value.efforts[0]).toBeCloseTo(e1, 9);
     const b = row(res.value.rows, "rivals.0.budget");
     expect(b.method).toBe("numeric");
-    expect(b.effort.d[0]).toBeCloseTo(1, 6);
-    // The other's reply to a capped rival is sqrt(v B / m) - B (best response, r = 1), so
-    // d e2/d B = sqrt(v / (m B)) / 2 - 1.
-    expect(b.effort.d[1]).toBeCloseTo(Math.sqrt(100 / 10) / 2 - 1, 5);
+    expect(b.effort.d[0]).toBeCloseTo(1 / m1, 6);
+    // The other's reply to a capped rival is sqrt(v e_1 / m_2) - e_1 (best response, r = 1) with
+    // e_1 = B / m_1, so d e_2 / d B = (sqrt(v / (m_2 e_1)) / 2 - 1) / m_1.
+    expect(b.effort.d[1]).toBeCloseTo((Math.sqrt(100 / e1) / 2 - 1) / m1, 5);
     // With a cap binding, the closed form no longer applies: every row is numeric.
     expect(res.value.rows.every((r) => r.method === "numeric")).toBe(true);
   });

@@ -114,7 +114,8 @@ export function RivalsTable({
       <legend>Rivals</legend>
       <p className="small muted">
         Cost is what one unit of effort costs the rival. Leave value blank to use the prize, weight
-        blank for 1, budget blank for no cap{ratio ? ", own r blank for the form's r" : ""}.
+        blank for 1, budget (the most the rival may spend, in money: cost x effort) blank for no cap
+        {ratio ? ", own r blank for the form's r" : ""}.
       </p>
       <div className="table-wrap">
         <table className="editor-table" data-testid="rivals-table">

@@ -73,7 +73,9 @@ export function EquilibriumTable({
                 ) : (
                   <span className="badge off">drops out</span>
                 )}
-                {Number.isFinite(r.budget) && e !== undefined && e >= r.budget * (1 - 1e-9) ? (
+                {Number.isFinite(r.maxEffort) &&
+                e !== undefined &&
+                e >= r.maxEffort * (1 - 1e-9) ? (
                   <span className="badge warn" style={{ marginLeft: 4 }}>
                     at budget
                   </span>

@@ -38,6 +38,7 @@ Usage:
 
 FILE is a scenario in JSON: {"title", "prize", "csf": {"kind": "ratio"|"logit"|"allpay", ...},
 "rivals": [{"name", "cost", "value"?, "weight"?, "budget"?, "decisiveness"?}], "leader"?, "currency"?}.
+A budget is money: the most a rival may spend, cost x effort <= budget.
 
 Exit status: 0 success, 2 bad input (one line on stderr names the field), 1 internal error.
 A stylised model to aid thinking: not a forecast, not financial or legal advice.

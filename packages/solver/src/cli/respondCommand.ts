@@ -3,7 +3,7 @@ import type { Contest, InputError, Parsed, Scenario } from "../types";
 import { parseNumber } from "./args";
 import { CAUTIONS, money, table } from "./format";
 
-/** "10,20,30" -> one effort per rival, each finite, >= 0 and within the rival's budget. */
+/** "10,20,30" -> one effort per rival, each finite, >= 0 and within the rival's budget (cost x effort <= budget, money). */
 export function parseEfforts(text: string, contest: Contest): Parsed<number[]> {
   const fail = (message: string): InputError => ({ ok: false, path: "--efforts", message });
   const parts = text.split(",");
@@ -20,8 +20,10 @@ export function parseEfforts(text: string, contest: Contest): Parsed<number[]> {
     if (x === null)
       return fail(`effort ${i + 1} (${r.name}) is not a finite number: "${parts[i]!.trim()}"`);
     if (x < 0) return fail(`effort ${i + 1} (${r.name}) must be >= 0 (got ${x})`);
-    if (x > r.budget)
-      return fail(`effort ${i + 1} (${r.name}) exceeds its budget ${r.budget} (got ${x})`);
+    if (x > r.maxEffort)
+      return fail(
+        `effort ${i + 1} (${r.name}) costs ${r.cost * x}, more than its budget ${r.maxSpend} (cost ${r.cost} x effort ${x})`,
+      );
     out.push(x);
   }
   return { ok: true, value: out };

@@ -51,7 +51,7 @@ function status(contest: Contest, eq: Equilibrium, i: number, efforts: number[] 
   const parts: string[] = [];
   if (contest.leader === i) parts.push("leader");
   if (eq.kind === "none-pure") return parts.join(", ") || "-";
-  if (e !== undefined && Number.isFinite(r.budget) && e > 0 && e >= r.budget * (1 - 1e-9)) {
+  if (e !== undefined && Number.isFinite(r.maxEffort) && e > 0 && e >= r.maxEffort * (1 - 1e-9)) {
     parts.push("at budget");
   } else parts.push(eq.active[i] ? "active" : "dropped out");
   return parts.join(", ");

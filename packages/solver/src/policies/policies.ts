@@ -60,7 +60,7 @@ export function referenceEfforts(contest: Contest): number[] {
   const known = eq.efforts ?? eq.expectedEfforts;
   if (known) return known.slice();
   const n = contest.rivals.length;
-  return contest.rivals.map((r) => Math.min(r.budget, (r.value * (n - 1)) / (r.cost * n * n)));
+  return contest.rivals.map((r) => Math.min(r.maxEffort, (r.value * (n - 1)) / (r.cost * n * n)));
 }
 
 /** Clamps to [0, budget], then rounds to the step without exceeding the budget. */
@@ -136,7 +136,7 @@ export function createPolicy(spec: PolicySpec, seed: number): RivalPolicy {
     label,
     description,
     decide(ctx) {
-      const budget = ctx.contest.rivals[ctx.self]?.budget ?? Infinity;
+      const budget = ctx.contest.rivals[ctx.self]?.maxEffort ?? Infinity;
       return clampEffort(decideRaw(spec, seed, ctx), budget, ctx.step);
     },
   };

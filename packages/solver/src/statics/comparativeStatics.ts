@@ -92,8 +92,8 @@ function defaultParams(scenario: Scenario, contest: Contest, efforts: number[]):
     out.push({ kind: "rival", index, field: "value" });
     // The all-pay auction has no head-start parameter in this model (highest effort wins).
     if (scenario.csf.kind !== "allpay") out.push({ kind: "rival", index, field: "weight" });
-    const budget = contest.rivals[index]!.budget;
-    if (Number.isFinite(budget) && efforts[index]! >= budget * (1 - BINDING)) {
+    const cap = contest.rivals[index]!.maxEffort;
+    if (Number.isFinite(cap) && efforts[index]! >= cap * (1 - BINDING)) {
       out.push({ kind: "rival", index, field: "budget" });
     }
     if (

@@ -43,7 +43,7 @@ export function hillmanRileyStaticsState(
     const r = contest.rivals[i]!;
     const e = efforts[i]!;
     if (r.r !== 1) return null;
-    if (Number.isFinite(r.budget) && e >= r.budget * (1 - 1e-9)) return null;
+    if (Number.isFinite(r.maxEffort) && e >= r.maxEffort * (1 - 1e-9)) return null;
     a.push(r.cost / (r.weight * r.value));
     active.push(e > 0);
     Y += r.weight * e;
