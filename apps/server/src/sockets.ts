@@ -14,6 +14,7 @@ import {
   parseCommand,
   parseHello,
   PROTOCOL_VERSION,
+  roleMaySend,
 } from "@contend/protocol";
 import type {
   Ack,
@@ -47,6 +48,8 @@ interface Identity {
   seatIndex?: number;
   /** facilitator only: shown in its view (the facilitator is trusted with it) */
   joinCode?: string;
+  /** seat only: the key this connection said hello with (a claim of its own seat returns it) */
+  key?: string;
 }
 
 interface SocketData {
@@ -244,7 +247,12 @@ export function attachSockets(deps: SocketDeps) {
       if (grant.seatIndex === null) throw new Error("seat key without a seat index");
       return {
         ok: true,
-        identity: { role: "seat", sessionId: credentials.sessionId, seatIndex: grant.seatIndex },
+        identity: {
+          role: "seat",
+          sessionId: credentials.sessionId,
+          seatIndex: grant.seatIndex,
+          key: credentials.key,
+        },
       };
     }
     if (grant.role === "facilitator") {
@@ -321,14 +329,24 @@ export function attachSockets(deps: SocketDeps) {
     const parsed = parseCommand(raw);
     if (!parsed.ok) return ackError(parsed.code, parsed.message, parsed.path);
     const cmd: Command = parsed.value;
-    const needed = COMMAND_ROLES[cmd.type];
-    if (identity.role !== needed) {
-      return ackError("forbidden", `${cmd.type} is for the ${needed}, not the ${identity.role}`);
+    if (!roleMaySend(identity.role, cmd.type)) {
+      const roles = COMMAND_ROLES[cmd.type].join(" or the ");
+      return ackError("forbidden", `${cmd.type} is for the ${roles}, not the ${identity.role}`);
     }
     const actor =
       identity.role === "seat"
         ? { role: identity.role, seatIndex: identity.seatIndex as number }
         : { role: identity.role };
+    if (cmd.type === "claimSeat" && identity.role === "seat") {
+      // R3/R6: a seat claiming its own seat (say, to set its display name) keeps its key.
+      const result = await hub.execute(identity.sessionId, cmd, actor);
+      if (!result.ok) return failure(result);
+      const seatKey = identity.key ?? "";
+      return {
+        ok: true,
+        data: { seq: result.seq, sessionId: identity.sessionId, seatIndex: cmd.seatIndex, seatKey },
+      };
+    }
     if (cmd.type === "claimSeat") {
       const seatKey = newKey();
       const result = await hub.execute(identity.sessionId, cmd, actor, {

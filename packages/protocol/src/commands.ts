@@ -4,8 +4,9 @@ import { LIMITS } from "./limits";
 import { effortSchema, roundNumberSchema, seatIndexSchema } from "./numbers";
 import { policySpecSchema } from "./policy";
 import { shockListSchema } from "./shock";
-import { parseWith } from "./result";
+import { parseInput } from "./result";
 import type { ParseResult } from "./result";
+import type { Role } from "./hello";
 
 export const displayNameSchema = z
   .string({ error: "must be a string" })
@@ -79,20 +80,30 @@ export type Command = z.output<typeof commandSchema>;
 export type CommandType = Command["type"];
 export type CommandOf<T extends CommandType> = Extract<Command, { type: T }>;
 
-/** Which role may send each command (the engine enforces it again). */
-export const COMMAND_ROLES: Record<CommandType, "facilitator" | "seat" | "guest"> = {
-  openRound: "facilitator",
-  closeRound: "facilitator",
-  applyShock: "facilitator",
-  pause: "facilitator",
-  resume: "facilitator",
-  endSession: "facilitator",
-  setSeatPolicy: "facilitator",
-  sealMove: "seat",
-  claimSeat: "guest",
-  issueLinks: "facilitator",
-};
+/**
+ * Who may send each command: the one table both the session engine's role check and the
+ * socket layer's check derive from. A seat sends claimSeat only for its own seat (R3: the
+ * engine checks the index; the ack carries back the seat's own key and no new key is made).
+ * Spectators send nothing (R2). Only the server itself closes a round for the clock.
+ */
+export const COMMAND_ROLES = {
+  openRound: ["facilitator"],
+  closeRound: ["facilitator"],
+  applyShock: ["facilitator"],
+  pause: ["facilitator"],
+  resume: ["facilitator"],
+  endSession: ["facilitator"],
+  setSeatPolicy: ["facilitator"],
+  issueLinks: ["facilitator"],
+  sealMove: ["seat"],
+  claimSeat: ["guest", "seat"],
+} as const satisfies Record<CommandType, readonly Role[]>;
+
+/** True when a connection of this role may send this command at all (finer rules: the engine). */
+export function roleMaySend(role: Role, type: CommandType): boolean {
+  return (COMMAND_ROLES[type] as readonly Role[]).includes(role);
+}
 
 export function parseCommand(raw: unknown): ParseResult<Command> {
-  return parseWith(commandSchema, raw);
+  return parseInput(commandSchema, raw);
 }

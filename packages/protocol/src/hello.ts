@@ -3,7 +3,7 @@ import { z } from "zod";
 import { LIMITS } from "./limits";
 import { displayNameSchema } from "./commands";
 import { PROTOCOL_VERSION } from "./version";
-import { parseWith } from "./result";
+import { parseInput } from "./result";
 import type { ParseResult } from "./result";
 
 export const ROLES = ["facilitator", "seat", "spectator", "guest"] as const;
@@ -62,5 +62,5 @@ export function parseHello(raw: unknown): ParseResult<Hello> {
       };
     }
   }
-  return parseWith(helloSchema, raw);
+  return parseInput(helloSchema, raw);
 }

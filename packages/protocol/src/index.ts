@@ -1,6 +1,8 @@
 export { PROTOCOL_VERSION } from "./version";
 export { LIMITS } from "./limits";
-export { ERROR_CODES, firstProblem, parseWith } from "./result";
+export { ERROR_CODES, firstProblem, parseInput, parseWith } from "./result";
+export { findTextIssue, nameProblem, RESERVED_KEYS, textProblem } from "./text";
+export type { TextIssue } from "./text";
 export type { ErrorCode, ParseResult } from "./result";
 export {
   effortSchema,
@@ -32,6 +34,7 @@ export {
   parseCommand,
   pauseSchema,
   resumeSchema,
+  roleMaySend,
   sealMoveSchema,
   setSeatPolicySchema,
 } from "./commands";

@@ -4,7 +4,7 @@ import { ERROR_CODES } from "./result";
 import { seatKindSchema, sessionEventSchema } from "./events";
 import { roundResultSchema, SESSION_STATUSES } from "./view";
 import { sessionScenarioSchema } from "./sessionScenario";
-import { parseWith } from "./result";
+import { parseInput } from "./result";
 import type { ParseResult } from "./result";
 import type { SessionScenario } from "./sessionScenario";
 
@@ -12,7 +12,7 @@ import type { SessionScenario } from "./sessionScenario";
 export const createSessionBodySchema = sessionScenarioSchema;
 
 export function parseSessionScenario(raw: unknown): ParseResult<SessionScenario> {
-  return parseWith(sessionScenarioSchema, raw);
+  return parseInput(sessionScenarioSchema, raw);
 }
 
 /** POST /api/sessions 201 response. */

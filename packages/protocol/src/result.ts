@@ -1,4 +1,5 @@
 import type { z } from "zod";
+import { findTextIssue } from "./text";
 
 /** Every expected failure the server reports; the same strings appear in acks and REST bodies. */
 export const ERROR_CODES = [
@@ -44,4 +45,22 @@ export function parseWith<S extends z.ZodType>(schema: S, raw: unknown): ParseRe
   const r = schema.safeParse(raw);
   if (r.success) return { ok: true, value: r.data };
   return { ok: false, code: "bad-request", ...firstProblem(r.error) };
+}
+
+/**
+ * parseWith for anything a client sent: the text rule (text.ts) first, so a NUL, a lone
+ * surrogate, a control character or a reserved key is refused naming its field, then the schema.
+ */
+export function parseInput<S extends z.ZodType>(schema: S, raw: unknown): ParseResult<z.output<S>> {
+  const issue = findTextIssue(raw);
+  if (issue) {
+    const path = joinPath(issue.path);
+    return {
+      ok: false,
+      code: "bad-request",
+      path,
+      message: `${path === "" ? "message" : path}: ${issue.message}`,
+    };
+  }
+  return parseWith(schema, raw);
 }

@@ -9,6 +9,7 @@ import { contestScenarioSchema } from "./contest";
 import { LIMITS } from "./limits";
 import { sessionSettingsSchema } from "./settings";
 import type { SessionSettings } from "./settings";
+import { findTextIssue } from "./text";
 
 export type SessionScenario = Scenario & { session: SessionSettings };
 
@@ -19,6 +20,11 @@ function isRecord(x: unknown): x is Record<string, unknown> {
 export const sessionScenarioSchema = z.unknown().transform((raw, ctx): SessionScenario => {
   if (!isRecord(raw)) {
     ctx.addIssue({ code: "custom", message: "session scenario must be a JSON object", path: [] });
+    return z.NEVER;
+  }
+  const text = findTextIssue(raw);
+  if (text) {
+    ctx.addIssue({ code: "custom", message: text.message, path: text.path });
     return z.NEVER;
   }
   const { session: rawSession, ...contestPart } = raw;

@@ -152,7 +152,7 @@ describe("parseCommand", () => {
   });
 
   it("COMMAND_ROLES keeps issueLinks for the facilitator", () => {
-    expect(COMMAND_ROLES.issueLinks).toBe("facilitator");
+    expect(COMMAND_ROLES.issueLinks).toEqual(["facilitator"]);
   });
 
   it("parseCommand trims display names", () => {

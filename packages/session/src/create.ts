@@ -15,7 +15,10 @@ export function createSession(input: {
     sessionId: input.sessionId,
     scenario,
     seats: scenario.rivals.map((r, index) => {
-      const policy = scenario.session.computer[r.name] ?? null;
+      // Own keys only: a name never reaches the prototype chain (the text rule refuses
+      // reserved names too; this keeps the lookup safe for any caller).
+      const computer = scenario.session.computer;
+      const policy = Object.hasOwn(computer, r.name) ? (computer[r.name] ?? null) : null;
       return { index, name: r.name, kind: policy ? "computer" : "human", policy };
     }),
     seed: Math.trunc(input.seed) >>> 0,

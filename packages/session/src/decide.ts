@@ -5,7 +5,7 @@
  * protocol document and the tests.
  */
 import { validateScenario } from "@contend/solver";
-import { LIMITS } from "@contend/protocol";
+import { LIMITS, roleMaySend } from "@contend/protocol";
 import type { CloseReason, Command, CommandOf, EventBody, Role } from "@contend/protocol";
 import { computerMoves } from "./computer";
 import { onStep, withinBudget } from "./effort";
@@ -34,22 +34,20 @@ export type SystemCommand = { type: "closeRound"; reason: Exclude<CloseReason, "
 
 export type EngineCommand = Command | SystemCommand;
 
-const FACILITATOR_COMMANDS = new Set<Command["type"]>([
-  "openRound",
-  "closeRound",
-  "applyShock",
-  "pause",
-  "resume",
-  "endSession",
-  "setSeatPolicy",
-  "issueLinks",
-]);
-
 function isSystem(command: EngineCommand): command is SystemCommand {
   return command.type === "closeRound" && "reason" in command;
 }
 
-/** R1-R3: who may send what. */
+/** The rule a refused sender breaks, for the message (docs/protocol.md section 8). */
+function roleRule(type: Command["type"]): string {
+  if (type === "sealMove") return "R7: only a seat may seal a move, and only for itself";
+  if (type === "claimSeat") {
+    return "R3: a seat is claimed by a guest with the join code, or by its own key";
+  }
+  return `R1: only the facilitator may ${type}`;
+}
+
+/** R1-R3, R7: who may send what, from the protocol's COMMAND_ROLES table. */
 function checkRole(command: EngineCommand, actor: Actor): Decision | null {
   if (isSystem(command)) {
     return actor.role === "system"
@@ -59,23 +57,16 @@ function checkRole(command: EngineCommand, actor: Actor): Decision | null {
   if (actor.role === "spectator") {
     return reject("forbidden", "R2: spectators watch; they cannot send commands");
   }
-  if (FACILITATOR_COMMANDS.has(command.type)) {
-    return actor.role === "facilitator"
-      ? null
-      : reject("forbidden", `R1: only the facilitator may ${command.type}`);
+  if (actor.role === "system" || !roleMaySend(actor.role, command.type)) {
+    return reject("forbidden", roleRule(command.type));
   }
-  if (command.type === "sealMove") {
-    return actor.role === "seat" && actor.seatIndex !== undefined
-      ? null
-      : reject("forbidden", "R7: only a seat may seal a move, and only for itself");
+  if (actor.role !== "seat") return null;
+  // A seat acts only for itself: sealMove names no seat; claimSeat must name its own.
+  if (actor.seatIndex === undefined) return reject("forbidden", roleRule(command.type));
+  if (command.type === "claimSeat" && command.seatIndex !== actor.seatIndex) {
+    return reject("forbidden", roleRule(command.type));
   }
-  if (command.type !== "claimSeat") throw new Error(`unrouted command ${command.type}`);
-  if (actor.role === "guest") return null;
-  if (actor.role === "seat" && actor.seatIndex === command.seatIndex) return null;
-  return reject(
-    "forbidden",
-    "R3: a seat is claimed by a guest with the join code, or by its own key",
-  );
+  return null;
 }
 
 export function decide(state: SessionState, command: EngineCommand, ctx: DecideContext): Decision {

@@ -4,7 +4,7 @@
  */
 import type { IncomingMessage, ServerResponse } from "node:http";
 import type { Database } from "@contend/db";
-import { parseSessionScenario } from "@contend/protocol";
+import { nameProblem, parseSessionScenario } from "@contend/protocol";
 import type { Health } from "@contend/protocol";
 import type { Clock } from "../clock";
 import type { Limits } from "../env";
@@ -138,9 +138,11 @@ function methodNotAllowed(res: ServerResponse, allow: string): true {
   return true;
 }
 
+/** A path segment as an id, or null when it cannot name a session (the text rule of ids). */
 function safeDecode(segment: string): string | null {
   try {
-    return decodeURIComponent(segment);
+    const id = decodeURIComponent(segment);
+    return nameProblem(id) === null ? id : null;
   } catch {
     return null;
   }

@@ -308,7 +308,7 @@ export function scenarioToForm(s: SessionScenarioInput): EditorForm {
   const session = s.session ?? {};
   const computer = (session.computer ?? {}) as Record<string, Record<string, unknown>>;
   const rivals: RivalRow[] = s.rivals.map((r: RivalSpec) => {
-    const policy = computer[r.name];
+    const policy = Object.hasOwn(computer, r.name) ? computer[r.name] : undefined;
     const kind = (policy?.kind as PolicyKind | undefined) ?? null;
     const argField = kind === null ? undefined : POLICY_ARGUMENT[kind]?.field;
     const arg = argField === undefined ? undefined : policy?.[argField];
