@@ -1,0 +1,103 @@
+"use client";
+
+import { useMemo } from "react";
+import type { Contest } from "@contend/solver";
+import { bestResponseCurves, curveRange } from "../../lib/br-curves";
+import { formatNumber } from "../../lib/format";
+import { DataTable } from "../DataTable";
+import { ReactionChart } from "../ReactionChart";
+import { ProfileInputs } from "./ProfileInputs";
+import { ProfileTable } from "./ProfileTable";
+
+/** Whether the best-response curves apply: two rivals and a contest with pure best replies. */
+export function hasReactionCurves(contest: Contest | null): contest is Contest {
+  return contest !== null && contest.rivals.length === 2 && contest.csf.kind !== "allpay";
+}
+
+/** Sampled rows of the curves table: one in this many curve points. */
+const TABLE_EVERY = 10;
+
+/**
+ * Two rivals' best-response curves, where they cross (the equilibrium), and a profile the user
+ * picks on the chart or types, evaluated for each rival.
+ */
+export function BestResponseSection({
+  contest,
+  equilibrium,
+  profile,
+  setProfile,
+  currency,
+}: {
+  contest: Contest;
+  equilibrium: number[] | null;
+  profile: number[] | null;
+  setProfile: (p: number[] | null) => void;
+  currency: string | null;
+}) {
+  const curves = useMemo(() => {
+    const max = curveRange(contest, equilibrium, profile);
+    return { max, curves: bestResponseCurves(contest, max) };
+  }, [contest, equilibrium, profile]);
+
+  return (
+    <section className="card" aria-labelledby="br-title">
+      <h2 id="br-title">Best-response curves</h2>
+      <p className="small muted">
+        Each curve is one rival&apos;s best reply to the other&apos;s effort; they cross at the
+        equilibrium. Click a point (or focus the chart and use the arrow keys) to test a profile.
+      </p>
+      <div className="grid-2">
+        <ReactionChart
+          curves={curves.curves}
+          max={curves.max}
+          names={[contest.rivals[0]?.name ?? "Rival 1", contest.rivals[1]?.name ?? "Rival 2"]}
+          equilibrium={equilibrium}
+          profile={profile}
+          onPick={setProfile}
+          format={(v) => formatNumber(v, v >= 100 ? 0 : 2)}
+        />
+        <div>
+          <div className="row">
+            <ProfileInputs
+              names={[contest.rivals[0]?.name ?? "rival 1", contest.rivals[1]?.name ?? "rival 2"]}
+              profile={profile}
+              fallback={equilibrium ?? [0, 0]}
+              onChange={setProfile}
+            />
+          </div>
+          <ProfileTable contest={contest} profile={profile} currency={currency} />
+          {profile && (
+            <button type="button" className="small" onClick={() => setProfile(null)}>
+              Clear profile
+            </button>
+          )}
+        </div>
+      </div>
+      <DataTable
+        caption="Best-response curves (sampled)"
+        testId="br-table"
+        maxHeight={180}
+        columns={[
+          { key: "t", label: "Other's effort", format: (v) => formatNumber(v) },
+          {
+            key: "br0",
+            label: `Best reply of ${contest.rivals[0]?.name}`,
+            format: (v) => formatNumber(v),
+          },
+          {
+            key: "br1",
+            label: `Best reply of ${contest.rivals[1]?.name}`,
+            format: (v) => formatNumber(v),
+          },
+        ]}
+        rows={curves.curves[0]
+          .filter((_, k) => k % TABLE_EVERY === 0)
+          .map((p, k) => ({
+            t: p.e1,
+            br0: p.e0,
+            br1: curves.curves[1][k * TABLE_EVERY]?.e1 ?? null,
+          }))}
+      />
+    </section>
+  );
+}

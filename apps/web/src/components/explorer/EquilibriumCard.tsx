@@ -1,0 +1,42 @@
+"use client";
+
+import { formatMoney, formatPercent } from "../../lib/format";
+import type { SolvedView } from "../../lib/solve-view";
+import { SolvedEquilibrium } from "../EquilibriumTable";
+
+/** The solved scenario (or the leader-follower outcome) with any further equilibria listed. */
+export function EquilibriumCard({
+  solved,
+  currency,
+  sequential,
+}: {
+  solved: SolvedView | null;
+  currency: string | null;
+  sequential: boolean;
+}) {
+  const money = (v: number) => formatMoney(v, currency);
+  return (
+    <section className="card" aria-labelledby="eq-title">
+      <h2 id="eq-title">{sequential ? "Leader-follower outcome" : "Equilibrium"}</h2>
+      <SolvedEquilibrium
+        solved={solved}
+        currency={currency}
+        testPrefix="eq"
+        more={(ok) =>
+          ok.result.alternatives.length > 0 && (
+            <div data-testid="eq-alternatives">
+              <h3>Further equilibria</h3>
+              {ok.result.alternatives.map((alt, k) => (
+                <p key={k} className="small">
+                  {k + 2}. efforts{" "}
+                  {(alt.efforts ?? alt.expectedEfforts ?? []).map(money).join(", ")} · dissipation{" "}
+                  {formatPercent(alt.dissipation)}
+                </p>
+              ))}
+            </div>
+          )
+        }
+      />
+    </section>
+  );
+}

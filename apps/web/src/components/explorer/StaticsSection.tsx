@@ -1,0 +1,93 @@
+"use client";
+
+import { useMemo } from "react";
+import { comparativeStatics, STATICS_MAX_RIVALS } from "@contend/solver";
+import type { Scenario } from "@contend/solver";
+import { formatNumber, formatSigned } from "../../lib/format";
+import { FigureTable, numCol, RowHeader, textCol } from "../FigureTable";
+
+/**
+ * How each rival's equilibrium effort responds to a small change in each parameter, for
+ * simultaneous moves. Beyond the solver's rival limit the section says so.
+ */
+export function StaticsSection({ scenario }: { scenario: Scenario | null }) {
+  const statics = useMemo(() => {
+    if (!scenario || scenario.leader) return null;
+    if (scenario.rivals.length > STATICS_MAX_RIVALS)
+      return {
+        ok: false as const,
+        path: "",
+        message: `comparative statics are shown for up to ${STATICS_MAX_RIVALS} rivals`,
+      };
+    try {
+      return comparativeStatics(scenario);
+    } catch (e) {
+      return { ok: false as const, path: "", message: `solver failed: ${(e as Error).message}` };
+    }
+  }, [scenario]);
+
+  return (
+    <section className="card" aria-labelledby="statics-title">
+      <h2 id="statics-title">Comparative statics</h2>
+      <p className="small muted">
+        How each rival&apos;s equilibrium effort responds to a small change in one parameter: the
+        derivative, and the elasticity (percent change in effort per percent change in the
+        parameter). Analytic rows use the Hillman &amp; Riley (1989) closed form; the others are
+        checked numerical derivatives.
+      </p>
+      {statics === null ? (
+        <p className="muted">
+          {scenario?.leader
+            ? "Shown for simultaneous moves only."
+            : "Fix the highlighted fields first."}
+        </p>
+      ) : !statics.ok ? (
+        <p className="muted" data-testid="statics-unavailable">
+          {statics.message}
+        </p>
+      ) : (
+        <FigureTable
+          head={[
+            textCol("Parameter"),
+            numCol("At"),
+            ...statics.value.names.map((n) =>
+              numCol(
+                <>
+                  d effort {n} <span className="muted">(elasticity)</span>
+                </>,
+                `d effort ${n}`,
+              ),
+            ),
+            numCol("d total"),
+            textCol("Method"),
+          ]}
+          testId="statics-table"
+        >
+          {statics.value.rows.map((row) => (
+            <tr key={row.param}>
+              <RowHeader>{row.label}</RowHeader>
+              <td className="num">{formatNumber(row.at)}</td>
+              {row.effort.d.map((d, i) => (
+                <td key={i} className="num" data-testid={`statics-${row.param}-effort-${i}`}>
+                  {formatSigned(d)}{" "}
+                  <span className="muted">
+                    (
+                    {row.effort.elasticity[i] === null
+                      ? "\u2013"
+                      : formatSigned(row.effort.elasticity[i] as number, 2)}
+                    )
+                  </span>
+                </td>
+              ))}
+              <td className="num">{formatSigned(row.totalEffort.d)}</td>
+              <td>
+                <span className="badge">{row.method}</span>
+                {row.note ? <span className="small muted"> {row.note}</span> : null}
+              </td>
+            </tr>
+          ))}
+        </FigureTable>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,116 @@
+"use client";
+
+import type { Dispatch, SetStateAction } from "react";
+import type { SweepState } from "../../hooks/useChunkedSweep";
+import type { AxisText } from "../../hooks/useSweepAxis";
+import { formatNumber } from "../../lib/format";
+import { SelectField, TextField } from "../Field";
+
+/** Errors the axis fields show beside themselves; any other sweep error shows below the row. */
+const FIELD_PATHS = ["sweep.param", "sweep.from", "sweep.to", "sweep.steps"];
+
+/** The swept parameter, its range and point count, run/cancel, and the sweep's progress. */
+export function SweepControls({
+  axis,
+  setAxis,
+  paramOptions,
+  pickParam,
+  state,
+  run,
+  cancel,
+}: {
+  axis: AxisText;
+  setAxis: Dispatch<SetStateAction<AxisText>>;
+  paramOptions: { path: string; label: string }[];
+  pickParam: (param: string) => void;
+  state: SweepState;
+  run: () => void;
+  cancel: () => void;
+}) {
+  const axisError = state.status === "error" ? state : null;
+  const axisErr = (k: string) =>
+    axisError && axisError.path === `sweep.${k}` ? axisError.message : undefined;
+  return (
+    <>
+      <div className="row" style={{ alignItems: "flex-start" }}>
+        <SelectField
+          label="Parameter"
+          value={axis.param}
+          options={paramOptions.map((o) => ({ value: o.path, label: o.label }))}
+          onChange={pickParam}
+          error={axisErr("param")}
+          testId="sweep-param"
+        />
+        <TextField
+          label="From"
+          numeric
+          value={axis.from}
+          onChange={(v) => setAxis((a) => ({ ...a, from: v }))}
+          error={axisErr("from")}
+          testId="sweep-from"
+          width="9rem"
+        />
+        <TextField
+          label="To"
+          numeric
+          value={axis.to}
+          onChange={(v) => setAxis((a) => ({ ...a, to: v }))}
+          error={axisErr("to")}
+          testId="sweep-to"
+          width="9rem"
+        />
+        <TextField
+          label="Points"
+          numeric
+          value={axis.steps}
+          onChange={(v) => setAxis((a) => ({ ...a, steps: v }))}
+          error={axisErr("steps")}
+          testId="sweep-steps"
+          width="7rem"
+        />
+        <div className="field">
+          <span aria-hidden="true">&nbsp;</span>
+          {state.status === "running" ? (
+            <button type="button" onClick={cancel} data-testid="sweep-cancel">
+              Cancel
+            </button>
+          ) : (
+            <button type="button" className="primary" onClick={run} data-testid="sweep-run">
+              Run sweep
+            </button>
+          )}
+        </div>
+      </div>
+      <div style={{ minHeight: "2.2rem" }} aria-live="polite">
+        {state.status === "running" && (
+          <div data-testid="sweep-progress">
+            <div
+              className="progress"
+              role="progressbar"
+              aria-label="Sweep progress"
+              aria-valuemin={0}
+              aria-valuemax={state.total}
+              aria-valuenow={state.done}
+            >
+              <div style={{ width: `${(100 * state.done) / Math.max(1, state.total)}%` }} />
+            </div>
+            <span className="small muted">
+              {state.done} of {state.total} points
+            </span>
+          </div>
+        )}
+        {state.status === "done" && (
+          <p className="small muted" data-testid="sweep-status">
+            {state.sweep.values.length} points in {formatNumber(state.ms, 0)} ms
+            {state.sweep.kinds.some((k) => k === "none-pure")
+              ? " · gaps: no pure equilibrium there"
+              : ""}
+          </p>
+        )}
+        {axisError && !FIELD_PATHS.includes(axisError.path) && (
+          <p className="field-error">{axisError.message}</p>
+        )}
+      </div>
+    </>
+  );
+}

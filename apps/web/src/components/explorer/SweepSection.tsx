@@ -1,0 +1,40 @@
+"use client";
+
+import type { Scenario } from "@contend/solver";
+import { useChunkedSweep } from "../../hooks/useChunkedSweep";
+import type { useSweepAxis } from "../../hooks/useSweepAxis";
+import { sweepRows } from "../../lib/chart-data";
+import { SweepControls } from "./SweepControls";
+import { SweepResults } from "./SweepResults";
+
+/**
+ * Sweeps one parameter over a range (run in time slices, re-run as the scenario changes) and
+ * shows the equilibrium along it.
+ */
+export function SweepSection({
+  scenario,
+  sweepAxis,
+}: {
+  scenario: Scenario | null;
+  sweepAxis: ReturnType<typeof useSweepAxis>;
+}) {
+  const { axis, setAxis, spec, paramOptions, paramLabel, pickParam } = sweepAxis;
+  const sweep = useChunkedSweep(scenario, spec, true);
+  const names = scenario?.rivals.map((r) => r.name) ?? [];
+  const rows = sweep.state.status === "done" ? sweepRows(sweep.state.sweep) : [];
+  return (
+    <section className="card" aria-labelledby="sweep-title">
+      <h2 id="sweep-title">Sweep a parameter</h2>
+      <SweepControls
+        axis={axis}
+        setAxis={setAxis}
+        paramOptions={paramOptions}
+        pickParam={pickParam}
+        state={sweep.state}
+        run={sweep.run}
+        cancel={sweep.cancel}
+      />
+      <SweepResults rows={rows} names={names} paramLabel={paramLabel} />
+    </section>
+  );
+}
