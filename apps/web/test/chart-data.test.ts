@@ -23,11 +23,16 @@ describe("sweepRows", () => {
         [10, 20],
         [null, 5],
       ],
+      spends: [
+        [10, 20],
+        [null, 5],
+      ],
       payoffs: [
         [1, 2],
         [3, null],
       ],
       totalEffort: [10, 25],
+      totalSpend: [10, 25],
       dissipation: [0.1, null],
       kinds: ["pure", "pure"] as const,
     };

@@ -36,3 +36,13 @@ export function maxEffortFor(budget: number | null | undefined, cost: number): n
   if (budget === null || budget === undefined || !Number.isFinite(budget)) return Infinity;
   return budget / cost;
 }
+
+/** Money each rival spends for the given efforts: cost x effort (spend_i = m_i e_i). */
+export function spendsOf(contest: Contest, efforts: readonly number[]): number[] {
+  return contest.rivals.map((r, i) => r.cost * (efforts[i] ?? 0));
+}
+
+/** Effort each spend buys: spend / cost, the model's internal quantity. */
+export function effortsFromSpends(contest: Contest, spends: readonly number[]): number[] {
+  return contest.rivals.map((r, i) => (spends[i] ?? 0) / r.cost);
+}

@@ -31,6 +31,10 @@ const files: Record<string, string> = {
   }),
   "decisive.json": JSON.stringify({ ...good, csf: { kind: "ratio", decisiveness: 50 } }),
   "leader.json": JSON.stringify({ ...good, leader: "One" }),
+  "budget2.json": JSON.stringify({
+    ...good,
+    rivals: [{ name: "One", cost: 2, budget: 10 }, good.rivals[1]],
+  }),
   "budget.json": JSON.stringify({
     ...good,
     rivals: [{ name: "One", cost: 1, budget: 10 }, good.rivals[1]],
@@ -63,6 +67,7 @@ describe("contend solve", () => {
     for (const key of [
       "kind",
       "efforts",
+      "spends",
       "shares",
       "payoffs",
       "totalEffort",
@@ -76,6 +81,10 @@ describe("contend solve", () => {
     // Hillman & Riley 1989, two rivals, common v: e1 = v m2 / (m1 + m2)^2 = 200/9, e2 = 100/9.
     expect(eq.efforts[0]).toBeCloseTo(200 / 9, 9);
     expect(eq.efforts[1]).toBeCloseTo(100 / 9, 9);
+    // spends are money: cost x effort = 1 x 200/9 and 2 x 100/9 (equal spends at r = 1, n = 2)
+    expect(eq.spends[0]).toBeCloseTo(200 / 9, 9);
+    expect(eq.spends[1]).toBeCloseTo(200 / 9, 9);
+    expect(eq.totalSpend).toBeCloseTo(400 / 9, 9);
     expect(eq.active).toEqual([true, true]);
     expect(Array.isArray(out.alternatives)).toBe(true);
   });
@@ -84,7 +93,8 @@ describe("contend solve", () => {
     const r = await run("solve", kioskPath);
     expect(r.code).toBe(0);
     expect(r.stdout).toContain("Larkspur Bakehouse");
-    expect(r.stdout).toMatch(/Total effort/);
+    expect(r.stdout).toMatch(/Total spend EUR /);
+    expect(r.stdout).toMatch(/Spend is money \(cost x effort\)/);
     expect(r.stdout).toMatch(/dissipation/);
     expect(r.stdout).toMatch(/Nash gap/);
     expect(r.stdout).toMatch(/method: /);
@@ -99,17 +109,28 @@ describe("contend solve", () => {
     expect(r.stdout).toMatch(/One commits first/);
     // Simultaneous game for comparison: e1 = v m2 / (m1 + m2)^2 = 200/9 = 22.2222 (Hillman & Riley 1989).
     expect(r.stdout).toMatch(
-      /Without commitment \(simultaneous game\): One 22\.2222, Two, Ltd 11\.1111/,
+      /Without commitment \(simultaneous game\): One spends 22\.2222, Two, Ltd spends 22\.2222/,
     );
     // Leader's optimum e1 = v m2 / (4 m1^2) = 50 while m2 < 2 m1 (Dixit 1987) sits at the boundary
     // m2 = 2 m1 here, where the follower is just pre-empted.
-    expect(r.stdout).toMatch(/One\s+50\s/);
+    expect(r.stdout).toMatch(/One\s+50\s+50\s/); // spend 50 at cost 1, effort 50
   });
 
   it("main(solve FILE with a binding budget) marks the capped rival", async () => {
     const r = await run("solve", "budget.json");
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/at budget/);
+  });
+
+  it("main(solve, budget 10 at cost 2) caps money: spend 10, effort 5", async () => {
+    const r = await run("solve", "budget2.json", "--json");
+    expect(r.code).toBe(0);
+    const eq = JSON.parse(r.stdout).equilibrium;
+    // Unconstrained (Hillman & Riley 1989) rival 1 would spend 2 x v m2 / (m1 + m2)^2 = 200/9 > 10.
+    expect(eq.spends[0]).toBeCloseTo(10, 9);
+    expect(eq.efforts[0]).toBeCloseTo(5, 9);
+    // Che & Gale 1997: the other replies to the capped effort, sqrt(v e1 / m2) - e1 (m2 = 2).
+    expect(eq.efforts[1]).toBeCloseTo(Math.sqrt((100 * 5) / 2) - 5, 7);
   });
 });
 
@@ -118,12 +139,41 @@ describe("contend respond", () => {
     const r = await run("respond", "good.json", "--efforts", "10,5", "--json");
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout);
-    expect(Object.keys(out)).toEqual(["bestResponses", "regrets", "payoffs", "nashGap"]);
+    expect(Object.keys(out)).toEqual([
+      "efforts",
+      "spends",
+      "bestResponses",
+      "bestResponseSpends",
+      "regrets",
+      "payoffs",
+      "nashGap",
+    ]);
+    expect(out.spends).toEqual([10, 10]); // cost 2 x effort 5
+    expect(out.bestResponseSpends[1]).toBeCloseTo(2 * (Math.sqrt(500) - 10), 8);
     // r = 1 best response sqrt(v Z / m) - Z (Tullock 1980): rival 1 vs Z = 5 -> sqrt(500) - 5.
     expect(out.bestResponses[0]).toBeCloseTo(Math.sqrt(500) - 5, 8);
     expect(out.bestResponses[1]).toBeCloseTo(Math.sqrt(500) - 10, 8);
     expect(out.payoffs[0]).toBeCloseTo((100 * 10) / 15 - 10, 10);
     expect(out.nashGap).toBeCloseTo(Math.max(...out.regrets), 12);
+  });
+
+  it("main(respond FILE --spends 10,10) reads money: effort = spend / cost", async () => {
+    const bySpend = JSON.parse(
+      (await run("respond", "good.json", "--spends", "10,10", "--json")).stdout,
+    );
+    const byEffort = JSON.parse(
+      (await run("respond", "good.json", "--efforts", "10,5", "--json")).stdout,
+    );
+    expect(bySpend.efforts).toEqual([10, 5]);
+    expect(bySpend).toEqual(byEffort);
+    const over = await run("respond", "budget2.json", "--spends", "11,1");
+    expect(over.code).toBe(2);
+    expect(over.stderr).toMatch(/--spends: spend 1 \(One\) is more than its budget 10/);
+    // effort 6 at cost 2 costs 12 > 10 (read as an effort cap, 6 would have passed)
+    const overEffort = await run("respond", "budget2.json", "--efforts", "6,1");
+    expect(overEffort.stderr).toMatch(
+      /--efforts: effort 1 \(One\) costs 12, more than its budget 10/,
+    );
   });
 
   it("main(respond FILE --efforts at equilibrium) reports a zero Nash gap in the table", async () => {
@@ -152,11 +202,15 @@ describe("contend sweep", () => {
     const lines = r.stdout.trim().split("\n");
     expect(lines).toHaveLength(6);
     expect(lines[0]).toBe(
-      'rivals.1.cost,effort:One,payoff:One,"effort:Two, Ltd","payoff:Two, Ltd",totalEffort,dissipation,kind',
+      'rivals.1.cost,spend:One,effort:One,payoff:One,"spend:Two, Ltd","effort:Two, Ltd","payoff:Two, Ltd",totalSpend,totalEffort,dissipation,kind',
     );
     const row = lines[1]!.split(",");
     expect(Number(row[0])).toBe(1);
-    expect(Number(row[1])).toBeCloseTo(25, 9); // symmetric r = 1, n = 2: e = v/4 (Tullock 1980)
+    expect(Number(row[2])).toBeCloseTo(25, 9); // symmetric r = 1, n = 2: e = v/4 (Tullock 1980)
+    // last row: cost of Two is 3; Hillman & Riley 1989 e2 = v m1 / (m1 + m2)^2 = 100/16, spend 3 x that
+    const last = lines[5]!.split(",");
+    expect(Number(last[4])).toBeCloseTo((3 * 100) / 16, 9);
+    expect(Number(last[5])).toBeCloseTo(100 / 16, 9);
     expect(row.at(-1)).toBe("pure");
   });
 
@@ -178,6 +232,7 @@ describe("contend sweep", () => {
     const out = JSON.parse(r.stdout);
     expect(out.values).toEqual([50, 100, 150]);
     expect(out.efforts).toHaveLength(2);
+    expect(out.spends[1][1]).toBeCloseTo(2 * out.efforts[1][1], 12); // Two's cost is 2
     expect(out.kinds).toEqual(["pure", "pure", "pure"]);
   });
 });
@@ -217,7 +272,12 @@ describe("contend bad input", () => {
     ["no file", ["solve"], /FILE/],
     ["two files", ["solve", "good.json", "good.json"], /unexpected argument/],
     ["boolean with value", ["solve", "good.json", "--json=yes"], /--json/],
-    ["missing efforts", ["respond", "good.json"], /--efforts: is required/],
+    ["missing spends", ["respond", "good.json"], /--spends: is required/],
+    [
+      "spends and efforts",
+      ["respond", "good.json", "--spends", "1,1", "--efforts", "1,1"],
+      /--efforts: give --spends or --efforts, not both/,
+    ],
     ["wrong effort count", ["respond", "good.json", "--efforts", "1,2,3"], /--efforts: expected 2/],
     ["negative effort", ["respond", "good.json", "--efforts", "1,-2"], /--efforts: effort 2.*>= 0/],
     [

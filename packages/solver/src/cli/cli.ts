@@ -7,7 +7,7 @@ import { normalize } from "../index";
 import type { InputError, Parsed, Scenario } from "../types";
 import { validateScenario } from "../validate";
 import { parseArgs, type ParsedArgs } from "./args";
-import { parseEfforts, runRespond } from "./respondCommand";
+import { parseMoves, runRespond } from "./respondCommand";
 import { runSolve } from "./solveCommand";
 import { runStatics } from "./staticsCommand";
 import { runSweep } from "./sweepCommand";
@@ -26,8 +26,9 @@ Usage:
   contend solve FILE [--json]
       Nash equilibrium (or leader-follower outcome) with efforts, shares, payoffs,
       total effort, dissipation and the measured Nash gap; every equilibrium found.
-  contend respond FILE --efforts E1,E2,... [--json]
-      Each rival's best response and regret against the given efforts (one per rival).
+  contend respond FILE --spends S1,S2,... [--json]
+      Each rival's best reply and regret against the given spends (money, one per rival);
+      --efforts E1,E2,... gives the moves in effort units (effort = spend / cost) instead.
   contend sweep FILE --param PATH --from A --to B --steps N [--json]
       Solve along a line of one parameter; CSV (default) or JSON series.
       PATH: prize | csf.decisiveness | csf.scale | rivals.<i>.<cost|value|weight|budget|decisiveness>
@@ -48,7 +49,7 @@ type Command = "solve" | "respond" | "sweep" | "statics";
 
 const OPTIONS: Record<Command, { valued: string[]; booleans: string[] }> = {
   solve: { valued: [], booleans: ["json", "help"] },
-  respond: { valued: ["efforts"], booleans: ["json", "help"] },
+  respond: { valued: ["spends", "efforts"], booleans: ["json", "help"] },
   sweep: { valued: ["param", "from", "to", "steps"], booleans: ["json", "help"] },
   statics: { valued: [], booleans: ["json", "help"] },
 };
@@ -113,10 +114,21 @@ async function run(
     case "solve":
       return { code: EXIT.ok, out: runSolve(scenario.value, contest, json), err: "" };
     case "respond": {
-      const raw = args.flags.get("efforts");
-      if (raw === undefined)
-        return bad({ ok: false, path: "--efforts", message: "is required for respond" });
-      const efforts = parseEfforts(raw, contest);
+      const spendsRaw = args.flags.get("spends");
+      const effortsRaw = args.flags.get("efforts");
+      if ((spendsRaw === undefined) === (effortsRaw === undefined))
+        return bad({
+          ok: false,
+          path: spendsRaw === undefined ? "--spends" : "--efforts",
+          message:
+            spendsRaw === undefined
+              ? "is required for respond (or --efforts)"
+              : "give --spends or --efforts, not both",
+        });
+      const efforts =
+        spendsRaw !== undefined
+          ? parseMoves(spendsRaw, contest, "spends")
+          : parseMoves(effortsRaw!, contest, "efforts");
       if (!efforts.ok) return bad(efforts);
       return {
         code: EXIT.ok,

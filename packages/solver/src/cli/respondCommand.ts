@@ -1,16 +1,27 @@
-import { respond } from "../index";
+import { respond } from "../bestResponse";
+import { spendsOf } from "../normalize";
 import type { Contest, InputError, Parsed, Scenario } from "../types";
 import { parseNumber } from "./args";
 import { CAUTIONS, money, table } from "./format";
 
-/** "10,20,30" -> one effort per rival, each finite, >= 0 and within the rival's budget (cost x effort <= budget, money). */
-export function parseEfforts(text: string, contest: Contest): Parsed<number[]> {
-  const fail = (message: string): InputError => ({ ok: false, path: "--efforts", message });
+/**
+ * "10,20,30" -> one effort per rival, each finite, >= 0 and within the rival's budget
+ * (cost x effort <= budget, money). With unit "spends" the numbers are money and each becomes
+ * effort = spend / cost.
+ */
+export function parseMoves(
+  text: string,
+  contest: Contest,
+  unit: "spends" | "efforts",
+): Parsed<number[]> {
+  const flag = `--${unit}`;
+  const what = unit === "spends" ? "spend" : "effort";
+  const fail = (message: string): InputError => ({ ok: false, path: flag, message });
   const parts = text.split(",");
   const n = contest.rivals.length;
   if (parts.length !== n) {
     return fail(
-      `expected ${n} comma-separated efforts (one per rival, in file order), got ${parts.length}`,
+      `expected ${n} comma-separated ${unit} (one per rival, in file order), got ${parts.length}`,
     );
   }
   const out: number[] = [];
@@ -18,13 +29,17 @@ export function parseEfforts(text: string, contest: Contest): Parsed<number[]> {
     const x = parseNumber(parts[i]!);
     const r = contest.rivals[i]!;
     if (x === null)
-      return fail(`effort ${i + 1} (${r.name}) is not a finite number: "${parts[i]!.trim()}"`);
-    if (x < 0) return fail(`effort ${i + 1} (${r.name}) must be >= 0 (got ${x})`);
-    if (x > r.maxEffort)
+      return fail(`${what} ${i + 1} (${r.name}) is not a finite number: "${parts[i]!.trim()}"`);
+    if (x < 0) return fail(`${what} ${i + 1} (${r.name}) must be >= 0 (got ${x})`);
+    const spend = unit === "spends" ? x : r.cost * x;
+    const effort = unit === "spends" ? x / r.cost : x;
+    if (effort > r.maxEffort)
       return fail(
-        `effort ${i + 1} (${r.name}) costs ${r.cost * x}, more than its budget ${r.maxSpend} (cost ${r.cost} x effort ${x})`,
+        unit === "spends"
+          ? `spend ${i + 1} (${r.name}) is more than its budget ${r.maxSpend} (got ${x})`
+          : `effort ${i + 1} (${r.name}) costs ${spend}, more than its budget ${r.maxSpend} (cost ${r.cost} x effort ${x})`,
       );
-    out.push(x);
+    out.push(effort);
   }
   return { ok: true, value: out };
 }
@@ -38,7 +53,10 @@ export function runRespond(
   const res = respond(contest, efforts);
   if (json) {
     return `${JSON.stringify({
+      efforts,
+      spends: spendsOf(contest, efforts),
       bestResponses: res.bestResponses,
+      bestResponseSpends: spendsOf(contest, res.bestResponses),
       regrets: res.regrets,
       payoffs: res.payoffs,
       nashGap: res.nashGap,
@@ -47,23 +65,23 @@ export function runRespond(
   const cur = s.currency;
   const rows = contest.rivals.map((r, i) => [
     r.name,
-    money(efforts[i], cur),
+    money(r.cost * efforts[i]!, cur),
     money(res.payoffs[i], cur),
-    money(res.bestResponses[i], cur),
+    money(r.cost * res.bestResponses[i]!, cur),
     money(res.regrets[i], cur),
   ]);
   const total = efforts.reduce((a, b) => a + b, 0);
   const lines = [
     s.title,
-    "Best responses to the given efforts (each rival alone re-optimises, the others held fixed)",
+    "Best replies to the given spends (each rival alone re-optimises, the others held fixed)",
     "",
-    table(["Rival", "Effort", "Payoff", "Best response", "Regret"], rows),
+    table(["Rival", "Spend", "Payoff", "Best reply (spend)", "Regret"], rows),
     "",
     `Nash gap (largest regret) ${money(res.nashGap, cur)}${res.nashGap <= 1e-6 * s.prize ? ": this profile is an equilibrium" : ""}`,
   ];
   if (contest.csf.kind === "ratio" && efforts.some((e) => total - e === 0)) {
     lines.push(
-      "Note: where all the others spend nothing, any positive effort wins everything; the best response shown is the smallest step.",
+      "Note: where all the others spend nothing, any positive spend wins everything; the best reply shown is the smallest step.",
     );
   }
   lines.push("", CAUTIONS);

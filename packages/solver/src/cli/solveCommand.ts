@@ -1,16 +1,27 @@
-import { solve } from "../index";
+import { spendsOf } from "../normalize";
+import { solve } from "../solve";
 import type { Contest, Equilibrium, MixedStrategy, Scenario, SolveResult } from "../types";
 import { CAUTIONS, fmt, money, pct, table } from "./format";
 
-/** Fixed key order so the JSON reads the same for every scenario. */
-export function equilibriumJson(eq: Equilibrium): Record<string, unknown> {
+/**
+ * Fixed key order so the JSON reads the same for every scenario. `spends` (money, cost x
+ * effort) sit beside `efforts` (the model's units); `expectedSpends` beside `expectedEfforts`.
+ */
+export function equilibriumJson(contest: Contest, eq: Equilibrium): Record<string, unknown> {
+  const spendOf = (e: number[]) => spendsOf(contest, e);
+  const expected = eq.expectedEfforts
+    ? { expectedEfforts: eq.expectedEfforts, expectedSpends: spendOf(eq.expectedEfforts) }
+    : {};
+  const known = eq.efforts ?? eq.expectedEfforts ?? null;
   const out: Record<string, unknown> = {
     kind: eq.kind,
     efforts: eq.efforts,
-    ...(eq.expectedEfforts ? { expectedEfforts: eq.expectedEfforts } : {}),
+    spends: eq.efforts ? spendOf(eq.efforts) : null,
+    ...expected,
     shares: eq.shares,
     payoffs: eq.payoffs,
     totalEffort: eq.totalEffort,
+    totalSpend: known ? spendOf(known).reduce((a, b) => a + b, 0) : null,
     dissipation: eq.dissipation,
     active: eq.active,
     nashGap: eq.nashGap,
@@ -21,10 +32,10 @@ export function equilibriumJson(eq: Equilibrium): Record<string, unknown> {
   return out;
 }
 
-export function solveJson(result: SolveResult): string {
+export function solveJson(contest: Contest, result: SolveResult): string {
   return `${JSON.stringify({
-    equilibrium: equilibriumJson(result.equilibrium),
-    alternatives: result.alternatives.map(equilibriumJson),
+    equilibrium: equilibriumJson(contest, result.equilibrium),
+    alternatives: result.alternatives.map((eq) => equilibriumJson(contest, eq)),
   })}\n`;
 }
 
@@ -39,9 +50,10 @@ export function describeCsf(s: Scenario): string {
   }
 }
 
-function strategyText(m: MixedStrategy | undefined): string {
+/** A mixed strategy in money: the effort range times the rival's cost. */
+function strategyText(m: MixedStrategy | undefined, cost: number, cur?: string | null): string {
   if (!m) return "-";
-  const range = `uniform on [${fmt(m.low)}, ${fmt(m.high)}]`;
+  const range = `spend uniform on [${money(cost * m.low, cur)}, ${money(cost * m.high, cur)}]`;
   return m.atomAtZero > 0 ? `0 with prob. ${fmt(m.atomAtZero)}, else ${range}` : range;
 }
 
@@ -61,8 +73,10 @@ function equilibriumBlock(s: Scenario, contest: Contest, eq: Equilibrium): strin
   const cur = s.currency;
   const mixed = eq.kind === "mixed";
   const efforts = eq.efforts ?? eq.expectedEfforts ?? null;
+  const spends = efforts ? spendsOf(contest, efforts) : null;
   const header = [
     "Rival",
+    mixed ? "Expected spend" : "Spend",
     mixed ? "Expected effort" : "Effort",
     mixed ? "Win prob." : "Share",
     mixed ? "Expected payoff" : "Payoff",
@@ -71,11 +85,12 @@ function equilibriumBlock(s: Scenario, contest: Contest, eq: Equilibrium): strin
   ];
   const rows = contest.rivals.map((r, i) => [
     r.name,
-    money(efforts?.[i], cur),
+    money(spends?.[i], cur),
+    fmt(efforts?.[i]),
     pct(eq.shares?.[i]),
     money(eq.payoffs?.[i], cur),
     status(contest, eq, i, efforts),
-    ...(mixed ? [strategyText(eq.strategies?.[i])] : []),
+    ...(mixed ? [strategyText(eq.strategies?.[i], r.cost, cur)] : []),
   ]);
   const lines = [
     `Equilibrium: ${eq.kind === "none-pure" ? "no pure-strategy equilibrium" : eq.kind} (method: ${eq.method})`,
@@ -83,7 +98,10 @@ function equilibriumBlock(s: Scenario, contest: Contest, eq: Equilibrium): strin
   if (efforts) {
     lines.push(
       table(header, rows),
-      `Total effort ${money(eq.totalEffort, cur)}; dissipation ${pct(eq.dissipation)} of the prize; Nash gap ${fmt(eq.nashGap)}`,
+      `Total spend ${money(
+        spends!.reduce((a, b) => a + b, 0),
+        cur,
+      )}; dissipation ${pct(eq.dissipation)} of the prize; Nash gap ${fmt(eq.nashGap)}`,
     );
   }
   if (eq.note) lines.push(`Note: ${eq.note}`);
@@ -100,13 +118,19 @@ export function solveText(s: Scenario, contest: Contest, result: SolveResult): s
       `Leader-follower game: ${contest.rivals[contest.leader]!.name} commits first, the others then best-respond.`,
     );
   }
-  out.push("", equilibriumBlock(s, contest, result.equilibrium));
+  out.push(
+    "Spend is money (cost x effort); effort = spend / cost is the model's unit; budgets cap spend.",
+    "",
+    equilibriumBlock(s, contest, result.equilibrium),
+  );
   if (contest.leader !== null) {
     // Dixit 1987: commitment changes what a favourite spends; show the simultaneous game beside it.
     const sim = solve({ ...contest, leader: null }).equilibrium;
     const e = sim.efforts ?? sim.expectedEfforts;
     const list = e
-      ? contest.rivals.map((r, i) => `${r.name} ${money(e[i], s.currency)}`).join(", ")
+      ? contest.rivals
+          .map((r, i) => `${r.name} spends ${money(r.cost * e[i]!, s.currency)}`)
+          .join(", ")
       : "no pure-strategy equilibrium";
     out.push(`Without commitment (simultaneous game): ${list}.`);
   }
@@ -123,5 +147,5 @@ export function solveText(s: Scenario, contest: Contest, result: SolveResult): s
 
 export function runSolve(s: Scenario, contest: Contest, json: boolean): string {
   const result = solve(contest);
-  return json ? solveJson(result) : solveText(s, contest, result);
+  return json ? solveJson(contest, result) : solveText(s, contest, result);
 }

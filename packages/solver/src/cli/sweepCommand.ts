@@ -13,13 +13,20 @@ const FLAG_OF: Record<string, string> = {
 
 export function sweepCsv(sw: Sweep1d): string {
   const header: string[] = [sw.param];
-  for (const name of sw.names) header.push(`effort:${name}`, `payoff:${name}`);
-  header.push("totalEffort", "dissipation", "kind");
+  for (const name of sw.names) header.push(`spend:${name}`, `effort:${name}`, `payoff:${name}`);
+  header.push("totalSpend", "totalEffort", "dissipation", "kind");
   const lines = [csvLine(header)];
   sw.values.forEach((v, k) => {
     const row: (number | null | string)[] = [v];
-    sw.names.forEach((_, i) => row.push(sw.efforts[i]![k] ?? null, sw.payoffs[i]![k] ?? null));
-    row.push(sw.totalEffort[k] ?? null, sw.dissipation[k] ?? null, sw.kinds[k]!);
+    sw.names.forEach((_, i) =>
+      row.push(sw.spends[i]![k] ?? null, sw.efforts[i]![k] ?? null, sw.payoffs[i]![k] ?? null),
+    );
+    row.push(
+      sw.totalSpend[k] ?? null,
+      sw.totalEffort[k] ?? null,
+      sw.dissipation[k] ?? null,
+      sw.kinds[k]!,
+    );
     lines.push(csvLine(row));
   });
   return `${lines.join("\n")}\n`;

@@ -18,8 +18,11 @@ export interface Sweep1d {
   values: number[];
   /** efforts[i][k]: rival i at point k (expected effort when mixed, null when unknown) */
   efforts: (number | null)[][];
+  /** spends[i][k]: money, cost x effort at point k (the cost may be the swept parameter) */
+  spends: (number | null)[][];
   payoffs: (number | null)[][];
   totalEffort: (number | null)[];
+  totalSpend: (number | null)[];
   dissipation: (number | null)[];
   kinds: EquilibriumKind[];
 }
@@ -31,8 +34,10 @@ export function assemble1d(param: string, names: string[], points: SweepPoint[])
     names,
     values: points.map((p) => p.value),
     efforts: names.map((_, i) => points.map((p) => p.efforts[i] ?? null)),
+    spends: names.map((_, i) => points.map((p) => p.spends[i] ?? null)),
     payoffs: names.map((_, i) => points.map((p) => p.payoffs[i] ?? null)),
     totalEffort: points.map((p) => p.totalEffort),
+    totalSpend: points.map((p) => p.totalSpend),
     dissipation: points.map((p) => p.dissipation),
     kinds: points.map((p) => p.kind),
   };

@@ -13,7 +13,13 @@ import {
 import type { SweepPoint } from "./point";
 
 /** "totalEffort", "dissipation", "effort.<i>" or "payoff.<i>" (rival index). */
-export type Sweep2dMetric = "totalEffort" | "dissipation" | `effort.${number}` | `payoff.${number}`;
+export type Sweep2dMetric =
+  | "totalEffort"
+  | "totalSpend"
+  | "dissipation"
+  | `effort.${number}`
+  | `spend.${number}`
+  | `payoff.${number}`;
 
 export interface Sweep2d {
   x: { param: string; values: number[] };
@@ -26,19 +32,18 @@ export interface Sweep2d {
 
 export function metricReader(metric: string, n: number): Parsed<(p: SweepPoint) => number | null> {
   if (metric === "totalEffort") return { ok: true, value: (p) => p.totalEffort };
+  if (metric === "totalSpend") return { ok: true, value: (p) => p.totalSpend };
   if (metric === "dissipation") return { ok: true, value: (p) => p.dissipation };
-  const m = /^(effort|payoff)\.(\d+)$/.exec(metric);
+  const m = /^(effort|spend|payoff)\.(\d+)$/.exec(metric);
   const i = m ? Number(m[2]) : -1;
   if (m && i < n) {
-    return {
-      ok: true,
-      value: m[1] === "effort" ? (p) => p.efforts[i] ?? null : (p) => p.payoffs[i] ?? null,
-    };
+    const series = m[1] === "effort" ? "efforts" : m[1] === "spend" ? "spends" : "payoffs";
+    return { ok: true, value: (p) => p[series][i] ?? null };
   }
   const err: InputError = {
     ok: false,
     path: "metric",
-    message: `must be totalEffort, dissipation, effort.<i> or payoff.<i> with i < ${n} (got ${metric})`,
+    message: `must be totalEffort, totalSpend, dissipation, effort.<i>, spend.<i> or payoff.<i> with i < ${n} (got ${metric})`,
   };
   return err;
 }
