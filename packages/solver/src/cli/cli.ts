@@ -3,7 +3,7 @@
  * object, builds the whole output first and returns the exit status (0 ok, 2 bad input,
  * 1 internal error), so a failed run prints one line on stderr and nothing on stdout.
  */
-import { normalize } from "../index";
+import { normalize } from "../normalize";
 import type { InputError, Parsed, Scenario } from "../types";
 import { validateScenario } from "../validate";
 import { parseArgs, type ParsedArgs } from "./args";

@@ -1,4 +1,4 @@
-import { comparativeStatics } from "../statics";
+import { comparativeStatics } from "../statics/comparativeStatics";
 import type { Parsed, Scenario } from "../types";
 import { CAUTIONS, fmt, table } from "./format";
 

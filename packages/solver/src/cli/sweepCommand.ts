@@ -1,5 +1,5 @@
 import type { InputError, Parsed, Scenario } from "../types";
-import { sweep1d, type Sweep1d } from "../sweep";
+import { sweep1d, type Sweep1d } from "../sweep/sweep1d";
 import type { ParsedArgs } from "./args";
 import { parseNumber } from "./args";
 import { csvLine } from "./format";

@@ -10,7 +10,8 @@
  *   70% on average, heterogeneous, falling with repetition but rarely reaching equilibrium).
  * - fixed: a set effort every round.
  */
-import { bestResponse, solve } from "../index";
+import { bestResponse } from "../bestResponse";
+import { solve } from "../solve";
 import { deriveSeed, mulberry32 } from "../rng";
 import type { Contest, Equilibrium, InputError, Parsed } from "../types";
 import type { PolicyContext, PolicySpec, RivalPolicy } from "./types";

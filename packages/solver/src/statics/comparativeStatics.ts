@@ -4,7 +4,8 @@
  * otherwise a checked numerical derivative (central differences with Richardson
  * extrapolation, step scaled to the parameter). Each row says which method produced it.
  */
-import { normalize, solve } from "../index";
+import { normalize } from "../normalize";
+import { solve } from "../solve";
 import {
   formatParamPath,
   getParam,
