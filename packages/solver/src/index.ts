@@ -25,3 +25,4 @@ export * from "./activeSetSearch";
 export * from "./logitSearch";
 export * from "./bestResponseIteration";
 export * from "./allPayLeader";
+export * from "./uncertain";

@@ -52,9 +52,9 @@ function unknownField(obj: Record<string, unknown>, allowed: readonly string[], 
   );
 }
 
-type NumberRule = { min: number; minInclusive: boolean; max?: number };
+export type NumberRule = { min: number; minInclusive: boolean; max?: number };
 
-function checkNumber(x: unknown, path: string, rule: NumberRule): InputError | null {
+export function checkNumber(x: unknown, path: string, rule: NumberRule): InputError | null {
   const range =
     (rule.minInclusive ? `>= ${rule.min}` : `> ${rule.min}`) +
     (rule.max === undefined ? "" : ` and <= ${rule.max}`);
@@ -67,8 +67,8 @@ function checkNumber(x: unknown, path: string, rule: NumberRule): InputError | n
   return null;
 }
 
-const POSITIVE: NumberRule = { min: 0, minInclusive: false };
-const NON_NEGATIVE: NumberRule = { min: 0, minInclusive: true };
+export const POSITIVE: NumberRule = { min: 0, minInclusive: false };
+export const NON_NEGATIVE: NumberRule = { min: 0, minInclusive: true };
 const DECISIVENESS: NumberRule = { min: 0, minInclusive: false, max: LIMITS.decisivenessMax };
 
 /** Absent and null both mean "use the default". */

@@ -11,6 +11,8 @@ import { parseMoves, runRespond } from "./respondCommand";
 import { runSolve } from "./solveCommand";
 import { runStatics } from "./staticsCommand";
 import { runSweep } from "./sweepCommand";
+import { validateUncertainScenario } from "../uncertain";
+import { runUncertainCommand } from "./uncertainCommand";
 
 export interface CliIo {
   stdout: { write(text: string): unknown };
@@ -35,6 +37,12 @@ Usage:
       (rival index i counts from 0 in file order; N points include both ends).
   contend statics FILE [--json]
       Derivatives and elasticities of equilibrium efforts with respect to each parameter.
+  contend uncertain FILE [--draws N] [--seed S] [--plan RIVAL] [--json]
+      Monte Carlo of the equilibrium when numbers are ranges: P10/P50/P90 of spend, share and
+      payoff per rival, drop-out odds, a tornado of payoff swings, and with --plan the spend
+      that holds up best for that rival. Ranges go where a number would:
+      {"dist":"uniform","low":A,"high":B} or {"dist":"triangular","low":A,"mode":M,"high":B}
+      for prize and any rival's cost, value, weight, budget. Defaults: 10000 draws, seed 1.
   contend --help
 
 FILE is a scenario in JSON: {"title", "prize", "csf": {"kind": "ratio"|"logit"|"allpay", ...},
@@ -45,13 +53,14 @@ Exit status: 0 success, 2 bad input (one line on stderr names the field), 1 inte
 A stylised model to aid thinking: not a forecast, not financial or legal advice.
 `;
 
-type Command = "solve" | "respond" | "sweep" | "statics";
+type Command = "solve" | "respond" | "sweep" | "statics" | "uncertain";
 
 const OPTIONS: Record<Command, { valued: string[]; booleans: string[] }> = {
   solve: { valued: [], booleans: ["json", "help"] },
   respond: { valued: ["spends", "efforts"], booleans: ["json", "help"] },
   sweep: { valued: ["param", "from", "to", "steps"], booleans: ["json", "help"] },
   statics: { valued: [], booleans: ["json", "help"] },
+  uncertain: { valued: ["draws", "seed", "plan"], booleans: ["json", "help"] },
 };
 
 function isCommand(x: string): x is Command {
@@ -63,7 +72,11 @@ function errorLine(e: InputError, file?: string): string {
   return `contend: ${where ? `${where}: ` : ""}${e.message}`.replace(/\s*\n\s*/g, " ");
 }
 
-async function loadScenario(file: string, io: CliIo): Promise<Parsed<Scenario>> {
+async function loadScenario<T = Scenario>(
+  file: string,
+  io: CliIo,
+  validate: (json: unknown) => Parsed<T> = validateScenario as (json: unknown) => Parsed<T>,
+): Promise<Parsed<T>> {
   let text: string;
   try {
     text = await io.readFile(file);
@@ -83,7 +96,7 @@ async function loadScenario(file: string, io: CliIo): Promise<Parsed<Scenario>> 
   } catch (err) {
     return { ok: false, path: "", message: `not valid JSON (${(err as Error).message})` };
   }
-  return validateScenario(json);
+  return validate(json);
 }
 
 async function run(
@@ -105,6 +118,12 @@ async function run(
       path: extra[0]!,
       message: `unexpected argument (${command} takes one FILE)`,
     });
+  }
+  if (command === "uncertain") {
+    const u = await loadScenario(file, io, validateUncertainScenario);
+    if (!u.ok) return bad(u, file);
+    const res = runUncertainCommand(u.value, args, args.booleans.has("json"));
+    return res.ok ? { code: EXIT.ok, out: res.value, err: "" } : bad(res);
   }
   const scenario = await loadScenario(file, io);
   if (!scenario.ok) return bad(scenario, file);
@@ -151,7 +170,7 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
   const [first, ...rest] = argv;
   if (first === undefined) {
     io.stderr.write(
-      "contend: missing command (solve, respond, sweep, statics); see contend --help\n",
+      "contend: missing command (solve, respond, sweep, statics, uncertain); see contend --help\n",
     );
     return EXIT.badInput;
   }
@@ -161,7 +180,7 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
   }
   if (!isCommand(first)) {
     io.stderr.write(
-      `contend: unknown command "${first}" (use solve, respond, sweep or statics; see contend --help)\n`,
+      `contend: unknown command "${first}" (use solve, respond, sweep, statics or uncertain; see contend --help)\n`,
     );
     return EXIT.badInput;
   }
