@@ -9,41 +9,53 @@ import { deriveSeed, mulberry32 } from "../rng";
 import { solve } from "../solve";
 import type { Contest, Equilibrium, Scenario } from "../types";
 import { at, quantile } from "./dist";
-import type { UncertainParam, UncertainScenario } from "./types";
+import type { Uncertain, UncertainParam, UncertainScenario } from "./types";
 
-/** The point scenario with parameter k set to values[k] and every other range at quantile q. */
+/** The scenario with every range at its median (points stay as they are). */
+export function medianScenario(s: UncertainScenario): Scenario {
+  const med = (x: Uncertain | null | undefined) => (x === undefined || x === null ? x : at(x, 0.5));
+  return {
+    ...s,
+    prize: at(s.prize, 0.5),
+    rivals: s.rivals.map((r) => ({
+      ...r,
+      cost: at(r.cost, 0.5),
+      value: med(r.value),
+      weight: med(r.weight),
+      budget: med(r.budget),
+    })),
+  };
+}
+
+/**
+ * Point scenarios built from one base: parameter k set to values[k], every other range at its
+ * median. Only the rivals a parameter touches are copied, so a draw costs O(parameters + rivals).
+ */
+export function pointScenarios(s: UncertainScenario, params: readonly UncertainParam[]) {
+  const base = medianScenario(s);
+  return (values: ArrayLike<number>): Scenario => {
+    const rivals = base.rivals.slice();
+    const out: Scenario = { ...base, rivals };
+    for (let k = 0; k < params.length; k++) {
+      const p = params[k]!;
+      if (p.rival === null) out.prize = values[k]!;
+      else if (p.field !== "prize") {
+        const i = p.rival;
+        if (rivals[i] === base.rivals[i]) rivals[i] = { ...rivals[i]! };
+        rivals[i]![p.field] = values[k]!;
+      }
+    }
+    return out;
+  };
+}
+
+/** The point scenario with parameter k set to values[k] and every other range at its median. */
 export function scenarioWith(
   s: UncertainScenario,
   params: readonly UncertainParam[],
   values: ArrayLike<number>,
 ): Scenario {
-  const rivals = s.rivals.map((r) => ({
-    ...r,
-    cost: at(r.cost, 0.5),
-    value: r.value === undefined || r.value === null ? r.value : at(r.value, 0.5),
-    weight: r.weight === undefined || r.weight === null ? r.weight : at(r.weight, 0.5),
-    budget: r.budget === undefined || r.budget === null ? r.budget : at(r.budget, 0.5),
-  }));
-  const out: Scenario = { ...s, prize: at(s.prize, 0.5), rivals };
-  params.forEach((p, k) => {
-    const x = values[k]!;
-    if (p.rival === null) out.prize = x;
-    else if (p.field !== "prize") rivals[p.rival]![p.field] = x;
-  });
-  return out;
-}
-
-/** Every parameter at quantile q (q = 0.5: the median scenario). */
-export function scenarioAtQuantile(
-  s: UncertainScenario,
-  params: readonly UncertainParam[],
-  q: number,
-): Scenario {
-  return scenarioWith(
-    s,
-    params,
-    params.map((p) => quantile(p.dist, q)),
-  );
+  return pointScenarios(s, params)(values);
 }
 
 /** The parameter values of draw d. */
@@ -63,12 +75,21 @@ export interface SolvedDraw {
   equilibrium: Equilibrium;
 }
 
+/** Solves draws one at a time: `drawSolver(s, params, seed)(d)`. */
+export function drawSolver(s: UncertainScenario, params: readonly UncertainParam[], seed: number) {
+  const point = pointScenarios(s, params);
+  const values = new Float64Array(params.length);
+  return (d: number): SolvedDraw => {
+    const contest = normalize(point(drawValues(params, seed, d, values)));
+    return { contest, equilibrium: solve(contest).equilibrium };
+  };
+}
+
 export function solveDraw(
   s: UncertainScenario,
   params: readonly UncertainParam[],
   seed: number,
   d: number,
 ): SolvedDraw {
-  const contest = normalize(scenarioWith(s, params, drawValues(params, seed, d)));
-  return { contest, equilibrium: solve(contest).equilibrium };
+  return drawSolver(s, params, seed)(d);
 }

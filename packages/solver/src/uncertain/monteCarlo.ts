@@ -8,7 +8,7 @@
  */
 import { normalize } from "../normalize";
 import { solve } from "../solve";
-import { scenarioAtQuantile, solveDraw } from "./draws";
+import { drawSolver, medianScenario } from "./draws";
 import { evaluateSpend, planDraw, robustSpend, type PlanDraw } from "./robustPlan";
 import { band } from "./stats";
 import { tornado } from "./tornado";
@@ -41,8 +41,9 @@ export function runUncertain(s: UncertainScenario, opts: UncertainOptions): Unce
   const plan = opts.planRival ?? null;
   const planDraws: PlanDraw[] = [];
   let pure = 0;
+  const solveDraw = drawSolver(s, params, opts.seed);
   for (let d = 0; d < N; d++) {
-    const { contest, equilibrium: eq } = solveDraw(s, params, opts.seed, d);
+    const { contest, equilibrium: eq } = solveDraw(d);
     if (eq.kind === "pure" && eq.efforts && eq.shares && eq.payoffs) {
       const row = pure * n;
       for (let i = 0; i < n; i++) {
@@ -75,7 +76,7 @@ export function runUncertain(s: UncertainScenario, opts: UncertainOptions): Unce
 }
 
 function robustPlan(s: UncertainScenario, i: number, draws: PlanDraw[]): RobustPlan {
-  const median = normalize(scenarioAtQuantile(s, uncertainParams(s), 0.5));
+  const median = normalize(medianScenario(s));
   const eq = solve(median).equilibrium;
   const medianSpend =
     eq.kind === "pure" && eq.efforts ? median.rivals[i]!.cost * eq.efforts[i]! : null;

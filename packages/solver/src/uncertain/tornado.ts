@@ -8,31 +8,25 @@
 import { normalize } from "../normalize";
 import { solve } from "../solve";
 import { quantile } from "./dist";
-import { scenarioWith } from "./draws";
+import { pointScenarios } from "./draws";
 import type { TornadoRow, UncertainParam, UncertainScenario } from "./types";
 
-function payoffsAt(
-  s: UncertainScenario,
-  params: readonly UncertainParam[],
-  values: Float64Array,
-): number[] | null {
-  const eq = solve(normalize(scenarioWith(s, params, values))).equilibrium;
-  return eq.kind === "pure" ? eq.payoffs : null;
-}
-
 export function tornado(s: UncertainScenario, params: readonly UncertainParam[]): TornadoRow[] {
+  const point = pointScenarios(s, params);
+  const payoffsAt = (values: Float64Array): number[] | null => {
+    const eq = solve(normalize(point(values))).equilibrium;
+    return eq.kind === "pure" ? eq.payoffs : null;
+  };
   const medians = Float64Array.from(params, (p) => quantile(p.dist, 0.5));
   const rows = params.map((p, k): TornadoRow => {
     const low = quantile(p.dist, 0.1);
     const high = quantile(p.dist, 0.9);
     const v = medians.slice();
     v[k] = low;
-    const atLow = payoffsAt(s, params, v);
+    const atLow = payoffsAt(v);
     v[k] = high;
-    const atHigh = payoffsAt(s, params, v);
-    const payoffSwing = s.rivals.map((_, i) =>
-      atLow && atHigh ? atHigh[i]! - atLow[i]! : null,
-    );
+    const atHigh = payoffsAt(v);
+    const payoffSwing = s.rivals.map((_, i) => (atLow && atHigh ? atHigh[i]! - atLow[i]! : null));
     return { parameter: p.path, low, high, payoffSwing };
   });
   const size = (r: TornadoRow) => Math.max(0, ...r.payoffSwing.map((x) => Math.abs(x ?? 0)));

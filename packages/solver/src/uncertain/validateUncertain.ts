@@ -6,7 +6,13 @@
  * with each range replaced by its low end, so point and range scenarios share one set of rules.
  */
 import type { InputError, Parsed, Scenario } from "../types";
-import { checkNumber, NON_NEGATIVE, POSITIVE, validateScenario, type NumberRule } from "../validate";
+import {
+  checkNumber,
+  NON_NEGATIVE,
+  POSITIVE,
+  validateScenario,
+  type NumberRule,
+} from "../validate";
 import { isDist } from "./dist";
 import {
   UNCERTAIN_RIVAL_FIELDS,
