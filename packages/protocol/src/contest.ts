@@ -4,8 +4,8 @@
  * path inside any larger message.
  */
 import { z } from "zod";
-import { validateScenario } from "@contend/solver";
-import type { CsfSpec, RivalSpec, Scenario } from "@contend/solver";
+import { validateScenario, validateUncertainScenario } from "@contend/solver";
+import type { CsfSpec, RivalSpec, Scenario, UncertainScenario } from "@contend/solver";
 
 function toPath(dotted: string): (string | number)[] {
   if (dotted === "") return [];
@@ -15,6 +15,17 @@ function toPath(dotted: string): (string | number)[] {
 /** Any value -> a validated contest scenario (title, prize, csf, rivals, leader, currency). */
 export const contestScenarioSchema = z.unknown().transform((raw, ctx): Scenario => {
   const r = validateScenario(raw);
+  if (r.ok) return r.value;
+  ctx.addIssue({ code: "custom", message: r.message, path: toPath(r.path) });
+  return z.NEVER;
+});
+
+/**
+ * Any value -> a contest scenario whose prize, costs, values, weights and budgets may be ranges
+ * (uniform or triangular), for uncertainty runs; same rules as contestScenarioSchema otherwise.
+ */
+export const uncertainScenarioSchema = z.unknown().transform((raw, ctx): UncertainScenario => {
+  const r = validateUncertainScenario(raw);
   if (r.ok) return r.value;
   ctx.addIssue({ code: "custom", message: r.message, path: toPath(r.path) });
   return z.NEVER;

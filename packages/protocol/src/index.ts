@@ -12,7 +12,12 @@ export {
   roundNumberSchema,
   seatIndexSchema,
 } from "./numbers";
-export { contestScenarioSchema, csfSpecSchema, rivalSpecSchema } from "./contest";
+export {
+  contestScenarioSchema,
+  csfSpecSchema,
+  rivalSpecSchema,
+  uncertainScenarioSchema,
+} from "./contest";
 export { policySpecSchema } from "./policy";
 export { sessionSettingsSchema } from "./settings";
 export type { SessionSettings, SessionSettingsInput } from "./settings";
