@@ -96,6 +96,9 @@ describe("contend uncertain", () => {
       expect(out.plan).toHaveProperty(key);
     }
     expect(out.plan.rival).toBe("A");
+    // C's spend is money, capped by its budget (uniform on [5, 30]) in every draw
+    expect(out.spends.p90[2]).toBeLessThanOrEqual(30);
+    expect(out.spends.p10[2]).toBeLessThan(out.spends.p90[2]);
   });
 
   it("main(uncertain) with the same seed is byte-identical; another seed differs", async () => {

@@ -102,7 +102,7 @@ describe("robust plan with budgets, own uncertainty and r < 1", () => {
           (acc, rv, j) => acc + rv.weight * equilibrium.efforts![j + 1]! ** rv.r,
           0,
         );
-        const spend = Math.min(x, me!.budget * me!.cost);
+        const spend = Math.min(x, me!.maxSpend);
         const y = me!.weight * (spend / me!.cost) ** me!.r;
         t += (me!.value * y) / (y + z) - spend;
       }

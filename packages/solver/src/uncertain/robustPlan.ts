@@ -8,14 +8,9 @@
  */
 import { bestResponseAgainst, oppositions, payoffAgainst, type Opposition } from "../bestResponse";
 import { gridMaximize } from "../gridMaximize";
-import type { Contest, Rival } from "../types";
+import type { Contest } from "../types";
 import { meanOf, percentile7, sortedCopy } from "./stats";
 import type { RobustPlanSummary } from "./types";
-
-/** The most rival `rv` may spend in money (its budget), Infinity when uncapped. */
-export function moneyCap(rv: Rival): number {
-  return rv.budget * rv.cost;
-}
 
 /** One draw as the planning rival sees it. */
 export interface PlanDraw {
@@ -37,7 +32,7 @@ export function planDraw(contest: Contest, i: number, efforts: readonly number[]
 /** The planning rival's payoff (money) in one draw when it spends `spend`. */
 export function payoffOfSpend(draw: PlanDraw, i: number, spend: number): number {
   const rv = draw.contest.rivals[i]!;
-  const s = Math.min(spend, moneyCap(rv));
+  const s = Math.min(spend, rv.maxSpend);
   return payoffAgainst(draw.contest, i, s / rv.cost, draw.opposition);
 }
 
@@ -52,7 +47,7 @@ export function spendCeiling(draws: readonly PlanDraw[], i: number): number {
   let hi = 0;
   for (const d of draws) {
     const rv = d.contest.rivals[i]!;
-    hi = Math.max(hi, Math.min(rv.value, moneyCap(rv)));
+    hi = Math.max(hi, Math.min(rv.value, rv.maxSpend));
   }
   return hi;
 }
