@@ -1,6 +1,9 @@
 import { describe, expect, it } from "vitest";
 import {
+  averagePayoff,
   drawValues,
+  planDraw,
+  ratioAverage,
   runUncertain,
   solveDraw,
   uncertainParams,
@@ -120,6 +123,17 @@ describe("robust plan with budgets, own uncertainty and r < 1", () => {
     expect(plan.expectedPayoff).toBeCloseTo(avg(plan.spend), 9);
     expect(plan.expectedPayoff).toBeGreaterThanOrEqual(bestF - 1e-9 * 100);
     expect(Math.abs(plan.spend - bestX)).toBeLessThan(0.05);
+  });
+
+  it("ratioAverage (the fast loop) equals averagePayoff (payoffAgainst per draw)", () => {
+    const draws = Array.from({ length: 50 }, (_, d) => {
+      const { contest, equilibrium } = solveDraw(s, params, 77, d);
+      return planDraw(contest, 0, equilibrium.efforts!);
+    });
+    const fast = ratioAverage(draws, 0);
+    for (const x of [0, 0.5, 3, 12.25, 27, 39.9, 80]) {
+      expect(fast(x)).toBeCloseTo(averagePayoff(draws, 0, x), 10);
+    }
   });
 
   it("runUncertain(--plan) regret is >= 0 in every draw", () => {

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import {
   drawValues,
   percentile7,
+  percentilesInPlace,
   quantile,
   runUncertain,
   solveDraw,
@@ -154,6 +155,17 @@ describe("runUncertain bookkeeping", () => {
     expect(percentile7(xs, 0.1)).toBeCloseTo(1.3, 12);
     expect(percentile7(xs, 0.5)).toBeCloseTo(3, 12);
     expect(percentile7(xs, 0.9)).toBeCloseTo(6.8, 12);
+  });
+
+  it("percentilesInPlace(random arrays with ties) equals type 7 on the sorted copy", () => {
+    let seed = 1;
+    const rnd = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
+    for (const n of [1, 2, 3, 10, 101, 1000]) {
+      const xs = Array.from({ length: n }, () => Math.round(rnd() * 20) / 4);
+      const sorted = xs.slice().sort((a, b) => a - b);
+      const got = percentilesInPlace(Float64Array.from(xs), [0, 0.1, 0.5, 0.9, 1]);
+      [0, 0.1, 0.5, 0.9, 1].forEach((p, k) => expect(got[k]).toBe(percentile7(sorted, p)));
+    }
   });
 
   it("drawValues(seed, d) is the same draw whatever the run length, and draws follow the range", () => {

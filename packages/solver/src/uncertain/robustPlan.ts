@@ -42,6 +42,43 @@ export function averagePayoff(draws: readonly PlanDraw[], i: number, spend: numb
   return sum / draws.length;
 }
 
+/**
+ * The ratio form's average payoff over typed columns: the search evaluates the average a few
+ * hundred times, so this loop is the plan's cost. Same payoff as `payoffAgainst` (Tullock 1980
+ * share w e^r / (w e^r + Z), equal split when nobody spends); a test checks the two agree.
+ */
+export function ratioAverage(draws: readonly PlanDraw[], i: number): (spend: number) => number {
+  const m = draws.length;
+  const v = new Float64Array(m);
+  const c = new Float64Array(m);
+  const w = new Float64Array(m);
+  const r = new Float64Array(m);
+  const cap = new Float64Array(m);
+  const z = new Float64Array(m);
+  draws.forEach((d, k) => {
+    const rv = d.contest.rivals[i]!;
+    v[k] = rv.value;
+    c[k] = rv.cost;
+    w[k] = rv.weight;
+    r[k] = rv.r;
+    cap[k] = rv.maxSpend;
+    z[k] = d.opposition.z;
+  });
+  const n = draws[0]?.contest.rivals.length ?? 1;
+  return (spend: number) => {
+    let sum = 0;
+    for (let k = 0; k < m; k++) {
+      const s = spend < cap[k]! ? spend : cap[k]!;
+      const e = s / c[k]!;
+      const rk = r[k]!;
+      const y = e > 0 ? w[k]! * (rk === 1 ? e : Math.pow(e, rk)) : 0;
+      const zk = z[k]!;
+      sum += v[k]! * (y + zk === 0 ? 1 / n : y / (y + zk)) - s;
+    }
+    return sum / m;
+  };
+}
+
 /** Highest spend worth searching: above its value (or budget) in every draw, spending loses. */
 export function spendCeiling(draws: readonly PlanDraw[], i: number): number {
   let hi = 0;
@@ -85,5 +122,9 @@ export function robustSpend(
 ): number {
   if (draws.length === 0) return 0;
   const hi = spendCeiling(draws, i);
-  return gridMaximize((s) => averagePayoff(draws, i, s), hi, PLAN_GRID_POINTS, extra).x;
+  const f =
+    draws[0]!.contest.csf.kind === "ratio"
+      ? ratioAverage(draws, i)
+      : (s: number) => averagePayoff(draws, i, s);
+  return gridMaximize(f, hi, PLAN_GRID_POINTS, extra).x;
 }

@@ -16,6 +16,56 @@ export function percentile7(sorted: ArrayLike<number>, p: number): number {
   return a + (h - lo) * (sorted[hi]! - a);
 }
 
+/**
+ * Rearranges a[lo..hi] so that a[k] holds the value it would have if sorted, smaller-or-equal
+ * values before it and larger-or-equal after (Hoare 1961, "Algorithm 65: Find", CACM 4).
+ */
+function select(a: Float64Array, k: number, lo: number, hi: number): void {
+  while (hi > lo) {
+    const mid = (lo + hi) >>> 1;
+    // median of three as the pivot
+    const x = a[lo]!;
+    const y = a[mid]!;
+    const z = a[hi]!;
+    const pivot = x < y ? (y < z ? y : x < z ? z : x) : x < z ? x : y < z ? z : y;
+    let i = lo;
+    let j = hi;
+    while (i <= j) {
+      while (a[i]! < pivot) i++;
+      while (a[j]! > pivot) j--;
+      if (i <= j) {
+        const t = a[i]!;
+        a[i] = a[j]!;
+        a[j] = t;
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else return;
+  }
+}
+
+/**
+ * Type-7 percentiles of an unsorted array by selection (O(n) each instead of a sort); the
+ * array is reordered in place.
+ */
+export function percentilesInPlace(a: Float64Array, ps: readonly number[]): number[] {
+  const n = a.length;
+  return ps.map((p) => {
+    if (n === 0) return Number.NaN;
+    const h = (n - 1) * p;
+    const lo = Math.floor(h);
+    select(a, lo, 0, n - 1);
+    const x = a[lo]!;
+    if (h === lo || lo + 1 >= n) return x;
+    let next = Infinity;
+    for (let k = lo + 1; k < n; k++) if (a[k]! < next) next = a[k]!;
+    return x + (h - lo) * (next - x);
+  });
+}
+
 export function sortedCopy(xs: ArrayLike<number>): Float64Array {
   return Float64Array.from(xs).sort();
 }
@@ -43,10 +93,10 @@ export function band(values: Float64Array, rows: number, n: number): Band {
       continue;
     }
     out.mean.push(meanOf(col));
-    col.sort();
-    out.p10.push(percentile7(col, 0.1));
-    out.p50.push(percentile7(col, 0.5));
-    out.p90.push(percentile7(col, 0.9));
+    const [p10, p50, p90] = percentilesInPlace(col, [0.1, 0.5, 0.9]);
+    out.p10.push(p10!);
+    out.p50.push(p50!);
+    out.p90.push(p90!);
   }
   return out;
 }
