@@ -26,3 +26,4 @@ export * from "./logitSearch";
 export * from "./bestResponseIteration";
 export * from "./allPayLeader";
 export * from "./uncertain";
+export * from "./calibrate";

@@ -10,6 +10,8 @@
  * - dissipation = (sum_i m_i e_i) / prize, using expected efforts for mixed equilibria.
  */
 
+import type { Provenance } from "./calibrate/provenance";
+
 /** Contest success function as written in a scenario file. */
 export type CsfSpec =
   | { kind: "ratio"; decisiveness: number } // Tullock 1980; decisiveness r > 0
@@ -46,6 +48,8 @@ export interface Scenario {
   leader?: string | null;
   /** display only: currency symbol or code, e.g. "$" or "EUR" */
   currency?: string | null;
+  /** where the numbers came from (a calibration from data); carried along, never computed on */
+  provenance?: Provenance | null;
 }
 
 /**

@@ -3,6 +3,7 @@
  * value with the dotted path of the offending field ("rivals.2.cost"); never throws for bad
  * input. The protocol package wraps this function, so it stays pure.
  */
+import { validateProvenance } from "./calibrate/provenance";
 import type { CsfSpec, InputError, Parsed, RivalSpec, Scenario } from "./types";
 
 export const LIMITS = {
@@ -13,7 +14,15 @@ export const LIMITS = {
   decisivenessMax: 20,
 } as const;
 
-const SCENARIO_FIELDS = ["title", "prize", "csf", "rivals", "leader", "currency"] as const;
+const SCENARIO_FIELDS = [
+  "title",
+  "prize",
+  "csf",
+  "rivals",
+  "leader",
+  "currency",
+  "provenance",
+] as const;
 const RIVAL_FIELDS = ["name", "cost", "value", "weight", "budget", "decisiveness"] as const;
 const CSF_FIELDS: Record<CsfSpec["kind"], readonly string[]> = {
   ratio: ["kind", "decisiveness"],
@@ -208,6 +217,14 @@ export function validateScenario(input: unknown): Parsed<Scenario> {
     scenario.currency = currency;
   } else if (currency === null) {
     scenario.currency = null;
+  }
+
+  if (input.provenance !== undefined && input.provenance !== null) {
+    const provenance = validateProvenance(input.provenance);
+    if (!provenance.ok) return provenance;
+    scenario.provenance = provenance.value;
+  } else if (input.provenance === null) {
+    scenario.provenance = null;
   }
 
   return { ok: true, value: scenario };

@@ -1,0 +1,7 @@
+export * from "./types";
+export * from "./panelCsv";
+export * from "./panel";
+export * from "./calibrate";
+export * from "./calibratedScenario";
+export * from "./studentT";
+export { sortedQuantile } from "./revealedValues";
