@@ -16,6 +16,7 @@ import {
   type Scenario,
   type UncertainScenario,
 } from "../src/index";
+import { calibrationBench } from "./calibrate";
 
 interface Row {
   case: string;
@@ -207,6 +208,8 @@ function main() {
     medianMs: t6.median,
     p95Ms: t6.p95,
   });
+
+  rows.push(...calibrationBench(time));
 
   if (json) {
     process.stdout.write(`${JSON.stringify(rows, null, 2)}\n`);

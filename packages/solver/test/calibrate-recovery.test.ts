@@ -68,7 +68,7 @@ function equilibriumPanel(k: Known): { rows: PanelRow[]; values: number[][] } {
         period: `Q${t + 1}`,
         rival: `Rival ${i + 1}`,
         spend: e,
-        share: eq.shares[i]!,
+        share: eq.shares![i]!,
         row: row++,
       });
       values[i]!.push(k.value(i, t));

@@ -352,6 +352,13 @@ describe("contend bundle", () => {
     expect(JSON.parse(r.stdout).equilibrium.kind).toBe("pure");
   });
 
+  it("node dist/contend.mjs fit regional-bakeries.csv --json exits 0 (papaparse is bundled)", () => {
+    const csvPath = `${pkg}scenarios/regional-bakeries.csv`;
+    const r = spawnSync("node", [bundle, "fit", csvPath, "--json"], { encoding: "utf8" });
+    expect(r.status).toBe(0);
+    expect(JSON.parse(r.stdout).form).toBe("ratio");
+  });
+
   it("node dist/contend.mjs solve missing.json exits 2 with one stderr line", () => {
     const r = spawnSync("node", [bundle, "solve", `${pkg}missing.json`], { encoding: "utf8" });
     expect(r.status).toBe(2);

@@ -13,6 +13,7 @@ import { runStatics } from "./staticsCommand";
 import { runSweep } from "./sweepCommand";
 import { validateUncertainScenario } from "../uncertain";
 import { runUncertainCommand } from "./uncertainCommand";
+import { runFit } from "./fitCommand";
 
 export interface CliIo {
   stdout: { write(text: string): unknown };
@@ -43,6 +44,10 @@ Usage:
       that holds up best for that rival. Ranges go where a number would:
       {"dist":"uniform","low":A,"high":B} or {"dist":"triangular","low":A,"mode":M,"high":B}
       for prize and any rival's cost, value, weight, budget. Defaults: 10000 draws, seed 1.
+  contend fit DATA.csv [--seed N] [--resamples N] [--json]
+      Calibrate a ratio contest from past spends and shares (CSV columns period, rival,
+      spend, share; share as a fraction or with %): decisiveness and head starts with 95%
+      intervals, revealed values with bootstrap 90% intervals, fit quality, and a scenario.
   contend --help
 
 FILE is a scenario in JSON: {"title", "prize", "csf": {"kind": "ratio"|"logit"|"allpay", ...},
@@ -53,7 +58,7 @@ Exit status: 0 success, 2 bad input (one line on stderr names the field), 1 inte
 A stylised model to aid thinking: not a forecast, not financial or legal advice.
 `;
 
-type Command = "solve" | "respond" | "sweep" | "statics" | "uncertain";
+type Command = "solve" | "respond" | "sweep" | "statics" | "uncertain" | "fit";
 
 const OPTIONS: Record<Command, { valued: string[]; booleans: string[] }> = {
   solve: { valued: [], booleans: ["json", "help"] },
@@ -61,6 +66,7 @@ const OPTIONS: Record<Command, { valued: string[]; booleans: string[] }> = {
   sweep: { valued: ["param", "from", "to", "steps"], booleans: ["json", "help"] },
   statics: { valued: [], booleans: ["json", "help"] },
   uncertain: { valued: ["draws", "seed", "plan"], booleans: ["json", "help"] },
+  fit: { valued: ["seed", "resamples"], booleans: ["json", "help"] },
 };
 
 function isCommand(x: string): x is Command {
@@ -72,14 +78,9 @@ function errorLine(e: InputError, file?: string): string {
   return `contend: ${where ? `${where}: ` : ""}${e.message}`.replace(/\s*\n\s*/g, " ");
 }
 
-async function loadScenario<T = Scenario>(
-  file: string,
-  io: CliIo,
-  validate: (json: unknown) => Parsed<T> = validateScenario as (json: unknown) => Parsed<T>,
-): Promise<Parsed<T>> {
-  let text: string;
+async function readText(file: string, io: CliIo, what: string): Promise<Parsed<string>> {
   try {
-    text = await io.readFile(file);
+    return { ok: true, value: await io.readFile(file) };
   } catch (err) {
     const code = (err as { code?: string }).code;
     const why =
@@ -88,8 +89,18 @@ async function loadScenario<T = Scenario>(
         : code === "EISDIR"
           ? "is a directory"
           : (code ?? "unreadable");
-    return { ok: false, path: "", message: `cannot read scenario file (${why})` };
+    return { ok: false, path: "", message: `cannot read ${what} (${why})` };
   }
+}
+
+async function loadScenario<T = Scenario>(
+  file: string,
+  io: CliIo,
+  validate: (json: unknown) => Parsed<T> = validateScenario as (json: unknown) => Parsed<T>,
+): Promise<Parsed<T>> {
+  const read = await readText(file, io, "scenario file");
+  if (!read.ok) return read;
+  const text = read.value;
   let json: unknown;
   try {
     json = JSON.parse(text);
@@ -111,13 +122,25 @@ async function run(
   });
   const [file, ...extra] = args.positionals;
   if (file === undefined)
-    return bad({ ok: false, path: "FILE", message: `${command} needs a scenario file` });
+    return bad({
+      ok: false,
+      path: "FILE",
+      message: `${command} needs a ${command === "fit" ? "data" : "scenario"} file`,
+    });
   if (extra.length > 0) {
     return bad({
       ok: false,
       path: extra[0]!,
       message: `unexpected argument (${command} takes one FILE)`,
     });
+  }
+  if (command === "fit") {
+    const text = await readText(file, io, "data file");
+    if (!text.ok) return bad(text, file);
+    const source = file.split(/[\\/]/).pop() ?? file;
+    const res = runFit(text.value, source, args, args.booleans.has("json"));
+    if (res.ok) return { code: EXIT.ok, out: res.value, err: "" };
+    return bad(res, res.path.startsWith("--") ? undefined : file);
   }
   if (command === "uncertain") {
     const u = await loadScenario(file, io, validateUncertainScenario);
@@ -170,7 +193,7 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
   const [first, ...rest] = argv;
   if (first === undefined) {
     io.stderr.write(
-      "contend: missing command (solve, respond, sweep, statics, uncertain); see contend --help\n",
+      "contend: missing command (solve, respond, sweep, statics, uncertain, fit); see contend --help\n",
     );
     return EXIT.badInput;
   }
@@ -180,7 +203,7 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
   }
   if (!isCommand(first)) {
     io.stderr.write(
-      `contend: unknown command "${first}" (use solve, respond, sweep, statics or uncertain; see contend --help)\n`,
+      `contend: unknown command "${first}" (use solve, respond, sweep, statics, uncertain or fit; see contend --help)\n`,
     );
     return EXIT.badInput;
   }
