@@ -120,7 +120,7 @@ export function ratioActiveSetSearch(
   const sets = exhaustive ? subsetsBySize(n) : strengthPrefixes(contest);
   for (const members of sets) {
     const sol = shareFunctionEquilibrium(contest, { members });
-    if (!sol) continue;
+    if (!sol.ok) continue;
     const e = sol.efforts;
     if (found.some((f) => sameProfile(contest, f.efforts, e))) continue;
     // rivals left out are the likeliest to want in: check them first
@@ -140,7 +140,7 @@ export function ratioActiveSetSearch(
       (e, i) => e > 1e-9 * (contest.rivals[i]!.value / contest.rivals[i]!.cost),
     );
     const sol = members ? shareFunctionEquilibrium(contest, { members }) : null;
-    if (sol && !found.some((f) => sameProfile(contest, f.efforts, sol.efforts))) {
+    if (sol?.ok && !found.some((f) => sameProfile(contest, f.efforts, sol.efforts))) {
       const gap = verifyProfile(contest, sol.efforts, tol, brOpts, memo);
       if (gap <= tol) found.push({ efforts: sol.efforts, gap });
     }

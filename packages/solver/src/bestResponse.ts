@@ -1,15 +1,8 @@
 /**
  * Best responses, regrets and the Nash gap. Every best response is a GLOBAL maximum over
  * [0, budget]; spending nothing is always a candidate.
- * - Ratio form, r_i = 1, with Z = sum_{j != i} w_j e_j^r_j > 0: the closed form
- *   w_i e_i = max(0, sqrt(w_i v_i Z / m_i) - Z), capped by the budget (Tullock 1980; the
- *   payoff is concave, so the cap is the constrained optimum).
- * - Ratio form, r_i != 1 (derived here): with s = w e^r / (w e^r + Z) and t = logit(s),
- *   sign u'(e) = sign psi(t),  psi(t) = ln(v r s (1 - s)) - ln(m e),  e = (e^t Z / w)^(1/r),
- *   and psi''(t) = -2 sigma(t) sigma(-t) < 0: psi is concave in t. For r < 1 it is also
- *   decreasing (one crossing, the maximum). For r > 1 it rises until sigma(t) = (1 - 1/r)/2
- *   and falls after, so u falls, may rise, then falls: the only interior local maximum is the
- *   larger root of psi. Candidates 0, that root and the cap give the global maximum exactly.
+ * - Ratio form (Tullock 1980): the closed form for r_i = 1, the larger root of a concave
+ *   function for r_i != 1 (ratioBestResponse.ts).
  * - Logit form (Hirshleifer 1989): u_i'' has the sign of 1 - 2 p_i, so the payoff has at most
  *   one interior local maximum, where v k p (1 - p) = m with p > 1/2; candidates are 0, the cap
  *   and that point.
@@ -21,7 +14,10 @@
  */
 import { logWeight } from "./csf";
 import { gridMaximize } from "./gridMaximize";
+import { ratioCandidate, ratioPayoff, ratioTerm } from "./ratioBestResponse";
 import type { BestResponse, Contest, Responses } from "./types";
+
+export { ratioInteriorMaximum } from "./ratioBestResponse";
 
 export interface BestResponseOptions {
   /** smallest effort step (supremum cases); default 1e-6 * v_i / m_i */
@@ -97,8 +93,7 @@ export function payoffAgainst(contest: Contest, i: number, e: number, o: Opposit
   const csf = contest.csf;
   let p: number;
   if (csf.kind === "ratio") {
-    const y = e > 0 ? rv.weight * Math.pow(e, rv.r) : 0;
-    p = y + o.z === 0 ? 1 / n : y / (y + o.z);
+    return ratioPayoff(rv, n, e, ratioTerm(rv, e), o.z);
   } else if (csf.kind === "logit") {
     const a = Math.log(rv.weight) + csf.scale * e;
     p = o.lnZ === -Infinity ? 1 : 1 / (1 + Math.exp(o.lnZ - a));
@@ -119,7 +114,7 @@ export function bestResponseAgainst(
   current?: number,
 ): BestResponse {
   const rv = contest.rivals[i]!;
-  const { value: v, cost: m, weight: w, maxEffort: B, r } = rv;
+  const { value: v, cost: m, weight: w, maxEffort: B } = rv;
   const hi = Math.min(B, v / m);
   const step = Math.min(opts.step ?? (1e-6 * v) / m, B);
   let bestE = 0;
@@ -139,13 +134,7 @@ export function bestResponseAgainst(
       if (!(B > 0)) return { effort: 0, payoff: bestU };
       return { effort: step, payoff: v, supremumOnly: true };
     }
-    if (r === 1) {
-      const y = Math.sqrt((w * v * o.z) / m) - o.z;
-      if (y > 0) consider(Math.min(y / w, B));
-    } else if (hi > 0) {
-      const e = ratioInteriorMaximum(v, m, w, r, o.z);
-      if (e > 0) consider(Math.min(e, B));
-    }
+    consider(ratioCandidate(rv, contest.rivals.length, o.z));
   } else if (csf.kind === "logit") {
     const k = csf.scale;
     if (hi > 0) consider(hi);
@@ -182,51 +171,6 @@ export function bestResponseAgainst(
   return supremum
     ? { effort: bestE, payoff: bestU, supremumOnly: true }
     : { effort: bestE, payoff: bestU };
-}
-
-/**
- * Interior local maximum of u(e) = v w e^r / (w e^r + Z) - m e for r != 1, Z > 0 (0 if none):
- * Newton on the concave psi(t) described in the file header, from the right of the root.
- */
-export function ratioInteriorMaximum(
-  v: number,
-  m: number,
-  w: number,
-  r: number,
-  z: number,
-): number {
-  const lnZw = Math.log(z) - Math.log(w);
-  const K = Math.log(m / (v * r)) + lnZw / r;
-  const psi = (t: number) => {
-    const E = Math.exp(-Math.abs(t));
-    const l1p = Math.log1p(E);
-    return -((t < 0 ? -t : 0) + l1p) - ((t > 0 ? t : 0) + l1p) - t / r - K;
-  };
-  let t: number;
-  if (r < 1) t = 0;
-  else {
-    // psi peaks where sigma(t) = (1 - 1/r) / 2
-    const q = 0.5 * (1 - 1 / r);
-    const tPeak = Math.log(q / (1 - q));
-    if (psi(tPeak) <= 0) return 0;
-    let d = 1;
-    t = tPeak + d;
-    while (psi(t) > 0 && d < 1e6) {
-      d *= 2;
-      t = tPeak + d;
-    }
-  }
-  for (let it = 0; it < 200; it++) {
-    const E = Math.exp(-Math.abs(t));
-    const l1p = Math.log1p(E);
-    const sig = t >= 0 ? 1 / (1 + E) : E / (1 + E);
-    const f = -((t < 0 ? -t : 0) + l1p) - ((t > 0 ? t : 0) + l1p) - t / r - K;
-    const d = 1 - 2 * sig - 1 / r;
-    const stepT = f / d;
-    t -= stepT;
-    if (Math.abs(stepT) <= 1e-14 * Math.max(1, Math.abs(t))) break;
-  }
-  return Math.exp((t + lnZw) / r);
 }
 
 /** Best response of rival i to the others' efforts in `efforts` (its own entry is ignored). */
@@ -270,8 +214,8 @@ export function respond(
 }
 
 /**
- * The ratio-form case of respond without per-rival allocations (the same formulas as
- * payoffAgainst and bestResponseAgainst, inlined): large contests check in O(n).
+ * The ratio-form case of respond without per-rival allocations (the same payoff and best
+ * response as payoffAgainst and bestResponseAgainst): large contests check in O(n).
  */
 function respondRatio(
   contest: Contest,
@@ -281,11 +225,7 @@ function respondRatio(
   const rivals = contest.rivals;
   const n = rivals.length;
   const y = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const rv = rivals[i]!;
-    const e = efforts[i] ?? 0;
-    y[i] = e > 0 ? (rv.r === 1 ? rv.weight * e : rv.weight * Math.pow(e, rv.r)) : 0;
-  }
+  for (let i = 0; i < n; i++) y[i] = ratioTerm(rivals[i]!, efforts[i] ?? 0);
   const pre = new Float64Array(n + 1);
   const suf = new Float64Array(n + 1);
   for (let i = 0; i < n; i++) pre[i + 1] = pre[i]! + y[i]!;
@@ -296,30 +236,22 @@ function respondRatio(
   let gap = 0;
   for (let i = 0; i < n; i++) {
     const rv = rivals[i]!;
-    const { value: v, cost: m, weight: w, maxEffort: B, r } = rv;
     const z = pre[i]! + suf[i + 1]!;
     const cur = efforts[i] ?? 0;
-    const yi = y[i]!;
-    const now = (yi + z === 0 ? v / n : (v * yi) / (yi + z)) - m * cur;
+    const now = ratioPayoff(rv, n, cur, y[i]!, z);
+    const { value: v, cost: m, maxEffort: B } = rv;
     let bestE = 0;
     let bestU: number;
     if (z === 0) {
       if (B > 0) {
         bestE = Math.min(opts.step ?? (1e-6 * v) / m, B);
         bestU = v; // supremum, not attained
-      } else bestU = v / n;
+      } else bestU = ratioPayoff(rv, n, 0, 0, z);
     } else {
-      bestU = 0;
-      let e = 0;
-      if (r === 1) {
-        const yb = Math.sqrt((w * v * z) / m) - z;
-        e = yb > 0 ? Math.min(yb / w, B) : 0;
-      } else if (Math.min(B, v / m) > 0) {
-        e = Math.min(ratioInteriorMaximum(v, m, w, r, z), B);
-      }
+      bestU = ratioPayoff(rv, n, 0, 0, z);
+      const e = ratioCandidate(rv, n, z);
       if (e > 0) {
-        const ye = r === 1 ? w * e : w * Math.pow(e, r);
-        const u = (v * ye) / (ye + z) - m * e;
+        const u = ratioPayoff(rv, n, e, ratioTerm(rv, e), z);
         if (u > bestU) {
           bestU = u;
           bestE = e;

@@ -3,7 +3,6 @@ export * from "./types";
 export * from "./normalize";
 export * from "./csf";
 export * from "./brentMaximize";
-export * from "./brentRoot";
 export * from "./gridMaximize";
 export * from "./bestResponse";
 export * from "./symmetricRatio";

@@ -44,7 +44,10 @@ export function leaderFollowerTwoRival(contest: Contest): number[] | null {
   return efforts;
 }
 
-/** Followers' simultaneous equilibrium given the leader's effort (null: no equilibrium). */
+/**
+ * Followers' simultaneous equilibrium given the leader's effort (null: no equilibrium, or the
+ * share-function iteration did not converge).
+ */
 export function followerEfforts(contest: Contest, leaderEffort: number): number[] | null {
   const L = contest.leader;
   if (L === null) return null;
@@ -52,7 +55,7 @@ export function followerEfforts(contest: Contest, leaderEffort: number): number[
   const fixed = leaderEffort > 0 ? l.weight * Math.pow(leaderEffort, l.r) : 0;
   const members = contest.rivals.map((_, i) => i !== L);
   const sol = shareFunctionEquilibrium(contest, { members, fixed });
-  if (!sol) return null;
+  if (!sol.ok) return null;
   sol.efforts[L] = leaderEffort;
   return sol.efforts;
 }

@@ -20,82 +20,65 @@
  * the equilibrium is unique (Szidarovszky & Okuguchi 1997, Games and Economic Behavior 18;
  * volume from memory). Each evaluation is O(n) with a few Newton steps per rival.
  */
+import { logisticParts, sigmoid } from "./logistic";
+import { newtonRoot, type Iterated } from "./newton";
 import type { Contest } from "./types";
 
+/** Newton on phi (one rival's share) stops when a step is below this fraction of |t|. */
+const SHARE_REL_TOL = 1e-13;
+/** Newton on phi converges in a few steps from a warm start; this many means something is wrong. */
+const SHARE_MAX_ITER = 100;
+/** r_i = 1 shares below this are rounding residue of a rival exactly at the drop-out point. */
+const DROP_OUT_RESIDUE = 1e-12;
+/** Steps the bracket search for the aggregate may take in ln Y. */
+const BRACKET_MAX_TRIES = 400;
+/** The safeguarded Newton on ln Y stops on a step below this fraction of |ln Y|... */
+const AGGREGATE_STEP_TOL = 1e-15;
+/** ...or on a bracket narrower than this fraction of |ln Y|. */
+const AGGREGATE_BRACKET_TOL = 1e-13;
+/** Iterations of the safeguarded Newton on ln Y (each at least halves the bracket). */
+const AGGREGATE_MAX_ITER = 200;
+/** A bracket this narrow (relative) with ... */
+const JUMP_BRACKET = 1e-12;
+/** ... a fall of the share sum larger than this across it is a jump, not a root (r_i > 1). */
+const JUMP_SIZE = 1e-3;
+/** The shares must sum to 1 within this for the aggregate to be an equilibrium. */
+const BALANCE_TOL = 1e-9;
+
 /**
- * Newton step solver for the share of a rival with r != 1 in t = logit(s):
- *   phi(t) = lnC - q softplus(-t) + softplus(t) = 0,  q = 1/r - 1,
- *   phi'(t) = q sigma(-t) + sigma(t),  phi''(t) = (1 - q) sigma(t) sigma(-t).
+ * phi(t) = lnC - q softplus(-t) + softplus(t) of one rival's share in t = logit(s), q = 1/r - 1,
+ * and its slope phi'(t) = q sigma(-t) + sigma(t).
+ */
+function phi(lnC: number, q: number, t: number): readonly [number, number] {
+  const { softplus, softplusNeg, sigma } = logisticParts(t);
+  return [lnC - q * softplusNeg + softplus, q * (1 - sigma) + sigma];
+}
+
+/**
+ * Newton solver for the share of a rival with r != 1 in t = logit(s), phi(t) = 0 with
+ * phi''(t) = (1 - q) sigma(t) sigma(-t).
  * For q > 0 (r < 1) phi is increasing with slope between min(q, 1) and max(q, 1) and has a
  * constant sign of curvature, so Newton converges monotonically after at most one overshoot
  * (and is exact on the two linear tails): warm starts from the previous aggregate make it a
  * few steps. For q < 0 (r > 1) phi is convex with its minimum at t* = ln(-q); the larger root
  * is reached by Newton from the right of t*, and there is no root when phi(t*) > 0.
- * Returns t (NaN when there is no root).
+ * Returns null when there is no root; `ok: false` when Newton stops short of its tolerance.
  */
-function solveShareLogit(lnC: number, q: number, t0: number): number {
+function solveShareLogit(lnC: number, q: number, t0: number): Iterated | null {
   let t = t0;
+  let safeguard: ((next: number, x: number) => number) | undefined;
   if (q < 0) {
     const tStar = Math.log(-q);
-    if (phiAt(lnC, q, tStar) > 0) return Number.NaN;
+    if (phi(lnC, q, tStar)[0] > 0) return null;
     if (!(t > tStar)) t = Math.max(tStar + 1, -lnC + 1);
+    // stay on the increasing branch
+    safeguard = (next, x) => (next <= tStar ? 0.5 * (x + tStar) : next);
   }
-  for (let it = 0; it < 100; it++) {
-    const E = Math.exp(-Math.abs(t));
-    const l1p = Math.log1p(E);
-    const spPos = (t > 0 ? t : 0) + l1p; // softplus(t)
-    const spNeg = (t < 0 ? -t : 0) + l1p; // softplus(-t)
-    const sig = t >= 0 ? 1 / (1 + E) : E / (1 + E); // sigma(t)
-    const f = lnC - q * spNeg + spPos;
-    const d = q * (1 - sig) + sig;
-    let step = f / d;
-    let next = t - step;
-    if (q < 0) {
-      // stay on the increasing branch
-      const tStar = Math.log(-q);
-      if (next <= tStar) {
-        next = 0.5 * (t + tStar);
-        step = t - next;
-      }
-    }
-    t = next;
-    if (Math.abs(step) <= 1e-13 * Math.max(1, Math.abs(t))) break;
-  }
-  return t;
-}
-
-function phiAt(lnC: number, q: number, t: number): number {
-  const E = Math.exp(-Math.abs(t));
-  const l1p = Math.log1p(E);
-  return lnC - q * ((t < 0 ? -t : 0) + l1p) + (t > 0 ? t : 0) + l1p;
-}
-
-function sigmoid(t: number): number {
-  return t >= 0 ? 1 / (1 + Math.exp(-t)) : Math.exp(t) / (1 + Math.exp(t));
-}
-
-/** Share s_i(Y) of one rival (after its budget cap), see the file header. */
-export function rivalShare(
-  v: number,
-  m: number,
-  w: number,
-  r: number,
-  maxEffort: number,
-  aggregate: number,
-): { share: number; capped: boolean } {
-  const Y = aggregate;
-  let s: number;
-  if (r === 1) s = Math.max(0, 1 - (m * Y) / (w * v));
-  else {
-    const lnC = Math.log(m) + Math.log(Y / w) / r - Math.log(v * r);
-    const t = solveShareLogit(lnC, 1 / r - 1, -lnC);
-    s = Number.isNaN(t) ? 0 : sigmoid(t);
-  }
-  if (maxEffort < Infinity) {
-    const cap = (w * Math.pow(maxEffort, r)) / Y;
-    if (s >= cap) return { share: cap, capped: true };
-  }
-  return { share: s, capped: false };
+  return newtonRoot((x) => phi(lnC, q, x), t, {
+    relTol: SHARE_REL_TOL,
+    maxIter: SHARE_MAX_ITER,
+    safeguard,
+  });
 }
 
 export interface ShareFunctionOptions {
@@ -106,6 +89,7 @@ export interface ShareFunctionOptions {
 }
 
 export interface ShareFunctionSolution {
+  ok: true;
   efforts: number[];
   /** equilibrium aggregate Y = sum w_i e_i^r_i (including the fixed contribution) */
   aggregate: number;
@@ -114,14 +98,35 @@ export interface ShareFunctionSolution {
 }
 
 /**
- * Equilibrium of the ratio-form contest by the share-function method, or null when the
- * share equation has no root (a lone participant facing nobody: the supremum is not
- * attained; or, with r_i > 1, no consistent interior candidate for this set of members).
+ * Why there is no share-function solution: the share equation has no root (a lone participant
+ * facing nobody: the supremum is not attained; or, with r_i > 1, no consistent interior
+ * candidate for this set of members), or an iteration stopped short of its tolerance.
  */
+export interface ShareFunctionFailure {
+  ok: false;
+  reason: "no-root" | "not-converged";
+  message: string;
+}
+
+const NO_ROOT: ShareFunctionFailure = {
+  ok: false,
+  reason: "no-root",
+  message: "the share equation has no root for these rivals",
+};
+
+function notConverged(what: string): ShareFunctionFailure {
+  return {
+    ok: false,
+    reason: "not-converged",
+    message: `the share-function method did not converge (${what})`,
+  };
+}
+
+/** Equilibrium of the ratio-form contest by the share-function method. */
 export function shareFunctionEquilibrium(
   contest: Contest,
   opts: ShareFunctionOptions = {},
-): ShareFunctionSolution | null {
+): ShareFunctionSolution | ShareFunctionFailure {
   const rivals = contest.rivals;
   const n = rivals.length;
   const fixed = opts.fixed ?? 0;
@@ -131,7 +136,7 @@ export function shareFunctionEquilibrium(
     if ((opts.members?.[i] ?? true) && rv.maxEffort > 0) idx.push(i);
   }
   const k = idx.length;
-  if (k === 0) return null;
+  if (k === 0) return NO_ROOT;
   // per-rival constants: r = 1 uses a = m/(w v); r != 1 uses lnC = A + lnY/r
   const A = new Float64Array(k);
   const invR = new Float64Array(k);
@@ -158,9 +163,11 @@ export function shareFunctionEquilibrium(
   const shareArr = new Float64Array(k);
   const cappedArr = new Uint8Array(k);
   let slope = 0; // d(sum of shares)/d lnY at the last evaluation
+  let stalled = false; // at the last evaluation, a rival's share stopped short of its tolerance
   /** sum_i s_i(Y) + F/Y - 1 at Y = exp(lnY); fills shareArr, cappedArr and slope */
   const excess = (lnY: number): number => {
     const Y = Math.exp(lnY);
+    stalled = false;
     let sum = fixed > 0 ? fixed / Y : 0;
     let d = -(fixed > 0 ? fixed / Y : 0);
     for (let j = 0; j < k; j++) {
@@ -168,17 +175,18 @@ export function shareFunctionEquilibrium(
       let ds: number;
       if (unit[j] === 1) {
         const aY = A[j]! * Y;
-        // shares below 1e-12 are rounding residue of a rival exactly at the drop-out point
-        s = aY < 1 - 1e-12 ? 1 - aY : 0;
-        ds = aY < 1 - 1e-12 ? -aY : 0;
+        s = aY < 1 - DROP_OUT_RESIDUE ? 1 - aY : 0;
+        ds = aY < 1 - DROP_OUT_RESIDUE ? -aY : 0;
       } else {
         const lnC = A[j]! + lnY * invR[j]!;
         const start = Number.isNaN(t[j]!) ? -lnC : t[j]!;
-        const tj = solveShareLogit(lnC, q[j]!, start);
-        if (Number.isNaN(tj)) {
+        const root = solveShareLogit(lnC, q[j]!, start);
+        if (root === null) {
           s = 0;
           ds = 0;
         } else {
+          if (!root.ok) stalled = true;
+          const tj = root.x;
           t[j] = tj;
           const sg = sigmoid(tj);
           s = sg;
@@ -209,28 +217,29 @@ export function shareFunctionEquilibrium(
   let fhi = flo;
   let tries = 0;
   if (flo > 0) {
-    while (fhi > 0 && tries++ < 400) {
+    while (fhi > 0 && tries++ < BRACKET_MAX_TRIES) {
       lo = hi;
       flo = fhi;
       hi += Math.max(0.5, Math.min(4, fhi / Math.max(1e-300, -slope)));
       fhi = excess(hi);
     }
   } else {
-    while (flo <= 0 && tries++ < 400) {
+    while (flo <= 0 && tries++ < BRACKET_MAX_TRIES) {
       hi = lo;
       fhi = flo;
       lo -= 2;
       flo = excess(lo);
     }
   }
-  if (!(flo > 0) || !(fhi <= 0)) return null;
+  if (!(flo > 0) || !(fhi <= 0)) return NO_ROOT;
   // safeguarded Newton on the bracket [lo, hi] (Numerical Recipes' rtsafe rule: bisect when
   // the Newton step leaves the bracket or would not halve the previous step; with r_i > 1 the
   // share sum can jump, and there Newton alone would crawl)
   let x = fhi === 0 ? hi : 0.5 * (lo + hi);
   let fx = excess(x);
   let dxOld = hi - lo;
-  for (let it = 0; it < 200 && fx !== 0; it++) {
+  let finished = fx === 0;
+  for (let it = 0; it < AGGREGATE_MAX_ITER && fx !== 0; it++) {
     if (fx > 0) {
       lo = x;
       flo = fx;
@@ -239,21 +248,23 @@ export function shareFunctionEquilibrium(
       fhi = fx;
     }
     // a jump of the share sum across a vanishing bracket: no root (r_i > 1 only)
-    if (hi - lo <= 1e-12 * Math.max(1, Math.abs(x)) && flo - fhi > 1e-3) return null;
+    if (hi - lo <= JUMP_BRACKET * Math.max(1, Math.abs(x)) && flo - fhi > JUMP_SIZE) return NO_ROOT;
     let next = slope < 0 ? x - fx / slope : Number.NaN;
     if (!(next > lo && next < hi) || Math.abs(2 * (next - x)) > Math.abs(dxOld)) {
       next = 0.5 * (lo + hi);
     }
     dxOld = next - x;
     const done =
-      Math.abs(next - x) <= 1e-15 * Math.max(1, Math.abs(x)) ||
-      hi - lo <= 1e-13 * Math.max(1, Math.abs(x));
+      Math.abs(next - x) <= AGGREGATE_STEP_TOL * Math.max(1, Math.abs(x)) ||
+      hi - lo <= AGGREGATE_BRACKET_TOL * Math.max(1, Math.abs(x));
     x = next;
     fx = excess(x);
+    finished = done || fx === 0;
     if (done) break;
   }
+  if (stalled) return notConverged("a rival's share");
   // the aggregate must actually balance (with r_i > 1 the share sum can jump past 1)
-  if (!(Math.abs(fx) <= 1e-9)) return null;
+  if (!(Math.abs(fx) <= BALANCE_TOL)) return finished ? NO_ROOT : notConverged("the aggregate");
   const Y = Math.exp(x);
   const efforts = new Array<number>(n).fill(0);
   const capped = new Array<boolean>(n).fill(false);
@@ -263,5 +274,5 @@ export function shareFunctionEquilibrium(
     capped[i] = cappedArr[j] === 1;
     efforts[i] = capped[i] ? rv.maxEffort : Math.pow((shareArr[j]! * Y) / rv.weight, invR[j]!);
   }
-  return { efforts, aggregate: Y, capped };
+  return { ok: true, efforts, aggregate: Y, capped };
 }

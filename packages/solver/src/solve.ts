@@ -161,7 +161,10 @@ function concaveRatioEquilibrium(contest: Contest, opts: SolveOptions): Equilibr
   const nti = ntiTwoRival(contest);
   if (nti) return pureEquilibrium(contest, nti, "closed-form:nti", g);
   const sf = shareFunctionEquilibrium(contest);
-  if (sf) {
+  if (!sf.ok && sf.reason === "not-converged") {
+    return noPureEquilibrium(contest, "share-function", `${sf.message}: no equilibrium is shown.`);
+  }
+  if (sf.ok) {
     const capped = sf.capped.filter(Boolean).length;
     const note =
       capped > 0
