@@ -10,6 +10,9 @@ const mixedStrategySchema = z.object({
   low: finiteSchema,
   high: finiteSchema,
   mean: finiteSchema,
+  cdfExponent: finiteSchema.optional(),
+  /** finite mixed strategies (ratio and logit forms): each effort with its probability */
+  points: z.array(z.object({ effort: finiteSchema, probability: finiteSchema })).optional(),
 });
 
 export const equilibriumSchema = z.object({
@@ -26,4 +29,5 @@ export const equilibriumSchema = z.object({
   method: z.string(),
   strategies: z.array(mixedStrategySchema).optional(),
   note: z.string().optional(),
+  approximate: z.boolean().optional(),
 });

@@ -26,3 +26,6 @@ export * from "./bestResponseIteration";
 export * from "./allPayLeader";
 export * from "./uncertain";
 export * from "./calibrate";
+export * from "./matrixGame";
+export * from "./discreteMixed";
+export * from "./twoRivalMixed";

@@ -6,6 +6,7 @@
  *   ratio, every r_i <= 1 -> closed forms where they apply, else the share-function method
  *   ratio with r_i > 1    -> active-set search with global verification
  *   logit                 -> candidate enumeration with global verification
+ *   no pure equilibrium   -> two rivals: mixed equilibrium on a refined grid (twoRivalMixed.ts)
  */
 import { ratioActiveSetSearch, sameProfile } from "./activeSetSearch";
 import { allPaySymmetric } from "./allPaySymmetric";
@@ -21,6 +22,7 @@ import {
   symmetricExistenceBound,
   symmetricRatioEquilibrium,
 } from "./symmetricRatio";
+import { twoRivalMixedEquilibrium } from "./twoRivalMixed";
 import type { Contest, Equilibrium, SolveOptions, SolveResult } from "./types";
 
 export function solve(contest: Contest, opts: SolveOptions = {}): SolveResult {
@@ -108,6 +110,11 @@ export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveR
         ? "No pure-strategy equilibrium found: every candidate set of active rivals failed the global best-response check."
         : "No pure-strategy equilibrium found among the candidate profiles (each rival at zero, at its cap, or at its single interior optimum).",
     );
+    const mixed = noPureFallback(contest, opts);
+    if (mixed) {
+      mixed.note = `${notes.join(" ")} ${mixed.note ?? ""}`.trim();
+      return { equilibrium: mixed, alternatives: [] };
+    }
     return { equilibrium: noPureEquilibrium(contest, method, notes.join(" ")), alternatives: [] };
   }
   if (found.length > 1) {
@@ -131,6 +138,15 @@ export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveR
   const [equilibrium, ...alternatives] = list;
   if (notes.length > 0) equilibrium!.note = notes.join(" ");
   return { equilibrium: equilibrium!, alternatives };
+}
+
+/** A mixed equilibrium where one is computed (two rivals), else null. */
+function noPureFallback(contest: Contest, opts: SolveOptions): Equilibrium | null {
+  if (contest.rivals.length !== 2) return null;
+  return twoRivalMixedEquilibrium(contest, {
+    ...(opts.tolerance === undefined ? {} : { tolerance: opts.tolerance }),
+    ...(opts.now === undefined ? {} : { now: opts.now }),
+  });
 }
 
 /** Ratio form with every r_i <= 1: the pure equilibrium exists and is unique. */

@@ -95,6 +95,12 @@ export interface MixedStrategy {
   cdfExponent?: number;
   /** expected effort */
   mean: number;
+  /**
+   * a finite mixed strategy (ratio and logit forms): every effort played with its probability
+   * (probabilities sum to 1); atomAtZero, low and high then summarise it, and the range
+   * between the points is not played
+   */
+  points?: { effort: number; probability: number }[];
 }
 
 export type EquilibriumKind = "pure" | "mixed" | "none-pure";
@@ -120,8 +126,11 @@ export interface Equilibrium {
   nashGap: number;
   /** which method produced it, e.g. "closed-form:symmetric", "share-function", "numeric" */
   method: string;
-  /** mixed strategies per rival (all-pay) */
+  /** mixed strategies per rival (all-pay; finite mixes with points for ratio and logit) */
   strategies?: MixedStrategy[];
+  /** true when the reported profile is only an approximate equilibrium: its certified Nash
+   * gap exceeds the solver's tolerance (mixed equilibria computed on a grid) */
+  approximate?: boolean;
   /** plain-language remark, e.g. why no pure equilibrium exists */
   note?: string;
 }
@@ -142,6 +151,8 @@ export interface SolveOptions {
    * Mixed-equilibrium gaps and the leader's search use it as their grid size.
    */
   gridPoints?: number;
+  /** clock in ms for the time budgets of the mixed-equilibrium searches (tests inject one) */
+  now?: () => number;
 }
 
 /** Best response of one rival to the others' efforts. */

@@ -41,7 +41,7 @@ describe("logit contests", () => {
     expect(refGap(c, eq.efforts!)).toBeLessThan(1e-6);
   });
 
-  test("solve(logit, two strong rivals) finds no pure equilibrium and a check confirms the candidates fail", () => {
+  test("solve(logit, two strong rivals) finds no pure equilibrium (a check confirms the candidates fail) and answers with a mixed one", () => {
     const c = contest(
       [
         { name: "a", cost: 1 },
@@ -50,7 +50,8 @@ describe("logit contests", () => {
       { kind: "logit", scale: 0.1 },
     );
     const eq = solve(c).equilibrium;
-    expect(eq.kind).toBe("none-pure");
+    expect(eq.kind).toBe("mixed");
+    expect(eq.note).toContain("No pure-strategy equilibrium");
     expect(refGap(c, [0, 0])).toBeGreaterThan(1);
     // a alone at its interior point: b would rather enter
     const pa = 0.5 * (1 + Math.sqrt(1 - 0.4));

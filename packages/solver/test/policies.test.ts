@@ -3,6 +3,7 @@ import {
   bestResponse,
   clampEffort,
   createPolicy,
+  drawPoint,
   drawWinner,
   mulberry32,
   normalize,
@@ -168,6 +169,29 @@ describe("createPolicy", () => {
     const zeros = draws.filter((d) => d === 0).length / draws.length;
     expect(Math.abs(zeros - m.atomAtZero)).toBeLessThan(0.03);
     expect(draws.every((d) => d >= 0 && d <= m.high)).toBe(true);
+  });
+
+  it("createPolicy(equilibrium, two rivals with r = 3) draws from the finite mixed strategy's points (Ewerhart 2015)", () => {
+    const c = normalize({
+      ...kiosk,
+      csf: { kind: "ratio", decisiveness: 3 },
+      rivals: kiosk.rivals.slice(0, 2),
+    });
+    const res = solve(c).equilibrium;
+    expect(res.kind).toBe("mixed");
+    const pts = res.strategies![0]!.points!;
+    const p = createPolicy({ kind: "equilibrium" }, 11);
+    const draws: number[] = [];
+    for (let t = 0; t < 4000; t++) {
+      draws.push(
+        p.decide({ contest: c, self: 0, history: new Array(t).fill({ efforts: [0, 0] }) }),
+      );
+    }
+    // every draw is a support point, and the mean matches the expected effort
+    for (const d of draws) expect(pts.some((q) => q.effort === d)).toBe(true);
+    const mean = draws.reduce((a, b) => a + b, 0) / draws.length;
+    expect(Math.abs(mean - res.expectedEfforts![0]!) / res.expectedEfforts![0]!).toBeLessThan(0.05);
+    expect(drawPoint(pts, 0)).toBe(pts[0]!.effort);
   });
 
   it("every policy has a label and a description", () => {

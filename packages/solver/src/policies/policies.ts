@@ -86,11 +86,25 @@ function othersAverage(ctx: PolicyContext): number[] {
   return sum.map((s) => s / ctx.history.length);
 }
 
+/** The effort of a finite mixed strategy at probability level u in [0, 1) (inverse CDF). */
+export function drawPoint(
+  points: readonly { effort: number; probability: number }[],
+  u: number,
+): number {
+  let acc = 0;
+  for (const p of points) {
+    acc += p.probability;
+    if (u < acc) return p.effort;
+  }
+  return points.at(-1)?.effort ?? 0;
+}
+
 function playEquilibrium(ctx: PolicyContext, seed: number): number {
   const eq = equilibriumOf(ctx.contest);
   const mixed = eq.strategies?.[ctx.self];
   if (eq.kind === "mixed" && mixed) {
     const rng = rngFor(seed, ctx);
+    if (mixed.points) return drawPoint(mixed.points, rng());
     if (rng() < mixed.atomAtZero) return 0;
     return mixed.low + (mixed.high - mixed.low) * rng();
   }
