@@ -29,6 +29,28 @@ export function effortCeiling(contest: Contest, i: number): number {
   return Math.min(rv.maxEffort, rv.value / rv.cost);
 }
 
+/** The other's mix as rival i faces it: log weights and probabilities of its played points. */
+interface Facing {
+  lw: Float64Array;
+  q: Float64Array;
+}
+
+function facing(contest: Contest, j: number, mix: DiscreteMix): Facing {
+  const idx = mix.probabilities.map((q, k) => (q > 0 ? k : -1)).filter((k) => k >= 0);
+  return {
+    lw: Float64Array.from(idx, (k) => logWeight(contest, j, mix.efforts[k]!)),
+    q: Float64Array.from(idx, (k) => mix.probabilities[k]!),
+  };
+}
+
+function payoffFacing(contest: Contest, i: number, x: number, f: Facing): number {
+  const rv = contest.rivals[i]!;
+  const li = logWeight(contest, i, x);
+  let win = 0;
+  for (let k = 0; k < f.q.length; k++) win += f.q[k]! * pairShare(li, f.lw[k]!);
+  return rv.value * win - rv.cost * x;
+}
+
 /** Expected payoff (money) of rival i at pure effort x against the other's mix. */
 export function deviationPayoff(
   contest: Contest,
@@ -36,15 +58,7 @@ export function deviationPayoff(
   x: number,
   other: DiscreteMix,
 ): number {
-  const rv = contest.rivals[i]!;
-  const j = 1 - i;
-  const li = logWeight(contest, i, x);
-  let win = 0;
-  for (let k = 0; k < other.efforts.length; k++) {
-    const q = other.probabilities[k]!;
-    if (q > 0) win += q * pairShare(li, logWeight(contest, j, other.efforts[k]!));
-  }
-  return rv.value * win - rv.cost * x;
+  return payoffFacing(contest, i, x, facing(contest, 1 - i, other));
 }
 
 export interface MixedOutcome {
@@ -92,7 +106,8 @@ export function bestDeviation(
   extra: readonly number[] = [],
 ): { x: number; payoff: number } {
   const hi = effortCeiling(contest, i);
-  const g = gridMaximize((x) => deviationPayoff(contest, i, x, other), hi, gridPoints, extra);
+  const f = facing(contest, 1 - i, other);
+  const g = gridMaximize((x) => payoffFacing(contest, i, x, f), hi, gridPoints, extra);
   return { x: g.x, payoff: g.fx };
 }
 
@@ -110,7 +125,8 @@ export function deviationPeaks(
   count: number,
 ): { x: number; payoff: number }[] {
   const hi = effortCeiling(contest, i);
-  const f = (x: number) => deviationPayoff(contest, i, x, other);
+  const facingOther = facing(contest, 1 - i, other);
+  const f = (x: number) => payoffFacing(contest, i, x, facingOther);
   if (!(hi > 0)) return [{ x: 0, payoff: f(0) }];
   const xs = new Set<number>([0, hi]);
   for (let k = 1; k < gridPoints; k++) xs.add((hi * k) / gridPoints);

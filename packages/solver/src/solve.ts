@@ -142,7 +142,7 @@ export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveR
 
 /** A mixed equilibrium where one is computed (two rivals), else null. */
 function noPureFallback(contest: Contest, opts: SolveOptions): Equilibrium | null {
-  if (contest.rivals.length !== 2) return null;
+  if (contest.rivals.length !== 2 || opts.mixed === false) return null;
   return twoRivalMixedEquilibrium(contest, {
     ...(opts.tolerance === undefined ? {} : { tolerance: opts.tolerance }),
     ...(opts.now === undefined ? {} : { now: opts.now }),

@@ -153,6 +153,8 @@ export interface SolveOptions {
   gridPoints?: number;
   /** clock in ms for the time budgets of the mixed-equilibrium searches (tests inject one) */
   now?: () => number;
+  /** false: stop at "none-pure" instead of searching for a mixed equilibrium (default true) */
+  mixed?: boolean;
 }
 
 /** Best response of one rival to the others' efforts. */

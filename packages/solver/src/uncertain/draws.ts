@@ -81,7 +81,8 @@ export function drawSolver(s: UncertainScenario, params: readonly UncertainParam
   const values = new Float64Array(params.length);
   return (d: number): SolvedDraw => {
     const contest = normalize(point(drawValues(params, seed, d, values)));
-    return { contest, equilibrium: solve(contest).equilibrium };
+    // the bands use pure draws only: skip the mixed-equilibrium search of the others
+    return { contest, equilibrium: solve(contest, { mixed: false }).equilibrium };
   };
 }
 
