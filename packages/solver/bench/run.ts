@@ -17,6 +17,7 @@ import {
   type UncertainScenario,
 } from "../src/index";
 import { calibrationBench } from "./calibrate";
+import { mixedBench } from "./mixed";
 
 interface Row {
   case: string;
@@ -210,6 +211,7 @@ function main() {
   });
 
   rows.push(...calibrationBench(time));
+  rows.push(...mixedBench(time));
 
   if (json) {
     process.stdout.write(`${JSON.stringify(rows, null, 2)}\n`);

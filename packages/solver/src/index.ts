@@ -29,3 +29,4 @@ export * from "./calibrate";
 export * from "./matrixGame";
 export * from "./discreteMixed";
 export * from "./twoRivalMixed";
+export * from "./symmetricActiveSets";

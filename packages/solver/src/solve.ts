@@ -22,6 +22,7 @@ import {
   symmetricExistenceBound,
   symmetricRatioEquilibrium,
 } from "./symmetricRatio";
+import { activeSetProfile, countText, symmetricActiveSets } from "./symmetricActiveSets";
 import { twoRivalMixedEquilibrium } from "./twoRivalMixed";
 import type { Contest, Equilibrium, SolveOptions, SolveResult } from "./types";
 
@@ -83,8 +84,11 @@ export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveR
     ...(opts.tolerance === undefined ? {} : { tolerance: opts.tolerance }),
     ...(opts.gridPoints === undefined ? {} : { gridPoints: opts.gridPoints }),
   };
-  const found =
-    csf.kind === "logit"
+  const tol = opts.tolerance ?? 1e-6 * contest.prize;
+  const symSets = symmetricActiveSets(contest, tol);
+  const found = symSets
+    ? symSets.map((set) => ({ efforts: activeSetProfile(n, set), gap: set.gap }))
+    : csf.kind === "logit"
       ? logitSearch(contest, searchOpts)
       : ratioActiveSetSearch(contest, searchOpts);
   const method = csf.kind === "logit" ? "numeric:logit-candidates" : "numeric:active-set";
@@ -122,7 +126,7 @@ export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveR
       `${found.length} distinct pure equilibria found${found.length > MAX_LISTED ? ` (the first ${MAX_LISTED} are listed)` : ""}.`,
     );
   }
-  if (csf.kind === "ratio" && identicalRivals(contest) && n > EXHAUSTIVE_UP_TO) {
+  if (!symSets && csf.kind === "ratio" && identicalRivals(contest) && n > EXHAUSTIVE_UP_TO) {
     notes.push(
       "The rivals are identical, so any other choice of the same number of active rivals is an equilibrium too (only one of each size is listed).",
     );
@@ -135,8 +139,19 @@ export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveR
         ? pureEquilibrium(contest, sym, "closed-form:symmetric", opts.gridPoints)
         : pureEquilibrium(contest, f.efforts, method, opts.gridPoints),
     );
+  if (symSets) {
+    list.forEach((eq, idx) => {
+      const set = symSets[idx]!;
+      const count = Math.exp(set.lnCount);
+      if (Number.isFinite(count)) eq.equivalents = count < 1e15 ? Math.round(count) : count;
+      const more = `${countText(set.lnCount)} equivalent equilibri${count === 1 ? "um" : "a"} with ${set.k} of the ${n} identical rivals active (any ${set.k} of them).`;
+      eq.note = eq.note ? `${eq.note} ${more}` : more;
+    });
+  }
   const [equilibrium, ...alternatives] = list;
-  if (notes.length > 0) equilibrium!.note = notes.join(" ");
+  if (notes.length > 0) {
+    equilibrium!.note = [...notes, ...(equilibrium!.note ? [equilibrium!.note] : [])].join(" ");
+  }
   return { equilibrium: equilibrium!, alternatives };
 }
 

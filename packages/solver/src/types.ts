@@ -128,6 +128,11 @@ export interface Equilibrium {
   method: string;
   /** mixed strategies per rival (all-pay; finite mixes with points for ratio and logit) */
   strategies?: MixedStrategy[];
+  /**
+   * how many equilibria this record stands for: the same efforts given to any other choice of
+   * identical rivals (symmetric contests above the existence bound); omitted means 1
+   */
+  equivalents?: number;
   /** true when the reported profile is only an approximate equilibrium: its certified Nash
    * gap exceeds the solver's tolerance (mixed equilibria computed on a grid) */
   approximate?: boolean;

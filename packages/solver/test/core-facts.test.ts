@@ -3,7 +3,14 @@
 // 1997 (Public Choice 92); Alcalde & Dahm 2010 (Journal of Public Economics 94). Volume
 // numbers from memory. Independent checks use Nelder-Mead (fmin) best responses.
 import { describe, expect, test } from "vitest";
-import { bestResponse, nashGap, normalize, solve, symmetricRatioEffort } from "../src/index";
+import {
+  bestResponse,
+  nashGap,
+  normalize,
+  ratioActiveSetSearch,
+  solve,
+  symmetricRatioEffort,
+} from "../src/index";
 import type { RivalSpec } from "../src/types";
 import { refBestResponse, refGap } from "./reference";
 
@@ -16,30 +23,70 @@ const identical = (n: number, r: number, cost = 1) =>
   );
 
 describe("existence bound r <= n/(n-1) (Baye, Kovenock & de Vries 1994)", () => {
-  test("solve(n=3, r=1.6): the symmetric profile fails, three two-active equilibria are found", () => {
+  test("solve(n=3, r=1.6): the symmetric profile fails; one two-active equilibrium stands for all three", () => {
     const c = identical(3, 1.6);
     const sym = new Array(3).fill(symmetricRatioEffort(3, 100, 1, 1.6));
     expect(nashGap(c, sym)).toBeGreaterThan(1); // spending nothing beats 100/3 - 35.6 < 0
     expect(refGap(c, sym)).toBeGreaterThan(1);
     const res = solve(c);
-    const all = [res.equilibrium, ...res.alternatives];
-    expect(all).toHaveLength(3);
-    for (const eq of all) {
-      expect(eq.kind).toBe("pure");
-      expect(eq.active.filter(Boolean)).toHaveLength(2);
-      // the active pair plays the two-rival symmetric profile r v/(4 m) = 40
-      for (const e of eq.efforts!) if (e > 0) expect(e).toBeCloseTo(40, 9);
-      expect(eq.nashGap).toBeLessThan(1e-6);
-      expect(refGap(c, eq.efforts!)).toBeLessThan(1e-6);
-    }
-    expect(res.equilibrium.note).toMatch(/n\/\(n-1\)/);
+    const eq = res.equilibrium;
+    expect(res.alternatives).toHaveLength(0);
+    expect(eq.kind).toBe("pure");
+    expect(eq.active.filter(Boolean)).toHaveLength(2);
+    expect(eq.equivalents).toBe(3);
+    // the active pair plays the two-rival symmetric profile r v/(4 m) = 40
+    for (const e of eq.efforts!) if (e > 0) expect(e).toBeCloseTo(40, 9);
+    expect(eq.nashGap).toBeLessThan(1e-6);
+    expect(refGap(c, eq.efforts!)).toBeLessThan(1e-6);
+    // the exhaustive subset search (an independent route) finds exactly three such profiles
+    expect(ratioActiveSetSearch(c)).toHaveLength(3);
+    expect(eq.note).toMatch(/n\/\(n-1\)/);
   });
 
   test("solve(n=3, r=1.4): the symmetric equilibrium coexists with two-active ones", () => {
     const res = solve(identical(3, 1.4));
     expect(res.equilibrium.active).toEqual([true, true, true]);
     expect(res.equilibrium.efforts![0]).toBeCloseTo(symmetricRatioEffort(3, 100, 1, 1.4), 9);
-    expect(res.alternatives).toHaveLength(3);
+    expect(res.alternatives).toHaveLength(1);
+    expect(res.alternatives[0]!.active.filter(Boolean)).toHaveLength(2);
+    expect(res.alternatives[0]!.equivalents).toBe(3);
+  });
+
+  test("solve(n=10, r=1.3): one representative each for 4 and 3 active rivals, counted C(10,4) and C(10,3) like the exhaustive search", () => {
+    const c = identical(10, 1.3);
+    const res = solve(c);
+    const all = [res.equilibrium, ...res.alternatives];
+    expect(all.map((e) => e.active.filter(Boolean).length)).toEqual([4, 3]);
+    expect(all.map((e) => e.equivalents)).toEqual([210, 120]);
+    for (const eq of all) {
+      const k = eq.active.filter(Boolean).length;
+      for (const e of eq.efforts!)
+        if (e > 0) expect(e).toBeCloseTo(symmetricRatioEffort(k, 100, 1, 1.3), 9);
+      expect(refGap(c, eq.efforts!)).toBeLessThan(1e-6);
+    }
+    // every subset of the 2^10, each verified globally: 210 + 120 profiles and no others
+    const sizes = ratioActiveSetSearch(c, { exhaustiveUpTo: 10 }).map(
+      (f) => f.efforts.filter((e) => e > 0).length,
+    );
+    expect(sizes.filter((k) => k === 4)).toHaveLength(210);
+    expect(sizes.filter((k) => k === 3)).toHaveLength(120);
+    expect(sizes).toHaveLength(330);
+  });
+
+  test("solve(10,000 identical rivals, r = 2): two active at r v / (4 m), C(10000, 2) equivalents", () => {
+    const c = identical(10000, 2);
+    const eq = solve(c).equilibrium;
+    expect(eq.kind).toBe("pure");
+    expect(eq.efforts![0]).toBeCloseTo(50, 9);
+    expect(eq.efforts![1]).toBeCloseTo(50, 9);
+    expect(eq.active.filter(Boolean)).toHaveLength(2);
+    expect(eq.equivalents).toBe((10000 * 9999) / 2);
+    // independent best responses (Nelder-Mead) of an active and an idle rival on a
+    // three-rival slice: the others are idle, so they change nothing for these two
+    const slice = identical(3, 2);
+    // payoffs now: 100/2 - 50 = 0 for an active rival, 0 for an idle one
+    for (const i of [0, 2])
+      expect(refBestResponse(slice, i, [50, 50, 0]).payoff).toBeLessThan(1e-6);
   });
 
   test("solve(n=3, r=2.5) reports no pure equilibrium, citing the mixed one (Alcalde & Dahm 2010)", () => {

@@ -1,0 +1,77 @@
+/**
+ * Benchmarks of the answers without a symmetric pure equilibrium: identical rivals above the
+ * existence bound (one representative per number of active rivals) and two-rival mixed
+ * equilibria (double oracle with its certified gap).
+ */
+import { normalize, solve, type Scenario } from "../src/index";
+
+interface Timed {
+  median: number;
+  p95: number;
+}
+
+export interface MixedBenchRow {
+  case: string;
+  target: string;
+  runs: number;
+  medianMs: number;
+  p95Ms: number;
+  note?: string;
+}
+
+const identical = (n: number, r: number): Scenario => ({
+  title: `${n} identical rivals`,
+  prize: 1000,
+  csf: { kind: "ratio", decisiveness: r },
+  rivals: Array.from({ length: n }, (_, i) => ({ name: `R${i}`, cost: 1 })),
+});
+
+const pair = (r: number, costs: [number, number], kind: "ratio" | "logit" = "ratio"): Scenario => ({
+  title: "two rivals",
+  prize: 100,
+  csf: kind === "ratio" ? { kind, decisiveness: r } : { kind, scale: r },
+  rivals: [
+    { name: "A", cost: costs[0] },
+    { name: "B", cost: costs[1] },
+  ],
+});
+
+export function mixedBench(
+  time: (fn: () => unknown, opts: { warmup: number; runs: number }) => Timed,
+): MixedBenchRow[] {
+  const rows: MixedBenchRow[] = [];
+  for (const r of [2, 1.5, 1.3]) {
+    const c = normalize(identical(10_000, r));
+    const t = time(() => solve(c), { warmup: 2, runs: 10 });
+    const res = solve(c);
+    const all = [res.equilibrium, ...res.alternatives];
+    rows.push({
+      case: `solve() 10,000 identical rivals, r = ${r}`,
+      target: "< 50 ms",
+      runs: 10,
+      medianMs: t.median,
+      p95Ms: t.p95,
+      note: `active sets of size ${all.map((e) => e.active.filter(Boolean).length).join(", ")}; gap ${Math.max(...all.map((e) => e.nashGap)).toExponential(2)}`,
+    });
+  }
+  const cases: [string, Scenario][] = [
+    ["r = 1.5, costs 5 and 2 (semi-mixed)", pair(1.5, [5, 2])],
+    ["r = 3, identical (mass points at 0)", pair(3, [1, 1])],
+    ["r = 3, costs 1 and 5/3 (all-pay outcome)", pair(3, [1, 5 / 3])],
+    ["logit k = 0.2, identical", pair(0.2, [1, 1], "logit")],
+  ];
+  for (const [name, s] of cases) {
+    const c = normalize(s);
+    const t = time(() => solve(c), { warmup: 2, runs: 10 });
+    const eq = solve(c).equilibrium;
+    rows.push({
+      case: `solve() two rivals, mixed, ${name}`,
+      target: "< 200 ms",
+      runs: 10,
+      medianMs: t.median,
+      p95Ms: t.p95,
+      note: `${eq.kind}, certified gap ${(eq.nashGap / c.prize).toExponential(2)} of the prize`,
+    });
+  }
+  return rows;
+}
