@@ -15,6 +15,7 @@ import { EquilibriumCard } from "./explorer/EquilibriumCard";
 import { StaticsSection } from "./explorer/StaticsSection";
 import { SweepSection } from "./explorer/SweepSection";
 import { TimingFields } from "./explorer/TimingFields";
+import { UncertaintySection } from "./explorer/UncertaintySection";
 
 /**
  * The equilibrium explorer: edit a scenario and see its equilibrium, two rivals' best-response
@@ -73,6 +74,7 @@ export function Explorer() {
 
       <SweepSection scenario={deferred} sweepAxis={sweepAxis} />
       <StaticsSection scenario={deferred} />
+      <UncertaintySection scenario={deferred} />
     </div>
   );
 }

@@ -1,0 +1,161 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import type { Scenario } from "@contend/solver";
+import { useUncertainRun } from "../../hooks/useUncertainRun";
+import { formatNumber } from "../../lib/format";
+import { buildUncertain, rangeFields, type RangeForm } from "../../lib/range-form";
+import { SelectField, TextField } from "../Field";
+import { RangeFields } from "./RangeFields";
+import { UncertainResults } from "./UncertainResults";
+
+const MAX_DRAWS_UI = 100_000;
+
+function whole(text: string, min: number, max: number): number | null {
+  const x = Number(text.trim());
+  return text.trim() !== "" && Number.isInteger(x) && x >= min && x <= max ? x : null;
+}
+
+/**
+ * Uncertainty: switch any of the scenario's numbers to a range, run a seeded Monte Carlo of the
+ * equilibrium in a Web Worker, and read outcome bands, drop-out odds, the tornado and one
+ * rival's robust plan.
+ */
+export function UncertaintySection({ scenario }: { scenario: Scenario | null }) {
+  const [ranges, setRanges] = useState<RangeForm>({});
+  const [drawsText, setDrawsText] = useState("10000");
+  const [seedText, setSeedText] = useState("1");
+  const [plan, setPlan] = useState("0");
+  const { state, run, cancel } = useUncertainRun();
+  const fields = useMemo(() => (scenario ? rangeFields(scenario) : []), [scenario]);
+  const built = useMemo(
+    () => (scenario ? buildUncertain(scenario, ranges) : null),
+    [scenario, ranges],
+  );
+  const draws = whole(drawsText, 1, MAX_DRAWS_UI);
+  const seed = whole(seedText, 0, 2 ** 32 - 1);
+  const names = scenario?.rivals.map((r) => r.name) ?? [];
+  const labelOf = useMemo(() => {
+    const m = new Map(fields.map((f) => [f.path, f.label]));
+    return (p: string) => m.get(p) ?? p;
+  }, [fields]);
+  const canRun = built?.ok === true && built.count > 0 && draws !== null && seed !== null;
+  const start = () => {
+    if (!canRun || !built.ok) return;
+    const p = Number(plan);
+    run(built.scenario, {
+      draws: draws!,
+      seed: seed!,
+      planRival: p >= 0 && p < names.length ? p : null,
+    });
+  };
+
+  return (
+    <section className="card" aria-labelledby="uncertain-title" data-testid="uncertainty-section">
+      <h2 id="uncertain-title">Uncertainty: ranges, bands and a robust plan</h2>
+      <p className="small muted">
+        Tick a number you only know as a range. Each draw picks every range independently, solves
+        the equilibrium, and the bands show where spend, share and payoff land. A model of what you
+        do not know, not a forecast; keep plans internal and never share them with competitors.
+      </p>
+      {scenario === null ? (
+        <p className="muted">Fix the highlighted fields first.</p>
+      ) : (
+        <RangeFields
+          fields={fields}
+          ranges={ranges}
+          setRanges={setRanges}
+          prize={scenario.prize}
+          currency={scenario.currency ?? null}
+          error={built && !built.ok ? built : null}
+        />
+      )}
+      <div className="row" style={{ alignItems: "flex-start", marginTop: "0.75rem" }}>
+        <TextField
+          label="Draws"
+          numeric
+          width="8rem"
+          value={drawsText}
+          onChange={setDrawsText}
+          testId="uncertain-draws"
+          error={
+            draws === null ? `a whole number from 1 to ${formatNumber(MAX_DRAWS_UI, 0)}` : undefined
+          }
+        />
+        <TextField
+          label="Seed"
+          numeric
+          width="8rem"
+          value={seedText}
+          onChange={setSeedText}
+          testId="uncertain-seed"
+          error={seed === null ? "a whole number from 0 to 4294967295" : undefined}
+        />
+        <SelectField
+          label="Robust plan for"
+          value={plan}
+          options={[
+            { value: "-1", label: "No plan" },
+            ...names.map((n, i) => ({ value: String(i), label: n })),
+          ]}
+          onChange={setPlan}
+          testId="uncertain-plan"
+        />
+        <div className="field">
+          <span aria-hidden="true">&nbsp;</span>
+          {state.status === "running" ? (
+            <button type="button" onClick={cancel} data-testid="uncertain-cancel">
+              Cancel
+            </button>
+          ) : (
+            <button
+              type="button"
+              className="primary"
+              onClick={start}
+              disabled={!canRun}
+              data-testid="uncertain-run"
+            >
+              Run draws
+            </button>
+          )}
+        </div>
+      </div>
+      <div style={{ minHeight: "2.2rem" }} aria-live="polite">
+        {built?.ok && built.count === 0 && (
+          <p className="small muted">Switch at least one number to a range to run draws.</p>
+        )}
+        {state.status === "running" && (
+          <div data-testid="uncertain-progress">
+            <div
+              className="progress"
+              role="progressbar"
+              aria-label="Draws done"
+              aria-valuemin={0}
+              aria-valuemax={state.total}
+              aria-valuenow={state.done}
+            >
+              <div style={{ width: `${(100 * state.done) / Math.max(1, state.total)}%` }} />
+            </div>
+            <span className="small muted">
+              {formatNumber(state.done, 0)} of {formatNumber(state.total, 0)} draws
+            </span>
+          </div>
+        )}
+        {state.status === "idle" && state.cancelled && (
+          <p className="small muted" data-testid="uncertain-cancelled">
+            Cancelled.
+          </p>
+        )}
+        {state.status === "error" && <p className="field-error">{state.message}</p>}
+      </div>
+      {state.status === "done" && (
+        <UncertainResults
+          result={state.result}
+          scenario={state.scenario}
+          label={labelOf}
+          ms={state.ms}
+        />
+      )}
+    </section>
+  );
+}
