@@ -77,7 +77,7 @@ export function runUncertain(s: UncertainScenario, opts: UncertainOptions): Unce
 
 function robustPlan(s: UncertainScenario, i: number, draws: PlanDraw[]): RobustPlan {
   const median = normalize(medianScenario(s));
-  const eq = solve(median).equilibrium;
+  const eq = solve(median, { mixed: false }).equilibrium;
   const medianSpend =
     eq.kind === "pure" && eq.efforts ? median.rivals[i]!.cost * eq.efforts[i]! : null;
   const spend = robustSpend(draws, i, medianSpend === null ? [] : [medianSpend]);

@@ -14,7 +14,7 @@ import type { TornadoRow, UncertainParam, UncertainScenario } from "./types";
 export function tornado(s: UncertainScenario, params: readonly UncertainParam[]): TornadoRow[] {
   const point = pointScenarios(s, params);
   const payoffsAt = (values: Float64Array): number[] | null => {
-    const eq = solve(normalize(point(values))).equilibrium;
+    const eq = solve(normalize(point(values)), { mixed: false }).equilibrium;
     return eq.kind === "pure" ? eq.payoffs : null;
   };
   const medians = Float64Array.from(params, (p) => quantile(p.dist, 0.5));
