@@ -30,3 +30,4 @@ export * from "./matrixGame";
 export * from "./discreteMixed";
 export * from "./twoRivalMixed";
 export * from "./symmetricActiveSets";
+export * from "./fronts";

@@ -1,0 +1,6 @@
+// Several fronts, one budget: public API of the fronts model.
+export * from "./types";
+export * from "./validateFronts";
+export * from "./normalizeFronts";
+export * from "./bestAllocation";
+export * from "./frontsEquilibrium";
