@@ -18,6 +18,7 @@ import {
 } from "../src/index";
 import { calibrationBench } from "./calibrate";
 import { mixedBench } from "./mixed";
+import { frontsRows } from "./fronts";
 
 interface Row {
   case: string;
@@ -212,6 +213,7 @@ function main() {
 
   rows.push(...calibrationBench(time));
   rows.push(...mixedBench(time));
+  rows.push(...frontsRows(time));
 
   if (json) {
     process.stdout.write(`${JSON.stringify(rows, null, 2)}\n`);

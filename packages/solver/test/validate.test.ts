@@ -1,6 +1,7 @@
 import { readFileSync, readdirSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
+import { isFrontsInput, validateFrontsScenario } from "../src/fronts/validateFronts";
 import { validateScenario } from "../src/validate";
 
 const base = () => ({
@@ -45,12 +46,13 @@ describe("validateScenario", () => {
     expect(r.value.leader).toBeNull();
   });
 
-  it("validateScenario(bundled demo scenarios) accepts every file in scenarios/", () => {
+  it("validateScenario(bundled demo scenarios) accepts every file in scenarios/ (fronts files by validateFrontsScenario)", () => {
     const dir = fileURLToPath(new URL("../scenarios/", import.meta.url));
     const files = readdirSync(dir).filter((f) => f.endsWith(".json"));
     expect(files.length).toBeGreaterThanOrEqual(3);
     for (const f of files) {
-      const r = validateScenario(JSON.parse(readFileSync(dir + f, "utf8")));
+      const json: unknown = JSON.parse(readFileSync(dir + f, "utf8"));
+      const r = isFrontsInput(json) ? validateFrontsScenario(json) : validateScenario(json);
       expect(r.ok ? "ok" : `${f}: ${r.path} ${r.message}`).toBe("ok");
     }
   });

@@ -6,7 +6,9 @@
 import { normalize } from "../normalize";
 import type { InputError, Parsed, Scenario } from "../types";
 import { validateScenario } from "../validate";
+import { isFrontsInput } from "../fronts/validateFronts";
 import { parseArgs, type ParsedArgs } from "./args";
+import { runFronts } from "./frontsCommand";
 import { parseMoves, runRespond } from "./respondCommand";
 import { runSolve } from "./solveCommand";
 import { runStatics } from "./staticsCommand";
@@ -54,6 +56,13 @@ FILE is a scenario in JSON: {"title", "prize", "csf": {"kind": "ratio"|"logit"|"
 "rivals": [{"name", "cost", "value"?, "weight"?, "budget"?, "decisiveness"?}], "leader"?, "currency"?}.
 A budget is money: the most a rival may spend, cost x effort <= budget.
 
+Several fronts, one budget: give "fronts": [{"name", "prize", "csf"}, ...] instead of "prize" and
+"csf"; a rival's cost, value and weight may then be one number or an array with one entry per
+front, "budget" is its total money over all fronts and "sunkBudget": true marks money that is
+spent here or not at all. solve prints allocations, spends, shares and shadow prices per front;
+  contend respond FILE --allocations "a1,a2,...;b1,b2,..." [--json]
+takes one row of efforts per rival (one number per front); --spends takes the same rows in money.
+
 Exit status: 0 success, 2 bad input (one line on stderr names the field), 1 internal error.
 A stylised model to aid thinking: not a forecast, not financial or legal advice.
 `;
@@ -62,7 +71,7 @@ type Command = "solve" | "respond" | "sweep" | "statics" | "uncertain" | "fit";
 
 const OPTIONS: Record<Command, { valued: string[]; booleans: string[] }> = {
   solve: { valued: [], booleans: ["json", "help"] },
-  respond: { valued: ["spends", "efforts"], booleans: ["json", "help"] },
+  respond: { valued: ["spends", "efforts", "allocations"], booleans: ["json", "help"] },
   sweep: { valued: ["param", "from", "to", "steps"], booleans: ["json", "help"] },
   statics: { valued: [], booleans: ["json", "help"] },
   uncertain: { valued: ["draws", "seed", "plan"], booleans: ["json", "help"] },
@@ -148,7 +157,17 @@ async function run(
     const res = runUncertainCommand(u.value, args, args.booleans.has("json"));
     return res.ok ? { code: EXIT.ok, out: res.value, err: "" } : bad(res);
   }
-  const scenario = await loadScenario(file, io);
+  const raw = await loadScenario<unknown>(file, io, (json) => ({ ok: true, value: json }));
+  if (!raw.ok) return bad(raw, file);
+  if (isFrontsInput(raw.value)) {
+    const res = runFronts(command, raw.value, args);
+    if (res.ok) return { code: EXIT.ok, out: res.value, err: "" };
+    return bad(res, res.path.startsWith("--") ? undefined : file);
+  }
+  if (args.flags.has("allocations")) {
+    return bad({ ok: false, path: "--allocations", message: "is for scenarios with fronts" });
+  }
+  const scenario = validateScenario(raw.value);
   if (!scenario.ok) return bad(scenario, file);
   const json = args.booleans.has("json");
   const contest = normalize(scenario.value);

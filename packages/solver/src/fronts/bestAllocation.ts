@@ -13,23 +13,29 @@
  * - Ratio form with r <= 1 on every front: the program is concave and spend is continuous in
  *   mu, so the multiplier that exhausts the budget gives the exact constrained optimum
  *   (Kuhn-Tucker conditions are sufficient for a concave program).
- * - r > 1 or logit on some front: a front's best response can jump as mu crosses a value, and
- *   with a binding budget the Lagrangian may have a duality gap. The result is then the best of
+ * - r > 1 or logit on some front: whenever the allocation at the multiplier spends the budget,
+ *   it maximises the Lagrangian globally with the budget exhausted, so it is the global optimum
+ *   of the constrained problem, concave or not (Everett 1963, "Generalized Lagrange multiplier
+ *   method for solving problems of optimum allocation of resources", Operations Research 11;
+ *   from memory). But a front's best response can jump as mu crosses a value, and then no
+ *   multiplier exhausts the budget (a duality gap). The result is then the best of
  *   the candidates around the jump (the allocation just inside the budget, that allocation with
  *   the leftover money put on each front in turn, the allocation just above the budget scaled
- *   down to fit, and the current allocation): exact whenever spend is continuous at the
- *   multiplier, a lower bound on the best payoff otherwise. The equilibrium's global check says so.
+ *   down to fit, the current allocation) and of the "one front in its convex region" family of
+ *   residualFront.ts: exact whenever spend is continuous at the multiplier, otherwise the best
+ *   of a search (a lower bound on the best payoff).
  */
 import type { Opposition } from "../bestResponse";
 import { bestResponseAgainst, oppositions } from "../bestResponse";
-import { brentRoot } from "../brentRoot";
+import { residualFrontCandidate } from "./residualFront";
 import type { Contest } from "../types";
 import type { BestAllocation, FrontsContest, FrontsResponses } from "./types";
 
 /** Most steps of the root search on ln mu. */
 const ROOT_STEPS = 60;
-/** How far the multiplier search goes: mu in [2^-MAX_DOUBLINGS, 2^MAX_DOUBLINGS]. */
-const MAX_DOUBLINGS = 200;
+/** The bracket search steps ln mu by FIRST_WIDENING x 2^d from the hint, d < MAX_WIDENINGS. */
+const FIRST_WIDENING = 0.05;
+const MAX_WIDENINGS = 60;
 
 /** p_k of rival i on front k at effort x against opposition o (same conventions as csf.ts). */
 export function frontShare(contest: Contest, i: number, x: number, o: Opposition): number {
@@ -40,7 +46,9 @@ export function frontShare(contest: Contest, i: number, x: number, o: Opposition
     return y + o.z === 0 ? 1 / contest.rivals.length : y / (y + o.z);
   }
   if (csf.kind === "logit") {
-    return o.lnZ === -Infinity ? 1 : 1 / (1 + Math.exp(o.lnZ - Math.log(rv.weight) - csf.scale * x));
+    return o.lnZ === -Infinity
+      ? 1
+      : 1 / (1 + Math.exp(o.lnZ - Math.log(rv.weight) - csf.scale * x));
   }
   throw new Error("all-pay fronts are rejected by validation");
 }
@@ -97,9 +105,15 @@ export function bestAllocationAgainst(
     for (let k = 0; k < K; k++) {
       const base = fc.contests[k]!.rivals[i]!;
       const cap = B === Infinity ? Infinity : B / rv.cost[k]!;
-      scratch[k]!.rivals[i] = { ...base, cost: mu * rv.cost[k]!, budget: cap };
+      // the shadow cost buys effort; the cap is still the whole budget in effort on this front
+      scratch[k]!.rivals[i] = {
+        ...base,
+        cost: mu * rv.cost[k]!,
+        maxEffort: cap,
+        maxSpend: cap * mu * rv.cost[k]!,
+      };
       // a front nobody else contests is won by the smallest step: keep it small in money
-      const step = Math.min(1e-9 * (B < Infinity ? B : rv.value[k]!) / rv.cost[k]!, cap);
+      const step = Math.min((1e-9 * (B < Infinity ? B : rv.value[k]!)) / rv.cost[k]!, cap);
       row[k] = bestResponseAgainst(scratch[k]!, i, opp[k]!, { step }).effort;
     }
     return row;
@@ -138,21 +152,49 @@ export function bestAllocationAgainst(
   };
   const start = hint !== undefined && hint > floor && Number.isFinite(hint) ? hint : 1;
   if (!rv.sunkBudget && probe(1) <= B) return finish(rowHi, 0);
-  if (start !== 1 || rv.sunkBudget) probe(start);
-  // expand geometrically from the hint until the budget is bracketed
-  for (let d = 1; d <= MAX_DOUBLINGS && !(hi < Infinity); d++) probe(start * 2 ** d);
+  const s0 = start === 1 && !rv.sunkBudget ? spend(rowLo) : probe(start);
+  const up = s0 > B;
+  // widen geometrically in ln mu from the hint until the budget is bracketed; spend has an
+  // elasticity near 1 in mu, so the first step is about twice the gap ln(spend / B)
+  const first = Math.min(1, Math.max(1e-12, 2 * Math.abs(Math.log(s0 / B)) || FIRST_WIDENING));
+  for (let d = 0; d < MAX_WIDENINGS && (up ? !(hi < Infinity) : rowLo.length === 0); d++) {
+    const mu = start * Math.exp((up ? 1 : -1) * first * 2 ** d);
+    if (!(mu > 0 && mu < Infinity)) break;
+    probe(mu);
+  }
   if (!(hi < Infinity)) return finish(new Array<number>(K).fill(0), Infinity);
-  const top = hi;
-  for (let d = 1; d <= MAX_DOUBLINGS && rowLo.length === 0; d++) probe(top * 2 ** -d);
   // spend stays within the budget however cheap money gets (every front uncontested)
   if (rowLo.length === 0) return finish(rowHi, 0);
+  // Illinois regula falsi on g(ln mu) = ln spend - ln B (Dowell & Jarratt 1971, BIT 11; from
+  // memory): a bracketing secant that halves the stale end's value, superlinear and never
+  // leaving [lo, hi]
   if (hi / lo > 1 + 1e-15) {
     const lnB = Math.log(B);
-    const g = (t: number) => Math.log(Math.max(probe(Math.exp(t)), 1e-300)) - lnB;
-    brentRoot(g, Math.log(lo), Math.log(hi), undefined, undefined, 1e-14, ROOT_STEPS);
+    const g = (row: readonly number[]) => Math.log(Math.max(spend(row), 1e-300)) - lnB;
+    let a = Math.log(lo);
+    let b = Math.log(hi);
+    let ga = g(rowLo);
+    let gb = g(rowHi);
+    let side = 0;
+    for (let s = 0; s < ROOT_STEPS && b - a > 1e-13 * Math.max(1, Math.abs(a)); s++) {
+      let t = ga > 0 && gb <= 0 && ga - gb > 0 ? b - (gb * (b - a)) / (gb - ga) : 0.5 * (a + b);
+      if (!(t > a && t < b)) t = 0.5 * (a + b);
+      const gt = Math.log(Math.max(probe(Math.exp(t)), 1e-300)) - lnB;
+      if (gt > 0) {
+        a = t;
+        ga = gt;
+        if (side === -1) gb *= 0.5;
+        side = -1;
+      } else {
+        b = t;
+        gb = gt;
+        if (side === 1) ga *= 0.5;
+        side = 1;
+      }
+    }
   }
   // rounding noise in the spend can stall the interpolation next to the root: finish by bisection
-  for (let s = 0; s < ROOT_STEPS && hi / lo > 1 + 1e-13; s++) probe(Math.sqrt(lo * hi));
+  for (let s = 0; s < ROOT_STEPS && hi / lo > 1 + 1e-11; s++) probe(Math.sqrt(lo * hi));
   const shadow = Math.max(0, hi - floor);
   // candidates around the multiplier (exact in the concave case, see the header)
   let bestRow = rowHi;
@@ -175,6 +217,25 @@ export function bestAllocationAgainst(
   }
   const sLo = spend(rowLo);
   if (sLo > 0 && Number.isFinite(sLo)) tryRow(rowLo.map((x) => x * (B / sLo) * (1 - 1e-15)));
+  const nonConcave = fc.fronts.flatMap((f, k) =>
+    f.csf.kind === "ratio" && f.csf.decisiveness <= 1 ? [] : [k],
+  );
+  // Everett 1963: a maximiser of the Lagrangian that spends the whole budget is a global optimum
+  // of the constrained problem, concave or not; only a jump in spend across B leaves a gap
+  const gapless = spend(rowHi) >= B * (1 - 1e-9);
+  if (nonConcave.length > 0 && !gapless) {
+    const cand = residualFrontCandidate({
+      at,
+      spend,
+      pay,
+      cost: rv.cost,
+      budget: B,
+      mu: hi,
+      floor,
+      nonConcave,
+    });
+    if (cand) tryRow(cand.row);
+  }
   return finish(bestRow, shadow);
 }
 
@@ -205,7 +266,12 @@ export function frontOppositions(
   fc: FrontsContest,
   allocations: readonly (readonly number[])[],
 ): Opposition[][] {
-  return fc.contests.map((c, k) => oppositions(c, allocations.map((row) => row[k] ?? 0)));
+  return fc.contests.map((c, k) =>
+    oppositions(
+      c,
+      allocations.map((row) => row[k] ?? 0),
+    ),
+  );
 }
 
 /** Best allocations, regrets (>= 0), payoffs and the Nash gap of a profile of allocations. */

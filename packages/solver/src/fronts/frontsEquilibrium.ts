@@ -20,6 +20,7 @@
  * profile whose gap exceeds the tolerance is not reported as an equilibrium.
  */
 import { shares } from "../csf";
+import { anderson } from "./anderson";
 import { shareFunctionEquilibrium } from "../shareFunction";
 import { solve } from "../solve";
 import type { Contest } from "../types";
@@ -41,7 +42,7 @@ import type {
 const OUTER_ITERATIONS = 400;
 /** relative tolerance on a binding budget in the multiplier loop */
 const BUDGET_TOL = 1e-9;
-const BR_SWEEPS = 400;
+const BR_SWEEPS = 200;
 const BR_DAMPING = 0.5;
 
 export function solveFronts(fc: FrontsContest, opts: FrontsSolveOptions = {}): FrontsSolveResult {
@@ -100,7 +101,10 @@ function frontsAt(fc: FrontsContest, mu: readonly number[], concave: boolean): n
   for (let k = 0; k < fc.fronts.length; k++) {
     const c = scaledFront(fc.contests[k]!, mu);
     let efforts: number[] | null;
-    if (concave) efforts = shareFunctionEquilibrium(c)?.efforts ?? null;
+    if (concave) {
+      const sf = shareFunctionEquilibrium(c);
+      efforts = sf?.ok ? sf.efforts : null;
+    }
     else {
       const eq = solve(c).equilibrium;
       efforts = eq.kind === "pure" ? eq.efforts : null;
@@ -116,7 +120,8 @@ function multiplierEquilibrium(fc: FrontsContest): number[][] | null {
   const concave = frontsAreConcave(fc);
   const n = fc.rivals.length;
   const floor = fc.rivals.map((r) => (r.sunkBudget ? 0 : 1));
-  const mu = floor.map((f, i) => (f > 0 ? f : 1 / fc.rivals[i]!.budget));
+  const mu = floor.map((f, i) => (f > 0 ? f : 1 / (fc.rivals[i]!.budget || 1)));
+  const accel = anderson();
   for (let it = 0; it < OUTER_ITERATIONS; it++) {
     const x = frontsAt(fc, mu, concave);
     if (!x) return null;
@@ -141,18 +146,40 @@ function multiplierEquilibrium(fc: FrontsContest): number[][] | null {
       const target = Math.max(floor[i]!, (br.shadowPrice ?? 0) + floor[i]!);
       next[i] = target;
     }
-    if (done) return fitBudgets(fc, x);
-    for (let i = 0; i < n; i++) mu[i] = Math.max(floor[i]!, next[i]!);
+    if (done) {
+      const binding = fc.rivals.map(
+        (r, i) => r.budget > 0 && r.budget < Infinity && mu[i]! > floor[i]!,
+      );
+      return fitBudgets(fc, x, binding);
+    }
+    const u = mu.map(Math.log);
+    const step = accel.next(
+      u,
+      next.map((m) => Math.log(m)),
+    );
+    for (let i = 0; i < n; i++) {
+      const v = Math.exp(step[i]!);
+      mu[i] = Number.isFinite(v) && v > 0 ? Math.max(floor[i]!, v) : Math.max(floor[i]!, next[i]!);
+    }
   }
   return null;
 }
 
-/** Scale down any row that overshoots its budget by rounding, so budgets are never exceeded. */
-function fitBudgets(fc: FrontsContest, x: number[][]): number[][] {
+/**
+ * Rows spend at most their budget, and exactly their budget where it binds (`binding[i]`): the
+ * multiplier loop stops within BUDGET_TOL, and a sunk budget left unspent would be money lost.
+ */
+function fitBudgets(fc: FrontsContest, x: number[][], binding?: readonly boolean[]): number[][] {
   return x.map((row, i) => {
     const s = spendOf(fc, i, row);
     const B = fc.rivals[i]!.budget;
-    return s > B ? row.map((v) => v * (B / s)) : row;
+    if (!(s > B) && !(binding?.[i] && s > 0 && s < B)) return row;
+    let scaled = row.map((v) => v * (B / s));
+    // rounding can leave the sum a few ulps above B: shave until it is not
+    for (let t = 1; spendOf(fc, i, scaled) > B; t *= 2) {
+      scaled = row.map((v) => v * (B / s) * (1 - t * Number.EPSILON));
+    }
+    return scaled;
   });
 }
 
@@ -173,9 +200,10 @@ function bestResponseIteration(fc: FrontsContest, start: number[][]): { profile:
         x[i]![k] = next;
       }
     }
-    if (moved <= 1e-12) break;
+    if (moved <= 1e-11) break;
   }
-  return { profile: x };
+  // a convex combination of two rows within budget can round a few ulps above it
+  return { profile: fitBudgets(fc, x) };
 }
 
 /** Packages a profile with its shares, payoffs, money and the measured Nash gap. */
@@ -187,7 +215,12 @@ export function packageProfile(
   const K = fc.fronts.length;
   const res = respondFronts(fc, allocations);
   const opp = frontOppositions(fc, allocations);
-  const perFront = fc.contests.map((c, k) => shares(c, allocations.map((row) => row[k]!)));
+  const perFront = fc.contests.map((c, k) =>
+    shares(
+      c,
+      allocations.map((row) => row[k]!),
+    ),
+  );
   const spends = allocations.map((row, i) => row.map((x, k) => x * fc.rivals[i]!.cost[k]!));
   const frontTotals = new Array<number>(K).fill(0);
   for (const row of spends) row.forEach((s, k) => (frontTotals[k] = frontTotals[k]! + s));

@@ -4,3 +4,4 @@ export * from "./validateFronts";
 export * from "./normalizeFronts";
 export * from "./bestAllocation";
 export * from "./frontsEquilibrium";
+export * from "./frontsReading";

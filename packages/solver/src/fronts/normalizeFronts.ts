@@ -22,7 +22,12 @@ export function normalizeFronts(s: FrontsScenario): FrontsContest {
     budget: x.budget ?? Infinity,
     sunkBudget: x.sunkBudget ?? false,
   }));
-  return { title: s.title, fronts: s.fronts.map((f) => ({ ...f })), rivals, contests: frontContests(s.title, s.fronts, rivals) };
+  return {
+    title: s.title,
+    fronts: s.fronts.map((f) => ({ ...f })),
+    rivals,
+    contests: frontContests(s.title, s.fronts, rivals),
+  };
 }
 
 /** The single contest of each front (see the file header). */
@@ -40,7 +45,8 @@ export function frontContests(
       cost: rv.cost[k]!,
       value: rv.value[k]!,
       weight: rv.weight[k]!,
-      budget: rv.budget === 0 ? 0 : Infinity,
+      maxSpend: rv.budget === 0 ? 0 : Infinity,
+      maxEffort: rv.budget === 0 ? 0 : Infinity,
       r: f.csf.kind === "ratio" ? f.csf.decisiveness : 1,
     })),
     leader: null,

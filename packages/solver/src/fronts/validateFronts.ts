@@ -101,7 +101,10 @@ function validateFront(x: unknown, k: number): Parsed<FrontSpec> {
       `"allpay" is not supported on fronts: an all-pay auction has no pure equilibrium, and mixed strategies over several fronts (a Colonel Blotto-type game) are not computed here; use "ratio" or "logit"`,
     );
   }
-  return { ok: true, value: { name: x.name as string, prize: probe.value.prize, csf: probe.value.csf } };
+  return {
+    ok: true,
+    value: { name: x.name as string, prize: probe.value.prize, csf: probe.value.csf },
+  };
 }
 
 function validateRival(x: unknown, i: number, k: number): Parsed<FrontsRivalSpec> {
@@ -127,7 +130,10 @@ function validateRival(x: unknown, i: number, k: number): Parsed<FrontsRivalSpec
   const budget = x.budget;
   if (budget !== undefined && budget !== null) {
     if (typeof budget !== "number" || !Number.isFinite(budget)) {
-      return fail(`${path}.budget`, `must be a finite amount of money >= 0 (got ${describe(budget)})`);
+      return fail(
+        `${path}.budget`,
+        `must be a finite amount of money >= 0 (got ${describe(budget)})`,
+      );
     }
     if (budget < 0) return fail(`${path}.budget`, `must be >= 0 (got ${budget})`);
     rival.budget = budget;
@@ -193,7 +199,8 @@ export function validateFrontsScenario(input: unknown): Parsed<FrontsScenario> {
     const r = validateRival(rivalsIn[i], i, fronts.length);
     if (!r.ok) return r;
     const prev = names.get(r.value.name);
-    if (prev !== undefined) return fail(`rivals.${i}.name`, `duplicates the name of rivals.${prev}`);
+    if (prev !== undefined)
+      return fail(`rivals.${i}.name`, `duplicates the name of rivals.${prev}`);
     names.set(r.value.name, i);
     rivals.push(r.value);
   }
