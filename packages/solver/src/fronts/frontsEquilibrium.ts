@@ -104,8 +104,7 @@ function frontsAt(fc: FrontsContest, mu: readonly number[], concave: boolean): n
     if (concave) {
       const sf = shareFunctionEquilibrium(c);
       efforts = sf?.ok ? sf.efforts : null;
-    }
-    else {
+    } else {
       const eq = solve(c).equilibrium;
       efforts = eq.kind === "pure" ? eq.efforts : null;
     }
