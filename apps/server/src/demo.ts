@@ -3,17 +3,15 @@
  * solver's examples, three rounds, one rival played by the computer.
  */
 import { readFileSync } from "node:fs";
-import path from "node:path";
 import { fileURLToPath } from "node:url";
 import type { Database } from "@contend/db";
 import { parseSessionScenario } from "@contend/protocol";
 import type { CreateSessionResponse } from "@contend/protocol";
 import { createLiveSession } from "./live/create";
 
-const here = path.dirname(fileURLToPath(import.meta.url));
-export const DEMO_SCENARIO_FILE = path.resolve(
-  here,
-  "../../../packages/solver/scenarios/kiosk-lease.json",
+/** The solver's invented example, through its package exports (not a path into its folder). */
+export const DEMO_SCENARIO_FILE = fileURLToPath(
+  import.meta.resolve("@contend/solver/scenarios/kiosk-lease.json"),
 );
 
 export function demoScenario(): unknown {

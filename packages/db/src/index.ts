@@ -14,7 +14,7 @@ export {
   DEFAULT_MIGRATIONS_DIR,
   MIGRATIONS_TABLE,
 } from "./migrate";
-export type { AppendEffects, AppendResult } from "./repos/events";
+export type { AppendEffects } from "./repos/events";
 export type { CreateSessionInput, CreateSessionResult } from "./repos/sessions";
 export type { ClaimResult } from "./repos/seats";
 export type { ScenarioRecord, ScenarioSummary } from "./repos/scenarios";

@@ -1,8 +1,17 @@
+import type { Role as ProtocolRole, SeatKind } from "@contend/protocol";
 import type { PrismaClient } from "./generated/prisma/client";
 
 export type Db = PrismaClient;
-export type Role = "facilitator" | "seat" | "spectator";
-export type SeatKind = "human" | "computer";
+/** Roles a key can grant: the protocol's roles but "guest", who holds no key. */
+export type Role = Exclude<ProtocolRole, "guest">;
+export type { SeatKind };
+
+/** What an append of events reports; expected refusals are values, not exceptions. */
+export type AppendResult =
+  | { ok: true; seqs: number[] }
+  | { ok: false; code: "conflict"; lastSeq: number }
+  | { ok: false; code: "not-found" }
+  | { ok: false; code: "seat-claimed"; seatIndex: number };
 
 /**
  * JSON columns (scenario, payload, body) take plain data: anything JSON.stringify keeps.

@@ -1,5 +1,5 @@
 import type { SqlRunner } from "../sql-runner";
-import type { Db, KeyInput, NewEvent, StoredEvent } from "../types";
+import type { AppendResult, Db, KeyInput, NewEvent, StoredEvent } from "../types";
 import { createGroupCommit, groupMember } from "./group-commit";
 import { keyRows } from "./keys";
 import { Prisma } from "../generated/prisma/client";
@@ -14,12 +14,6 @@ export interface AppendEffects {
   /** Keys to store hashed (e.g. the key handed to whoever claimed a seat). */
   addKeys?: KeyInput[];
 }
-
-export type AppendResult =
-  | { ok: true; seqs: number[] }
-  | { ok: false; code: "conflict"; lastSeq: number }
-  | { ok: false; code: "not-found" }
-  | { ok: false; code: "seat-claimed"; seatIndex: number };
 
 /** One INSERT for a run of events from firstSeq on (raw, for exact JSON numbers: see jsonText). */
 export function insertEvents(sessionId: string, firstSeq: number, events: NewEvent[]): Prisma.Sql {

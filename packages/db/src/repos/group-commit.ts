@@ -1,5 +1,5 @@
 import type { PreparedStatement, SqlRunner } from "../sql-runner";
-import type { NewEvent } from "../types";
+import type { AppendResult, NewEvent } from "../types";
 import { jsonText } from "./rows";
 
 /** One append waiting for the next group commit: events, a status change and seat claims. */
@@ -12,12 +12,6 @@ export interface GroupMember {
   /** seats to mark claimed with the events; one that is taken (or missing) fails the member */
   claims: { seatIndex: number; displayName: string }[];
 }
-
-export type GroupResult =
-  | { ok: true; seqs: number[] }
-  | { ok: false; code: "conflict"; lastSeq: number }
-  | { ok: false; code: "not-found" }
-  | { ok: false; code: "seat-claimed"; seatIndex: number };
 
 export function groupMember(
   sessionId: string,
@@ -63,8 +57,8 @@ const MAX_IN_FLIGHT = 2;
 export function createGroupCommit<F = never>(runner: SqlRunner) {
   type Waiter = {
     member: GroupMember;
-    single: () => Promise<GroupResult | F>;
-    resolve: (r: GroupResult | F) => void;
+    single: () => Promise<AppendResult | F>;
+    resolve: (r: AppendResult | F) => void;
     reject: (e: unknown) => void;
   };
   let queue: Waiter[] = [];
@@ -112,7 +106,7 @@ export function createGroupCommit<F = never>(runner: SqlRunner) {
     for (const w of group) busy.add(w.member.sessionId);
     schedule();
     try {
-      let results: GroupResult[] | null = null;
+      let results: AppendResult[] | null = null;
       try {
         results = await commitGroup(
           runner,
@@ -137,7 +131,10 @@ export function createGroupCommit<F = never>(runner: SqlRunner) {
 
   return {
     /** `single` appends this member alone, if the group it was in failed as a whole */
-    append(member: GroupMember, single: () => Promise<GroupResult | F>): Promise<GroupResult | F> {
+    append(
+      member: GroupMember,
+      single: () => Promise<AppendResult | F>,
+    ): Promise<AppendResult | F> {
       return new Promise((resolve, reject) => {
         queue.push({ member, single, resolve, reject });
         schedule();
@@ -211,7 +208,7 @@ const GROUP_COMMIT: PreparedStatement = {
      ORDER BY v.i`,
 };
 
-async function commitGroup(runner: SqlRunner, members: GroupMember[]): Promise<GroupResult[]> {
+async function commitGroup(runner: SqlRunner, members: GroupMember[]): Promise<AppendResult[]> {
   const rows = members.flatMap((m) =>
     m.rows.map((row, k) => ({ sessionId: m.sessionId, seq: m.expectedLastSeq + 1 + k, ...row })),
   );
@@ -252,7 +249,7 @@ async function commitGroup(runner: SqlRunner, members: GroupMember[]): Promise<G
     );
     for (const r of rows) current.set(r.id, Number(r.lastSeq));
   }
-  return members.map((m, i): GroupResult => {
+  return members.map((m, i): AppendResult => {
     const { won, taken } = outcomes[i]!;
     if (won) return { ok: true, seqs: m.rows.map((_, k) => m.expectedLastSeq + 1 + k) };
     const lastSeq = current.get(m.sessionId);
