@@ -28,7 +28,7 @@
 import type { Opposition } from "../bestResponse";
 import { bestResponseAgainst, oppositions } from "../bestResponse";
 import { residualFrontCandidate } from "./residualFront";
-import type { Contest } from "../types";
+import type { Contest, Rival } from "../types";
 import type { BestAllocation, FrontsContest, FrontsResponses } from "./types";
 
 /** Most steps of the root search on ln mu. */
@@ -98,23 +98,27 @@ export function bestAllocationAgainst(
   const rv = fc.rivals[i]!;
   const K = fc.fronts.length;
   const B = rv.budget;
-  const scratch: Contest[] = fc.contests.map((c) => ({ ...c, rivals: c.rivals.slice() }));
+  // one mutable copy of rival i per front, so a probe allocates nothing but its row
+  const caps = rv.cost.map((c) => (B === Infinity ? Infinity : B / c));
+  const mine: Rival[] = fc.contests.map((c, k) => ({ ...c.rivals[i]!, maxEffort: caps[k]! }));
+  const scratch: Contest[] = fc.contests.map((c, k) => {
+    const rivals = c.rivals.slice();
+    rivals[i] = mine[k]!;
+    return { ...c, rivals };
+  });
+  // a front nobody else contests is won by the smallest step: keep it small in money
+  const steps = rv.cost.map((c, k) => ({
+    step: Math.min((1e-9 * (B < Infinity ? B : rv.value[k]!)) / c, caps[k]!),
+  }));
   /** each front's global best response when money costs mu per unit */
   const at = (mu: number): number[] => {
     const row = new Array<number>(K);
     for (let k = 0; k < K; k++) {
-      const base = fc.contests[k]!.rivals[i]!;
-      const cap = B === Infinity ? Infinity : B / rv.cost[k]!;
       // the shadow cost buys effort; the cap is still the whole budget in effort on this front
-      scratch[k]!.rivals[i] = {
-        ...base,
-        cost: mu * rv.cost[k]!,
-        maxEffort: cap,
-        maxSpend: cap * mu * rv.cost[k]!,
-      };
-      // a front nobody else contests is won by the smallest step: keep it small in money
-      const step = Math.min((1e-9 * (B < Infinity ? B : rv.value[k]!)) / rv.cost[k]!, cap);
-      row[k] = bestResponseAgainst(scratch[k]!, i, opp[k]!, { step }).effort;
+      const me = mine[k]!;
+      me.cost = mu * rv.cost[k]!;
+      me.maxSpend = caps[k]! * me.cost;
+      row[k] = bestResponseAgainst(scratch[k]!, i, opp[k]!, steps[k]).effort;
     }
     return row;
   };
