@@ -4,7 +4,7 @@
 // implements them (Tullock 1980; Hillman & Riley 1989; Nti 1999; Che & Gale 1997).
 import { describe, expect, test } from "vitest";
 import { normalize, solve } from "../src/index";
-import { normalizeFronts, solveFronts, validateFrontsScenario } from "../src/fronts";
+import { normalizeFronts, solveFronts, sweepFronts, validateFrontsScenario } from "../src/fronts";
 import type { FrontsScenario } from "../src/fronts/types";
 import type { CsfSpec, RivalSpec, Scenario } from "../src/types";
 import { maxRelDiff } from "./reference";
@@ -235,5 +235,56 @@ describe("no budget: the fronts decouple into independent contests", () => {
     expect(eq.shadowPrices).toEqual([null, null, null]);
     // and an independent optimiser finds nothing better for anyone
     expect(refFrontsGap(fcx, eq.allocations!)).toBeLessThan(1e-6 * 390);
+  });
+});
+
+describe("sweepFronts", () => {
+  test("sweepFronts(Friedman case, rivals.0.budget 10..50) follows x_0k = B_0 V_k / sum V at every point", () => {
+    const s: FrontsScenario = {
+      title: "sweep",
+      fronts: [100, 300].map((p, k) => ({
+        name: `F${k}`,
+        prize: p,
+        csf: { kind: "ratio", decisiveness: 1 },
+      })),
+      rivals: [
+        { name: "A", cost: 1, budget: 20, sunkBudget: true },
+        { name: "B", cost: 1, budget: 40, sunkBudget: true },
+      ],
+    };
+    const res = sweepFronts(s, { param: "rivals.0.budget", from: 10, to: 50, steps: 5 });
+    expect(res.ok).toBe(true);
+    if (!res.ok) return;
+    expect(res.value.map((p) => p.value)).toEqual([10, 20, 30, 40, 50]);
+    for (const p of res.value) {
+      expect(p.equilibrium.allocations![0]![0]).toBeCloseTo((p.value * 100) / 400, 6);
+      expect(p.equilibrium.allocations![0]![1]).toBeCloseTo((p.value * 300) / 400, 6);
+    }
+  });
+
+  test("sweepFronts(a per-front cost path) changes only that front's cost; bad paths and values name the path", () => {
+    const base = validateFrontsScenario({
+      title: "x",
+      fronts: [
+        { name: "F0", prize: 100, csf: { kind: "ratio", decisiveness: 1 } },
+        { name: "F1", prize: 100, csf: { kind: "ratio", decisiveness: 1 } },
+      ],
+      rivals: [
+        { name: "A", cost: 1 },
+        { name: "B", cost: 1 },
+      ],
+    });
+    if (!base.ok) throw new Error(base.message);
+    const res = sweepFronts(base.value, { param: "rivals.1.cost.0", from: 1, to: 3, steps: 3 });
+    expect(res.ok).toBe(true);
+    if (!res.ok) return;
+    // front 1 untouched: symmetric Tullock e* = v (n - 1) / (m n^2) = 25 (Tullock 1980)
+    for (const p of res.value) expect(p.equilibrium.allocations![1]![1]).toBeCloseTo(25, 8);
+    // front 0 with costs 1 and 3: e_1 = v m_2 / (m_1 + m_2)^2 = 300 / 16 (Hillman & Riley 1989)
+    expect(res.value[2]!.equilibrium.allocations![0]![0]).toBeCloseTo(300 / 16, 8);
+    const bad = sweepFronts(base.value, { param: "rivals.5.cost.0", from: 1, to: 2, steps: 2 });
+    expect(bad.ok ? "" : bad.path).toBe("rivals.5.cost.0");
+    const neg = sweepFronts(base.value, { param: "fronts.0.prize", from: -1, to: 2, steps: 2 });
+    expect(neg.ok ? "" : neg.message).toMatch(/fronts\.0\.prize/);
   });
 });

@@ -5,3 +5,4 @@ export * from "./normalizeFronts";
 export * from "./bestAllocation";
 export * from "./frontsEquilibrium";
 export * from "./frontsReading";
+export * from "./frontsSweep";
