@@ -70,7 +70,7 @@ test("new-session form(negative cost, text, empty) shows a message per field and
   await expect(page.getByTestId("created-session")).toHaveCount(0);
 
   // Session settings are checked the same way.
-  await expectRefused(page, /^Effort step/, "0");
+  await expectRefused(page, /^Spend step/, "0");
   await expectRefused(page, "Rounds", "2.5");
   await page.getByTestId("create-session").click();
 
@@ -133,7 +133,7 @@ test("seat effort(negative, off-step, empty) is refused on the page and no move 
     await page.goto(pathOf(created.seats[0]!.link!));
     await expect(page.getByRole("heading", { level: 1, name: "Marigold Stall" })).toBeVisible();
     await fac.command({ type: "openRound" });
-    const input = page.getByTestId("effort-input");
+    const input = page.getByTestId("spend-input");
     const seal = page.getByTestId("seal-button");
     await expect(input).toBeEnabled();
 
@@ -143,7 +143,7 @@ test("seat effort(negative, off-step, empty) is refused on the page and no move 
     ] as const) {
       await input.fill(typed);
       await expect(input, why).toHaveAttribute("aria-invalid", "true");
-      await expect(page.locator("#effort-error"), why).not.toHaveText("");
+      await expect(page.locator("#spend-error"), why).not.toHaveText("");
       await expect(seal, why).toBeDisabled();
       await input.press("Enter");
       await expect(page.getByTestId("seal-confirm")).toHaveCount(0);

@@ -4,8 +4,9 @@
  * they play three rounds with a cost shock before round 3.
  *
  * What it proves:
- * - each seat sees its own payoff, share, best reply and regret, equal (at the precision shown)
- *   to what the solver computes for the efforts typed; the round's Nash gap too;
+ * - each seat sees its own payoff, share, best reply (in money) and regret, equal (at the
+ *   precision shown) to what the solver computes for the spends typed (effort = spend / cost);
+ *   the round's Nash gap too;
  * - before a round is revealed, no other participant's page shows a sealed effort, and no
  *   socket frame sent to anyone but its owner carries it (the owner's frames do: the recorder
  *   would catch a leak);
@@ -22,14 +23,14 @@ import {
   expectShownAll,
   linkValue,
   phoneContext,
-  sealEffort,
+  sealSpend,
 } from "../support/live";
 import { expectShown } from "../support/numbers";
 
 const NAMES = ["Larkspur Bakehouse", "Millstone Loaves", "Hearth Lane Bakery", "Oven Row Bakery"];
 const COMPUTER = 2;
 const HUMANS = [0, 1, 3];
-/** Distinct efforts per round (two decimals, below 10, so every screen shows them as typed). */
+/** Distinct spends per round (two decimals, below 10, so every screen shows them as typed). */
 const PLAYED: Record<number, number>[] = [
   { 0: 7.43, 1: 8.91, 3: 6.17 },
   { 0: 5.38, 1: 9.26, 3: 4.79 },
@@ -91,7 +92,7 @@ test("live session(3 people + 1 computer, 3 rounds, shock before round 3) shows 
   await expect(fac.getByRole("combobox", { name: "Rival 3 played by" })).toHaveValue("equilibrium");
   await expect(fac.getByRole("combobox", { name: "Rival 4 played by" })).toHaveValue("human");
   await fac.getByRole("radio", { name: "Prize shared by winning chance" }).check();
-  await fac.getByRole("textbox", { name: /^Effort step/ }).fill("0.01");
+  await fac.getByRole("textbox", { name: /^Spend step/ }).fill("0.01");
   await fac.getByRole("textbox", { name: "Rounds", exact: true }).fill("3");
   await fac.getByRole("textbox", { name: /^Round clock/ }).fill("");
   await expect(fac.getByTestId("error-count")).toHaveText("Ready.");
@@ -172,13 +173,13 @@ test("live session(3 people + 1 computer, 3 rounds, shock before round 3) shows 
     }
 
     await fac.getByTestId("open-round").click();
-    for (const i of HUMANS) await expect(seats[i]!.page.getByTestId("effort-input")).toBeEnabled();
+    for (const i of HUMANS) await expect(seats[i]!.page.getByTestId("spend-input")).toBeEnabled();
     // The computer seals when the round opens.
     await expect(fac.getByTestId(`seat-sealed-${COMPUTER}`)).toHaveAttribute("data-sealed", "yes");
 
     const sealedSoFar: number[] = [];
     for (const [k, i] of HUMANS.entries()) {
-      await sealEffort(seats[i]!.page, played[i]!, k === HUMANS.length - 1);
+      await sealSpend(seats[i]!.page, played[i]!, k === HUMANS.length - 1);
       sealedSoFar.push(played[i]!);
       if (k === HUMANS.length - 1) break; // the last seal resolves the round
       await expect(fac.getByTestId(`seat-sealed-${i}`)).toHaveAttribute("data-sealed", "yes");
@@ -209,14 +210,21 @@ test("live session(3 people + 1 computer, 3 rounds, shock before round 3) shows 
     ).toBeVisible();
 
     const exported = (await exportJson(origin, sessionId)) as {
-      rounds: { round: number; efforts: number[] }[];
+      rounds: { round: number; efforts: number[]; spends: number[] }[];
     };
     const stored = exported.rounds.find((r) => r.round === round);
     expect(stored, `export has round ${round}`).toBeTruthy();
-    const efforts = [played[0]!, played[1]!, stored!.efforts[COMPUTER]!, played[3]!];
-    for (const i of HUMANS) expect(stored!.efforts[i]).toBeCloseTo(played[i]!, 9);
-
+    // Seats type money; the model's effort is spend / cost.
     const contest = normalize(scenarioFor(round));
+    const costs = contest.rivals.map((r) => r.cost);
+    const efforts = [0, 1, 2, 3].map((i) =>
+      i === COMPUTER ? stored!.efforts[COMPUTER]! : played[i]! / costs[i]!,
+    );
+    for (const i of HUMANS) {
+      expect(stored!.spends[i]).toBe(played[i]!);
+      expect(stored!.efforts[i]).toBeCloseTo(efforts[i]!, 12);
+    }
+
     const reference = respond(contest, efforts);
     const refShares = shares(contest, efforts);
     for (const i of HUMANS) {
@@ -226,7 +234,7 @@ test("live session(3 people + 1 computer, 3 rounds, shock before round 3) shows 
       await expectShown(page.getByTestId("seat-share"), refShares[i]!, `${label} share`, 100);
       await expectShown(
         page.getByTestId("seat-best-reply"),
-        reference.bestResponses[i]!,
+        costs[i]! * reference.bestResponses[i]!,
         `${label} best reply`,
       );
       await expectShown(page.getByTestId("seat-regret"), reference.regrets[i]!, `${label} regret`);
@@ -257,7 +265,9 @@ test("live session(3 people + 1 computer, 3 rounds, shock before round 3) shows 
         `${p.who} received frames before round ${round} was revealed`,
       ).toBeGreaterThan(0);
       for (const j of HUMANS) {
-        const carrying = framesCarrying(before, [played[j]!]);
+        // the spend typed and the effort it buys (spend / cost) are both private
+        const costJ = scenarioFor(round).rivals[j]!.cost;
+        const carrying = framesCarrying(before, [played[j]!, played[j]! / costJ]);
         if (p.seat === j && j !== HUMANS[HUMANS.length - 1]) {
           // (the last sealer's move resolves the round, so its next view is already the reveal)
           expect(carrying.length, `${p.who} got its own sealed effort back`).toBeGreaterThan(0);

@@ -41,6 +41,8 @@ const PLAYED = [
 interface ExportRound {
   round: number;
   efforts: number[];
+  spends: number[];
+  bestResponseSpends: number[];
   payoffs: number[];
   shares: number[];
   bestResponses: number[];
@@ -138,9 +140,9 @@ test("replay(finished 3-round session) steps round by round and its downloads eq
       const cells = table.locator("tbody tr").nth(row);
       await expect(cells.locator('[data-col="name"]')).toHaveText(NAMES[seat]!);
       await expectShown(
-        cells.locator('[data-col="effort"]'),
-        r.efforts[row]!,
-        `round ${r.round} ${NAMES[seat]} effort`,
+        cells.locator('[data-col="spend"]'),
+        r.spends[row]!,
+        `round ${r.round} ${NAMES[seat]} spend`,
       );
       await expectShown(
         cells.locator('[data-col="payoff"]'),
@@ -149,7 +151,7 @@ test("replay(finished 3-round session) steps round by round and its downloads eq
       );
       await expectShown(
         cells.locator('[data-col="bestResponse"]'),
-        r.bestResponses[row]!,
+        r.bestResponseSpends[row]!,
         `round ${r.round} ${NAMES[seat]} best reply`,
       );
       await expectShown(

@@ -10,7 +10,7 @@ import { normalize, respond } from "@contend/solver";
 import type { Scenario } from "@contend/solver";
 import { createSession, exportJson } from "../support/api";
 import { expect, test } from "../support/fixtures";
-import { pathOf, sealEffort } from "../support/live";
+import { pathOf, sealSpend } from "../support/live";
 import { expectShown } from "../support/numbers";
 import { ServerProcess } from "../support/server";
 
@@ -37,7 +37,7 @@ const SCENARIO: Scenario & { session: Record<string, unknown> } = {
 
 interface Exported {
   events: { seq: number; type: string }[];
-  rounds: { round: number; efforts: number[]; payoffs: number[] }[];
+  rounds: { round: number; efforts: number[]; spends: number[]; payoffs: number[] }[];
 }
 
 test.describe.configure({ timeout: 300_000 });
@@ -69,14 +69,14 @@ test("seat page closed and reopened, then server killed and restarted mid-round:
 
     // --- round 1: close and reopen a seat page --------------------------------------------
     await fac.getByTestId("open-round").click();
-    await sealEffort(seat0, 7.43);
+    await sealSpend(seat0, 7.43);
     await expect(fac.getByTestId("seat-sealed-0")).toHaveAttribute("data-sealed", "yes");
     const seat0Context = seat0.context();
     await seat0.close();
     seat0 = await seat0Context.newPage();
     await seat0.goto(seatLink(0));
     await expect(seat0.getByTestId("seat-sealed-amount")).toHaveText(/7\.43$/);
-    await expect(seat0.getByTestId("effort-input")).toBeEnabled();
+    await expect(seat0.getByTestId("spend-input")).toBeEnabled();
     await saveScreen(seat0, "resilience-seat-reopened");
 
     // --- kill the server with one move acknowledged and one still to come ----------------
@@ -110,14 +110,15 @@ test("seat page closed and reopened, then server killed and restarted mid-round:
     // Round 1 is still open, so its sealed moves stay out of the export; what was there is kept.
     expect(after.events.slice(0, before.events.length)).toEqual(before.events);
 
-    await sealEffort(seat1, 8.91, true);
+    await sealSpend(seat1, 8.91, true);
     await expect(seat1.getByRole("heading", { name: "Round 1 result" })).toBeVisible();
     await expect(seat0.getByRole("heading", { name: "Round 1 result" })).toBeVisible();
 
     const round1 = (await exportJson(origin, created.id)) as Exported;
     const r1 = round1.rounds.find((r) => r.round === 1)!;
-    expect(r1.efforts[0]).toBeCloseTo(7.43, 9);
-    expect(r1.efforts[1]).toBeCloseTo(8.91, 9);
+    // seats type money; the engine's effort is spend / cost (Millstone's cost is 1.25)
+    expect(r1.spends.slice(0, 2)).toEqual([7.43, 8.91]);
+    expect(r1.efforts[1]).toBeCloseTo(8.91 / 1.25, 12);
     const reference = respond(normalize(SCENARIO), r1.efforts);
     await expectShown(
       seat0.getByTestId("seat-payoff"),
@@ -132,8 +133,8 @@ test("seat page closed and reopened, then server killed and restarted mid-round:
 
     // --- the session goes on: round 2 on the restarted server -----------------------------
     await fac.getByTestId("open-round").click();
-    await sealEffort(seat0, 5.38);
-    await sealEffort(seat1, 9.26, true);
+    await sealSpend(seat0, 5.38);
+    await sealSpend(seat1, 9.26, true);
     // Kill again the moment the last seal is acknowledged: the move is committed, and the
     // round either resolved already or must resolve when the server restores the session.
     await server.restart("SIGKILL");
@@ -145,7 +146,7 @@ test("seat page closed and reopened, then server killed and restarted mid-round:
     await expect(fac.getByTestId("session-status")).toHaveText("Round revealed");
     const final = (await exportJson(origin, created.id)) as Exported;
     expect(final.rounds.map((r) => r.round)).toEqual([1, 2]);
-    expect(final.rounds[1]!.efforts.slice(0, 2)).toEqual([5.38, 9.26]);
+    expect(final.rounds[1]!.spends.slice(0, 2)).toEqual([5.38, 9.26]);
     // One unbroken event log: 1, 2, 3, ... with nothing lost or duplicated across the restart.
     const seqs = final.events.map((e) => e.seq);
     expect(seqs).toEqual(seqs.map((_, k) => k + 1));

@@ -31,20 +31,20 @@ export async function linkValue(field: Locator): Promise<string> {
 }
 
 /**
- * Types an effort on a seat page, confirms it and waits until the page says it is sealed. The
- * last seal of a round resolves it at once, so then only the confirmation closing is awaited.
+ * Types a spend (money) on a seat page, confirms it and waits until the page says it is sealed.
+ * The last seal of a round resolves it at once, so then only the confirmation closing is awaited.
  */
-export async function sealEffort(seat: Page, effort: number, resolvesRound = false): Promise<void> {
-  const input = seat.getByTestId("effort-input");
+export async function sealSpend(seat: Page, spend: number, resolvesRound = false): Promise<void> {
+  const input = seat.getByTestId("spend-input");
   await expect(input).toBeEnabled();
-  await input.fill(String(effort));
+  await input.fill(String(spend));
   await seat.getByTestId("seal-button").click();
   await expect(seat.getByTestId("seal-confirm")).toBeVisible();
   await seat.getByTestId("seal-confirm-button").click();
   await expect(seat.getByTestId("seal-confirm")).toBeHidden();
   if (resolvesRound) return;
   await expect(seat.getByTestId("seat-sealed-amount")).toHaveText(
-    new RegExp(`${String(effort).replace(".", "\\.")}$`),
+    new RegExp(`${String(spend).replace(".", "\\.")}$`),
   );
 }
 

@@ -23,7 +23,7 @@ export function demoScenario(): unknown {
     ...contest,
     session: {
       outcome: "shares",
-      effortStep: 100,
+      spendStep: 100,
       rounds: 3,
       clockSeconds: null,
       missingMove: "zero",

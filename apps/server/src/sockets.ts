@@ -384,6 +384,7 @@ export function attachSockets(deps: SocketDeps) {
           seatIndex: d.seatIndex,
           clientMoveId: d.clientMoveId,
           effort: d.effort,
+          spend: d.spend,
         },
       };
     }

@@ -77,7 +77,12 @@ describe("restart", () => {
         await hello(again0, { role: "seat", sessionId: a.id, key: a.seats[0]!.key }, ack0.seq),
       );
       expect(h0.view.status).toBe("open");
-      expect(h0.view.you).toEqual({ seatIndex: 0, sealedEffort: 37.25, clientMoveId: "m0" });
+      expect(h0.view.you).toEqual({
+        seatIndex: 0,
+        sealedEffort: 37.25,
+        sealedSpend: 37.25, // cost 1
+        clientMoveId: "m0",
+      });
       expect(h0.view.seats.map((s) => s.sealed)).toEqual([true, true, false]);
       const again1 = await client(second.url);
       const h1 = expectOk(

@@ -174,12 +174,15 @@ describe("a full live session over sockets", () => {
     expect(csvRes.headers.get("content-type")).toMatch(/text\/csv/);
     const lines = (await csvRes.text()).trimEnd().split("\r\n");
     expect(lines[0]).toBe(
-      "round,seat,rival,effort,share,payoff,total,bestResponse,regret,equilibriumEffort,defaulted,reason",
+      "round,seat,rival,spend,effort,share,payoff,total,bestResponseSpend,bestResponse,regret,equilibriumSpend,equilibriumEffort,defaulted,reason",
     );
     expect(lines).toHaveLength(1 + 3 * 3);
     const row = lines[1]!.split(",");
-    expect(row.slice(0, 4)).toEqual(["1", "0", "Inkwell Press", "37.25"]);
-    expect(Number(row[5])).toBeCloseTo(final.rounds[0]!.payoffs[0]!, 9);
+    // cost 1: the spend equals the effort
+    expect(row.slice(0, 5)).toEqual(["1", "0", "Inkwell Press", "37.25", "37.25"]);
+    expect(Number(row[6])).toBeCloseTo(final.rounds[0]!.payoffs[0]!, 9);
+    // Foxglove Prints (cost 1.25) sealed effort 12.5: a spend of 15.625
+    expect(lines[2]!.split(",").slice(2, 5)).toEqual(["Foxglove Prints", "15.625", "12.5"]);
     expect(lines.filter((l) => l.startsWith("3,"))).toHaveLength(3);
   });
 

@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { roundWithMoney } from "@contend/session";
 import { normalize, sweep1d } from "@contend/solver";
 import type { RoundResult } from "@contend/protocol";
 import {
@@ -95,43 +96,46 @@ describe("turningPoints", () => {
   });
 });
 
-const round: RoundResult = {
-  round: 2,
-  reason: "all-sealed",
-  efforts: [10, 0, 30],
-  defaulted: [false, false, true],
-  shares: [0.25, 0, 0.75],
-  winner: null,
-  drawSeed: null,
-  payoffs: [15, 0, 45],
-  expectedPayoffs: [15, 0, 45],
-  totals: [20, 0, 50],
-  bestResponses: [12, 0, 20],
-  regrets: [1, 0, 4],
-  equilibrium: {
-    kind: "pure",
-    efforts: [11, 22],
-    shares: [0.33, 0.67],
-    payoffs: [5, 6],
-    totalEffort: 33,
-    dissipation: 0.33,
-    active: [true, true],
-    nashGap: 0,
-    method: "closed-form",
+// Built with the engine's own money derivation (spend = cost x effort); C's cost is 1.5.
+const round: RoundResult = roundWithMoney(
+  {
+    round: 2,
+    reason: "all-sealed",
+    efforts: [10, 0, 30],
+    defaulted: [false, false, true],
+    shares: [0.25, 0, 0.75],
+    winner: null,
+    drawSeed: null,
+    payoffs: [15, 0, 45],
+    expectedPayoffs: [15, 0, 45],
+    totals: [20, 0, 50],
+    bestResponses: [12, 0, 20],
+    regrets: [1, 0, 4],
+    equilibrium: {
+      kind: "pure",
+      efforts: [11, 22],
+      shares: [0.33, 0.67],
+      payoffs: [5, 6],
+      totalEffort: 33,
+      dissipation: 0.33,
+      active: [true, true],
+      nashGap: 0,
+      method: "closed-form",
+    },
+    nashGap: 4,
+    dissipation: 0.4,
   },
-  nashGap: 4,
-  dissipation: 0.4,
-  scenario: {
+  {
     title: "t",
     prize: 100,
     csf: { kind: "ratio", decisiveness: 1 },
     rivals: [
       { name: "A", cost: 1 },
-      { name: "C", cost: 1 },
+      { name: "C", cost: 1.5 },
     ],
   },
-  seatIndices: [0, 2],
-};
+  [0, 2],
+);
 
 describe("session rows", () => {
   it("equilibriumEffortOf(round, seat) follows seatIndices, not seat numbers", () => {
@@ -139,16 +143,17 @@ describe("session rows", () => {
     expect(equilibriumEffortOf(round, 2)).toBe(22);
     expect(equilibriumEffortOf(round, 1)).toBeNull();
   });
-  it("seatHistoryRows(rounds, seat) lists only rounds the seat played", () => {
+  it("seatHistoryRows(rounds, seat) lists only rounds the seat played, in money", () => {
+    // cost 1.5: effort 30 -> spend 45, equilibrium effort 22 -> 33, best reply 20 -> 30
     expect(seatHistoryRows([round], 2)).toEqual([
-      { round: 2, effort: 30, equilibrium: 22, bestResponse: 20, regret: 4, payoff: 45, total: 50 },
+      { round: 2, spend: 45, equilibrium: 33, bestResponse: 30, regret: 4, payoff: 45, total: 50 },
     ]);
     expect(seatHistoryRows([round], 1)).toEqual([]);
   });
   it("roundSeatRows(round, names) gives one row per playing seat with its defaulted flag", () => {
     const rows = roundSeatRows(round, ["A", "B", "C"]);
     expect(rows.map((r) => r.name)).toEqual(["A", "C"]);
-    expect(rows[1]).toMatchObject({ effort: 30, equilibrium: 22, share: 0.75, defaulted: "yes" });
+    expect(rows[1]).toMatchObject({ spend: 45, equilibrium: 33, share: 0.75, defaulted: "yes" });
   });
   it("perSeatOverRounds(rounds, seats, pick) leaves null for seats not in a round", () => {
     expect(perSeatOverRounds([round], [0, 1, 2], (r, s) => r.regrets[s] ?? null)).toEqual([

@@ -56,7 +56,7 @@ describe("formToScenario", () => {
     expect(r.scenario.prize).toBe(100);
     expect(r.scenario.rivals.map((x) => x.cost)).toEqual([1, 1]);
     expect(r.scenario.session).toMatchObject({
-      effortStep: 1,
+      spendStep: 1,
       rounds: 5,
       clockSeconds: null,
       computer: {},

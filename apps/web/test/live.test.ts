@@ -5,29 +5,89 @@ import { apply, createSession, decide, fold } from "@contend/session";
 import type { Actor, EngineCommand, SessionState } from "@contend/session";
 import {
   invitesFor,
-  isOnStep,
   issuedLinkOf,
   clockOffsetMs,
+  readSpend,
   remainingMs,
-  snapToStep,
   withIssuedLink,
 } from "../src/lib/live";
 import { describeEvent, parseExport, seatSummary, viewAfter } from "../src/lib/replay";
 import { blankDraft, describeShock, draftToShock } from "../src/lib/shock-form";
 import { roundSeatRows } from "../src/lib/chart-data";
 
-describe("effort steps", () => {
-  it("snapToStep(value, step) rounds to the nearest multiple without float dust", () => {
-    expect(snapToStep(12.3, 0.5)).toBe(12.5);
-    expect(snapToStep(0.30000000000000004, 0.1)).toBe(0.3);
-    expect(snapToStep(1249, 500)).toBe(1000);
-    expect(snapToStep(1251, 500)).toBe(1500);
+// One rule, one place: the seat form checks a spend with the engine's rule, so it refuses
+// exactly what the server refuses. Two cases where the web's own copy used to disagree: 5e-7
+// on a step of 1000 (the web accepted, the server refused) and 30.00000001 against a budget of
+// 30 (the web refused, the server accepted within its 1e-9 relative tolerance).
+describe("readSpend: the seat form and the engine agree", () => {
+  const engineVerdict = (spend: number, session: object, rivals?: object[]) => {
+    const parsed = parseSessionScenario({
+      title: "t",
+      prize: 100,
+      csf: { kind: "ratio", decisiveness: 1 },
+      rivals: rivals ?? [
+        { name: "A", cost: 1, budget: 30 },
+        { name: "B", cost: 1 },
+      ],
+      session,
+    });
+    if (!parsed.ok) throw new Error(parsed.message);
+    let state: SessionState = fold([]);
+    const commit = (events: readonly EventBody[]) => {
+      for (const e of events) {
+        state = apply(state, { ...e, seq: state.seq + 1, at: 0 } as SessionEvent);
+      }
+    };
+    commit([createSession({ sessionId: "s", scenario: parsed.value, seed: 1 })]);
+    const run = (command: EngineCommand, actor: Actor) => {
+      const d = decide(state, command, { now: 0, actor });
+      if (d.ok) commit(d.events);
+      return d.ok;
+    };
+    run({ type: "openRound" }, { role: "facilitator" });
+    return run({ type: "sealMove", clientMoveId: "m", spend }, { role: "seat", seatIndex: 0 });
+  };
+
+  it("readSpend(5e-7, step 1000) refuses, as the engine does; the nearest amount is 0", () => {
+    const entry = readSpend("5e-7", { cost: 1, budget: 30 }, 1000, "$");
+    expect(entry).toMatchObject({ typed: true, ok: false, nearest: 0 });
+    expect(engineVerdict(5e-7, { spendStep: 1000 })).toBe(false);
   });
-  it("isOnStep(value, step) accepts multiples within 1e-9 relative and refuses others", () => {
-    expect(isOnStep(0.3, 0.1)).toBe(true);
-    expect(isOnStep(1500, 500)).toBe(true);
-    expect(isOnStep(1501, 500)).toBe(false);
-    expect(isOnStep(0.25, 0.1)).toBe(false);
+
+  it("readSpend(30.00000001, budget 30) accepts, as the engine does", () => {
+    const entry = readSpend("30.00000001", { cost: 1, budget: 30 }, 1e-8, "$");
+    expect(entry).toMatchObject({ typed: true, ok: true });
+    expect(engineVerdict(30.00000001, { spendStep: 1e-8 })).toBe(true);
+    // a clear excess is refused by both, and the form says so in money
+    const over = readSpend("31", { cost: 1, budget: 30 }, 1, "$");
+    expect(over).toMatchObject({ ok: false, nearest: 30 });
+    expect(over.typed && !over.ok && over.problem).toBe(
+      "Your budget is $30; the most you can spend is $30.",
+    );
+    expect(engineVerdict(31, {})).toBe(false);
+  });
+
+  it("readSpend(180 at cost 1.2) is money: effort 150; a budget of 200 caps money", () => {
+    expect(readSpend("180", { cost: 1.2, budget: 200 }, 1, "\u20ack")).toMatchObject({
+      ok: true,
+      spend: 180,
+    });
+    const e = readSpend("180", { cost: 1.2, budget: 200 }, 1, "\u20ack");
+    expect(e.typed && e.ok && e.effort).toBeCloseTo(150, 12);
+    const rivals = [
+      { name: "A", cost: 1.2, budget: 200 },
+      { name: "B", cost: 1 },
+    ];
+    expect(readSpend("201", { cost: 1.2, budget: 200 }, 1, "\u20ack")).toMatchObject({ ok: false });
+    expect(engineVerdict(201, {}, rivals)).toBe(false);
+    expect(engineVerdict(200, {}, rivals)).toBe(true);
+  });
+
+  it("readSpend(off-step amount) offers the nearest step in the one money format", () => {
+    const e = readSpend("259.6", { cost: 1 }, 1, "\u20ack");
+    expect(e.typed && !e.ok && e.problem).toBe(
+      "Amounts go in steps of \u20ack1; the nearest is \u20ack260.",
+    );
   });
 });
 
@@ -230,7 +290,8 @@ function playLog(): SessionEvent[] {
   commit([createSession({ sessionId: "s-1", scenario: parsed.value, seed: 11 })]);
   send({ type: "openRound", durationSeconds: null }, { role: "facilitator" });
   now += 1_000;
-  send({ type: "sealMove", clientMoveId: "a", effort: 3 }, { role: "seat", seatIndex: 0 });
+  // a spend of 15 at cost 5: effort 3
+  send({ type: "sealMove", clientMoveId: "a", spend: 15 }, { role: "seat", seatIndex: 0 });
   send({ type: "closeRound" }, { role: "facilitator" });
   return log;
 }
@@ -245,13 +306,15 @@ describe("replay", () => {
     expect(end.ok && end.view.status).toBe("review");
     expect(end.ok && end.view.rounds).toHaveLength(1);
   });
-  it("viewAfter(events, last) reproduces the stored round: seat 0's played effort and the equilibrium 500/49 (Hillman & Riley 1989, e1 = v m2/(m1+m2)^2)", () => {
+  it("viewAfter(events, last) reproduces the stored round in money: seat 0's spend and the equilibrium spends m_i e_i (Hillman & Riley 1989, e1 = v m2/(m1+m2)^2)", () => {
     const end = viewAfter(playLog(), Infinity);
     if (!end.ok) throw new Error(end.message);
+    expect(end.view.rounds[0]!.efforts[0]).toBe(3);
     const rows = roundSeatRows(end.view.rounds[0]!, ["North Bakery", "Corner Ovens"]);
-    expect(rows[0]?.effort).toBe(3);
-    expect(rows[0]?.equilibrium as number).toBeCloseTo((100 * 2) / 49, 6);
-    expect(rows[1]?.equilibrium as number).toBeCloseTo((100 * 5) / 49, 6);
+    expect(rows[0]?.spend).toBe(15);
+    // both equilibrium spends are v m1 m2 / (m1 + m2)^2 = 1000/49
+    expect(rows[0]?.equilibrium as number).toBeCloseTo((5 * 100 * 2) / 49, 6);
+    expect(rows[1]?.equilibrium as number).toBeCloseTo((2 * 100 * 5) / 49, 6);
   });
   it("seatSummary(export, seats) averages played and equilibrium effort per seat", () => {
     const end = viewAfter(playLog(), Infinity);

@@ -46,6 +46,8 @@ export const sealMoveAckDataSchema = z.object({
   seatIndex: z.int().min(0),
   clientMoveId: z.string(),
   effort: z.number(),
+  /** the money sealed; effort = spend / cost */
+  spend: z.number(),
 });
 export type SealMoveAckData = z.output<typeof sealMoveAckDataSchema>;
 

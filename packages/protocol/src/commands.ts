@@ -43,13 +43,24 @@ export const setSeatPolicySchema = z.strictObject({
   /** null hands the seat back to a human */
   policy: policySpecSchema.nullable(),
 });
-export const sealMoveSchema = z.strictObject({
-  type: z.literal("sealMove"),
-  clientMoveId: clientMoveIdSchema,
-  effort: effortSchema,
-  /** optional guard: refused with wrong-state unless this round is the open one */
-  round: roundNumberSchema.optional(),
-});
+/**
+ * A seat's move is money: `spend` (cost x effort; the engine derives effort = spend / cost).
+ * `effort` is the older form, still accepted: it is read as the spend cost x effort. Exactly
+ * one of the two.
+ */
+export const sealMoveSchema = z
+  .strictObject({
+    type: z.literal("sealMove"),
+    clientMoveId: clientMoveIdSchema,
+    spend: effortSchema.optional(),
+    effort: effortSchema.optional(),
+    /** optional guard: refused with wrong-state unless this round is the open one */
+    round: roundNumberSchema.optional(),
+  })
+  .refine((c) => (c.spend === undefined) !== (c.effort === undefined), {
+    error: "give spend (money), or the older effort, not both and not neither",
+    path: ["spend"],
+  });
 export const claimSeatSchema = z.strictObject({
   type: z.literal("claimSeat"),
   seatIndex: seatIndexSchema,

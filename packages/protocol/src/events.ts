@@ -70,6 +70,8 @@ export const moveSealedSchema = z.object({
   round: roundNumberSchema,
   seatIndex: seatIndexSchema,
   effort: effortSchema,
+  /** the money sealed (effort = spend / cost); absent in logs written before spends */
+  spend: effortSchema.optional(),
   clientMoveId: clientMoveIdSchema,
   by: z.enum(["seat", "computer"]),
 });
@@ -82,6 +84,8 @@ export const roundResolvedSchema = z.object({
   reason: z.enum(CLOSE_REASONS),
   /** the arrays below are indexed by seat; seats not playing this round hold 0 / false */
   efforts: perSeat,
+  /** money, cost x effort as sealed; absent in logs written before spends (then derived) */
+  spends: perSeat.optional(),
   defaulted: z.array(z.boolean()),
   shares: perSeat,
   /** winner mode: the seat that won; shares mode: null */

@@ -19,7 +19,7 @@ export {
   uncertainScenarioSchema,
 } from "./contest";
 export { policySpecSchema } from "./policy";
-export { sessionSettingsSchema } from "./settings";
+export { sessionSettingsSchema, spendStepOf } from "./settings";
 export type { SessionSettings, SessionSettingsInput } from "./settings";
 export { sessionScenarioSchema } from "./sessionScenario";
 export type { SessionScenario } from "./sessionScenario";

@@ -7,8 +7,13 @@ import { policySpecSchema } from "./policy";
 export const sessionSettingsSchema = z.strictObject({
   /** "shares": the prize is split by winning probability; "winner": one winner is drawn */
   outcome: z.enum(["shares", "winner"]).default("shares"),
-  /** efforts must be multiples of this (within 1e-9) */
-  effortStep: positiveNumberSchema.default(1),
+  /** spends (money) must be multiples of this (within 1e-9); absent: see spendStepOf */
+  spendStep: positiveNumberSchema.optional(),
+  /**
+   * the name spendStep had while seats sealed efforts; still accepted (old files and event logs)
+   * and read as the spend step when spendStep is absent
+   */
+  effortStep: positiveNumberSchema.optional(),
   rounds: z
     .int({ error: "must be an integer" })
     .min(1, { error: "must be >= 1" })
@@ -21,7 +26,7 @@ export const sessionSettingsSchema = z.strictObject({
     .max(LIMITS.clockMaxSeconds, { error: `must be <= ${LIMITS.clockMaxSeconds}` })
     .nullable()
     .default(null),
-  /** what a seat that did not seal in time plays: zero, or its previous round's effort */
+  /** what a seat that did not seal in time plays: zero, or its previous round's spend */
   missingMove: z.enum(["zero", "repeat"]).default("zero"),
   /** rival name -> policy for seats played by the computer */
   computer: z
@@ -34,3 +39,11 @@ export const sessionSettingsSchema = z.strictObject({
 
 export type SessionSettings = z.output<typeof sessionSettingsSchema>;
 export type SessionSettingsInput = z.input<typeof sessionSettingsSchema>;
+
+/**
+ * The money grid of a session's moves: spendStep, else the legacy effortStep (same number, now
+ * read as money, so files written with cost 1 keep their meaning), else 1.
+ */
+export function spendStepOf(settings: Pick<SessionSettings, "spendStep" | "effortStep">): number {
+  return settings.spendStep ?? settings.effortStep ?? 1;
+}

@@ -28,9 +28,17 @@ export const seatViewSchema = z.object({
   policy: policySpecSchema.nullable().optional(),
 });
 
+/**
+ * A resolved round as every role reads it. Money (cost x effort) sits beside every effort:
+ * spends, bestResponseSpends (per seat, 0 where not playing) and equilibriumSpends (per seat,
+ * null where not playing or no equilibrium is known; expected spends when mixed).
+ */
 export const roundResultSchema = roundResolvedSchema.omit({ type: true }).extend({
   scenario: contestScenarioSchema,
   seatIndices: z.array(seatIndexSchema),
+  spends: z.array(z.number()),
+  bestResponseSpends: z.array(z.number()),
+  equilibriumSpends: z.array(z.number().nullable()),
 });
 
 export const shockRecordSchema = z.object({
@@ -68,6 +76,8 @@ export const roleViewSchema = z.object({
     .object({
       seatIndex: seatIndexSchema,
       sealedEffort: effortSchema.nullable(),
+      /** the money sealed this round (null: nothing sealed) */
+      sealedSpend: effortSchema.nullable(),
       clientMoveId: z.string().nullable(),
     })
     .optional(),

@@ -131,7 +131,16 @@ describe("view and REST schemas", () => {
         active: true,
       },
     ],
-    rounds: [{ ...clone(resolved), scenario: clone(kiosk), seatIndices: [0, 1, 2] }],
+    rounds: [
+      {
+        ...clone(resolved),
+        scenario: clone(kiosk),
+        seatIndices: [0, 1, 2],
+        spends: [20, 10, 10],
+        bestResponseSpends: [21, 11, 12],
+        equilibriumSpends: [20, 10, null],
+      },
+    ],
     totals: [30, 20, 10],
     shocks: [],
   };
@@ -203,7 +212,7 @@ describe("ack schemas", () => {
     expect(
       seal.safeParse({
         ok: true,
-        data: { seq: 5, round: 1, seatIndex: 0, clientMoveId: "c1", effort: 3 },
+        data: { seq: 5, round: 1, seatIndex: 0, clientMoveId: "c1", effort: 3, spend: 6 },
       }).success,
     ).toBe(true);
     expect(

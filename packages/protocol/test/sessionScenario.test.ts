@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { parseSessionScenario, sessionSettingsSchema } from "../src/index";
+import { parseSessionScenario, sessionSettingsSchema, spendStepOf } from "../src/index";
 import { clone, kiosk } from "./fixtures";
 
 describe("parseSessionScenario", () => {
@@ -9,7 +9,6 @@ describe("parseSessionScenario", () => {
     if (!r.ok) return;
     expect(r.value.session).toEqual({
       outcome: "shares",
-      effortStep: 1,
       rounds: 5,
       clockSeconds: null,
       missingMove: "zero",
@@ -17,6 +16,18 @@ describe("parseSessionScenario", () => {
     });
     expect(r.value.rivals).toHaveLength(3);
     expect(r.value.rivals[2]).toEqual({ name: "Rye & Crumb", cost: 2, budget: 30 });
+    expect(spendStepOf(r.value.session)).toBe(1);
+  });
+
+  it("spendStepOf(settings) reads spendStep, else the older effortStep (same number, now money)", () => {
+    const parse = (session: object) => {
+      const r = parseSessionScenario({ ...kiosk, session });
+      if (!r.ok) throw new Error(r.message);
+      return spendStepOf(r.value.session);
+    };
+    expect(parse({ spendStep: 250 })).toBe(250);
+    expect(parse({ effortStep: 500 })).toBe(500);
+    expect(parse({ spendStep: 250, effortStep: 500 })).toBe(250);
   });
 
   it("parseSessionScenario(full session object) keeps the given settings", () => {
@@ -52,6 +63,7 @@ describe("parseSessionScenario", () => {
     const cases: [unknown, string][] = [
       [{ outcome: "lottery" }, "session.outcome"],
       [{ effortStep: 0 }, "session.effortStep"],
+      [{ spendStep: 0 }, "session.spendStep"],
       [{ rounds: 101 }, "session.rounds"],
       [{ rounds: 2.5 }, "session.rounds"],
       [{ clockSeconds: 4 }, "session.clockSeconds"],

@@ -5,6 +5,7 @@
 import type { EventOf, SessionEvent } from "@contend/protocol";
 import type { LiveState, OpenRound, SeatState, SessionCore, SessionState } from "./state";
 import { initialState } from "./state";
+import { roundWithMoney } from "./money";
 
 function corrupt(event: SessionEvent, state: SessionState): never {
   throw new Error(`event ${event.seq} (${event.type}) cannot follow status ${state.status}`);
@@ -128,8 +129,12 @@ export function apply(state: SessionState, event: SessionEvent): SessionState {
       if (s.status !== "open" || s.open.round !== event.round) corrupt(event, s);
       const prev = s.open.moves[event.seatIndex] ?? null;
       const moves = s.open.moves.slice();
+      const k = s.open.seatIndices.indexOf(event.seatIndex);
+      const cost = s.open.scenario.rivals[k]?.cost ?? 1;
       moves[event.seatIndex] = {
         effort: event.effort,
+        // logs written before spends: the money is cost x effort
+        spend: event.spend ?? cost * event.effort,
         clientMoveId: event.clientMoveId,
         by: event.by,
         replacedIds: prev ? [...prev.replacedIds, prev.clientMoveId] : [],
@@ -139,7 +144,7 @@ export function apply(state: SessionState, event: SessionEvent): SessionState {
     case "round-resolved": {
       if (s.status !== "open" || s.open.round !== event.round) corrupt(event, s);
       const { type: _t, ...result } = event;
-      const round = { ...result, scenario: s.open.scenario, seatIndices: s.open.seatIndices };
+      const round = roundWithMoney(result, s.open.scenario, s.open.seatIndices);
       return {
         ...core(s),
         ...stamp,

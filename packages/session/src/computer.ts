@@ -21,6 +21,7 @@ export function computerMoves(input: {
   seatIndices: number[];
   seats: readonly SeatState[];
   history: readonly RoundResult[];
+  /** the money grid (spendStepOf(settings)) */
   step: number;
 }): EventOf<"move-sealed">[] {
   const contest = normalize(input.scenario);
@@ -32,13 +33,20 @@ export function computerMoves(input: {
     const spec = input.seats[seatIndex]?.policy;
     if (!spec) return;
     const policy = createPolicy(spec, computerSeed(input.seed, input.round, seatIndex));
-    const raw = policy.decide({ contest, self, history, step: input.step });
-    const budget = Math.min(contest.rivals[self]!.maxEffort, LIMITS.effortMax);
+    // The policy thinks in effort; the move is money on the session's money grid (R12, R19).
+    const raw = policy.decide({ contest, self, history });
+    const rival = contest.rivals[self]!;
+    const spend = clampEffort(
+      rival.cost * raw,
+      Math.min(rival.maxSpend, LIMITS.effortMax),
+      input.step,
+    );
     out.push({
       type: "move-sealed",
       round: input.round,
       seatIndex,
-      effort: clampEffort(raw, budget, input.step),
+      effort: spend / rival.cost,
+      spend,
       clientMoveId: computerMoveId(input.round, seatIndex),
       by: "computer",
     });

@@ -5,10 +5,10 @@
  * protocol document and the tests.
  */
 import { validateScenario } from "@contend/solver";
-import { LIMITS, roleMaySend } from "@contend/protocol";
+import { roleMaySend, spendStepOf } from "@contend/protocol";
 import type { CloseReason, Command, CommandOf, EventBody, Role } from "@contend/protocol";
 import { computerMoves } from "./computer";
-import { onStep, withinBudget } from "./effort";
+import { checkMove, spendProblemText } from "./effort";
 import { resolveRound } from "./resolve";
 import type { Decision } from "./result";
 import { accept, reject } from "./result";
@@ -202,7 +202,7 @@ function openRound(state: LiveState, command: CommandOf<"openRound">, now: numbe
     seatIndices,
     seats: state.seats,
     history: state.rounds,
-    step: state.settings.effortStep,
+    step: spendStepOf(state.settings),
   });
   return accept([
     { type: "round-opened", round, scenario: valid.value, seatIndices, deadline },
@@ -222,6 +222,8 @@ function closeRound(state: LiveState, reason: CloseReason): Decision {
   return accept(events);
 }
 
+type SealedMoveData = { effort: number; spend: number; clientMoveId: string };
+
 function sealMove(state: LiveState, command: CommandOf<"sealMove">, seatIndex: number): Decision {
   if (state.status !== "open") return reject("wrong-state", "R10: no round is open");
   const open = state.open;
@@ -240,11 +242,11 @@ function sealMove(state: LiveState, command: CommandOf<"sealMove">, seatIndex: n
   if (seat.policy) return reject("forbidden", `R11: seat ${seatIndex} is played by the computer`);
 
   const current = open.moves[seatIndex] ?? null;
-  const data = (effort: number, clientMoveId: string) =>
-    ({ kind: "sealMove", round: open.round, seatIndex, clientMoveId, effort }) as const;
+  const data = ({ effort, spend, clientMoveId }: SealedMoveData) =>
+    ({ kind: "sealMove", round: open.round, seatIndex, clientMoveId, effort, spend }) as const;
   if (current && current.clientMoveId === command.clientMoveId) {
     // R13: a repeated clientMoveId is the same move: same ack, nothing new in the log.
-    return accept([], data(current.effort, current.clientMoveId));
+    return accept([], data(current));
   }
   if (current?.replacedIds.includes(command.clientMoveId)) {
     return reject(
@@ -253,37 +255,25 @@ function sealMove(state: LiveState, command: CommandOf<"sealMove">, seatIndex: n
       "clientMoveId",
     );
   }
-  const step = state.settings.effortStep;
-  if (!onStep(command.effort, step)) {
+  const rival = open.scenario.rivals[k]!;
+  // R12: the move is money; the older form (effort) costs cost x effort.
+  const field = command.spend !== undefined ? "spend" : "effort";
+  const check = checkMove(
+    command.spend !== undefined ? { spend: command.spend } : { effort: command.effort! },
+    rival,
+    spendStepOf(state.settings),
+  );
+  if (!check.ok) {
     return reject(
       "bad-request",
-      `effort: R12: must be a multiple of ${step} (got ${command.effort})`,
-      "effort",
+      `${field}: R12: ${spendProblemText(check)} (got ${check.spend})`,
+      field,
     );
   }
-  const { budget, cost } = open.scenario.rivals[k]!;
-  if (!withinBudget(command.effort, cost, budget)) {
-    return reject(
-      "bad-request",
-      `effort: R12: costs ${cost * command.effort}, more than the budget ${budget} (cost ${cost} x effort ${command.effort})`,
-      "effort",
-    );
-  }
-  if (command.effort > LIMITS.effortMax) {
-    return reject("bad-request", `effort: must be <= ${LIMITS.effortMax}`, "effort");
-  }
+  const move = { effort: check.effort, spend: check.spend, clientMoveId: command.clientMoveId };
   return accept(
-    [
-      {
-        type: "move-sealed",
-        round: open.round,
-        seatIndex,
-        effort: command.effort,
-        clientMoveId: command.clientMoveId,
-        by: "seat",
-      },
-    ],
-    data(command.effort, command.clientMoveId),
+    [{ type: "move-sealed", round: open.round, seatIndex, ...move, by: "seat" }],
+    data(move),
   );
 }
 

@@ -17,4 +17,15 @@ export { allSealed, deadline } from "./timers";
 export { createSession } from "./create";
 export { computerSeed, drawSeedFor } from "./seeds";
 export { computerMoveId } from "./computer";
-export { EFFORT_TOLERANCE, onStep, withinBudget } from "./effort";
+export {
+  EFFORT_TOLERANCE,
+  checkMove,
+  checkSpend,
+  largestSpendWithin,
+  onStep,
+  snapToStep,
+  spendProblemText,
+  withinBudget,
+} from "./effort";
+export type { SpendCheck } from "./effort";
+export { roundWithMoney } from "./money";

@@ -18,32 +18,40 @@ import {
   shares,
   solve,
 } from "@contend/solver";
+import { spendStepOf } from "@contend/protocol";
 import type { CloseReason, EventOf } from "@contend/protocol";
 import type { OpenRound, SessionCore } from "./state";
 import { drawSeedFor } from "./seeds";
 
-/** Efforts of the round's seats in round order, and which were filled in by the missing-move rule. */
+/**
+ * Spends and efforts of the round's seats in round order, and which were filled in by the
+ * missing-move rule (R20: zero, or the previous round's spend, cut to a budget lowered since).
+ */
 export function playedEfforts(core: SessionCore, open: OpenRound) {
   const contest = normalize(open.scenario);
   const last = core.rounds.at(-1);
   const efforts: number[] = [];
+  const spends: number[] = [];
   const defaulted: boolean[] = [];
   open.seatIndices.forEach((seatIndex, k) => {
     const move = open.moves[seatIndex];
+    const rival = contest.rivals[k]!;
     if (move) {
       efforts.push(move.effort);
+      spends.push(move.spend);
       defaulted.push(false);
       return;
     }
     defaulted.push(true);
     const before =
       core.settings.missingMove === "repeat" && last?.seatIndices.includes(seatIndex)
-        ? (last.efforts[seatIndex] ?? 0)
+        ? (last.spends[seatIndex] ?? 0)
         : 0;
-    // A repeated effort may no longer fit a budget cut by a shock since.
-    efforts.push(clampEffort(before, contest.rivals[k]!.maxEffort, core.settings.effortStep));
+    const spend = clampEffort(before, rival.maxSpend, spendStepOf(core.settings));
+    spends.push(spend);
+    efforts.push(spend / rival.cost);
   });
-  return { contest, efforts, defaulted };
+  return { contest, efforts, spends, defaulted };
 }
 
 function perSeat(n: number, seatIndices: number[], values: readonly number[]): number[] {
@@ -59,7 +67,7 @@ export function resolveRound(
   open: OpenRound,
   reason: CloseReason,
 ): EventOf<"round-resolved"> {
-  const { contest, efforts, defaulted } = playedEfforts(core, open);
+  const { contest, efforts, spends, defaulted } = playedEfforts(core, open);
   const n = core.seats.length;
   const seats = open.seatIndices;
   const p = shares(contest, efforts);
@@ -94,6 +102,7 @@ export function resolveRound(
     round: open.round,
     reason,
     efforts: perSeat(n, seats, efforts),
+    spends: perSeat(n, seats, spends),
     defaulted: defaultedBySeat,
     shares: perSeat(n, seats, p),
     winner,

@@ -10,7 +10,14 @@ export interface Rejection {
 
 /** Ack data the engine knows; the server adds `seq` (and the new key for claims and issueLinks). */
 export type DecideData =
-  | { kind: "sealMove"; round: number; seatIndex: number; clientMoveId: string; effort: number }
+  | {
+      kind: "sealMove";
+      round: number;
+      seatIndex: number;
+      clientMoveId: string;
+      effort: number;
+      spend: number;
+    }
   | { kind: "claimSeat"; seatIndex: number }
   /** seatIndex null: a spectator key */
   | { kind: "issueLinks"; seatIndex: number | null }

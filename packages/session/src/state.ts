@@ -24,6 +24,8 @@ export interface SeatState {
 
 export interface SealedMove {
   effort: number;
+  /** money: cost x effort as sealed (older logs: derived from the effort) */
+  spend: number;
   clientMoveId: string;
   by: "seat" | "computer";
   /** clientMoveIds of moves this one replaced in the same round */

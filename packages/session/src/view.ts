@@ -57,6 +57,7 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
     view.you = {
       seatIndex: viewer.seatIndex,
       sealedEffort: mine ? mine.effort : null,
+      sealedSpend: mine ? mine.spend : null,
       clientMoveId: mine ? mine.clientMoveId : null,
     };
   }

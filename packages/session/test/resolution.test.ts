@@ -203,7 +203,9 @@ describe("openRound: computer seats", () => {
     playRound(room, [20, null]);
     const d = room.ok({ type: "openRound" }, facilitator);
     const move = d.events.find((e) => e.type === "move-sealed");
-    // r = 1: e_2 = sqrt(v Z / m_2) - Z with Z = 20: sqrt(1000) - 20 = 11.62 -> 12 on a step of 1
-    expect(move && move.type === "move-sealed" && move.effort).toBe(12);
+    // r = 1: e_2 = sqrt(v Z / m_2) - Z with Z = 20: sqrt(1000) - 20 = 11.62 effort, a spend of
+    // 2 x 11.62 = 23.25 -> 23 on the money grid of 1 (R12, R19), i.e. effort 11.5
+    expect(move && move.type === "move-sealed" && move.spend).toBe(23);
+    expect(move && move.type === "move-sealed" && move.effort).toBe(11.5);
   });
 });

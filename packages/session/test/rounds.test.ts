@@ -96,7 +96,7 @@ describe("decide: rounds and moves", () => {
   it("R12: effort must respect the rival's budget", () => {
     const room = new Room(scenarioWith());
     room.ok({ type: "openRound" }, facilitator);
-    expectRejected(room.seal(2, 31), "bad-request", /R12: costs 31, more than the budget 30/);
+    expectRejected(room.seal(2, 31), "bad-request", /R12: is more than the budget 30 \(got 31\)/);
     expect(room.seal(2, 30).ok).toBe(true);
   });
 
@@ -114,6 +114,7 @@ describe("decide: rounds and moves", () => {
       seatIndex: 0,
       clientMoveId: "abc",
       effort: 10,
+      spend: 10,
     });
     expect(room.log).toHaveLength(logLength);
   });

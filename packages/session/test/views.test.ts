@@ -36,7 +36,12 @@ describe("viewFor", () => {
       if (you) expect(you.sealedEffort).toBe(you.seatIndex === 1 ? 9 : null);
     }
     const own = viewFor(room.state, { role: "seat", seatIndex: 0 });
-    expect(own.you).toEqual({ seatIndex: 0, sealedEffort: secret, clientMoveId: "ana-1" });
+    expect(own.you).toEqual({
+      seatIndex: 0,
+      sealedEffort: secret,
+      sealedSpend: secret, // cost 1
+      clientMoveId: "ana-1",
+    });
   });
 
   it("R23: everyone sees which seats have sealed, never the amounts", () => {
@@ -86,6 +91,7 @@ describe("viewFor", () => {
     expect(viewFor(room.state, { role: "seat", seatIndex: 0 }).you).toEqual({
       seatIndex: 0,
       sealedEffort: null,
+      sealedSpend: null,
       clientMoveId: null,
     });
   });

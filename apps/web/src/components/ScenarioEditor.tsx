@@ -136,12 +136,12 @@ export function ScenarioEditor() {
             </div>
             <div className="grid-3">
               <TextField
-                label="Effort step"
+                label="Spend step"
                 numeric
-                {...bind("effortStep")}
-                error={shown("session.effortStep")}
-                testId="field-effort-step"
-                hint="(efforts are multiples)"
+                {...bind("spendStep")}
+                error={shown("session.spendStep")}
+                testId="field-spend-step"
+                hint="(money; spends are multiples)"
               />
               <TextField
                 label="Rounds"

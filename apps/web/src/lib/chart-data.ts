@@ -63,32 +63,32 @@ export function equilibriumPayoffOf(round: RoundResult, seat: number): number | 
   return round.equilibrium.payoffs?.[k] ?? null;
 }
 
-/** One seat across rounds: played effort, equilibrium effort, best reply, regret, payoff, total. */
+/** One seat across rounds, in money: spend, equilibrium spend, best reply, regret, payoff, total. */
 export function seatHistoryRows(rounds: readonly RoundResult[], seat: number): Row[] {
   return rounds
     .filter((r) => r.seatIndices.includes(seat))
     .map((r) => ({
       round: r.round,
-      effort: r.efforts[seat] ?? null,
-      equilibrium: equilibriumEffortOf(r, seat),
-      bestResponse: r.bestResponses[seat] ?? null,
+      spend: r.spends[seat] ?? null,
+      equilibrium: r.equilibriumSpends[seat] ?? null,
+      bestResponse: r.bestResponseSpends[seat] ?? null,
       regret: r.regrets[seat] ?? null,
       payoff: r.payoffs[seat] ?? null,
       total: r.totals[seat] ?? null,
     }));
 }
 
-/** One round: per playing seat, effort vs equilibrium effort, share, payoff, regret. */
+/** One round, in money: per playing seat, spend vs equilibrium spend, share, payoff, regret. */
 export function roundSeatRows(round: RoundResult, names: readonly string[]): Row[] {
   return round.seatIndices.map((seat) => ({
     seat,
     name: names[seat] ?? `Seat ${seat + 1}`,
-    effort: round.efforts[seat] ?? null,
-    equilibrium: equilibriumEffortOf(round, seat),
+    spend: round.spends[seat] ?? null,
+    equilibrium: round.equilibriumSpends[seat] ?? null,
     share: round.shares[seat] ?? null,
     payoff: round.payoffs[seat] ?? null,
     regret: round.regrets[seat] ?? null,
-    bestResponse: round.bestResponses[seat] ?? null,
+    bestResponse: round.bestResponseSpends[seat] ?? null,
     total: round.totals[seat] ?? null,
     defaulted: round.defaulted[seat] === true ? "yes" : "no",
   }));

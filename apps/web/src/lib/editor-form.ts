@@ -6,7 +6,7 @@
  */
 import { POLICY_LABELS, validateScenario } from "@contend/solver";
 import type { CsfSpec, PolicyKind, RivalSpec, Scenario } from "@contend/solver";
-import { sessionScenarioSchema, sessionSettingsSchema } from "@contend/protocol";
+import { sessionScenarioSchema, sessionSettingsSchema, spendStepOf } from "@contend/protocol";
 import type { SessionScenarioInput } from "./session-types";
 
 export type PolicyChoice = "human" | PolicyKind;
@@ -60,7 +60,7 @@ export interface EditorForm {
   scale: string;
   rivals: RivalRow[];
   outcome: "shares" | "winner";
-  effortStep: string;
+  spendStep: string;
   rounds: string;
   clockSeconds: string;
   missingMove: "zero" | "repeat";
@@ -113,7 +113,7 @@ export function defaultForm(): EditorForm {
     scale: "0.1",
     rivals: [blankRival(0), blankRival(1)],
     outcome: "shares",
-    effortStep: "1",
+    spendStep: "1",
     rounds: "5",
     clockSeconds: "",
     missingMove: "zero",
@@ -189,7 +189,7 @@ export function formToSessionRaw(form: EditorForm): Record<string, unknown> {
   const clock = parseNumberField(form.clockSeconds);
   return {
     outcome: form.outcome,
-    effortStep: parseNumberField(form.effortStep),
+    spendStep: parseNumberField(form.spendStep),
     rounds: parseNumberField(form.rounds),
     clockSeconds: clock === undefined ? null : clock,
     missingMove: form.missingMove,
@@ -337,7 +337,7 @@ export function scenarioToForm(s: SessionScenarioInput): EditorForm {
     scale: s.csf.kind === "logit" ? numberText(s.csf.scale) : "0.1",
     rivals,
     outcome: session.outcome ?? "shares",
-    effortStep: numberText(session.effortStep ?? 1),
+    spendStep: numberText(spendStepOf(session)),
     rounds: numberText(session.rounds ?? 5),
     clockSeconds: numberText(session.clockSeconds ?? null),
     missingMove: session.missingMove ?? "zero",

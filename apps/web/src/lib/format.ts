@@ -1,85 +1,103 @@
 /**
- * Number formatting for every screen. One fixed locale (en-US grouping) so the server render and
- * the browser render agree and tests are stable. Non-finite input renders as an en dash.
+ * One number format for every screen, chart, table and export view. Rules:
+ * - about four significant digits, never fewer digits than the whole part (123,457 not 123,500),
+ *   and no trailing zeros ("260", not "260.0"; "65", not "65.00");
+ * - money at most to the cent (2 decimals), with the session's currency: an ISO code goes
+ *   through Intl.NumberFormat's currency style ("EUR" -> "€", "SEK" -> "SEK 12"), any other text
+ *   ("€k", "$") is written before the number as given;
+ * - one fixed locale (en-US grouping) so the server render and the browser render agree;
+ * - non-finite input renders as an en dash; "-0" never appears.
  */
 
 const DASH = "\u2013";
+const LOCALE = "en-US";
+/** The significant digits every screen shows. */
+export const SIGNIFICANT_DIGITS = 4;
+/** Money is never shown below the cent. */
+const MONEY_DECIMALS = 2;
 
-/** Three-letter codes we render as a symbol; anything else is shown as written. */
-const SYMBOLS: Record<string, string> = {
-  USD: "$",
-  EUR: "\u20ac",
-  GBP: "\u00a3",
-  JPY: "\u00a5",
-  CHF: "CHF\u00a0",
-  INR: "\u20b9",
-};
-
-/** The prefix shown before amounts: "$" stays "$", "EUR" becomes "€", "SEK" becomes "SEK ". */
-export function currencyPrefix(currency: string | null | undefined): string {
-  const c = (currency ?? "").trim();
-  if (c === "") return "";
-  const upper = c.toUpperCase();
-  if (SYMBOLS[upper] !== undefined) return SYMBOLS[upper];
-  if (/^[A-Za-z]{2,}$/.test(c)) return `${c}\u00a0`;
-  return c;
-}
-
-/** Digits after the decimal point so that a value of this size shows about `significant` digits. */
+/** Digits after the point so that a value of this size shows `significant` digits, within [0, max]. */
 function decimalsFor(abs: number, significant: number, maxDecimals: number): number {
-  if (abs === 0) return 0;
-  // For |x| < 1 this goes to zero or below, so leading zeros after the point do not count.
+  if (abs === 0 || !Number.isFinite(abs)) return 0;
   const intDigits = Math.floor(Math.log10(abs)) + 1;
   return Math.max(0, Math.min(maxDecimals, significant - intDigits));
 }
 
-/** Plain number with grouping; `decimals` fixes the digits, otherwise about 4 significant. */
-export function formatNumber(value: number, decimals?: number): string {
-  if (!Number.isFinite(value)) return DASH;
-  const abs = Math.abs(value);
-  const d = decimals ?? decimalsFor(abs, 4, 4);
-  const text = new Intl.NumberFormat("en-US", {
-    minimumFractionDigits: d,
-    maximumFractionDigits: d,
-  }).format(value);
-  // "-0" reads as a bug on screen.
-  return text === `-${(0).toFixed(d)}` ? (0).toFixed(d) : text;
+const cache = new Map<string, Intl.NumberFormat>();
+function numberFormat(options: Intl.NumberFormatOptions): Intl.NumberFormat {
+  const key = JSON.stringify(options);
+  let f = cache.get(key);
+  if (!f) {
+    f = new Intl.NumberFormat(LOCALE, { signDisplay: "negative", ...options });
+    cache.set(key, f);
+  }
+  return f;
 }
 
-/** Money: currency prefix, grouping, cents only below 1,000 and when not whole. Negative as "-€12". */
+/** A three-letter code Intl knows as a currency, else null. */
+function isoCurrency(currency: string | null | undefined): string | null {
+  const c = (currency ?? "").trim().toUpperCase();
+  if (!/^[A-Z]{3}$/.test(c)) return null;
+  try {
+    numberFormat({ style: "currency", currency: c });
+    return c;
+  } catch {
+    return null;
+  }
+}
+
+/** The text shown before amounts: "EUR" -> "€", "SEK" -> "SEK ", "€k" and "$" as written. */
+export function currencyPrefix(currency: string | null | undefined): string {
+  const iso = isoCurrency(currency);
+  if (iso) {
+    const parts = numberFormat({ style: "currency", currency: iso, maximumFractionDigits: 0 })
+      .formatToParts(1)
+      .filter((p) => p.type === "currency" || p.type === "literal");
+    return parts.map((p) => p.value).join("");
+  }
+  return (currency ?? "").trim();
+}
+
+/**
+ * Plain number in the one format; `decimals` fixes the digits after the point (for counts such
+ * as milliseconds), otherwise about four significant digits and no trailing zeros.
+ */
+export function formatNumber(value: number, decimals?: number): string {
+  if (!Number.isFinite(value)) return DASH;
+  const d = decimals ?? decimalsFor(Math.abs(value), SIGNIFICANT_DIGITS, 20);
+  return numberFormat({
+    minimumFractionDigits: decimals === undefined ? 0 : d,
+    maximumFractionDigits: d,
+  }).format(value);
+}
+
+/** Money in the session's currency: about four significant digits, at most to the cent. */
 export function formatMoney(value: number, currency?: string | null, decimals?: number): string {
   if (!Number.isFinite(value)) return DASH;
-  const abs = Math.abs(value);
-  // Cents only where they matter: small amounts that are not whole.
-  const d = decimals ?? (abs >= 1000 || Math.abs(abs - Math.round(abs)) < 5e-3 ? 0 : 2);
-  const body = formatNumber(abs, d);
-  const sign = value < 0 && body !== formatNumber(0, d) ? "-" : "";
+  const d = decimals ?? decimalsFor(Math.abs(value), SIGNIFICANT_DIGITS, MONEY_DECIMALS);
+  const digits = {
+    minimumFractionDigits: decimals === undefined ? 0 : d,
+    maximumFractionDigits: d,
+  };
+  const iso = isoCurrency(currency);
+  if (iso) return numberFormat({ style: "currency", currency: iso, ...digits }).format(value);
+  const body = numberFormat(digits).format(Math.abs(value));
+  const zero = numberFormat(digits).format(0);
+  const sign = value < 0 && body !== zero ? "-" : "";
   return `${sign}${currencyPrefix(currency)}${body}`;
 }
 
-/** Fraction in [0, 1] (or beyond) as a percentage, e.g. 0.4567 -> "45.7%". */
-export function formatPercent(fraction: number, decimals = 1): string {
+/** Money per unit of effort (a cost): "€k1.2 per unit of effort". */
+export function formatCost(value: number, currency?: string | null): string {
+  return `${formatMoney(value, currency)} per unit of effort`;
+}
+
+/** Fraction in [0, 1] (or beyond) as a percentage with three significant digits: 45.7%, 100%. */
+export function formatPercent(fraction: number): string {
   if (!Number.isFinite(fraction)) return DASH;
-  return `${formatNumber(fraction * 100, decimals)}%`;
-}
-
-/** Effort in money units, rounded to the effort step's own precision when a step is given. */
-export function formatEffort(value: number, currency?: string | null, step?: number): string {
-  if (!Number.isFinite(value)) return DASH;
-  if (step !== undefined && step > 0) {
-    return `${currencyPrefix(currency)}${formatNumber(value, stepDecimals(step))}`;
-  }
-  return formatMoney(value, currency);
-}
-
-/** Decimal places of a step such as 0.25 -> 2, 10 -> 0, 1e-3 -> 3. */
-export function stepDecimals(step: number): number {
-  if (!Number.isFinite(step) || step <= 0) return 0;
-  for (let d = 0; d <= 10; d++) {
-    const scaled = step * 10 ** d;
-    if (Math.abs(scaled - Math.round(scaled)) < 1e-9 * Math.max(1, scaled)) return d;
-  }
-  return 10;
+  const pct = fraction * 100;
+  const d = decimalsFor(Math.abs(pct), 3, 2);
+  return `${numberFormat({ minimumFractionDigits: 0, maximumFractionDigits: d }).format(pct)}%`;
 }
 
 /** Remaining time as m:ss (or h:mm:ss), never negative. */
@@ -93,8 +111,8 @@ export function formatClock(ms: number): string {
   return h > 0 ? `${h}:${String(m).padStart(2, "0")}:${ss}` : `${m}:${ss}`;
 }
 
-/** Signed elasticity or derivative, e.g. "+0.25" / "-1.30". */
-export function formatSigned(value: number, decimals = 3): string {
+/** Signed elasticity or derivative, e.g. "+0.25" / "-1.3", in the one format. */
+export function formatSigned(value: number, decimals?: number): string {
   if (!Number.isFinite(value)) return DASH;
   const body = formatNumber(value, decimals);
   if (body.startsWith("-")) return body;
@@ -111,5 +129,5 @@ export function formatDateTime(value: string | number | Date): string {
 /** A model parameter as typed: up to `maxDecimals` decimals, trailing zeros dropped (1.25, 1, 0.0002). */
 export function formatPlain(value: number, maxDecimals = 6): string {
   if (!Number.isFinite(value)) return DASH;
-  return new Intl.NumberFormat("en-US", { maximumFractionDigits: maxDecimals }).format(value);
+  return numberFormat({ maximumFractionDigits: maxDecimals }).format(value);
 }

@@ -1,5 +1,7 @@
 /** Small pure helpers shared by the live views. */
 import type { CommandAckData, IssueLinksAckData, RoleView } from "@contend/protocol";
+import { checkSpend } from "@contend/session";
+import { formatMoney } from "./format";
 
 /**
  * How far the server's clock is ahead of ours (ms), from one request and its answer: the
@@ -33,19 +35,49 @@ export function seatNames(view: RoleView): string[] {
   return view.seats.map((s) => s.name);
 }
 
-/** Nearest multiple of the step (the server refuses efforts off the grid). */
-export function snapToStep(value: number, step: number): number {
-  if (!(step > 0) || !Number.isFinite(value)) return value;
-  const k = Math.round(value / step);
-  // Rebuild from the integer count so 0.1-type steps do not leave float dust.
-  const decimals = Math.max(0, Math.min(12, -Math.floor(Math.log10(step)) + 2));
-  return Number((k * step).toFixed(decimals));
-}
+/** What the seat's amount box holds: nothing yet, or a spend checked by the engine's own rule. */
+export type SpendEntry =
+  | { typed: false }
+  | { typed: true; ok: true; spend: number; effort: number }
+  | { typed: true; ok: false; problem: string; nearest: number | null };
 
-export function isOnStep(value: number, step: number): boolean {
-  if (!(step > 0)) return true;
-  const k = value / step;
-  return Math.abs(k - Math.round(k)) <= 1e-9 * Math.max(1, Math.abs(k));
+/**
+ * Reads the amount a seat typed (money) and checks it with the engine's rule (R12, `checkSpend`
+ * in @contend/session), so the form refuses exactly what the server refuses. Problems are
+ * plain words with units; `nearest` is a valid amount to offer instead.
+ */
+export function readSpend(
+  text: string,
+  rival: { cost: number; budget?: number | null },
+  step: number,
+  currency: string | null,
+): SpendEntry {
+  if (text.trim() === "") return { typed: false };
+  const money = (v: number) => formatMoney(v, currency);
+  const value = Number(text.replace(/[,\s]/g, ""));
+  const check = checkSpend(value, rival, step);
+  if (check.ok) return { typed: true, ok: true, spend: check.spend, effort: check.effort };
+  switch (check.reason) {
+    case "not-a-number":
+    case "negative":
+      return { typed: true, ok: false, problem: "Enter an amount of zero or more.", nearest: null };
+    case "too-large":
+      return { typed: true, ok: false, problem: "That amount is too large.", nearest: null };
+    case "off-step":
+      return {
+        typed: true,
+        ok: false,
+        problem: `Amounts go in steps of ${money(check.step)}; the nearest is ${money(check.nearest)}.`,
+        nearest: check.nearest,
+      };
+    case "over-budget":
+      return {
+        typed: true,
+        ok: false,
+        problem: `Your budget is ${money(check.budget)}; the most you can spend is ${money(check.largest)}.`,
+        nearest: check.largest,
+      };
+  }
 }
 
 /** Invite links of sessions created in this browser (the server never sends keys again). */

@@ -30,7 +30,7 @@ export const TEMPLATES: readonly Template[] = [
       leader: null,
       session: {
         outcome: "winner",
-        effortStep: 500,
+        spendStep: 500,
         rounds: 4,
         clockSeconds: 120,
         missingMove: "zero",
@@ -55,7 +55,7 @@ export const TEMPLATES: readonly Template[] = [
       leader: null,
       session: {
         outcome: "shares",
-        effortStep: 1000,
+        spendStep: 1000,
         rounds: 5,
         clockSeconds: 90,
         missingMove: "repeat",
@@ -82,7 +82,7 @@ export const TEMPLATES: readonly Template[] = [
       leader: null,
       session: {
         outcome: "winner",
-        effortStep: 2500,
+        spendStep: 2500,
         rounds: 3,
         clockSeconds: 180,
         missingMove: "zero",

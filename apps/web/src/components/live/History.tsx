@@ -1,7 +1,7 @@
 "use client";
 
 import type { RoundResult } from "@contend/protocol";
-import { equilibriumEffortOf, perSeatOverRounds, seatHistoryRows } from "../../lib/chart-data";
+import { perSeatOverRounds, seatHistoryRows } from "../../lib/chart-data";
 import { formatMoney, formatPlain } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";
@@ -9,12 +9,13 @@ import { LineSeriesChart } from "../LineSeriesChart";
 import type { Series } from "../LineSeriesChart";
 import type { Row } from "../../lib/chart-data";
 
-/** A chart of something per round (rounds on x, whole numbers; values to 2 decimals). */
+/** A chart of money per round (rounds on x, whole numbers; y in the session's currency). */
 function RoundsChart({
   rows,
   yLabel,
   series,
   testId,
+  currency,
   dark,
   height,
 }: {
@@ -22,6 +23,7 @@ function RoundsChart({
   yLabel: string;
   series: readonly Series[];
   testId: string;
+  currency: string | null | undefined;
   dark?: boolean;
   height?: number;
 }) {
@@ -30,8 +32,8 @@ function RoundsChart({
       rows={rows}
       xKey="round"
       xLabel="Round"
-      yLabel={yLabel}
-      formatY={(v) => formatPlain(v, 2)}
+      yLabel={`${yLabel} (${currency ?? "money"})`}
+      formatY={(v) => formatMoney(v, currency)}
       formatX={(v) => formatPlain(v, 0)}
       testId={testId}
       dark={dark}
@@ -41,7 +43,7 @@ function RoundsChart({
   );
 }
 
-/** One seat across rounds: what it played, the equilibrium, its best reply; and its regrets. */
+/** One seat across rounds, in money: its spend, the equilibrium spend, its best reply; regrets. */
 export function SeatHistory({
   rounds,
   seat,
@@ -57,12 +59,18 @@ export function SeatHistory({
     <div>
       <RoundsChart
         rows={rows}
-        yLabel="Effort"
+        yLabel="Spend"
         testId="seat-history-chart"
+        currency={currency}
         height={240}
         series={[
-          { key: "effort", name: "Your effort", colour: seriesColour(0) },
-          { key: "equilibrium", name: "Equilibrium", colour: EQUILIBRIUM_COLOUR, dashed: true },
+          { key: "spend", name: "Your spend", colour: seriesColour(0) },
+          {
+            key: "equilibrium",
+            name: "Equilibrium spend",
+            colour: EQUILIBRIUM_COLOUR,
+            dashed: true,
+          },
           { key: "bestResponse", name: "Best reply", colour: seriesColour(1), dashed: true },
         ]}
       />
@@ -72,9 +80,9 @@ export function SeatHistory({
         rows={rows}
         columns={[
           { key: "round", label: "Round" },
-          { key: "effort", label: "Effort", format: money },
-          { key: "equilibrium", label: "Equilibrium", format: money },
-          { key: "bestResponse", label: "Best reply", format: money },
+          { key: "spend", label: "Spend", format: money },
+          { key: "equilibrium", label: "Equilibrium spend", format: money },
+          { key: "bestResponse", label: "Best reply (spend)", format: money },
           { key: "regret", label: "Regret", format: money },
           { key: "payoff", label: "Payoff", format: money },
           { key: "total", label: "Running total", format: money },
@@ -84,7 +92,7 @@ export function SeatHistory({
   );
 }
 
-/** Every seat across rounds: efforts against each seat's equilibrium, and regrets. */
+/** Every seat across rounds, in money: spends against each seat's equilibrium spend, and regrets. */
 export function RoomHistory({
   rounds,
   names,
@@ -99,8 +107,8 @@ export function RoomHistory({
   testPrefix?: string;
 }) {
   const seats = names.map((_, i) => i).filter((s) => rounds.some((r) => r.seatIndices.includes(s)));
-  const effort = perSeatOverRounds(rounds, seats, (r, s) => r.efforts[s] ?? null);
-  const eq = perSeatOverRounds(rounds, seats, equilibriumEffortOf);
+  const effort = perSeatOverRounds(rounds, seats, (r, s) => r.spends[s] ?? null);
+  const eq = perSeatOverRounds(rounds, seats, (r, s) => r.equilibriumSpends[s] ?? null);
   const regret = perSeatOverRounds(rounds, seats, (r, s) => r.regrets[s] ?? null);
   const merged = effort.map((row, k) => {
     const out = { ...row };
@@ -112,10 +120,11 @@ export function RoomHistory({
   return (
     <div className="grid-2">
       <div>
-        <h3>Efforts against equilibrium</h3>
+        <h3>Spends against equilibrium</h3>
         <RoundsChart
           rows={merged}
-          yLabel="Effort"
+          yLabel="Spend"
+          currency={currency}
           testId={`${testPrefix}-effort-chart`}
           dark={dark}
           series={seats.flatMap((s) => [
@@ -129,7 +138,7 @@ export function RoomHistory({
           ])}
         />
         <DataTable
-          caption="Efforts by round (equilibrium in brackets)"
+          caption="Spends by round (equilibrium spend in brackets)"
           testId={`${testPrefix}-effort-table`}
           rows={merged.map((row) => {
             const out: Record<string, string | number | null> = { round: row.round ?? null };
@@ -154,6 +163,7 @@ export function RoomHistory({
         <RoundsChart
           rows={regret}
           yLabel="Regret"
+          currency={currency}
           testId={`${testPrefix}-regret-chart`}
           dark={dark}
           series={seats.map((s) => ({ key: `s${s}`, name: nameOf(s), colour: seriesColour(s) }))}

@@ -12,12 +12,12 @@ import {
 } from "recharts";
 import type { RoundResult } from "@contend/protocol";
 import { roundSeatRows } from "../../lib/chart-data";
-import { formatMoney, formatNumber, formatPercent } from "../../lib/format";
+import { formatMoney, formatPercent } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";
 import { Kpi } from "../Kpi";
 
-/** One revealed round: efforts against equilibrium, shares, payoffs, regrets, dissipation. */
+/** One revealed round, in money: spends against equilibrium spends, shares, payoffs, regrets. */
 export function RoundResults({
   round,
   names,
@@ -41,11 +41,11 @@ export function RoundResults({
     <div data-testid={`${testPrefix}-results`}>
       <div className="kpis" style={{ marginBottom: "0.75rem" }}>
         <Kpi label="Round">{round.round}</Kpi>
-        <Kpi label="Dissipation played" testId={`${testPrefix}-dissipation`}>
+        <Kpi label="Prize spent by all (dissipation)" testId={`${testPrefix}-dissipation`}>
           {formatPercent(round.dissipation)}
         </Kpi>
-        <Kpi label="Dissipation at equilibrium">{formatPercent(round.equilibrium.dissipation)}</Kpi>
-        <Kpi label="Nash gap (largest regret)" testId={`${testPrefix}-gap`}>
+        <Kpi label="… at equilibrium">{formatPercent(round.equilibrium.dissipation)}</Kpi>
+        <Kpi label="Largest regret (Nash gap)" testId={`${testPrefix}-gap`}>
           {money(round.nashGap)}
         </Kpi>
         {round.winner !== null && (
@@ -59,7 +59,7 @@ export function RoundResults({
         style={{ height: 260 }}
         data-testid={`${testPrefix}-chart`}
         role="img"
-        aria-label="Efforts played against equilibrium efforts"
+        aria-label={`Spends played against equilibrium spends, round ${round.round}, in ${currency ?? "money"}`}
       >
         <ResponsiveContainer width="100%" height="100%">
           <BarChart data={rows} margin={{ top: 8, right: 8, bottom: 8, left: 8 }}>
@@ -71,13 +71,18 @@ export function RoundResults({
               tick={{ fontSize: dark ? 16 : 12 }}
               tickFormatter={(v: string) => (v.length > 16 ? `${v.slice(0, 15)}…` : v)}
             />
-            <YAxis stroke={axis} tickFormatter={(v: number) => formatNumber(v)} width={72} />
+            <YAxis stroke={axis} tickFormatter={(v: number) => money(v)} width={72} />
             <Tooltip formatter={(v) => (typeof v === "number" ? money(v) : String(v))} />
             <Legend />
-            <Bar dataKey="effort" name="Played" fill={seriesColour(0)} isAnimationActive={false} />
+            <Bar
+              dataKey="spend"
+              name="Spend played"
+              fill={seriesColour(0)}
+              isAnimationActive={false}
+            />
             <Bar
               dataKey="equilibrium"
-              name={eqKind === "mixed" ? "Equilibrium (expected)" : "Equilibrium"}
+              name={eqKind === "mixed" ? "Equilibrium spend (expected)" : "Equilibrium spend"}
               fill={EQUILIBRIUM_COLOUR}
               isAnimationActive={false}
             />
@@ -94,11 +99,11 @@ export function RoundResults({
         }))}
         columns={[
           { key: "name", label: "Rival" },
-          { key: "effort", label: "Effort", format: money },
-          { key: "equilibrium", label: "Equilibrium", format: money },
+          { key: "spend", label: "Spend", format: money },
+          { key: "equilibrium", label: "Equilibrium spend", format: money },
           { key: "share", label: "Share", format: (v) => formatPercent(v) },
           { key: "payoff", label: "Payoff", format: money },
-          { key: "bestResponse", label: "Best reply", format: money },
+          { key: "bestResponse", label: "Best reply (spend)", format: money },
           { key: "regret", label: "Regret", format: money },
           { key: "total", label: "Running total", format: money },
           { key: "defaulted", label: "Missed" },

@@ -1,0 +1,45 @@
+"use client";
+
+import { useEffect, useRef, useState } from "react";
+import type { Ack, Command, CommandAckData } from "@contend/protocol";
+import { newClientMoveId } from "../lib/live";
+
+/**
+ * Sealing a spend with a confirmation step. The same amount again in the same round (say after
+ * a timeout) reuses its clientMoveId, so the server answers with the original ack instead of
+ * recording a second move (R13).
+ */
+export function useSealMove(
+  round: number,
+  status: string,
+  send: (cmd: Command) => Promise<Ack<CommandAckData>>,
+) {
+  const [confirming, setConfirming] = useState<number | null>(null);
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const pending = useRef<{ round: number; spend: number; id: string } | null>(null);
+
+  // A new round (or a reveal) clears any half-finished confirmation.
+  useEffect(() => {
+    setConfirming(null);
+    setError(null);
+  }, [round, status]);
+
+  async function seal(spend: number): Promise<boolean> {
+    setBusy(true);
+    setError(null);
+    const p = pending.current;
+    const id = p && p.round === round && p.spend === spend ? p.id : newClientMoveId();
+    pending.current = { round, spend, id };
+    const ack = await send({ type: "sealMove", clientMoveId: id, spend, round });
+    setBusy(false);
+    if (ack.ok) {
+      setConfirming(null);
+      return true;
+    }
+    setError(ack.message);
+    return false;
+  }
+
+  return { confirming, setConfirming, busy, error, seal };
+}

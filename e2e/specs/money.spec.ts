@@ -1,0 +1,131 @@
+/**
+ * Money journey: a seat decides an amount of money; the model's effort is spend / cost; the
+ * budget caps money. A rival with cost 1.2 and a budget of €k200 seals €k180 (effort 150) and
+ * its results say "You spent €k180" (the workshop run showed the effort, €k150, as the spend).
+ * Screens of the seat at 1366x768 and 390x844 are saved as artifacts.
+ */
+import type { Browser, Page } from "@playwright/test";
+import { createSession, exportJson } from "../support/api";
+import { connectAs } from "../support/client";
+import { expect, test } from "../support/fixtures";
+import { PHONE, pathOf, phoneContext } from "../support/live";
+import { expectShown } from "../support/numbers";
+
+const COST = 1.2;
+const SCENARIO = {
+  title: "Two couriers bid for the harbour festival sponsorship",
+  prize: 1000,
+  currency: "\u20ack",
+  csf: { kind: "ratio", decisiveness: 1 },
+  rivals: [
+    { name: "Quayside Couriers", cost: COST, budget: 200 },
+    { name: "Tidewater Parcel Co-op", cost: 1 },
+  ],
+  leader: null,
+  session: {
+    outcome: "shares",
+    spendStep: 1,
+    rounds: 2,
+    clockSeconds: null,
+    missingMove: "zero",
+    computer: { "Tidewater Parcel Co-op": { kind: "equilibrium" } },
+  },
+};
+
+interface ExportRound {
+  round: number;
+  efforts: number[];
+  spends: number[];
+  bestResponses: number[];
+  equilibrium: { efforts: number[] | null };
+}
+
+async function openSeat(browser: Browser, origin: string, link: string, phone: boolean) {
+  const context = phone
+    ? await phoneContext(browser, origin)
+    : await browser.newContext({ baseURL: origin, viewport: { width: 1366, height: 768 } });
+  const page = await context.newPage();
+  await page.goto(pathOf(link));
+  await expect(page.getByRole("heading", { level: 1, name: "Quayside Couriers" })).toBeVisible();
+  return page;
+}
+
+async function noSideScroll(page: Page, who: string) {
+  // evaluated in the page, where `document` exists (this file is typed without the DOM)
+  const wide = await page.evaluate(
+    "document.documentElement.scrollWidth - document.documentElement.clientWidth",
+  );
+  expect(Number(wide), `${who} scrolls sideways`).toBeLessThanOrEqual(0);
+}
+
+test("seat(cost 1.2, budget €k200) seals €k180 as money and reads 'You spent €k180'", async ({
+  browser,
+  baseURL,
+  saveScreen,
+}) => {
+  const origin = baseURL!;
+  const created = await createSession(origin, SCENARIO);
+  const fac = await connectAs(origin, {
+    role: "facilitator",
+    sessionId: created.id,
+    key: created.facilitatorKey,
+  });
+  try {
+    const link = created.seats[0]!.link!;
+    const seat = await openSeat(browser, origin, link, false);
+    // the terms are money: the cost is money per unit of effort, the budget is money
+    await expect(seat.getByTestId("seat-cost")).toHaveText("\u20ack1.2");
+    await expect(seat.getByTestId("seat-budget")).toHaveText("\u20ack200");
+    await fac.command({ type: "openRound" });
+
+    const input = seat.getByTestId("spend-input");
+    await expect(input).toBeEnabled();
+    // €k201 is over the budget (read as an effort cap, 200 would have allowed €k240)
+    await input.fill("201");
+    await expect(seat.getByTestId("spend-problem")).toContainText("Your budget is \u20ack200");
+    await expect(seat.getByTestId("seal-button")).toBeDisabled();
+
+    await input.fill("180");
+    await seat.getByTestId("seal-button").click();
+    const confirm = seat.getByTestId("seal-confirm");
+    await expect(confirm).toContainText("Seal \u20ack180 for round 1");
+    await expect(confirm).toContainText("buys 150 units of effort");
+    await saveScreen(seat, "money-seat-confirm-1366");
+    await seat.getByTestId("seal-confirm-button").click();
+
+    // the computer sealed at opening, so this seal resolves the round
+    await expect(seat.getByRole("heading", { name: "Round 1 result" })).toBeVisible();
+    await expect(seat.getByTestId("seat-spend")).toHaveText("\u20ack180");
+    await expect(seat.getByTestId("seat-result-text")).toContainText("You spent \u20ack180.");
+    await expect(seat.locator("body")).not.toContainText("You spent \u20ack150");
+
+    const exported = (await exportJson(origin, created.id)) as { rounds: ExportRound[] };
+    const r = exported.rounds[0]!;
+    expect(r.spends[0]).toBe(180);
+    expect(r.efforts[0]).toBeCloseTo(150, 12);
+    // equilibrium and best reply shown in money: cost x effort (the solver's efforts)
+    await expectShown(
+      seat.getByTestId("seat-eq-spend"),
+      COST * r.equilibrium.efforts![0]!,
+      "equilibrium spend",
+    );
+    await expectShown(
+      seat.getByTestId("seat-best-reply"),
+      COST * r.bestResponses[0]!,
+      "best reply in money",
+    );
+    // the everyone-table's spend column agrees
+    const row = seat.getByTestId("seat-round-table").locator("tbody tr").first();
+    await expect(row.locator('[data-col="spend"]')).toHaveText("\u20ack180");
+    await noSideScroll(seat, "seat at 1366");
+    await saveScreen(seat, "money-seat-result-1366");
+
+    const phone = await openSeat(browser, origin, link, true);
+    expect(phone.viewportSize()).toEqual(PHONE);
+    await expect(phone.getByTestId("seat-spend")).toHaveText("\u20ack180");
+    await noSideScroll(phone, "seat at 390");
+    await saveScreen(phone, "money-seat-result-390");
+  } finally {
+    fac.close();
+  }
+});
