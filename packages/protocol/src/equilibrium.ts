@@ -30,4 +30,6 @@ export const equilibriumSchema = z.object({
   strategies: z.array(mixedStrategySchema).optional(),
   note: z.string().optional(),
   approximate: z.boolean().optional(),
+  equivalents: finiteSchema.optional(),
+  outOfRange: z.string().optional(),
 });

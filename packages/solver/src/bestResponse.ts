@@ -14,6 +14,7 @@
  */
 import { logWeight } from "./csf";
 import { gridMaximize } from "./gridMaximize";
+import { logitInteriorLogOdds } from "./logitInterior";
 import { ratioCandidate, ratioPayoff, ratioTerm } from "./ratioBestResponse";
 import type { BestResponse, Contest, Responses } from "./types";
 
@@ -138,10 +139,9 @@ export function bestResponseAgainst(
   } else if (csf.kind === "logit") {
     const k = csf.scale;
     if (hi > 0) consider(hi);
-    const disc = 1 - (4 * m) / (v * k);
-    if (disc > 0 && o.lnZ !== -Infinity) {
-      const p = 0.5 * (1 + Math.sqrt(disc));
-      const e = (Math.log(p / (1 - p)) + o.lnZ - Math.log(w)) / k;
+    const logOdds = logitInteriorLogOdds(v, m, k);
+    if (logOdds !== null && o.lnZ !== -Infinity) {
+      const e = (logOdds + o.lnZ - Math.log(w)) / k;
       if (e > 0 && e < hi) consider(e);
     }
   } else {

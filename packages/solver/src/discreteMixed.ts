@@ -150,6 +150,22 @@ export function deviationPeaks(
   });
 }
 
+/**
+ * Efforts just above each of the other's played points: with a steep success function the
+ * best deviation may sit closer to an atom than any grid cell (ratio form: relative steps;
+ * logit: steps of the order 1 / k, the form's own effort scale).
+ */
+export function justAbove(contest: Contest, other: DiscreteMix): number[] {
+  const out: number[] = [];
+  const k = contest.csf.kind === "logit" ? contest.csf.scale : 0;
+  other.efforts.forEach((y, idx) => {
+    if (!(other.probabilities[idx]! > 0)) return;
+    for (let j = 1; j <= 8; j++) out.push(y * (1 + Math.pow(10, -j)));
+    if (k > 0) for (let j = -3; j <= 1; j++) out.push(y + Math.pow(10, j) / k);
+  });
+  return out;
+}
+
 /** Certified Nash gap (money) of two mixes: the larger of the two best deviations' gains. */
 export function discreteMixedGap(
   contest: Contest,
@@ -160,7 +176,8 @@ export function discreteMixedGap(
   let gap = 0;
   for (const i of [0, 1] as const) {
     const own = mixes[i];
-    const dev = bestDeviation(contest, i, mixes[1 - i]!, gridPoints, own.efforts);
+    const extra = [...own.efforts, ...justAbove(contest, mixes[1 - i]!)];
+    const dev = bestDeviation(contest, i, mixes[1 - i]!, gridPoints, extra);
     gap = Math.max(gap, dev.payoff - out.payoffs[i]);
   }
   return gap;

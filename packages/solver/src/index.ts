@@ -31,3 +31,6 @@ export * from "./discreteMixed";
 export * from "./twoRivalMixed";
 export * from "./symmetricActiveSets";
 export * from "./fronts";
+export * from "./reliability";
+export * from "./logitInterior";
+export * from "./scaledContest";

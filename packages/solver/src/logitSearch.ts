@@ -12,6 +12,7 @@
  */
 import type { BestResponseOptions } from "./bestResponse";
 import { bestResponseIteration } from "./bestResponseIteration";
+import { logitInteriorLogOdds } from "./logitInterior";
 import { sameProfile, verifyProfile } from "./activeSetSearch";
 import type { FoundEquilibrium, SearchOptions } from "./activeSetSearch";
 import type { Contest } from "./types";
@@ -62,15 +63,14 @@ export function logitSearch(contest: Contest, opts: SearchOptions = {}): FoundEq
     consider(base.slice());
     for (let i = 0; i < n; i++) {
       const rv = rivals[i]!;
-      const disc = 1 - (4 * rv.cost) / (rv.value * k);
-      if (!(disc > 0)) continue;
-      const p = 0.5 * (1 + Math.sqrt(disc));
+      const logOdds = logitInteriorLogOdds(rv.value, rv.cost, k);
+      if (logOdds === null) continue;
       const others = base.map((x, j) =>
         j === i ? -Infinity : Math.log(rivals[j]!.weight) + k * x,
       );
       const lnZ = logSumExp(others);
       if (lnZ === -Infinity) continue;
-      const e = (Math.log(p / (1 - p)) + lnZ - Math.log(rv.weight)) / k;
+      const e = (logOdds + lnZ - Math.log(rv.weight)) / k;
       if (!(e > 0) || e > rv.maxEffort) continue;
       const prof = base.slice();
       prof[i] = e;

@@ -7,6 +7,7 @@
  *   ratio with r_i > 1    -> active-set search with global verification
  *   logit                 -> candidate enumeration with global verification
  *   no pure equilibrium   -> two rivals: mixed equilibrium on a refined grid (twoRivalMixed.ts)
+ * Every result passes reliability.ts: no non-finite number or unverified pure answer leaves.
  */
 import { ratioActiveSetSearch, sameProfile } from "./activeSetSearch";
 import { allPaySymmetric } from "./allPaySymmetric";
@@ -23,10 +24,27 @@ import {
   symmetricRatioEquilibrium,
 } from "./symmetricRatio";
 import { activeSetProfile, countText, symmetricActiveSets } from "./symmetricActiveSets";
+import { guardSolveResult } from "./reliability";
+import { scaledContest, unscaleResult } from "./scaledContest";
 import { twoRivalMixedEquilibrium } from "./twoRivalMixed";
 import type { Contest, Equilibrium, SolveOptions, SolveResult } from "./types";
 
 export function solve(contest: Contest, opts: SolveOptions = {}): SolveResult {
+  const tol = opts.tolerance ?? 1e-6 * contest.prize;
+  const scaled = scaledContest(contest);
+  const raw = scaled
+    ? unscaleResult(
+        solveUnguarded(scaled, {
+          ...opts,
+          ...(opts.tolerance === undefined ? {} : { tolerance: opts.tolerance / contest.prize }),
+        }),
+        contest.prize,
+      )
+    : solveUnguarded(contest, opts);
+  return guardSolveResult(contest, raw, tol);
+}
+
+function solveUnguarded(contest: Contest, opts: SolveOptions): SolveResult {
   if (contest.leader !== null && contest.rivals.length >= 2) {
     return { equilibrium: leaderFollowerEquilibrium(contest, opts.gridPoints), alternatives: [] };
   }
@@ -155,13 +173,22 @@ export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveR
   return { equilibrium: equilibrium!, alternatives };
 }
 
+/** Largest certified gap, as a fraction of the prize, of a mixed answer that is reported. */
+const MIXED_ACCEPT = 1e-3;
+
 /** A mixed equilibrium where one is computed (two rivals), else null. */
 function noPureFallback(contest: Contest, opts: SolveOptions): Equilibrium | null {
   if (contest.rivals.length !== 2 || opts.mixed === false) return null;
-  return twoRivalMixedEquilibrium(contest, {
+  const eq = twoRivalMixedEquilibrium(contest, {
     ...(opts.tolerance === undefined ? {} : { tolerance: opts.tolerance }),
     ...(opts.now === undefined ? {} : { now: opts.now }),
   });
+  if (!eq || eq.nashGap <= MIXED_ACCEPT * contest.prize) return eq;
+  return noPureEquilibrium(
+    contest,
+    eq.method,
+    `The mixed-strategy search did not get within ${MIXED_ACCEPT * 100}% of the prize (certified Nash gap ${eq.nashGap.toPrecision(3)}), so no answer is given.`,
+  );
 }
 
 /** Ratio form with every r_i <= 1: the pure equilibrium exists and is unique. */

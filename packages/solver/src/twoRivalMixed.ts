@@ -20,6 +20,7 @@ import {
   deviationPeaks,
   discreteMixedGap,
   effortCeiling,
+  justAbove,
   mixedOutcome,
   mixedStrategyOf,
   pairShare,
@@ -116,7 +117,8 @@ export function twoRivalMixedMixes(
     let gap = 0;
     let added = false;
     for (const i of [0, 1] as const) {
-      const peaks = deviationPeaks(contest, i, mixes[1 - i]!, 1024, sets[i], 8);
+      const extra = [...sets[i], ...justAbove(contest, mixes[1 - i]!)];
+      const peaks = deviationPeaks(contest, i, mixes[1 - i]!, 1024, extra, 8);
       gap = Math.max(gap, peaks[0]!.payoff - out.payoffs[i]);
       for (const p of peaks) {
         if (p.payoff - out.payoffs[i] > 0.1 * target) added = addPoint(sets[i], p.x) || added;

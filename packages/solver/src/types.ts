@@ -128,6 +128,9 @@ export interface Equilibrium {
   method: string;
   /** mixed strategies per rival (all-pay; finite mixes with points for ratio and logit) */
   strategies?: MixedStrategy[];
+  /** set when the contest's numbers are beyond what the solver computes reliably: the reason
+   * (kind is then "none-pure" and no number is reported) */
+  outOfRange?: string;
   /**
    * how many equilibria this record stands for: the same efforts given to any other choice of
    * identical rivals (symmetric contests above the existence bound); omitted means 1

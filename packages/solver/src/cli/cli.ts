@@ -11,6 +11,7 @@ import { parseArgs, type ParsedArgs } from "./args";
 import { runFronts } from "./frontsCommand";
 import { parseMoves, runRespond } from "./respondCommand";
 import { runSolve } from "./solveCommand";
+import { OUT_OF_RANGE } from "../reliability";
 import { runStatics } from "./staticsCommand";
 import { runSweep } from "./sweepCommand";
 import { validateUncertainScenario } from "../uncertain";
@@ -129,6 +130,11 @@ async function run(
     out: "",
     err: `${errorLine(e, file)}\n`,
   });
+  // exit 2 rather than print a number the solver cannot vouch for (reliability.ts)
+  const answer = (res: { ok: true; value: string } | { ok: false; outOfRange: string }) =>
+    res.ok
+      ? { code: EXIT.ok, out: res.value, err: "" }
+      : { code: EXIT.badInput, out: "", err: `${OUT_OF_RANGE}: ${res.outOfRange}\n` };
   const [file, ...extra] = args.positionals;
   if (file === undefined)
     return bad({
@@ -173,7 +179,7 @@ async function run(
   const contest = normalize(scenario.value);
   switch (command) {
     case "solve":
-      return { code: EXIT.ok, out: runSolve(scenario.value, contest, json), err: "" };
+      return answer(runSolve(scenario.value, contest, json));
     case "respond": {
       const spendsRaw = args.flags.get("spends");
       const effortsRaw = args.flags.get("efforts");
@@ -191,11 +197,7 @@ async function run(
           ? parseMoves(spendsRaw, contest, "spends")
           : parseMoves(effortsRaw!, contest, "efforts");
       if (!efforts.ok) return bad(efforts);
-      return {
-        code: EXIT.ok,
-        out: runRespond(scenario.value, contest, efforts.value, json),
-        err: "",
-      };
+      return answer(runRespond(scenario.value, contest, efforts.value, json));
     }
     case "sweep": {
       const res = runSweep(scenario.value, args, json);

@@ -1,6 +1,7 @@
 import { respond } from "../bestResponse";
 import { spendsOf } from "../normalize";
-import type { Contest, InputError, Parsed, Scenario } from "../types";
+import { responsesRangeProblem } from "../reliability";
+import type { Contest, InputError, Parsed, Responses, Scenario } from "../types";
 import { parseNumber } from "./args";
 import { CAUTIONS, money, table } from "./format";
 
@@ -49,8 +50,20 @@ export function runRespond(
   contest: Contest,
   efforts: number[],
   json: boolean,
-): string {
+): { ok: true; value: string } | { ok: false; outOfRange: string } {
   const res = respond(contest, efforts);
+  const why = responsesRangeProblem(res);
+  if (why !== null) return { ok: false, outOfRange: why };
+  return { ok: true, value: respondOutput(s, contest, efforts, res, json) };
+}
+
+function respondOutput(
+  s: Scenario,
+  contest: Contest,
+  efforts: number[],
+  res: Responses,
+  json: boolean,
+): string {
   if (json) {
     return `${JSON.stringify({
       efforts,

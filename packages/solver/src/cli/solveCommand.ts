@@ -29,6 +29,8 @@ export function equilibriumJson(contest: Contest, eq: Equilibrium): Record<strin
   };
   if (eq.note !== undefined) out.note = eq.note;
   if (eq.strategies) out.strategies = eq.strategies;
+  if (eq.approximate !== undefined) out.approximate = eq.approximate;
+  if (eq.equivalents !== undefined) out.equivalents = eq.equivalents;
   return out;
 }
 
@@ -53,6 +55,17 @@ export function describeCsf(s: Scenario): string {
 /** A mixed strategy in money: the effort range times the rival's cost. */
 function strategyText(m: MixedStrategy | undefined, cost: number, cur?: string | null): string {
   if (!m) return "-";
+  if (m.points) {
+    // a finite mix: its heaviest points, in spend, with their probabilities
+    const top = m.points
+      .filter((p) => p.probability >= 0.005)
+      .sort((a, b) => b.probability - a.probability)
+      .slice(0, 4)
+      .sort((a, b) => a.effort - b.effort);
+    const shown = top.reduce((acc, p) => acc + p.probability, 0);
+    const rest = shown < 0.995 ? `; others ${pct(1 - shown)}` : "";
+    return `${top.map((p) => `${money(cost * p.effort, cur)} (${pct(p.probability)})`).join(", ")}${rest}`;
+  }
   const range = `spend uniform on [${money(cost * m.low, cur)}, ${money(cost * m.high, cur)}]`;
   return m.atomAtZero > 0 ? `0 with prob. ${fmt(m.atomAtZero)}, else ${range}` : range;
 }
@@ -145,7 +158,14 @@ export function solveText(s: Scenario, contest: Contest, result: SolveResult): s
   return `${out.join("\n")}\n`;
 }
 
-export function runSolve(s: Scenario, contest: Contest, json: boolean): string {
+/** The output, or why the contest's numbers are beyond what the solver computes reliably. */
+export function runSolve(
+  s: Scenario,
+  contest: Contest,
+  json: boolean,
+): { ok: true; value: string } | { ok: false; outOfRange: string } {
   const result = solve(contest);
-  return json ? solveJson(contest, result) : solveText(s, contest, result);
+  const why = result.equilibrium.outOfRange;
+  if (why !== undefined) return { ok: false, outOfRange: why };
+  return { ok: true, value: json ? solveJson(contest, result) : solveText(s, contest, result) };
 }
