@@ -155,11 +155,11 @@ export function deviationPeaks(
  * best deviation may sit closer to an atom than any grid cell (ratio form: relative steps;
  * logit: steps of the order 1 / k, the form's own effort scale).
  */
-export function justAbove(contest: Contest, other: DiscreteMix): number[] {
+export function justAbove(contest: Contest, other: DiscreteMix, minProbability = 0): number[] {
   const out: number[] = [];
   const k = contest.csf.kind === "logit" ? contest.csf.scale : 0;
   other.efforts.forEach((y, idx) => {
-    if (!(other.probabilities[idx]! > 0)) return;
+    if (!(other.probabilities[idx]! > minProbability)) return;
     for (let j = 1; j <= 8; j++) out.push(y * (1 + Math.pow(10, -j)));
     if (k > 0) for (let j = -3; j <= 1; j++) out.push(y + Math.pow(10, j) / k);
   });

@@ -117,7 +117,8 @@ export function twoRivalMixedMixes(
     let gap = 0;
     let added = false;
     for (const i of [0, 1] as const) {
-      const extra = [...sets[i], ...justAbove(contest, mixes[1 - i]!)];
+      // heavy atoms only while iterating; the final certificate checks them all
+      const extra = [...sets[i], ...justAbove(contest, mixes[1 - i]!, 1e-3)];
       const peaks = deviationPeaks(contest, i, mixes[1 - i]!, 1024, extra, 8);
       gap = Math.max(gap, peaks[0]!.payoff - out.payoffs[i]);
       for (const p of peaks) {

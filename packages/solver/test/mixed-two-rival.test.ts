@@ -261,5 +261,5 @@ describe("random two-rival contests without a pure equilibrium", () => {
       { numRuns: 12 },
     );
     expect(mixed).toBeGreaterThan(0);
-  });
+  }, 60_000);
 });
