@@ -1,5 +1,6 @@
-// Shared lint rules for every workspace: typed-free recommended sets plus the few habits we
-// care about (no floating promises would need type info; we keep lint fast and typecheck strict).
+// Shared lint rules for every workspace: the recommended sets, the few habits we care about, and
+// one type-aware rule: a promise nobody awaits, returns or marks `void` is a bug (its rejection
+// goes unhandled and its order is anyone's guess).
 import js from "@eslint/js";
 import tseslint from "typescript-eslint";
 import globals from "globals";
@@ -41,6 +42,16 @@ export default tseslint.config(
       eqeqeq: ["error", "always"],
       "no-console": "off",
       "no-restricted-imports": ["error", { patterns: [APPS_ARE_LEAVES] }],
+    },
+  },
+  {
+    files: ["**/*.{ts,tsx,mts,cts}"],
+    languageOptions: {
+      // each file is checked with the tsconfig.json of its workspace
+      parserOptions: { projectService: true, tsconfigRootDir: process.cwd() },
+    },
+    rules: {
+      "@typescript-eslint/no-floating-promises": "error",
     },
   },
   {

@@ -148,7 +148,7 @@ export function createApplication(deps: ApplicationDeps): Application {
         load.stop();
         // io.close() disconnects every client and closes the HTTP server as well.
         await new Promise<void>((resolve) => {
-          io.close(() => resolve());
+          void io.close(() => resolve());
         });
         http.closeAllConnections();
       })();
