@@ -34,16 +34,16 @@ test("explorer uncertainty(c2 ~ U[1, 3]) shows the median spend of the closed fo
   await page.getByLabel("Rival 2 cost").fill("2");
 
   const section = page.getByTestId("uncertainty-section");
-  await section.getByTestId("range-toggle-rivals.1.cost").check();
+  await page.getByTestId("range-toggle-rivals.1.cost").check();
 
   // A bad range names the field inside it and the run is blocked.
-  await section.getByLabel("Low of Cost per unit of effort, Rival B").fill("3");
-  await section.getByLabel("High of Cost per unit of effort, Rival B").fill("1");
-  await expect(section.getByTestId("range-error")).toContainText("rivals.1.cost.high");
+  await page.getByLabel("Low of Cost per unit of effort, Rival B").fill("3");
+  await page.getByLabel("High of Cost per unit of effort, Rival B").fill("1");
+  await expect(page.getByTestId("range-error")).toContainText("rivals.1.cost.high");
   await expect(section.getByTestId("uncertain-run")).toBeDisabled();
-  await section.getByLabel("Low of Cost per unit of effort, Rival B").fill("1");
-  await section.getByLabel("High of Cost per unit of effort, Rival B").fill("3");
-  await expect(section.getByTestId("range-error")).toHaveCount(0);
+  await page.getByLabel("Low of Cost per unit of effort, Rival B").fill("1");
+  await page.getByLabel("High of Cost per unit of effort, Rival B").fill("3");
+  await expect(page.getByTestId("range-error")).toHaveCount(0);
 
   // A long run shows progress and can be cancelled.
   await section.getByTestId("uncertain-draws").fill("100000");

@@ -1,5 +1,6 @@
 "use client";
 
+import type { ReactNode } from "react";
 import type { EditorForm, FieldErrors, RivalRow } from "../lib/editor-form";
 import {
   bindField,
@@ -24,10 +25,13 @@ export function ContestFields({
   form,
   setForm,
   errors,
+  extra,
 }: {
   form: EditorForm;
   setForm: Setter;
   errors: FieldErrors;
+  /** optional control under a number field, by its path ("prize"): the explorer's range toggle */
+  extra?: (path: "prize") => ReactNode;
 }) {
   const bind = <K extends keyof EditorForm>(key: K) => bindField(form, setForm, key);
   return (
@@ -35,14 +39,17 @@ export function ContestFields({
       <legend>Contest</legend>
       <div className="grid-3">
         <TextField label="Title" {...bind("title")} error={errors.title} testId="field-title" />
-        <TextField
-          label="Prize"
-          numeric
-          {...bind("prize")}
-          error={errors.prize}
-          testId="field-prize"
-          hint="(value at stake)"
-        />
+        <div>
+          <TextField
+            label="Prize"
+            numeric
+            {...bind("prize")}
+            error={errors.prize}
+            testId="field-prize"
+            hint="(value at stake)"
+          />
+          {extra?.("prize")}
+        </div>
         <TextField
           label="Currency"
           {...bind("currency")}
@@ -96,12 +103,15 @@ export function RivalsTable({
   errors,
   withPolicy,
   minRows = 1,
+  extra,
 }: {
   form: EditorForm;
   setForm: Setter;
   errors: FieldErrors;
   withPolicy: boolean;
   minRows?: number;
+  /** optional control under rival i's number field: the explorer's range toggle */
+  extra?: (i: number, field: "cost" | "value" | "weight" | "budget") => ReactNode;
 }) {
   const patchRival = (i: number, p: Partial<RivalRow>) =>
     setForm((f) => ({ ...f, rivals: f.rivals.map((r, k) => (k === i ? { ...r, ...p } : r)) }));
@@ -158,6 +168,7 @@ export function RivalsTable({
                       testId={`rival-${i}-${f}`}
                       placeholder={f === "cost" ? "" : f === "budget" ? "no cap" : "default"}
                     />
+                    {extra?.(i, f)}
                   </td>
                 ))}
                 {ratio && (

@@ -7,6 +7,7 @@ import type { ExplorerState } from "../lib/explorer-state";
 import { solveForView } from "../lib/solve-view";
 import { useAddressBarSync } from "../hooks/useAddressBarSync";
 import { useCopyLink } from "../hooks/useCopyLink";
+import { useExplorerRanges } from "../hooks/useExplorerRanges";
 import { useExplorerScenario } from "../hooks/useExplorerScenario";
 import { useSweepAxis } from "../hooks/useSweepAxis";
 import { ContestFields, RivalsTable } from "./ContestFields";
@@ -41,6 +42,7 @@ export function Explorer() {
   const eq = solved?.ok ? solved.result.equilibrium : null;
   const eqEfforts = eq ? (eq.efforts ?? null) : null;
   const contest = solved?.ok ? solved.contest : null;
+  const ranges = useExplorerRanges(form, deferred);
 
   return (
     <div>
@@ -55,8 +57,14 @@ export function Explorer() {
       </div>
       <div className="explorer-top">
         <div>
-          <ContestFields form={form} setForm={setForm} errors={errors} />
-          <RivalsTable form={form} setForm={setForm} errors={errors} withPolicy={false} />
+          <ContestFields form={form} setForm={setForm} errors={errors} extra={ranges.prizeToggle} />
+          <RivalsTable
+            form={form}
+            setForm={setForm}
+            errors={errors}
+            withPolicy={false}
+            extra={ranges.rivalToggle}
+          />
           <TimingFields form={form} leader={leader} setLeader={setLeader} error={errors.leader} />
         </div>
         <EquilibriumCard solved={solved} currency={currency} sequential={!!deferred?.leader} />
@@ -74,7 +82,12 @@ export function Explorer() {
 
       <SweepSection scenario={deferred} sweepAxis={sweepAxis} />
       <StaticsSection scenario={deferred} />
-      <UncertaintySection scenario={deferred} />
+      <UncertaintySection
+        scenario={deferred}
+        ranges={ranges.ranges}
+        built={ranges.built}
+        fields={ranges.fields}
+      />
     </div>
   );
 }

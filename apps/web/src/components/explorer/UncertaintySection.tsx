@@ -4,9 +4,8 @@ import { useMemo, useState } from "react";
 import type { Scenario } from "@contend/solver";
 import { useUncertainRun } from "../../hooks/useUncertainRun";
 import { formatNumber } from "../../lib/format";
-import { buildUncertain, rangeFields, type RangeForm } from "../../lib/range-form";
+import type { BuiltUncertain, RangeField, RangeForm } from "../../lib/range-form";
 import { SelectField, TextField } from "../Field";
-import { RangeFields } from "./RangeFields";
 import { UncertainResults } from "./UncertainResults";
 
 const MAX_DRAWS_UI = 100_000;
@@ -21,17 +20,21 @@ function whole(text: string, min: number, max: number): number | null {
  * equilibrium in a Web Worker, and read outcome bands, drop-out odds, the tornado and one
  * rival's robust plan.
  */
-export function UncertaintySection({ scenario }: { scenario: Scenario | null }) {
-  const [ranges, setRanges] = useState<RangeForm>({});
+export function UncertaintySection({
+  scenario,
+  ranges,
+  built,
+  fields,
+}: {
+  scenario: Scenario | null;
+  ranges: RangeForm;
+  built: BuiltUncertain | null;
+  fields: RangeField[];
+}) {
   const [drawsText, setDrawsText] = useState("10000");
   const [seedText, setSeedText] = useState("1");
   const [plan, setPlan] = useState("0");
   const { state, run, cancel } = useUncertainRun();
-  const fields = useMemo(() => (scenario ? rangeFields(scenario) : []), [scenario]);
-  const built = useMemo(
-    () => (scenario ? buildUncertain(scenario, ranges) : null),
-    [scenario, ranges],
-  );
   const draws = whole(drawsText, 1, MAX_DRAWS_UI);
   const seed = whole(seedText, 0, 2 ** 32 - 1);
   const names = scenario?.rivals.map((r) => r.name) ?? [];
@@ -54,21 +57,44 @@ export function UncertaintySection({ scenario }: { scenario: Scenario | null }) 
     <section className="card" aria-labelledby="uncertain-title" data-testid="uncertainty-section">
       <h2 id="uncertain-title">Uncertainty: ranges, bands and a robust plan</h2>
       <p className="small muted">
-        Tick a number you only know as a range. Each draw picks every range independently, solves
-        the equilibrium, and the bands show where spend, share and payoff land. A model of what you
-        do not know, not a forecast; keep plans internal and never share them with competitors.
+        Tick range under any number above that you only know as a range. Each draw picks every range
+        independently, solves the equilibrium, and the bands show where spend, share and payoff
+        land. A model of what you do not know, not a forecast; keep plans internal and never share
+        them with competitors.
       </p>
       {scenario === null ? (
         <p className="muted">Fix the highlighted fields first.</p>
       ) : (
-        <RangeFields
-          fields={fields}
-          ranges={ranges}
-          setRanges={setRanges}
-          prize={scenario.prize}
-          currency={scenario.currency ?? null}
-          error={built && !built.ok ? built : null}
-        />
+        <div data-testid="range-summary">
+          {fields.filter((f) => ranges[f.path]?.on).length === 0 ? (
+            <p className="small">
+              Tick <strong>range</strong> under the prize or any rival&apos;s cost, value, weight or
+              budget above to give it a range.
+            </p>
+          ) : (
+            <ul className="small">
+              {fields
+                .filter((f) => ranges[f.path]?.on)
+                .map((f) => {
+                  const r = ranges[f.path]!;
+                  return (
+                    <li key={f.path}>
+                      {f.label}
+                      {f.unit === "money" ? ` (${scenario.currency || "money"})` : ""}:{" "}
+                      {r.dist === "uniform"
+                        ? `uniform ${r.low} to ${r.high}`
+                        : `triangular ${r.low} to ${r.high}, most likely ${r.mode}`}
+                    </li>
+                  );
+                })}
+            </ul>
+          )}
+          {built && !built.ok && (
+            <p className="field-error" role="alert">
+              {built.message}
+            </p>
+          )}
+        </div>
       )}
       <div className="row" style={{ alignItems: "flex-start", marginTop: "0.75rem" }}>
         <TextField

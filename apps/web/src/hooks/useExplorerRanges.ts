@@ -1,0 +1,61 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import type { ReactNode } from "react";
+import { createElement } from "react";
+import type { Scenario } from "@contend/solver";
+import type { EditorForm } from "../lib/editor-form";
+import { buildUncertain, rangeFields, type RangeForm, type RangeText } from "../lib/range-form";
+import { RangeToggle } from "../components/explorer/RangeToggle";
+
+type RivalField = "cost" | "value" | "weight" | "budget";
+
+/**
+ * The explorer's ranges. They are stored by the rival row's stable key (so removing a rival
+ * does not move another's range onto it) and read by path ("rivals.1.cost") for the solver.
+ * Returns the range scenario (or the error naming its field) and the toggles to render under
+ * the contest and rival fields.
+ */
+export function useExplorerRanges(form: EditorForm, scenario: Scenario | null) {
+  const [byKey, setByKey] = useState<Record<string, RangeText>>({});
+  const rowKeys = form.rivals.map((r) => r.key);
+  const keyOf = (path: string): string => {
+    const m = /^rivals\.(\d+)\.(\w+)$/.exec(path);
+    return m ? `${rowKeys[Number(m[1])] ?? "?"}.${m[2]}` : path;
+  };
+  const rowKeyText = rowKeys.join(",");
+  const ranges = useMemo<RangeForm>(() => {
+    const out: RangeForm = {};
+    const keys = rowKeyText.split(",");
+    for (const [k, v] of Object.entries(byKey)) {
+      if (k === "prize") out.prize = v;
+      const dot = k.lastIndexOf(".");
+      const i = keys.indexOf(k.slice(0, dot));
+      if (i >= 0) out[`rivals.${i}.${k.slice(dot + 1)}`] = v;
+    }
+    return out;
+  }, [byKey, rowKeyText]);
+  const fields = useMemo(() => (scenario ? rangeFields(scenario) : []), [scenario]);
+  const built = useMemo(
+    () => (scenario ? buildUncertain(scenario, ranges) : null),
+    [scenario, ranges],
+  );
+  const toggle = (path: string): ReactNode => {
+    const field = fields.find((f) => f.path === path);
+    if (!field || !scenario) return null;
+    return createElement(RangeToggle, {
+      field,
+      value: ranges[path],
+      onChange: (r: RangeText) => setByKey((all) => ({ ...all, [keyOf(path)]: r })),
+      prize: scenario.prize,
+      error: built && !built.ok && built.field === path ? built.message : undefined,
+    });
+  };
+  return {
+    ranges,
+    built,
+    fields,
+    prizeToggle: (path: "prize") => toggle(path),
+    rivalToggle: (i: number, f: RivalField) => toggle(`rivals.${i}.${f}`),
+  };
+}
