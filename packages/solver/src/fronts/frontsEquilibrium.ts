@@ -105,7 +105,8 @@ function frontsAt(fc: FrontsContest, mu: readonly number[], concave: boolean): n
       const sf = shareFunctionEquilibrium(c);
       efforts = sf?.ok ? sf.efforts : null;
     } else {
-      const eq = solve(c).equilibrium;
+      // only a pure profile is used: skip the mixed-equilibrium search
+      const eq = solve(c, { mixed: false }).equilibrium;
       efforts = eq.kind === "pure" ? eq.efforts : null;
     }
     if (!efforts) return null;
