@@ -162,3 +162,10 @@ describe("contend fit", () => {
     });
   }
 });
+
+describe("DEMO_PANEL", () => {
+  it("is the text of scenarios/regional-bakeries.csv", async () => {
+    const { DEMO_PANEL } = await import("../src/index");
+    expect(DEMO_PANEL.csv).toBe(await readFile(demo, "utf8"));
+  });
+});

@@ -31,6 +31,7 @@ export default function RootLayout({ children }: { children: ReactNode }) {
               <Link href="/new">New session</Link>
               <Link href="/join">Join</Link>
               <Link href="/explore">Explorer</Link>
+              <Link href="/calibrate">Calibrate</Link>
               <Link href="/replays">Replays</Link>
             </nav>
           </div>

@@ -10,13 +10,15 @@ import {
   formToContestRaw,
   formToScenario,
   parseScenarioText,
+  parseScenarioValue,
   scenarioToForm,
 } from "../lib/editor-form";
 import type { EditorForm } from "../lib/editor-form";
 import { templateById } from "../lib/templates";
 import { solveForView } from "../lib/solve-view";
-import { encodeState } from "../lib/url-state";
+import { decodeState, encodeState } from "../lib/url-state";
 import { CreatedSession } from "./CreatedSession";
+import { ProvenanceNote } from "./ProvenanceNote";
 import { SolvedEquilibrium } from "./EquilibriumTable";
 import { ContestFields, RivalsTable } from "./ContestFields";
 import { RadioGroup, SelectField, TextField } from "./Field";
@@ -54,6 +56,12 @@ function slug(title: string): string {
 export function ScenarioEditor() {
   const params = useSearchParams();
   const [form, setForm] = useState<EditorForm>(() => {
+    // A scenario handed over in the address (?s=, as the Calibrate page links), then a template.
+    const handed = decodeState(params.get("s"));
+    if (handed !== null && typeof handed === "object" && "sc" in handed) {
+      const r = parseScenarioValue((handed as { sc: unknown }).sc);
+      if (r.ok) return r.form;
+    }
     const t = templateById(params.get("template") ?? "");
     return t ? scenarioToForm(t.scenario) : defaultForm();
   });
@@ -120,6 +128,13 @@ export function ScenarioEditor() {
       </p>
       <div className="editor-grid">
         <div>
+          {form.provenance && (
+            <ProvenanceNote
+              provenance={form.provenance}
+              currency={currency}
+              testId="editor-provenance"
+            />
+          )}
           <ContestFields form={form} setForm={setForm} errors={errors} />
           <RivalsTable form={form} setForm={setForm} errors={errors} withPolicy />
 

@@ -5,7 +5,7 @@
  * field can show its own.
  */
 import { POLICY_LABELS, validateScenario } from "@contend/solver";
-import type { CsfSpec, PolicyKind, RivalSpec, Scenario } from "@contend/solver";
+import type { CsfSpec, PolicyKind, Provenance, RivalSpec, Scenario } from "@contend/solver";
 import { sessionScenarioSchema, sessionSettingsSchema, spendStepOf } from "@contend/protocol";
 import type { SessionScenarioInput } from "./session-types";
 
@@ -64,6 +64,8 @@ export interface EditorForm {
   rounds: string;
   clockSeconds: string;
   missingMove: "zero" | "repeat";
+  /** where the numbers came from (a calibration), kept unchanged into the session */
+  provenance: Provenance | null;
 }
 
 /** value + onChange of one form field, for spreading into a field component. */
@@ -117,6 +119,7 @@ export function defaultForm(): EditorForm {
     rounds: "5",
     clockSeconds: "",
     missingMove: "zero",
+    provenance: null,
   };
 }
 
@@ -176,6 +179,7 @@ export function formToContestRaw(form: EditorForm): Record<string, unknown> {
     csf: csfOf(form),
     rivals: form.rivals.map(rivalOf),
     leader: null,
+    ...(form.provenance === null ? {} : { provenance: form.provenance }),
   };
 }
 
@@ -341,6 +345,7 @@ export function scenarioToForm(s: SessionScenarioInput): EditorForm {
     rounds: numberText(session.rounds ?? 5),
     clockSeconds: numberText(session.clockSeconds ?? null),
     missingMove: session.missingMove ?? "zero",
+    provenance: s.provenance ?? null,
   };
 }
 
@@ -354,6 +359,13 @@ export function parseScenarioText(
   } catch (e) {
     return { ok: false, message: `not valid JSON: ${(e as Error).message}` };
   }
+  return parseScenarioValue(raw);
+}
+
+/** A parsed scenario value (an import, or one handed over in the address) -> form. */
+export function parseScenarioValue(
+  raw: unknown,
+): { ok: true; form: EditorForm } | { ok: false; message: string } {
   if (typeof raw !== "object" || raw === null || Array.isArray(raw)) {
     return { ok: false, message: "the file must hold one JSON object" };
   }

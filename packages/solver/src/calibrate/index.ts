@@ -5,3 +5,5 @@ export * from "./calibrate";
 export * from "./calibratedScenario";
 export * from "./studentT";
 export { sortedQuantile } from "./revealedValues";
+export * from "./demoPanel";
+export * from "./provenance";

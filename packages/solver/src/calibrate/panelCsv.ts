@@ -100,3 +100,8 @@ export function parsePanelCsv(text: string): Parsed<PanelRow[]> {
   }
   return { ok: true, value: rows };
 }
+
+/** Cells (header first) as CSV text, quoting where needed; the inverse of the parsing above. */
+export function cellsToCsv(cells: readonly (readonly string[])[]): string {
+  return `${Papa.unparse(cells.map((r) => [...r]))}\n`;
+}

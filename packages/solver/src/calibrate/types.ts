@@ -77,3 +77,13 @@ export interface CalibrateOptions {
 }
 
 export const CALIBRATION_DEFAULTS = { seed: 1, resamples: 1000, resamplesMax: 100_000 } as const;
+
+/**
+ * What a calibration assumes and cannot know; shown wherever its results are (CLI table, web
+ * Calibrate page, editor and debrief provenance).
+ */
+export const CALIBRATION_CAUTIONS = [
+  "These are estimates from past data, not facts.",
+  "They assume the market behaves like a ratio contest and that each period's spends were best replies to the others.",
+  "Spend also reacts to the share a rival expects (endogeneity; Jia, Skaperdas & Vaidya 2013), which can bias the estimates.",
+] as const;

@@ -4,6 +4,7 @@
  * the fit quality and a scenario file that `contend solve` accepts.
  */
 import {
+  CALIBRATION_CAUTIONS,
   calibrate,
   calibratedScenario,
   parsePanelCsv,
@@ -14,13 +15,6 @@ import type { Parsed, Scenario } from "../types";
 import type { ParsedArgs } from "./args";
 import { parseNumber } from "./args";
 import { CAUTIONS, fmt, table } from "./format";
-
-/** What calibration assumes and cannot know; printed under every readable fit. */
-export const FIT_CAUTIONS = [
-  "These are estimates from past data, not facts. They assume the market behaves like a ratio",
-  "contest and that each period's spends were best replies to the others. Spend also reacts to",
-  "the share a rival expects (endogeneity; Jia, Skaperdas & Vaidya 2013), which can bias r.",
-].join("\n");
 
 /** The JSON of `contend fit --json`, in the documented field order. */
 export function fitJson(c: Calibration, scenario: Scenario): string {
@@ -72,7 +66,7 @@ export function fitTable(c: Calibration, source: string): string {
     `Fit: R^2 ${fmt(f.r2)} (log-centred regression); RMSE of fitted vs observed shares ${fmt(f.rmse * 100)} percentage points.`,
     'The implied scenario (cost 1 per unit of money) is the "scenario" field of --json.',
     "",
-    FIT_CAUTIONS,
+    ...CALIBRATION_CAUTIONS,
     CAUTIONS,
   ];
   return `${lines.join("\n")}\n`;

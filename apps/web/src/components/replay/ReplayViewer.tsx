@@ -10,6 +10,7 @@ import { CAUTION_LINES } from "../Cautions";
 import { RoomHistory } from "../live/History";
 import { RoundResults } from "../live/RoundResults";
 import { FigureTable, numCol, textCol } from "../FigureTable";
+import { ProvenanceNote } from "../ProvenanceNote";
 
 export function ReplayViewer({ sessionId, accessKey }: { sessionId: string; accessKey: string }) {
   const [data, setData] = useState<SessionExport | null>(null);
@@ -211,6 +212,13 @@ function ReplayBody({
               : "prize shared by winning chance"}
             .
           </p>
+        )}
+        {finalView.ok && finalView.view.scenario.provenance && (
+          <ProvenanceNote
+            provenance={finalView.view.scenario.provenance}
+            currency={currency}
+            testId="debrief-provenance"
+          />
         )}
         {data.rounds.length === 0 ? (
           <p className="muted">No round was revealed.</p>
