@@ -76,7 +76,7 @@ test("a session from a calibrated scenario shows its calibration in the debrief"
   const computer = Object.fromEntries(NAMES.map((n) => [n, { kind: "equilibrium" }]));
   const created = await createSession(origin, {
     ...scenario,
-    session: { rounds: 1, effortStep: 1, computer },
+    session: { rounds: 1, spendStep: 1, computer },
   });
   const fac = await connectAs(origin, {
     role: "facilitator",
