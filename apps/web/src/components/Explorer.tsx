@@ -1,5 +1,6 @@
 "use client";
 
+import Link from "next/link";
 import { useDeferredValue, useMemo, useState } from "react";
 import { useSearchParams } from "next/navigation";
 import { decodeExplorer, initialState } from "../lib/explorer-state";
@@ -49,6 +50,7 @@ export function Explorer() {
       <div className="row" style={{ justifyContent: "space-between" }}>
         <h1>Equilibrium explorer</h1>
         <div className="row">
+          <Link href="/explore/fronts">Several fronts, one budget</Link>
           <span className="small muted">The page address holds the whole view.</span>
           <button type="button" onClick={copyLink} data-testid="copy-explorer-link">
             {copied ? "Link copied" : "Copy link"}

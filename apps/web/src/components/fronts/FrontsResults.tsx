@@ -1,0 +1,121 @@
+"use client";
+
+import type { FrontsContest, FrontsEquilibrium } from "@contend/solver";
+import { readAllocation } from "@contend/solver";
+import { formatMoney, formatNumber, formatPercent } from "../../lib/format";
+import { FigureTable, RowHeader, numCol, textCol } from "../FigureTable";
+
+/** The equilibrium split: money per front, budgets and shadow prices, shares, and the reading. */
+export function FrontsResults({
+  fc,
+  eq,
+  currency,
+}: {
+  fc: FrontsContest;
+  eq: FrontsEquilibrium;
+  currency: string | null;
+}) {
+  const money = (v: number) => formatMoney(v, currency);
+  const per = currency ? `per 1 ${currency}` : "per unit of money";
+  if (eq.kind === "none-pure" || !eq.spends) {
+    return (
+      <section className="card" aria-labelledby="fronts-eq-title" data-testid="fronts-eq">
+        <h2 id="fronts-eq-title">Equilibrium</h2>
+        <p data-testid="fronts-eq-none">No pure-strategy equilibrium found. {eq.note}</p>
+      </section>
+    );
+  }
+  const spends = eq.spends;
+  const reading = readAllocation(fc, spends);
+  const names = (ks: number[]) => ks.map((k) => fc.fronts[k]!.name).join(", ") || "none";
+  return (
+    <section className="card" aria-labelledby="fronts-eq-title" data-testid="fronts-eq">
+      <h2 id="fronts-eq-title">Equilibrium split of the budgets</h2>
+      <p className="small muted">
+        Pure equilibrium · Nash gap {money(eq.nashGap)} (the most any rival could gain by
+        re-splitting its own budget) · method {eq.method}
+      </p>
+      <FigureTable
+        caption={`Money spent on each front (${currency ?? "money"})`}
+        testId="fronts-spend-table"
+        head={[
+          textCol("Rival"),
+          ...fc.fronts.map((f) => numCol(f.name)),
+          numCol("Total"),
+          numCol("Budget"),
+          numCol(`Shadow price ${per}`, "shadow"),
+          numCol("Payoff"),
+        ]}
+      >
+        {fc.rivals.map((r, i) => {
+          const sp = eq.shadowPrices?.[i];
+          return (
+            <tr key={r.name}>
+              <RowHeader>{r.name}</RowHeader>
+              {spends[i]!.map((s, k) => (
+                <td key={k} className="num">
+                  {money(s)}
+                </td>
+              ))}
+              <td className="num">{money(eq.budgetUsed![i]!)}</td>
+              <td className="num">
+                {Number.isFinite(r.budget) ? money(r.budget) : "none"}
+                {r.sunkBudget ? " (sunk)" : ""}
+              </td>
+              <td className="num" data-testid={`fronts-shadow-${i}`}>
+                {sp === null || sp === undefined ? "no budget" : formatNumber(sp, 3)}
+              </td>
+              <td className="num">{money(eq.payoffs![i]!)}</td>
+            </tr>
+          );
+        })}
+        <tr>
+          <RowHeader>All rivals</RowHeader>
+          {eq.frontTotals!.map((t, k) => (
+            <td key={k} className="num">
+              {money(t)}
+            </td>
+          ))}
+          <td className="num">{money(eq.frontTotals!.reduce((a, b) => a + b, 0))}</td>
+          <td />
+          <td />
+          <td />
+        </tr>
+      </FigureTable>
+      <p className="small muted">
+        Shadow price: what one more unit of budget would add to the rival&apos;s payoff (0 when its
+        budget does not bind).
+      </p>
+      <FigureTable
+        caption="Share won on each front (win probability or market share)"
+        testId="fronts-share-table"
+        head={[textCol("Rival"), ...fc.fronts.map((f) => numCol(f.name))]}
+      >
+        {fc.rivals.map((r, i) => (
+          <tr key={r.name}>
+            <RowHeader>{r.name}</RowHeader>
+            {eq.shares![i]!.map((p, k) => (
+              <td key={k} className="num">
+                {formatPercent(p)}
+              </td>
+            ))}
+          </tr>
+        ))}
+      </FigureTable>
+      <h3>Where each rival concentrates and where it concedes</h3>
+      <ul data-testid="fronts-reading">
+        {reading.map((x, i) => (
+          <li key={fc.rivals[i]!.name}>
+            <strong>{fc.rivals[i]!.name}</strong> concentrates on {names(x.concentrates)}; concedes{" "}
+            {names(x.concedes)}.
+          </li>
+        ))}
+      </ul>
+      <p className="small muted">
+        Against a split in proportion to what each front is worth to the rival: concentrating means
+        at least 1.25 times that share of its money, conceding less than 2% of it (display
+        thresholds, not results of the model).
+      </p>
+    </section>
+  );
+}
