@@ -129,3 +129,91 @@ test("seat(cost 1.2, budget €k200) seals €k180 as money and reads 'You spent
     fac.close();
   }
 });
+
+test("shock(prize and cost) is announced on the seat, the big screen and the console, then listed", async ({
+  browser,
+  baseURL,
+  saveScreen,
+}) => {
+  const origin = baseURL!;
+  const created = await createSession(origin, SCENARIO);
+  const fac = await connectAs(origin, {
+    role: "facilitator",
+    sessionId: created.id,
+    key: created.facilitatorKey,
+  });
+  const seatClient = await connectAs(origin, {
+    role: "seat",
+    sessionId: created.id,
+    key: created.seats[0]!.key!,
+  });
+  try {
+    const open = async (link: string, width: number, height: number) => {
+      const ctx = await browser.newContext({ baseURL: origin, viewport: { width, height } });
+      const page = await ctx.newPage();
+      await page.goto(pathOf(link));
+      return page;
+    };
+    const seat = await open(created.seats[0]!.link!, 1366, 768);
+    const screen = await open(created.links.spectator, 1920, 1080);
+    const console_ = await open(created.links.facilitator, 1366, 768);
+    await expect(seat.getByRole("heading", { level: 1, name: "Quayside Couriers" })).toBeVisible();
+    await expect(screen.getByTestId("big-screen")).toBeVisible();
+    await expect(console_.getByTestId("session-status")).toBeVisible();
+    const pages = { seat, "big screen": screen, console: console_ };
+
+    // round 1 is played without a shock: no banner anywhere
+    await fac.command({ type: "openRound" });
+    await seatClient.command({ type: "sealMove", clientMoveId: "r1", spend: 150 });
+    await expect(seat.getByRole("heading", { name: "Round 1 result" })).toBeVisible();
+    for (const [who, page] of Object.entries(pages)) {
+      await expect(page.getByTestId("shock-banner"), who).toHaveCount(0);
+    }
+
+    await fac.command({
+      type: "applyShock",
+      changes: [
+        { target: "prize", value: 1500 },
+        { target: "rival", index: 0, field: "cost", value: 1.5 },
+      ],
+    });
+    for (const [who, page] of Object.entries(pages)) {
+      const banner = page.getByTestId("shock-banner");
+      await expect(banner, who).toBeVisible();
+      await expect(banner, who).toContainText("The contest changes from round 2");
+      await expect(banner, who).toContainText("Prize: \u20ack1,000 \u2192 \u20ack1,500");
+      await expect(banner, who).toContainText(
+        "Quayside Couriers: cost per unit of effort: \u20ack1.2 \u2192 \u20ack1.5",
+      );
+      // the banner sits in a polite live region, so screen readers announce it
+      const live = page.getByTestId("shock-live");
+      await expect(live, who).toHaveAttribute("role", "status");
+      await expect(live, who).toHaveAttribute("aria-live", "polite");
+    }
+    await saveScreen(seat, "money-shock-seat-1366");
+    await saveScreen(screen, "money-shock-big-screen-1920");
+    await saveScreen(console_, "money-shock-console-1366");
+
+    // it stays up while the changed round is open, and goes once that round is revealed
+    await fac.command({ type: "openRound" });
+    await expect(seat.getByTestId("shock-banner")).toContainText("(this round)");
+    await seatClient.command({ type: "sealMove", clientMoveId: "r2", spend: 150 });
+    await expect(seat.getByTestId("seat-ended")).toBeVisible();
+    for (const [who, page] of Object.entries(pages)) {
+      await expect(page.getByTestId("shock-banner"), who).toHaveCount(0);
+    }
+    // the debrief lists it, and the round axis marks the changed round
+    const changes = console_.getByTestId("console-history-changes");
+    await expect(changes).toContainText("From round 2: Prize: \u20ack1,000 \u2192 \u20ack1,500");
+    await expect(seat.getByTestId("seat-history-chart")).toContainText("2 \u26a1 changed");
+    // the export lists it too
+    const exported = (await exportJson(origin, created.id)) as {
+      shocks: { afterRound: number; changes: unknown[] }[];
+    };
+    expect(exported.shocks).toHaveLength(1);
+    expect(exported.shocks[0]!.afterRound).toBe(1);
+  } finally {
+    fac.close();
+    seatClient.close();
+  }
+});

@@ -164,8 +164,12 @@ describe("a full live session over sockets", () => {
       session: { id: string; status: string; rounds: number };
       events: unknown[];
       rounds: unknown[];
+      shocks: { afterRound: number; before: { prize: number }; after: { prize: number } }[];
     };
     expect(exported.events).toEqual(JSON.parse(JSON.stringify(log)));
+    // both shocks came after round 2, each with the contest before and after it
+    expect(exported.shocks.map((s) => s.afterRound)).toEqual([2, 2]);
+    expect([exported.shocks[0]!.before.prize, exported.shocks[0]!.after.prize]).toEqual([100, 150]);
     expect(exported.rounds).toEqual(JSON.parse(JSON.stringify(final.rounds)));
     expect(exported.session).toMatchObject({ id, status: "ended", rounds: 3 });
     expect(log.map((e) => e.seq)).toEqual(log.map((_, i) => i + 1));
@@ -174,7 +178,7 @@ describe("a full live session over sockets", () => {
     expect(csvRes.headers.get("content-type")).toMatch(/text\/csv/);
     const lines = (await csvRes.text()).trimEnd().split("\r\n");
     expect(lines[0]).toBe(
-      "round,seat,rival,spend,effort,share,payoff,total,bestResponseSpend,bestResponse,regret,equilibriumSpend,equilibriumEffort,defaulted,reason",
+      "round,seat,rival,spend,effort,share,payoff,total,bestResponseSpend,bestResponse,regret,equilibriumSpend,equilibriumEffort,defaulted,reason,changesBefore",
     );
     expect(lines).toHaveLength(1 + 3 * 3);
     const row = lines[1]!.split(",");
@@ -184,6 +188,11 @@ describe("a full live session over sockets", () => {
     // Foxglove Prints (cost 1.25) sealed effort 12.5: a spend of 15.625
     expect(lines[2]!.split(",").slice(2, 5)).toEqual(["Foxglove Prints", "15.625", "12.5"]);
     expect(lines.filter((l) => l.startsWith("3,"))).toHaveLength(3);
+    // the round-3 rows list the shocks applied before it; earlier rows list none
+    expect(lines.find((l) => l.startsWith("3,"))).toMatch(
+      /,prize 100 -> 150; Foxglove Prints cost 1\.25 -> 1\.1$/,
+    );
+    expect(lines[1]).toMatch(/,$/);
   });
 
   it("a guest claims a free seat with the join code and then plays it with the returned key", async () => {

@@ -14,6 +14,7 @@ import {
 import { describeEvent, parseExport, seatSummary, viewAfter } from "../src/lib/replay";
 import { blankDraft, describeShock, draftToShock } from "../src/lib/shock-form";
 import { roundSeatRows } from "../src/lib/chart-data";
+import { shockLineText, shockLines } from "../src/lib/shock-text";
 
 // One rule, one place: the seat form checks a spend with the engine's rule, so it refuses
 // exactly what the server refuses. Two cases where the web's own copy used to disagree: 5e-7
@@ -345,5 +346,84 @@ describe("replay", () => {
     const bad = parseExport({ session, events: "nope", rounds: [] });
     expect(bad.ok).toBe(false);
     if (!bad.ok) expect(bad.message).toMatch(/events/);
+  });
+  it("parseExport(an export written before spends) reads in money: spend = cost x effort", () => {
+    const log = playLog();
+    // strip every money field from the events and keep the old-style rounds (efforts only)
+    const old = log.map((e) => {
+      const {
+        spend: _s,
+        spends: _ss,
+        ...rest
+      } = e as SessionEvent & {
+        spend?: number;
+        spends?: number[];
+      };
+      return rest;
+    });
+    const oldRounds = [{ round: 1, efforts: [3, 10] }];
+    const session = {
+      id: "s-1",
+      title: "t",
+      status: "review",
+      createdAt: "2026-01-01T00:00:00Z",
+      updatedAt: "2026-01-01T00:00:00Z",
+      rounds: 1,
+    };
+    const parsed = parseExport({ session, events: old, rounds: oldRounds });
+    if (!parsed.ok) throw new Error(parsed.message);
+    // North Bakery (cost 5) played effort 3: a spend of 15; Corner Ovens (cost 2) effort 10: 20
+    expect(parsed.value.rounds[0]!.spends).toEqual([15, 20]);
+    expect(parsed.value.shocks).toEqual([]);
+  });
+});
+
+describe("shock text", () => {
+  const before = {
+    title: "t",
+    prize: 1000,
+    currency: "\u20ack",
+    csf: { kind: "ratio" as const, decisiveness: 1 },
+    rivals: [
+      { name: "Quayside", cost: 1.2, budget: 200 },
+      { name: "Tidewater", cost: 1 },
+    ],
+  };
+  it("shockLines(record) says what changed, from what to what, in money", () => {
+    const after = {
+      ...before,
+      prize: 1500,
+      rivals: [{ ...before.rivals[0]!, cost: 1.5, budget: null }, before.rivals[1]!],
+    };
+    const lines = shockLines(
+      {
+        afterRound: 2,
+        changes: [
+          { target: "prize", value: 1500 },
+          { target: "rival", index: 0, field: "cost", value: 1.5 },
+          { target: "rival", index: 0, field: "budget", value: null },
+        ],
+        before,
+        after,
+      },
+      "\u20ack",
+    ).map(shockLineText);
+    expect(lines).toEqual([
+      "Prize: \u20ack1,000 \u2192 \u20ack1,500",
+      "Quayside: cost per unit of effort: \u20ack1.2 \u2192 \u20ack1.5",
+      "Quayside: budget: \u20ack200 \u2192 no cap",
+    ]);
+  });
+  it("shockLines(retire) names the retired rival; changesBetweenRounds reads rounds alone", () => {
+    const lines = shockLines(
+      {
+        afterRound: 1,
+        changes: [{ target: "retire-rival", index: 1 }],
+        before,
+        after: before,
+      },
+      null,
+    );
+    expect(lines.map(shockLineText)).toEqual(["Tidewater: in the contest \u2192 retired"]);
   });
 });

@@ -2,7 +2,7 @@
 import { z } from "zod";
 import { ERROR_CODES } from "./result";
 import { seatKindSchema, sessionEventSchema } from "./events";
-import { roundResultSchema, SESSION_STATUSES } from "./view";
+import { roundResultSchema, SESSION_STATUSES, shockRecordSchema } from "./view";
 import { sessionScenarioSchema } from "./sessionScenario";
 import { parseInput } from "./result";
 import type { ParseResult } from "./result";
@@ -59,6 +59,8 @@ export const sessionExportSchema = z.object({
   session: sessionListItemSchema,
   events: z.array(sessionEventSchema),
   rounds: z.array(roundResultSchema),
+  /** every shock of the exported log: when, what, and the contest before and after */
+  shocks: z.array(shockRecordSchema),
 });
 export type SessionExport = z.output<typeof sessionExportSchema>;
 

@@ -45,6 +45,9 @@ export const shockRecordSchema = z.object({
   /** rounds resolved before the shock (0: before the first round) */
   afterRound: z.int().min(0),
   changes: z.array(shockSchema),
+  /** the session's contest just before and just after the shock (what changed, from what to what) */
+  before: contestScenarioSchema,
+  after: contestScenarioSchema,
 });
 
 export const roleViewSchema = z.object({

@@ -87,7 +87,15 @@ function applyShock(
     scenario: event.scenario,
     seats,
     totals,
-    shocks: [...state.shocks, { afterRound: state.rounds.length, changes: event.changes }],
+    shocks: [
+      ...state.shocks,
+      {
+        afterRound: state.rounds.length,
+        changes: event.changes,
+        before: state.scenario,
+        after: event.scenario,
+      },
+    ],
   };
 }
 

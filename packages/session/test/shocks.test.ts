@@ -10,6 +10,7 @@ function live(room: Room): LiveState {
 describe("decide: shocks", () => {
   it("applyShock(rival cost, prize, csf) changes the contest and records the shock", () => {
     const room = new Room(scenarioWith());
+    const before = live(room).scenario;
     const d = room.ok(
       {
         type: "applyShock",
@@ -29,8 +30,17 @@ describe("decide: shocks", () => {
     expect(s.scenario.prize).toBe(150);
     expect(s.scenario.csf).toEqual({ kind: "ratio", decisiveness: 0.5 });
     expect(s.shocks).toEqual([
-      { afterRound: 0, changes: d.events[0]!.type === "shock-applied" ? d.events[0]!.changes : [] },
+      {
+        afterRound: 0,
+        changes: d.events[0]!.type === "shock-applied" ? d.events[0]!.changes : [],
+        before,
+        after: s.scenario,
+      },
     ]);
+    // from what to what: the record keeps the contest on both sides of the shock
+    expect(s.shocks[0]!.before.rivals[1]!.cost).toBe(2);
+    expect(s.shocks[0]!.before.prize).toBe(100);
+    expect(s.shocks[0]!.after.prize).toBe(150);
     expect(s.status).toBe("lobby");
   });
 

@@ -88,7 +88,7 @@ export function createRestHandler(deps: RestDeps) {
     const events = (await db.events.list(id)).map(toSessionEvent);
     const record = buildExport(summary, events);
     if (format === "json") return sendJson(res, 200, record);
-    sendText(res, 200, roundsCsv(record.rounds), "text/csv; charset=utf-8", {
+    sendText(res, 200, roundsCsv(record.rounds, record.shocks), "text/csv; charset=utf-8", {
       "content-disposition": `attachment; filename="session-${id}.csv"`,
     });
   }

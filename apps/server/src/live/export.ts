@@ -4,7 +4,13 @@
  * stay private until the round resolves.
  */
 import type { SessionSummary } from "@contend/db";
-import type { RoundResult, SessionEvent, SessionExport, SessionListItem } from "@contend/protocol";
+import type {
+  RoundResult,
+  SessionEvent,
+  SessionExport,
+  SessionListItem,
+  ShockRecord,
+} from "@contend/protocol";
 import { fold } from "@contend/session";
 import { toCsv } from "../http/csv";
 import type { CsvCell } from "../http/csv";
@@ -41,7 +47,27 @@ export function buildExport(
   const events = publicEvents(allEvents);
   const state = fold(events);
   const rounds: RoundResult[] = state.status === "empty" ? [] : state.rounds;
-  return { session: listItem(summary, rounds.length), events, rounds };
+  const shocks = state.status === "empty" ? [] : state.shocks;
+  return { session: listItem(summary, rounds.length), events, rounds, shocks };
+}
+
+/** One shock as plain text for a CSV cell: "prize 1000 -> 1500; Millstone Loaves cost 1.25 -> 1.5". */
+export function shockText(s: ShockRecord): string {
+  const parts: string[] = [];
+  const nameOf = (i: number) => s.before.rivals[i]?.name ?? s.after.rivals[i]?.name ?? `seat ${i}`;
+  const show = (v: unknown) => (v === null || v === undefined ? "default" : String(v));
+  for (const c of s.changes) {
+    if (c.target === "prize") parts.push(`prize ${s.before.prize} -> ${s.after.prize}`);
+    else if (c.target === "csf")
+      parts.push(`contest form ${JSON.stringify(s.before.csf)} -> ${JSON.stringify(s.after.csf)}`);
+    else if (c.target === "rival") {
+      const from = s.before.rivals[c.index]?.[c.field];
+      const to = s.after.rivals[c.index]?.[c.field];
+      parts.push(`${nameOf(c.index)} ${c.field} ${show(from)} -> ${show(to)}`);
+    } else if (c.target === "add-rival") parts.push(`${c.rival.name} joins`);
+    else parts.push(`${nameOf(c.index)} retired`);
+  }
+  return parts.join("; ");
 }
 
 export const CSV_HEADER = [
@@ -60,12 +86,23 @@ export const CSV_HEADER = [
   "equilibriumEffort",
   "defaulted",
   "reason",
+  "changesBefore",
 ] as const;
 
-/** One row per seat that played, per resolved round. */
-export function roundsCsv(rounds: readonly RoundResult[]): string {
+/**
+ * One row per seat that played, per resolved round; `changesBefore` lists the shocks applied
+ * since the previous round (money in the session's units, as the scenario states them).
+ */
+export function roundsCsv(
+  rounds: readonly RoundResult[],
+  shocks: readonly ShockRecord[] = [],
+): string {
   const rows: CsvCell[][] = [];
   for (const r of rounds) {
+    const changes = shocks
+      .filter((s) => s.afterRound === r.round - 1)
+      .map(shockText)
+      .join("; ");
     const eq = r.equilibrium;
     const eqEfforts = eq.efforts ?? eq.expectedEfforts ?? null;
     r.seatIndices.forEach((seat, k) => {
@@ -85,6 +122,7 @@ export function roundsCsv(rounds: readonly RoundResult[]): string {
         eqEfforts ? (eqEfforts[k] ?? null) : null,
         r.defaulted[seat] ?? null,
         r.reason,
+        changes,
       ]);
     });
   }

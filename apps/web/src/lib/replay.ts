@@ -4,16 +4,32 @@ import { sessionExportSchema } from "@contend/protocol";
 import type { RoleView, SessionEvent, SessionExport } from "@contend/protocol";
 import { equilibriumEffortOf } from "./chart-data";
 
+/** The parts of an export that are its record; rounds and shocks are derived from the events. */
+const recordSchema = sessionExportSchema.pick({ session: true, events: true });
+
+/**
+ * Reads an export file. Its rounds and shocks are derived again from its event log with the
+ * engine's own fold, so exports written before spends (efforts only) read in money too.
+ */
 export function parseExport(
   raw: unknown,
 ): { ok: true; value: SessionExport } | { ok: false; message: string } {
-  const r = sessionExportSchema.safeParse(raw);
-  if (r.success) return { ok: true, value: r.data };
-  const issue = r.error.issues[0];
-  return {
-    ok: false,
-    message: `export does not match the protocol: ${issue?.path.join(".") ?? ""} ${issue?.message ?? ""}`,
-  };
+  const r = recordSchema.safeParse(raw);
+  if (!r.success) {
+    const issue = r.error.issues[0];
+    return {
+      ok: false,
+      message: `export does not match the protocol: ${issue?.path.join(".") ?? ""} ${issue?.message ?? ""}`,
+    };
+  }
+  try {
+    const state = fold(r.data.events);
+    const rounds = state.status === "empty" ? [] : state.rounds;
+    const shocks = state.status === "empty" ? [] : state.shocks;
+    return { ok: true, value: { ...r.data, rounds, shocks } };
+  } catch (e) {
+    return { ok: false, message: `the event log cannot be replayed: ${(e as Error).message}` };
+  }
 }
 
 /** The spectator view after the first `count` events (count >= 1), or an error for a broken log. */

@@ -6,6 +6,7 @@ import { useSession } from "../../hooks/useSession";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { seatNames, STATUS_TEXT } from "../../lib/live";
 import { ConnectionBanner } from "./ConnectionBanner";
+import { ShockBanner } from "./ShockBanner";
 import { RoomHistory } from "./History";
 import { RoundClock } from "./RoundClock";
 import { RoundResults } from "./RoundResults";
@@ -67,6 +68,7 @@ function ScreenBody({ view, clockOffsetMs }: { view: RoleView; clockOffsetMs: nu
           <RoundClock view={view} clockOffsetMs={clockOffsetMs} big />
         </div>
       </div>
+      <ShockBanner view={view} large />
       <div className="panel" style={{ minHeight: "8rem" }}>
         <h2>{view.status === "open" ? `Round ${view.round}: who has sealed` : "Seats"}</h2>
         <div className="row" data-testid="screen-seats">

@@ -19,6 +19,7 @@ import {
 import type { ShockDraft } from "../../lib/shock-form";
 import { SelectField, TextField } from "../Field";
 import { ConnectionBanner } from "./ConnectionBanner";
+import { ShockBanner } from "./ShockBanner";
 import { InviteLinks } from "./InviteLinks";
 import { RoomHistory } from "./History";
 import { RoundClock } from "./RoundClock";
@@ -153,6 +154,7 @@ function ConsoleBody({
 
   return (
     <>
+      <ShockBanner view={view} />
       <section className="card">
         <div className="row" style={{ justifyContent: "space-between", alignItems: "flex-start" }}>
           <div>

@@ -2,6 +2,7 @@
 
 import type { RoundResult } from "@contend/protocol";
 import { perSeatOverRounds, seatHistoryRows } from "../../lib/chart-data";
+import { changesBetweenRounds, shockLineText } from "../../lib/shock-text";
 import { formatMoney, formatPlain } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";
@@ -16,6 +17,7 @@ function RoundsChart({
   series,
   testId,
   currency,
+  changed,
   dark,
   height,
 }: {
@@ -24,6 +26,8 @@ function RoundsChart({
   series: readonly Series[];
   testId: string;
   currency: string | null | undefined;
+  /** rounds whose contest changed from the round before: marked on the round axis */
+  changed: ReadonlySet<number>;
   dark?: boolean;
   height?: number;
 }) {
@@ -34,7 +38,7 @@ function RoundsChart({
       xLabel="Round"
       yLabel={`${yLabel} (${currency ?? "money"})`}
       formatY={(v) => formatMoney(v, currency)}
-      formatX={(v) => formatPlain(v, 0)}
+      formatX={(v) => `${formatPlain(v, 0)}${changed.has(v) ? " \u26a1 changed" : ""}`}
       testId={testId}
       dark={dark}
       height={height}
@@ -55,6 +59,8 @@ export function SeatHistory({
 }) {
   const rows = seatHistoryRows(rounds, seat);
   const money = (v: number) => formatMoney(v, currency);
+  const changes = changesBetweenRounds(rounds, currency ?? null);
+  const changed = new Set(changes.map((c) => c.round));
   return (
     <div>
       <RoundsChart
@@ -62,6 +68,7 @@ export function SeatHistory({
         yLabel="Spend"
         testId="seat-history-chart"
         currency={currency}
+        changed={changed}
         height={240}
         series={[
           { key: "spend", name: "Your spend", colour: seriesColour(0) },
@@ -117,6 +124,8 @@ export function RoomHistory({
   });
   const money = (v: number) => formatMoney(v, currency);
   const nameOf = (s: number) => names[s] ?? `Seat ${s + 1}`;
+  const changes = changesBetweenRounds(rounds, currency ?? null);
+  const changed = new Set(changes.map((c) => c.round));
   return (
     <div className="grid-2">
       <div>
@@ -125,6 +134,7 @@ export function RoomHistory({
           rows={merged}
           yLabel="Spend"
           currency={currency}
+          changed={changed}
           testId={`${testPrefix}-effort-chart`}
           dark={dark}
           series={seats.flatMap((s) => [
@@ -164,6 +174,7 @@ export function RoomHistory({
           rows={regret}
           yLabel="Regret"
           currency={currency}
+          changed={changed}
           testId={`${testPrefix}-regret-chart`}
           dark={dark}
           series={seats.map((s) => ({ key: `s${s}`, name: nameOf(s), colour: seriesColour(s) }))}
@@ -178,6 +189,30 @@ export function RoomHistory({
           ]}
         />
       </div>
+      <RoundChanges changes={changes} testId={`${testPrefix}-changes`} />
+    </div>
+  );
+}
+
+/** What changed between played rounds (shocks), from what to what; nothing when nothing changed. */
+export function RoundChanges({
+  changes,
+  testId,
+}: {
+  changes: ReturnType<typeof changesBetweenRounds>;
+  testId: string;
+}) {
+  if (changes.length === 0) return null;
+  return (
+    <div data-testid={testId}>
+      <h3>Changes between rounds</h3>
+      <ul>
+        {changes.map((c) => (
+          <li key={c.round}>
+            From round {c.round}: {c.lines.map(shockLineText).join("; ")}
+          </li>
+        ))}
+      </ul>
     </div>
   );
 }

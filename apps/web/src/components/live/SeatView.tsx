@@ -9,6 +9,7 @@ import { RoundClock } from "./RoundClock";
 import { SeatMoveForm } from "./SeatMoveForm";
 import { SeatRoundResult } from "./SeatRoundResult";
 import { SeatTerms } from "./SeatTerms";
+import { ShockBanner } from "./ShockBanner";
 
 export function SeatView({ sessionId, seatKey }: { sessionId: string; seatKey: string }) {
   const credentials = useMemo<Credentials | null>(
@@ -61,6 +62,7 @@ function SeatBody({
   const playing = view.status === "open" && (view.roundSeats?.includes(seat) ?? false);
   return (
     <>
+      <ShockBanner view={view} />
       <SeatTerms view={view} />
       <section className="card" aria-labelledby="move-title">
         <div className="row" style={{ justifyContent: "space-between" }}>
