@@ -53,11 +53,13 @@ export function FrontsResults({
             <tr key={r.name}>
               <RowHeader>{r.name}</RowHeader>
               {spends[i]!.map((s, k) => (
-                <td key={k} className="num">
+                <td key={k} className="num" data-testid={`fronts-spend-${i}-${k}`}>
                   {money(s)}
                 </td>
               ))}
-              <td className="num">{money(eq.budgetUsed![i]!)}</td>
+              <td className="num" data-testid={`fronts-used-${i}`}>
+                {money(eq.budgetUsed![i]!)}
+              </td>
               <td className="num">
                 {Number.isFinite(r.budget) ? money(r.budget) : "none"}
                 {r.sunkBudget ? " (sunk)" : ""}

@@ -1,0 +1,104 @@
+/**
+ * Fronts explorer journey. Friedman's case (Friedman 1958, Operations Research 6; from memory),
+ * re-derived in packages/solver/test/fronts-theory.test.ts: rivals with sunk budgets, unit
+ * costs and weights, r = 1 on every front, split each budget in proportion to the prizes,
+ * x_ik = B_i V_k / sum V. The page must show those spends, keep them when a front is added and
+ * removed again, follow them along a budget sweep, and never scroll sideways.
+ */
+import type { Page } from "@playwright/test";
+import { expect, test } from "../support/fixtures";
+import { expectShown } from "../support/numbers";
+
+const PRIZES = [100, 300, 600];
+const BUDGETS = [3000, 7000];
+const SUM = PRIZES.reduce((a, b) => a + b, 0);
+
+async function noSideScroll(page: Page, who: string) {
+  // evaluated in the page, where `document` exists (this file is typed without the DOM)
+  const wide = await page.evaluate(
+    "document.documentElement.scrollWidth - document.documentElement.clientWidth",
+  );
+  expect(Number(wide), `${who} scrolls sideways`).toBeLessThanOrEqual(0);
+}
+
+async function expectFriedman(page: Page) {
+  for (let i = 0; i < BUDGETS.length; i++) {
+    for (let k = 0; k < PRIZES.length; k++) {
+      const want = (BUDGETS[i]! * PRIZES[k]!) / SUM;
+      await expectShown(page.getByTestId(`fronts-spend-${i}-${k}`), want, `spend ${i},${k}`);
+    }
+    await expectShown(page.getByTestId(`fronts-used-${i}`), BUDGETS[i]!, `budget used ${i}`);
+  }
+}
+
+test("fronts explorer(Friedman case: sunk budgets 3,000 and 7,000, prizes 100/300/600, r = 1) shows x_ik = B_i V_k / sum V", async ({
+  page,
+  saveScreen,
+}) => {
+  await page.setViewportSize({ width: 1366, height: 768 });
+  await page.goto("/explore/fronts");
+  await expect(page.getByRole("heading", { name: "Several fronts, one budget" })).toBeVisible();
+
+  for (let k = 0; k < 3; k++) {
+    await page.getByTestId(`front-${k}-prize`).fill(String(PRIZES[k]));
+    await page.getByTestId(`front-${k}-kind`).selectOption("ratio");
+    await page.getByTestId(`front-${k}-param`).fill("1");
+  }
+  await page.getByRole("button", { name: /^Remove rival 3|^Remove rival Summit/ }).click();
+  await expect(page.getByTestId("frival-2-name")).toHaveCount(0);
+  for (let i = 0; i < 2; i++) {
+    await page.getByTestId(`frival-${i}-budget`).fill(String(BUDGETS[i]));
+    await page.getByTestId(`frival-${i}-sunk`).check();
+    for (let k = 0; k < 3; k++) await page.getByTestId(`frival-${i}-cost-${k}`).fill("1");
+  }
+  await page.getByTestId("fronts-field").selectOption("weight");
+  for (let i = 0; i < 2; i++) {
+    for (let k = 0; k < 3; k++) await page.getByTestId(`frival-${i}-weight-${k}`).fill("1");
+  }
+  await expectFriedman(page);
+  // shadow price lambda_i = r pi_i (1 - pi_i) sum V / B_i with pi = (0.3, 0.7): 0.021 for both
+  await expectShown(page.getByTestId("fronts-shadow-0"), (0.3 * 0.7 * SUM) / 3000, "shadow 0");
+  await expectShown(page.getByTestId("fronts-shadow-1"), (0.3 * 0.7 * SUM) / 7000, "shadow 1");
+  await expect(page.getByTestId("fronts-allocation-chart")).toBeVisible();
+  await noSideScroll(page, "fronts explorer at 1366");
+  await saveScreen(page, "fronts-explorer-1366");
+
+  // a fourth front takes money from the others; removing it restores the split
+  await page.getByTestId("front-add").click();
+  await expect(page.getByTestId("front-3-name")).toBeVisible();
+  await expect(page.getByTestId("fronts-spend-0-3")).toBeVisible();
+  await page.getByTestId("front-3-remove").click();
+  await expect(page.getByTestId("fronts-spend-0-3")).toHaveCount(0);
+  await expectFriedman(page);
+
+  // sweep rival 1's budget: its spend on the 600 front is B x 600 / 1000 at every point
+  await page.getByTestId("fronts-sweep-param").selectOption("rivals.0.budget");
+  await page.getByTestId("fronts-sweep-from").fill("1000");
+  await page.getByTestId("fronts-sweep-to").fill("5000");
+  await page.getByTestId("fronts-sweep-steps").fill("5");
+  await page.getByTestId("fronts-sweep-metric").selectOption("front:2");
+  await page.getByTestId("fronts-sweep-run").click();
+  await expect(page.getByTestId("fronts-sweep-chart")).toBeVisible();
+  const rows = page.getByTestId("fronts-sweep-table").locator("tbody tr");
+  await expect(rows).toHaveCount(5);
+  for (let j = 0; j < 5; j++) {
+    const b = 1000 + 1000 * j;
+    await expectShown(
+      rows.nth(j).locator('td[data-col="r0"]'),
+      (b * 600) / SUM,
+      `sweep point ${j}`,
+    );
+  }
+
+  // a phone opens the page afresh (its default scenario) and runs a sweep
+  const phone = await page.context().newPage();
+  await phone.setViewportSize({ width: 390, height: 844 });
+  await phone.goto("/explore/fronts");
+  await expect(phone.getByTestId("fronts-spend-table")).toBeVisible();
+  await phone.getByTestId("fronts-sweep-run").click();
+  await expect(phone.getByTestId("fronts-sweep-chart")).toBeVisible();
+  await noSideScroll(phone, "fronts explorer at 390");
+  await phone.getByTestId("fronts-eq").scrollIntoViewIfNeeded();
+  await saveScreen(phone, "fronts-explorer-390");
+  await phone.close();
+});
