@@ -5,6 +5,7 @@ import type { SweepState } from "../../hooks/useChunkedSweep";
 import type { AxisText } from "../../hooks/useSweepAxis";
 import { formatNumber } from "../../lib/format";
 import { SelectField, TextField } from "../Field";
+import { ProgressBar } from "../ProgressBar";
 
 /** Errors the axis fields show beside themselves; any other sweep error shows below the row. */
 const FIELD_PATHS = ["sweep.param", "sweep.from", "sweep.to", "sweep.steps"];
@@ -83,21 +84,13 @@ export function SweepControls({
       </div>
       <div style={{ minHeight: "2.2rem" }} aria-live="polite">
         {state.status === "running" && (
-          <div data-testid="sweep-progress">
-            <div
-              className="progress"
-              role="progressbar"
-              aria-label="Sweep progress"
-              aria-valuemin={0}
-              aria-valuemax={state.total}
-              aria-valuenow={state.done}
-            >
-              <div style={{ width: `${(100 * state.done) / Math.max(1, state.total)}%` }} />
-            </div>
-            <span className="small muted">
-              {state.done} of {state.total} points
-            </span>
-          </div>
+          <ProgressBar
+            done={state.done}
+            total={state.total}
+            label="Sweep progress"
+            unit="points"
+            testId="sweep-progress"
+          />
         )}
         {state.status === "done" && (
           <p className="small muted" data-testid="sweep-status">

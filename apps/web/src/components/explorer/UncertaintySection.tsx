@@ -6,6 +6,7 @@ import { useUncertainRun } from "../../hooks/useUncertainRun";
 import { formatNumber } from "../../lib/format";
 import type { BuiltUncertain, RangeField, RangeForm } from "../../lib/range-form";
 import { SelectField, TextField } from "../Field";
+import { ProgressBar } from "../ProgressBar";
 import { UncertainResults } from "./UncertainResults";
 
 const MAX_DRAWS_UI = 100_000;
@@ -151,21 +152,13 @@ export function UncertaintySection({
           <p className="small muted">Switch at least one number to a range to run draws.</p>
         )}
         {state.status === "running" && (
-          <div data-testid="uncertain-progress">
-            <div
-              className="progress"
-              role="progressbar"
-              aria-label="Draws done"
-              aria-valuemin={0}
-              aria-valuemax={state.total}
-              aria-valuenow={state.done}
-            >
-              <div style={{ width: `${(100 * state.done) / Math.max(1, state.total)}%` }} />
-            </div>
-            <span className="small muted">
-              {formatNumber(state.done, 0)} of {formatNumber(state.total, 0)} draws
-            </span>
-          </div>
+          <ProgressBar
+            done={state.done}
+            total={state.total}
+            label="Draws done"
+            unit="draws"
+            testId="uncertain-progress"
+          />
         )}
         {state.status === "idle" && state.cancelled && (
           <p className="small muted" data-testid="uncertain-cancelled">
