@@ -71,4 +71,14 @@ test("explorer uncertainty(c2 ~ U[1, 3]) shows the median spend of the closed fo
     `uncertainty run: long tasks on the page (ms): ${JSON.stringify(longTasks.map(Math.round))}`,
   );
   await saveScreen(page, "explorer-uncertainty");
+
+  // The link holds the ranges: a reload brings the range back.
+  await expect
+    .poll(() =>
+      Buffer.from(new URL(page.url()).searchParams.get("s") ?? "", "base64url").toString(),
+    )
+    .toContain('"rg":{"rivals.1.cost"');
+  await page.reload();
+  await expect(page.getByTestId("range-toggle-rivals.1.cost")).toBeChecked();
+  await expect(page.getByLabel("High of Cost per unit of effort, Rival B")).toHaveValue("3");
 });

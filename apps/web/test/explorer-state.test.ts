@@ -15,6 +15,25 @@ describe("explorer URL state", () => {
     expect(decodeExplorer(encodeExplorer(s))).toEqual(s);
     expect(decodeExplorer(encodeExplorer(withProfile))).toEqual(withProfile);
   });
+  it("encodeExplorer(state with ranges) carries the switched-on ranges; decode drops malformed ones", () => {
+    const s = initialState();
+    const on = { on: true, dist: "triangular", low: "1.5", mode: "2", high: "3" } as const;
+    const off = { on: false, dist: "uniform", low: "1", mode: "1", high: "2" } as const;
+    const back = decodeExplorer(encodeExplorer({ ...s, rg: { "rivals.1.cost": on, prize: off } }));
+    expect(back?.rg).toEqual({ "rivals.1.cost": on });
+    const forged = encodeState({
+      sc: s.sc,
+      sw: s.sw,
+      rg: {
+        "rivals.1.cost": on,
+        "rivals.7.cost": on, // no such rival
+        "csf.decisiveness": on, // not a field that takes a range
+        prize: { ...on, dist: "normal" },
+        "rivals.0.value": { ...on, low: 3 },
+      },
+    });
+    expect(decodeExplorer(forged)?.rg).toEqual({ "rivals.1.cost": on });
+  });
   it("decodeExplorer(text) refuses a scenario the solver's validator refuses", () => {
     const bad = encodeState({
       sc: {

@@ -38,12 +38,12 @@ export function Explorer() {
   const solved = useMemo(() => (deferred ? solveForView(deferred) : null), [deferred]);
   const currency = deferred?.currency ?? null;
   const sweepAxis = useSweepAxis(initial.sw, deferred);
-  useAddressBarSync(scenario, sweepAxis.spec, profile);
 
   const eq = solved?.ok ? solved.result.equilibrium : null;
   const eqEfforts = eq ? (eq.efforts ?? null) : null;
   const contest = solved?.ok ? solved.contest : null;
-  const ranges = useExplorerRanges(form, deferred);
+  const ranges = useExplorerRanges(form, deferred, initial.rg);
+  useAddressBarSync(scenario, sweepAxis.spec, profile, ranges.ranges);
 
   return (
     <div>

@@ -3,6 +3,7 @@
 import { useEffect } from "react";
 import type { AxisSpec, Scenario } from "@contend/solver";
 import { encodeExplorer } from "../lib/explorer-state";
+import type { RangeForm } from "../lib/range-form";
 
 /** Quiet time after the last edit before the address bar is rewritten. */
 export const ADDRESS_SYNC_DELAY_MS = 300;
@@ -15,16 +16,17 @@ export function useAddressBarSync(
   scenario: Scenario | null,
   spec: AxisSpec,
   profile: number[] | null,
+  ranges: RangeForm | null = null,
 ) {
   useEffect(() => {
     if (!scenario) return;
     const t = setTimeout(() => {
       const pf = profile && profile.length === scenario.rivals.length ? profile : null;
-      const s = encodeExplorer({ sc: scenario, sw: spec, pf });
+      const s = encodeExplorer({ sc: scenario, sw: spec, pf, rg: ranges });
       const url = `${window.location.pathname}?s=${s}`;
       if (url !== `${window.location.pathname}${window.location.search}`)
         window.history.replaceState(null, "", url);
     }, ADDRESS_SYNC_DELAY_MS);
     return () => clearTimeout(t);
-  }, [scenario, spec, profile]);
+  }, [scenario, spec, profile, ranges]);
 }

@@ -16,13 +16,19 @@ type RivalField = "cost" | "value" | "weight" | "budget";
  * Returns the range scenario (or the error naming its field) and the toggles to render under
  * the contest and rival fields.
  */
-export function useExplorerRanges(form: EditorForm, scenario: Scenario | null) {
-  const [byKey, setByKey] = useState<Record<string, RangeText>>({});
+export function useExplorerRanges(
+  form: EditorForm,
+  scenario: Scenario | null,
+  initial: RangeForm | null | undefined,
+) {
   const rowKeys = form.rivals.map((r) => r.key);
   const keyOf = (path: string): string => {
     const m = /^rivals\.(\d+)\.(\w+)$/.exec(path);
     return m ? `${rowKeys[Number(m[1])] ?? "?"}.${m[2]}` : path;
   };
+  const [byKey, setByKey] = useState<Record<string, RangeText>>(() =>
+    Object.fromEntries(Object.entries(initial ?? {}).map(([p, r]) => [keyOf(p), r])),
+  );
   const rowKeyText = rowKeys.join(",");
   const ranges = useMemo<RangeForm>(() => {
     const out: RangeForm = {};

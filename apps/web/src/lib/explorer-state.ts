@@ -3,15 +3,18 @@
  *   sc  the contest scenario (the CLI file format, leader included)
  *   sw  the sweep axis {param, from, to, steps}
  *   pf  a clicked effort profile (two-rival best-response chart)
+ *   rg  ranges switched on for the uncertainty panel, by field path (absent when none)
  */
 import { getParam, MAX_STEPS_1D, parseParamPath, validateScenario } from "@contend/solver";
 import type { AxisSpec, Scenario } from "@contend/solver";
+import { rangeFields, type RangeForm, type RangeText } from "./range-form";
 import { decodeState, encodeState } from "./url-state";
 
 export interface ExplorerState {
   sc: Scenario;
   sw: AxisSpec;
   pf: number[] | null;
+  rg?: RangeForm | null;
 }
 
 export const DEFAULT_SCENARIO: Scenario = {
@@ -77,8 +80,41 @@ function isAxis(x: unknown): x is AxisSpec {
   );
 }
 
+/** Only the ranges that are switched on travel in the link. */
+function rangesOn(rg: RangeForm | null | undefined): RangeForm | null {
+  const on = Object.entries(rg ?? {}).filter(([, r]) => r.on);
+  return on.length === 0 ? null : Object.fromEntries(on);
+}
+
 export function encodeExplorer(state: ExplorerState): string {
-  return encodeState(state.pf === null ? { sc: state.sc, sw: state.sw } : state);
+  const rg = rangesOn(state.rg);
+  return encodeState({
+    sc: state.sc,
+    sw: state.sw,
+    ...(state.pf === null ? {} : { pf: state.pf }),
+    ...(rg === null ? {} : { rg }),
+  });
+}
+
+function isRangeText(x: unknown): x is RangeText {
+  if (typeof x !== "object" || x === null) return false;
+  const r = x as Record<string, unknown>;
+  return (
+    r.on === true &&
+    (r.dist === "uniform" || r.dist === "triangular") &&
+    ["low", "mode", "high"].every((k) => typeof r[k] === "string" && (r[k] as string).length < 40)
+  );
+}
+
+/** Ranges from a link: well-formed entries for fields this scenario has; anything else dropped. */
+function decodeRanges(x: unknown, sc: Scenario): RangeForm | null {
+  if (typeof x !== "object" || x === null) return null;
+  const paths = new Set(rangeFields(sc).map((f) => f.path));
+  const out: RangeForm = {};
+  for (const [path, r] of Object.entries(x as Record<string, unknown>)) {
+    if (paths.has(path) && isRangeText(r)) out[path] = { ...r };
+  }
+  return Object.keys(out).length === 0 ? null : out;
 }
 
 /**
@@ -99,5 +135,6 @@ export function decodeExplorer(text: string | null | undefined): ExplorerState |
     obj.pf.every((x) => typeof x === "number" && Number.isFinite(x) && x >= 0)
       ? (obj.pf as number[])
       : null;
-  return { sc: sc.value, sw, pf };
+  const rg = decodeRanges(obj.rg, sc.value);
+  return { sc: sc.value, sw, pf, ...(rg === null ? {} : { rg }) };
 }
