@@ -1,6 +1,12 @@
 import { describe, expect, it } from "vitest";
 import type { Scenario } from "@contend/solver";
-import { buildUncertain, defaultRange, rangeFields } from "../src/lib/range-form";
+import {
+  buildUncertain,
+  defaultRange,
+  rangeFields,
+  rangeKeyOf,
+  rangesByPath,
+} from "../src/lib/range-form";
 
 const s: Scenario = {
   title: "Two",
@@ -56,5 +62,23 @@ describe("range form", () => {
     });
     expect(r).toMatchObject({ ok: false, field: "rivals.1.budget" });
     if (!r.ok) expect(r.message).toMatch(/^rivals\.1\.budget\.high: must be a finite number/);
+  });
+
+  it("rangesByPath(ranges by row key) follows the rows: removing a rival does not move another's range onto it", () => {
+    const r = { on: true, dist: "uniform", low: "1", mode: "1", high: "2" } as const;
+    const keys = ["row-1", "row-2", "row-3"];
+    const byKey = {
+      [rangeKeyOf("rivals.2.cost", keys)]: r,
+      [rangeKeyOf("prize", keys)]: r,
+    };
+    expect(Object.keys(byKey).sort()).toEqual(["prize", "row-3.cost"]);
+    expect(Object.keys(rangesByPath(byKey, keys)).sort()).toEqual(["prize", "rivals.2.cost"]);
+    // row-2 removed: row-3 is now rivals.1
+    expect(Object.keys(rangesByPath(byKey, ["row-1", "row-3"])).sort()).toEqual([
+      "prize",
+      "rivals.1.cost",
+    ]);
+    // row-3 removed: its range goes with it
+    expect(Object.keys(rangesByPath(byKey, ["row-1", "row-2"]))).toEqual(["prize"]);
   });
 });

@@ -5,16 +5,22 @@ import type { ReactNode } from "react";
 import { createElement } from "react";
 import type { Scenario } from "@contend/solver";
 import type { EditorForm } from "../lib/editor-form";
-import { buildUncertain, rangeFields, type RangeForm, type RangeText } from "../lib/range-form";
+import {
+  buildUncertain,
+  rangeFields,
+  rangeKeyOf,
+  rangesByPath,
+  type RangeForm,
+  type RangeText,
+} from "../lib/range-form";
 import { RangeToggle } from "../components/explorer/RangeToggle";
 
 type RivalField = "cost" | "value" | "weight" | "budget";
 
 /**
- * The explorer's ranges. They are stored by the rival row's stable key (so removing a rival
- * does not move another's range onto it) and read by path ("rivals.1.cost") for the solver.
- * Returns the range scenario (or the error naming its field) and the toggles to render under
- * the contest and rival fields.
+ * The explorer's ranges, stored by rival row key and read by path (see `rangeKeyOf`). Returns
+ * the range scenario (or the error naming its field) and the toggles to render under the
+ * contest and rival fields.
  */
 export function useExplorerRanges(
   form: EditorForm,
@@ -22,25 +28,15 @@ export function useExplorerRanges(
   initial: RangeForm | null | undefined,
 ) {
   const rowKeys = form.rivals.map((r) => r.key);
-  const keyOf = (path: string): string => {
-    const m = /^rivals\.(\d+)\.(\w+)$/.exec(path);
-    return m ? `${rowKeys[Number(m[1])] ?? "?"}.${m[2]}` : path;
-  };
+  const keyOf = (path: string) => rangeKeyOf(path, rowKeys);
   const [byKey, setByKey] = useState<Record<string, RangeText>>(() =>
     Object.fromEntries(Object.entries(initial ?? {}).map(([p, r]) => [keyOf(p), r])),
   );
   const rowKeyText = rowKeys.join(",");
-  const ranges = useMemo<RangeForm>(() => {
-    const out: RangeForm = {};
-    const keys = rowKeyText.split(",");
-    for (const [k, v] of Object.entries(byKey)) {
-      if (k === "prize") out.prize = v;
-      const dot = k.lastIndexOf(".");
-      const i = keys.indexOf(k.slice(0, dot));
-      if (i >= 0) out[`rivals.${i}.${k.slice(dot + 1)}`] = v;
-    }
-    return out;
-  }, [byKey, rowKeyText]);
+  const ranges = useMemo<RangeForm>(
+    () => rangesByPath(byKey, rowKeyText.split(",")),
+    [byKey, rowKeyText],
+  );
   const fields = useMemo(() => (scenario ? rangeFields(scenario) : []), [scenario]);
   const built = useMemo(
     () => (scenario ? buildUncertain(scenario, ranges) : null),

@@ -120,3 +120,29 @@ export function buildUncertain(s: Scenario, ranges: RangeForm): BuiltUncertain {
     .join(".");
   return { ok: false, field, message: `${v.path}: ${v.message}` };
 }
+
+/**
+ * Ranges are stored by the rival row's stable key ("row-3.cost") so that removing a rival does
+ * not move another's range onto it; the solver reads them by path ("rivals.1.cost").
+ */
+export function rangeKeyOf(path: string, rowKeys: readonly string[]): string {
+  const m = /^rivals\.(\d+)\.(\w+)$/.exec(path);
+  return m ? `${rowKeys[Number(m[1])] ?? "?"}.${m[2]}` : path;
+}
+
+export function rangesByPath(
+  byKey: Record<string, RangeText>,
+  rowKeys: readonly string[],
+): RangeForm {
+  const out: RangeForm = {};
+  for (const [k, v] of Object.entries(byKey)) {
+    if (k === "prize") {
+      out.prize = v;
+      continue;
+    }
+    const dot = k.lastIndexOf(".");
+    const i = rowKeys.indexOf(k.slice(0, dot));
+    if (i >= 0) out[`rivals.${i}.${k.slice(dot + 1)}`] = v;
+  }
+  return out;
+}
