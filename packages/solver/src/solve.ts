@@ -23,7 +23,12 @@ import {
   symmetricExistenceBound,
   symmetricRatioEquilibrium,
 } from "./symmetricRatio";
-import { activeSetProfile, countText, symmetricActiveSets } from "./symmetricActiveSets";
+import {
+  activeSetEquilibrium,
+  activeSetProfile,
+  countText,
+  symmetricActiveSets,
+} from "./symmetricActiveSets";
 import { guardSolveResult } from "./reliability";
 import { scaledContest, unscaleResult } from "./scaledContest";
 import { twoRivalMixedEquilibrium } from "./twoRivalMixed";
@@ -152,10 +157,12 @@ export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveR
   const sym = csf.kind === "ratio" ? symmetricRatioEquilibrium(contest) : null;
   const list = found
     .slice(0, MAX_LISTED)
-    .map((f) =>
-      sym && sameProfile(contest, sym, f.efforts)
-        ? pureEquilibrium(contest, sym, "closed-form:symmetric", opts.gridPoints)
-        : pureEquilibrium(contest, f.efforts, method, opts.gridPoints),
+    .map((f, idx) =>
+      symSets && opts.gridPoints === undefined
+        ? activeSetEquilibrium(contest, symSets[idx]!)
+        : sym && sameProfile(contest, sym, f.efforts)
+          ? pureEquilibrium(contest, sym, "closed-form:symmetric", opts.gridPoints)
+          : pureEquilibrium(contest, f.efforts, method, opts.gridPoints),
     );
   if (symSets) {
     list.forEach((eq, idx) => {

@@ -11,7 +11,7 @@
  */
 import { ratioCandidate, ratioPayoff, ratioTerm } from "./ratioBestResponse";
 import { identicalRivals } from "./symmetricRatio";
-import type { Contest } from "./types";
+import type { Contest, Equilibrium } from "./types";
 
 export interface SymmetricActiveSet {
   /** number of active rivals */
@@ -70,6 +70,30 @@ export function activeSetProfile(n: number, set: SymmetricActiveSet): number[] {
   const e = new Array<number>(n).fill(0);
   for (let i = 0; i < set.k; i++) e[i] = set.effort;
   return e;
+}
+
+/**
+ * The Equilibrium record of a representative, built in O(n) from the symmetry: active shares
+ * 1/k, idle 0; its Nash gap is the one measured above (an active and an idle rival stand for
+ * all, since identical rivals facing the same efforts have the same regret).
+ */
+export function activeSetEquilibrium(contest: Contest, set: SymmetricActiveSet): Equilibrium {
+  const n = contest.rivals.length;
+  const rv = contest.rivals[0]!;
+  const efforts = activeSetProfile(n, set);
+  const share = 1 / set.k;
+  const pay = rv.value * share - rv.cost * set.effort;
+  return {
+    kind: "pure",
+    efforts,
+    shares: efforts.map((e) => (e > 0 ? share : 0)),
+    payoffs: efforts.map((e) => (e > 0 ? pay : 0)),
+    totalEffort: set.k * set.effort,
+    dissipation: (set.k * rv.cost * set.effort) / contest.prize,
+    active: efforts.map((e) => e > 0),
+    nashGap: set.gap,
+    method: set.k === n ? "closed-form:symmetric" : "closed-form:symmetric-active-set",
+  };
 }
 
 /** "3", "4,950" or "about 2.6e+35" equivalent equilibria. */

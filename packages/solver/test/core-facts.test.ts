@@ -8,6 +8,7 @@ import {
   nashGap,
   normalize,
   ratioActiveSetSearch,
+  shares,
   solve,
   symmetricRatioEffort,
 } from "../src/index";
@@ -63,6 +64,10 @@ describe("existence bound r <= n/(n-1) (Baye, Kovenock & de Vries 1994)", () => 
       for (const e of eq.efforts!)
         if (e > 0) expect(e).toBeCloseTo(symmetricRatioEffort(k, 100, 1, 1.3), 9);
       expect(refGap(c, eq.efforts!)).toBeLessThan(1e-6);
+      // the record built from symmetry agrees with the per-rival computation
+      expect(eq.nashGap).toBeCloseTo(nashGap(c, eq.efforts!), 12);
+      const p = shares(c, eq.efforts!);
+      eq.shares!.forEach((x, i) => expect(x).toBeCloseTo(p[i]!, 14));
     }
     // every subset of the 2^10, each verified globally: 210 + 120 profiles and no others
     const sizes = ratioActiveSetSearch(c, { exhaustiveUpTo: 10 }).map(
