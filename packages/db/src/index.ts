@@ -16,6 +16,4 @@ export {
 } from "./migrate";
 export type { AppendEffects } from "./repos/events";
 export type { CreateSessionInput, CreateSessionResult } from "./repos/sessions";
-export type { ClaimResult } from "./repos/seats";
-export type { ScenarioRecord, ScenarioSummary } from "./repos/scenarios";
 export type * from "./types";

@@ -7,8 +7,6 @@ import { PrismaClient } from "./generated/prisma/client";
 import { applyMigrations, DEFAULT_MIGRATIONS_DIR, readMigrations } from "./migrate";
 import { eventsRepository } from "./repos/events";
 import { keysRepository } from "./repos/keys";
-import { scenariosRepository } from "./repos/scenarios";
-import { seatsRepository } from "./repos/seats";
 import { sessionsRepository } from "./repos/sessions";
 import { startPgliteThread } from "./pglite-thread/proxy";
 import { poolRunner, type SqlRunner } from "./sql-runner";
@@ -28,8 +26,6 @@ export interface Database {
   sessions: ReturnType<typeof sessionsRepository>;
   events: ReturnType<typeof eventsRepository>;
   keys: ReturnType<typeof keysRepository>;
-  seats: ReturnType<typeof seatsRepository>;
-  scenarios: ReturnType<typeof scenariosRepository>;
   /** migrations applied by this open (empty when the database was up to date) */
   migrationsApplied: string[];
   /**
@@ -122,8 +118,6 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<Database> {
     sessions: sessionsRepository(prisma),
     events: eventsRepository(prisma, connection.runner),
     keys: keysRepository(prisma, connection.runner),
-    seats: seatsRepository(prisma),
-    scenarios: scenariosRepository(prisma),
     migrationsApplied,
     lost: connection.lost,
     close: connection.close,

@@ -1,7 +1,7 @@
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { newJoinCode, newKey, type CreateSessionInput } from "../src/index";
+import { newJoinCode, newKey, type CreateSessionInput, type Database } from "../src/index";
 
 let counter = 0;
 
@@ -40,6 +40,23 @@ export function sessionInput(overrides: Partial<CreateSessionInput> = {}) {
 
 export function event(type: string, at: number, payload: unknown = {}) {
   return { type, at, payload };
+}
+
+/** The seats of a session, in index order (none when the session does not exist). */
+export async function seatsOf(db: Database, sessionId: string) {
+  return (await db.sessions.get(sessionId))?.seats ?? [];
+}
+
+/**
+ * Marks a seat claimed directly in its table, with no event: the state a test needs before it
+ * checks that a later claim (through events.append's claimSeats) is refused.
+ */
+export async function takeSeat(db: Database, sessionId: string, index: number, name: string) {
+  const { count } = await db.prisma.seat.updateMany({
+    where: { sessionId, index, claimedAt: null },
+    data: { displayName: name, claimedAt: new Date() },
+  });
+  if (count !== 1) throw new Error(`seat ${index} of ${sessionId} was not free`);
 }
 
 export function tempDir(prefix = "contend-db-"): { dir: string; dispose(): void } {

@@ -44,7 +44,6 @@ describe("migration history", () => {
       expect(a.tables.map((t) => (t as unknown as { table: string }).table)).toEqual([
         "AccessKey",
         "Event",
-        "Scenario",
         "Seat",
         "Session",
       ]);
@@ -107,7 +106,7 @@ describe("applyMigrations", () => {
       mkdirSync(path.join(copy.dir, "29990101000000_add_note"));
       writeFileSync(
         path.join(copy.dir, "29990101000000_add_note", "migration.sql"),
-        `ALTER TABLE "Scenario" ADD COLUMN "note" TEXT;`,
+        `ALTER TABLE "Session" ADD COLUMN "note" TEXT;`,
       );
       expect(await applyMigrations(runner, readMigrations(copy.dir))).toEqual([
         "29990101000000_add_note",
@@ -131,11 +130,11 @@ describe("applyMigrations", () => {
       mkdirSync(path.join(copy.dir, "29990101000000_broken"));
       writeFileSync(
         path.join(copy.dir, "29990101000000_broken", "migration.sql"),
-        `ALTER TABLE "Scenario" ADD COLUMN "note" TEXT;\nSELECT no_such_function();`,
+        `ALTER TABLE "Session" ADD COLUMN "note" TEXT;\nSELECT no_such_function();`,
       );
       await expect(applyMigrations(runner, readMigrations(copy.dir))).rejects.toThrow();
       const note = await db.query(
-        `SELECT 1 FROM information_schema.columns WHERE table_name = 'Scenario' AND column_name = 'note'`,
+        `SELECT 1 FROM information_schema.columns WHERE table_name = 'Session' AND column_name = 'note'`,
       );
       expect(note.rows).toEqual([]);
       const recorded = await db.query(

@@ -4,7 +4,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { afterEach, describe, expect, it } from "vitest";
 import { openDatabase } from "../src/index";
-import { event, sessionInput, tempDir } from "./fixtures";
+import { event, sessionInput, takeSeat, tempDir } from "./fixtures";
 
 describe("PGlite in a directory", () => {
   const cleanups: (() => void)[] = [];
@@ -22,13 +22,13 @@ describe("PGlite in a directory", () => {
     const { input, facilitatorKey, seatKeys } = sessionInput();
 
     const first = await openDatabase({ url: dir });
-    expect(first.migrationsApplied).toHaveLength(1);
+    expect(first.migrationsApplied.length).toBeGreaterThan(0);
     expect((await first.sessions.create(input)).ok).toBe(true);
     expect(await first.events.append(input.id, 1, [event("a", 1), event("b", 2)])).toEqual({
       ok: true,
       seqs: [2, 3],
     });
-    expect((await first.seats.claim(input.id, 0, "Ada")).ok).toBe(true);
+    await takeSeat(first, input.id, 0, "Ada");
     await first.close();
 
     const second = await openDatabase({ url: `pglite:${dir}` });

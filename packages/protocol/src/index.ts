@@ -102,14 +102,7 @@ export type {
   ShockRecord,
   ViewMessage,
 } from "./view";
-export {
-  applyPatch,
-  createViewTracker,
-  diffJson,
-  PatchError,
-  patchOpSchema,
-  viewPatchMessageSchema,
-} from "./viewPatch";
+export { applyPatch, createViewTracker, diffJson, PatchError } from "./viewPatch";
 export type { PatchOp, ViewPatchMessage, ViewTracker } from "./viewPatch";
 export {
   ackError,
@@ -132,7 +125,6 @@ export type {
   SealMoveAckData,
 } from "./ack";
 export {
-  createSessionBodySchema,
   createSessionResponseSchema,
   errorBodySchema,
   healthSchema,

@@ -8,9 +8,6 @@ import { parseInput } from "./result";
 import type { ParseResult } from "./result";
 import type { SessionScenario } from "./sessionScenario";
 
-/** POST /api/sessions body. */
-export const createSessionBodySchema = sessionScenarioSchema;
-
 export function parseSessionScenario(raw: unknown): ParseResult<SessionScenario> {
   return parseInput(sessionScenarioSchema, raw);
 }

@@ -4,7 +4,6 @@
  * Pointers) that turns the view it holds into the new one. A round with eight seats sends a
  * few hundred bytes per seal instead of the whole view to every connection.
  */
-import { z } from "zod";
 import type { RoleView } from "./view";
 
 export type PatchOp =
@@ -12,20 +11,10 @@ export type PatchOp =
   | { op: "replace"; path: string; value: unknown }
   | { op: "remove"; path: string };
 
-const pointerSchema = z.string().max(1_000);
-export const patchOpSchema = z.discriminatedUnion("op", [
-  z.object({ op: z.literal("add"), path: pointerSchema, value: z.unknown() }),
-  z.object({ op: z.literal("replace"), path: pointerSchema, value: z.unknown() }),
-  z.object({ op: z.literal("remove"), path: pointerSchema }),
-]);
-
-export const viewPatchMessageSchema = z.object({
-  /** seq of the view the patch produces */
-  seq: z.int().min(0),
-  /** seq of the view the patch applies to: the one this connection was last given */
-  base: z.int().min(0),
-  ops: z.array(patchOpSchema),
-});
+/**
+ * A pushed patch: `base` is the seq of the view it applies to (the one this connection was last
+ * given), `seq` that of the view it produces.
+ */
 export type ViewPatchMessage = { seq: number; base: number; ops: PatchOp[] };
 
 type Json = unknown;

@@ -96,12 +96,6 @@ export function sessionsRepository(db: Db) {
     async list(): Promise<SessionSummary[]> {
       return db.session.findMany({ select: summarySelect, orderBy: { createdAt: "desc" } });
     },
-
-    /** For status changes that carry no event; with events, use events.append's status. */
-    async setStatus(id: string, status: string): Promise<boolean> {
-      const { count } = await db.session.updateMany({ where: { id }, data: { status } });
-      return count === 1;
-    },
   };
   return repo;
 }

@@ -1,0 +1,3 @@
+-- DropTable
+DROP TABLE "Scenario";
+
