@@ -45,7 +45,7 @@ export function ProvenanceNote({
             <tr key={h.rival}>
               <td>{h.rival}</td>
               <td className="num">
-                {num(h.estimate)} ({num(h.low)} to {num(h.high)})
+                {i === 0 ? "1 (baseline)" : `${num(h.estimate)} (${num(h.low)} to ${num(h.high)})`}
               </td>
               <td className="num">
                 {v ? `${money(v.estimate)} (${money(v.low)} to ${money(v.high)})` : "\u2013"}

@@ -50,7 +50,8 @@ export function csvToGrid(text: string): { ok: true; grid: GridRow[] } | InputEr
         period: r.period,
         rival: r.rival,
         spend: String(r.spend),
-        share: String(r.share),
+        // 37.2% reads back as 0.372, not 0.37200000000000005
+        share: String(Number(r.share.toPrecision(12))),
       }),
     ),
   };

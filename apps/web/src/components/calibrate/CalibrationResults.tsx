@@ -60,14 +60,14 @@ export function CalibrationResults({ c, currency }: { c: Calibration; currency: 
               <td className="num">
                 <span data-testid={`calibrate-head-${i}`}>{num(h.estimate)}</span>
                 <br />
-                <span className="small muted">
+                <span className="small muted" style={{ whiteSpace: "normal" }}>
                   {i === 0 ? "baseline" : `${num(h.low)} to ${num(h.high)}`}
                 </span>
               </td>
               <td className="num">
                 <span data-testid={`calibrate-value-${i}`}>{money(v.estimate)}</span>
                 <br />
-                <span className="small muted">
+                <span className="small muted" style={{ whiteSpace: "normal" }}>
                   {money(v.low)} to {money(v.high)}
                 </span>
               </td>

@@ -4,10 +4,10 @@ import type { GridRow } from "../../lib/calibrate-view";
 import { newGridRow } from "../../lib/calibrate-view";
 
 const CELLS = [
-  { key: "period", label: "Period", numeric: false },
-  { key: "rival", label: "Rival", numeric: false },
-  { key: "spend", label: "Spend (money)", numeric: true },
-  { key: "share", label: "Share (0-1 or %)", numeric: true },
+  { key: "period", label: "Period", numeric: false, width: "5rem" },
+  { key: "rival", label: "Rival", numeric: false, width: "8rem" },
+  { key: "spend", label: "Spend", numeric: true, width: "5rem" },
+  { key: "share", label: "Share", numeric: true, width: "4.5rem" },
 ] as const;
 
 /** The panel typed in a grid; row numbers are the CSV's (row 1 is the header). */
@@ -22,11 +22,12 @@ export function PanelGrid({
     onChange(grid.map((g, j) => (j === k ? { ...g, [key]: value } : g)));
   return (
     <div>
+      <p className="small muted" style={{ margin: "0.4rem 0" }}>
+        One row per rival and period; spend in money, share as 0.25 or 25%. Row numbers match the
+        CSV (row 1 is its header).
+      </p>
       <div className="table-wrap" style={{ maxHeight: 360, overflow: "auto" }}>
-        <table className="editor-table" data-testid="calibrate-grid">
-          <caption className="small muted" style={{ textAlign: "left" }}>
-            One row per rival and period. Row numbers match the CSV (row 1 is its header).
-          </caption>
+        <table className="editor-table panel-grid" data-testid="calibrate-grid">
           <thead>
             <tr>
               <th scope="col" className="num">
@@ -54,6 +55,7 @@ export function PanelGrid({
                       autoComplete="off"
                       aria-label={`${c.label}, row ${k + 2}`}
                       value={g[c.key]}
+                      style={{ width: c.width, minWidth: c.width }}
                       onChange={(e) => set(k, c.key, e.target.value)}
                       data-testid={`grid-${k}-${c.key}`}
                     />
