@@ -6,7 +6,7 @@ import { policySpecSchema } from "./policy";
 import { shockListSchema } from "./shock";
 import { parseInput } from "./result";
 import type { ParseResult } from "./result";
-import type { Role } from "./hello";
+import type { Role } from "./roles";
 
 export const displayNameSchema = z
   .string({ error: "must be a string" })

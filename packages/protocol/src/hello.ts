@@ -6,8 +6,8 @@ import { PROTOCOL_VERSION } from "./version";
 import { parseInput } from "./result";
 import type { ParseResult } from "./result";
 
-export const ROLES = ["facilitator", "seat", "spectator", "guest"] as const;
-export type Role = (typeof ROLES)[number];
+export { ROLES } from "./roles";
+export type { Role } from "./roles";
 
 export const sessionIdSchema = z
   .string({ error: "must be a string" })

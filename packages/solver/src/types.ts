@@ -10,7 +10,7 @@
  * - dissipation = (sum_i m_i e_i) / prize, using expected efforts for mixed equilibria.
  */
 
-import type { Provenance } from "./calibrate/provenance";
+import type { Provenance } from "./calibrate/provenanceTypes";
 
 /** Contest success function as written in a scenario file. */
 export type CsfSpec =

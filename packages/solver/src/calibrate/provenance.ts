@@ -5,32 +5,19 @@
  * debrief can say that the numbers are estimates. Checked strictly like the rest of the file.
  */
 import type { InputError, Parsed } from "../types";
+import type {
+  CalibrationProvenance,
+  Provenance,
+  ProvenanceEstimate,
+  ProvenanceRivalEstimate,
+} from "./provenanceTypes";
 
-export interface ProvenanceEstimate {
-  estimate: number;
-  low: number;
-  high: number;
-}
-
-export interface ProvenanceRivalEstimate extends ProvenanceEstimate {
-  rival: string;
-}
-
-export interface CalibrationProvenance {
-  kind: "calibration";
-  /** what the data were (a file name or a short label) */
-  source: string;
-  /** r with its 95% interval */
-  decisiveness: ProvenanceEstimate;
-  /** a_i / a_1 with 95% intervals */
-  headStarts: ProvenanceRivalEstimate[];
-  /** money, median over periods with a bootstrap 90% interval */
-  revealedValues: ProvenanceRivalEstimate[];
-  fit: { r2: number; rmse: number; observations: number; periods: number; dropped: number };
-  bootstrap: { seed: number; resamples: number };
-}
-
-export type Provenance = CalibrationProvenance;
+export type {
+  CalibrationProvenance,
+  Provenance,
+  ProvenanceEstimate,
+  ProvenanceRivalEstimate,
+} from "./provenanceTypes";
 
 export const PROVENANCE_LIMITS = { sourceMax: 200, nameMax: 80, rivalsMax: 10_000 } as const;
 
