@@ -85,7 +85,11 @@ test("seat(cost 1.2, budget €k200) seals €k180 as money and reads 'You spent
     await expect(seat.getByTestId("spend-problem")).toContainText("Your budget is \u20ack200");
     await expect(seat.getByTestId("seal-button")).toBeDisabled();
 
-    await input.fill("180");
+    // off the €k1 grid: the offer is in the one money format ("Use €k180", not "Use 180.0")
+    await input.fill("179.6");
+    await expect(seat.getByTestId("spend-use-nearest")).toHaveText("Use \u20ack180");
+    await seat.getByTestId("spend-use-nearest").click();
+    await expect(input).toHaveValue("180");
     await seat.getByTestId("seal-button").click();
     const confirm = seat.getByTestId("seal-confirm");
     await expect(confirm).toContainText("Seal \u20ack180 for round 1");

@@ -317,12 +317,13 @@ describe("replay", () => {
     expect(rows[0]?.equilibrium as number).toBeCloseTo((5 * 100 * 2) / 49, 6);
     expect(rows[1]?.equilibrium as number).toBeCloseTo((2 * 100 * 5) / 49, 6);
   });
-  it("seatSummary(export, seats) averages played and equilibrium effort per seat", () => {
+  it("seatSummary(export, seats) averages spend and equilibrium spend per seat", () => {
     const end = viewAfter(playLog(), Infinity);
     if (!end.ok) throw new Error(end.message);
     const rows = seatSummary({ rounds: end.view.rounds }, 2);
-    expect(rows[0]).toMatchObject({ seat: 0, rounds: 1, meanEffort: 3 });
-    expect(rows[0]?.meanEq as number).toBeCloseTo(200 / 49, 6);
+    // money: North Bakery (cost 5) spent 15; its equilibrium spend is 5 x 200/49
+    expect(rows[0]).toMatchObject({ seat: 0, rounds: 1, meanSpend: 15 });
+    expect(rows[0]?.meanEqSpend as number).toBeCloseTo((5 * 200) / 49, 6);
     expect(rows[0]?.regret).toBeCloseTo(end.view.rounds[0]!.regrets[0]!, 12);
   });
   it("describeEvent(event, names) names the seat and the round", () => {

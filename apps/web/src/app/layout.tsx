@@ -7,7 +7,7 @@ import "./globals.css";
 export const metadata: Metadata = {
   title: { default: "Contend", template: "%s · Contend" },
   description:
-    "Live war-gaming workshops for contests: rivals spend costly effort to win one prize.",
+    "Live war-gaming workshops for contests: rivals spend money they do not get back to win one prize.",
 };
 
 export const viewport: Viewport = {

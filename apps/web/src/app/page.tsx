@@ -8,9 +8,9 @@ export default function StartPage() {
       <section className="card">
         <h1>Rehearse a contest before you spend on it</h1>
         <p>
-          Contend runs live war-gaming workshops for contests: situations where rivals spend costly,
-          unrecoverable effort (advertising, bid preparation, lobbying, sales pushes) to win one
-          prize. Colleagues each play a rival, seal their effort round by round, and after every
+          Contend runs live war-gaming workshops for contests: situations where rivals spend money
+          they do not get back (advertising, bid preparation, lobbying, sales pushes) to win one
+          prize. Colleagues each play a rival, seal their spend round by round, and after every
           reveal see their payoff, the best reply they could have made and how far the room was from
           the Nash equilibrium. The explorer computes equilibria, best responses and comparative
           statics in your browser.

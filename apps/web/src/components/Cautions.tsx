@@ -2,7 +2,7 @@
 
 export const CAUTION_LINES = [
   "Contend is a stylised model to aid thinking. It is not a forecast and not financial or legal advice.",
-  "War-gaming a competitor is internal work. Never share effort plans, bids or budgets with actual competitors: coordinating them can breach competition (antitrust) law.",
+  "War-gaming a competitor is internal work. Never share spending plans, bids or budgets with actual competitors: coordinating them can breach competition (antitrust) law.",
   "Public procurement bids follow their own rules. Defer to counsel and local rules.",
 ] as const;
 

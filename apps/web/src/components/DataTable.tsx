@@ -1,4 +1,5 @@
 import type { Row } from "../lib/chart-data";
+import { formatNumber } from "../lib/format";
 
 export interface Column {
   key: string;
@@ -8,7 +9,7 @@ export interface Column {
 
 function cell(v: Row[string] | undefined, format?: (v: number) => string): string {
   if (v === null || v === undefined) return "\u2013";
-  if (typeof v === "number") return format ? format(v) : String(v);
+  if (typeof v === "number") return format ? format(v) : formatNumber(v);
   return v;
 }
 

@@ -1,6 +1,6 @@
 import type { ReactNode } from "react";
 import type { Contest, Equilibrium } from "@contend/solver";
-import { formatMoney, formatPercent } from "../lib/format";
+import { formatMoney, formatNumber, formatPercent } from "../lib/format";
 import type { SolvedView } from "../lib/solve-view";
 import { Kpi } from "./Kpi";
 import { FigureTable, numCol, RowHeader, textCol } from "./FigureTable";
@@ -12,7 +12,8 @@ const KIND_TEXT: Record<Equilibrium["kind"], string> = {
 };
 
 /**
- * Equilibrium efforts, shares and payoffs per rival. Rows keep their height whether or not a
+ * Equilibrium spends (money), efforts (the model's units: spend / cost), shares and payoffs per
+ * rival. Rows keep their height whether or not a
  * result is present, so the page does not jump while typing.
  */
 export function EquilibriumTable({
@@ -39,7 +40,7 @@ export function EquilibriumTable({
       <FigureTable
         head={[
           textCol("Rival"),
-          numCol("Effort"),
+          numCol("Effort (spend ÷ cost)"),
           numCol("Spend"),
           numCol("Share"),
           numCol("Payoff"),
@@ -54,7 +55,7 @@ export function EquilibriumTable({
             <tr key={`${r.name}-${i}`} className={eq && !active ? "dropout" : undefined}>
               <RowHeader>{r.name}</RowHeader>
               <td className="num" data-testid={`${testPrefix}-effort-${i}`}>
-                {e === undefined ? "\u2013" : formatMoney(e, currency)}
+                {e === undefined ? "\u2013" : formatNumber(e)}
               </td>
               <td className="num" data-testid={`${testPrefix}-spend-${i}`}>
                 {e === undefined ? "\u2013" : formatMoney(e * r.cost, currency)}
@@ -86,14 +87,19 @@ export function EquilibriumTable({
         })}
       </FigureTable>
       <div className="kpis" style={{ marginTop: "0.75rem" }}>
-        <Kpi label="Total effort" testId={`${testPrefix}-total`}>
-          {eq && efforts ? formatMoney(eq.totalEffort, currency) : "\u2013"}
+        <Kpi label="Total spend" testId={`${testPrefix}-total`}>
+          {eq && efforts
+            ? formatMoney(
+                efforts.reduce((sum, e, i) => sum + e * (contest.rivals[i]?.cost ?? NaN), 0),
+                currency,
+              )
+            : "\u2013"}
         </Kpi>
         <Kpi label="Rent dissipation (spend / prize)" testId={`${testPrefix}-dissipation`}>
           {eq && efforts ? formatPercent(eq.dissipation) : "\u2013"}
         </Kpi>
         <Kpi label="Measured Nash gap" testId={`${testPrefix}-gap`}>
-          {eq && efforts ? formatMoney(eq.nashGap, currency, 4) : "\u2013"}
+          {eq && efforts ? formatMoney(eq.nashGap, currency) : "\u2013"}
         </Kpi>
       </div>
       <p className="small muted" style={{ minHeight: "1.5em" }} data-testid={`${testPrefix}-note`}>

@@ -29,8 +29,8 @@ const OUTCOME_OPTIONS = [
 ] as const;
 
 const MISSING_OPTIONS = [
-  { value: "zero", label: "Counts as zero effort" },
-  { value: "repeat", label: "Repeats the seat's previous effort" },
+  { value: "zero", label: "Counts as spending nothing" },
+  { value: "repeat", label: "Repeats the seat's previous spend" },
 ] as const;
 
 function download(filename: string, text: string) {

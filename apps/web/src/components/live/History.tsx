@@ -180,7 +180,7 @@ export function RoomHistory({
           series={seats.map((s) => ({ key: `s${s}`, name: nameOf(s), colour: seriesColour(s) }))}
         />
         <DataTable
-          caption="Regret by round: money left on the table given the others' efforts"
+          caption="Regret by round: money left on the table given the others' spends"
           testId={`${testPrefix}-regret-table`}
           rows={regret}
           columns={[

@@ -227,7 +227,7 @@ function ReplayBody({
             <FigureTable
               head={[
                 textCol("Round"),
-                numCol("Total effort"),
+                numCol("Total spend"),
                 numCol("Dissipation"),
                 numCol("At equilibrium"),
                 numCol("Nash gap"),
@@ -238,7 +238,7 @@ function ReplayBody({
               {data.rounds.map((r) => (
                 <tr key={r.round}>
                   <td>{r.round}</td>
-                  <td className="num">{money(r.efforts.reduce((a, b) => a + b, 0))}</td>
+                  <td className="num">{money(r.spends.reduce((a, b) => a + b, 0))}</td>
                   <td className="num">{formatPercent(r.dissipation)}</td>
                   <td className="num">{formatPercent(r.equilibrium.dissipation)}</td>
                   <td className="num">{money(r.nashGap)}</td>
@@ -249,8 +249,8 @@ function ReplayBody({
               head={[
                 textCol("Rival"),
                 numCol("Rounds"),
-                numCol("Mean effort"),
-                numCol("Mean equilibrium effort"),
+                numCol("Mean spend"),
+                numCol("Mean equilibrium spend"),
                 numCol("Total regret"),
                 numCol("Total payoff"),
               ]}
@@ -262,8 +262,10 @@ function ReplayBody({
                 <tr key={r.seat}>
                   <td>{names[r.seat] ?? `Seat ${r.seat + 1}`}</td>
                   <td className="num">{r.rounds}</td>
-                  <td className="num">{money(r.meanEffort)}</td>
-                  <td className="num">{r.meanEq === null ? "\u2013" : money(r.meanEq)}</td>
+                  <td className="num">{money(r.meanSpend)}</td>
+                  <td className="num">
+                    {r.meanEqSpend === null ? "\u2013" : money(r.meanEqSpend)}
+                  </td>
                   <td className="num">{money(r.regret)}</td>
                   <td className="num">{money(r.total)}</td>
                 </tr>
