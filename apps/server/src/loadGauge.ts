@@ -18,16 +18,25 @@ export function fixedGauge(value: number): LoadGauge {
   return { busy: () => value, stop: () => undefined };
 }
 
+/** Cumulative milliseconds the loop spent working and waiting since the process started. */
+export type LoopTimes = () => Pick<EventLoopUtilization, "active" | "idle">;
+
 /**
  * Node's event-loop utilisation (time not spent waiting for I/O over wall time), sampled every
- * `periodMs`; a reading is at most two periods old.
+ * `periodMs`; a reading is at most two periods old. `times` is Node's own counter unless a test
+ * hands in another.
  */
-export function eventLoopGauge(periodMs = 250): LoadGauge {
-  let last: EventLoopUtilization = performance.eventLoopUtilization();
+export function eventLoopGauge(
+  periodMs = 250,
+  times: LoopTimes = () => performance.eventLoopUtilization(),
+): LoadGauge {
+  let last = times();
   let value = 0;
   const timer = setInterval(() => {
-    const now = performance.eventLoopUtilization();
-    value = performance.eventLoopUtilization(now, last).utilization;
+    const now = times();
+    const active = now.active - last.active;
+    const total = active + (now.idle - last.idle);
+    value = total > 0 ? active / total : 0;
     last = now;
   }, periodMs);
   timer.unref();

@@ -1,4 +1,5 @@
-import { describe, expect, it } from "vitest";
+import { performance } from "node:perf_hooks";
+import { describe, expect, it, vi } from "vitest";
 import { createManualClock } from "../src/clock";
 import { parseEnv } from "../src/env";
 import { toCsv } from "../src/http/csv";
@@ -29,6 +30,7 @@ describe("createTokenBucket(rate, burst)", () => {
 
 describe("createSerialQueue()", () => {
   it("run(key, task) runs tasks of one key in arrival order, one at a time", async () => {
+    vi.useFakeTimers();
     const queue = createSerialQueue();
     const log: string[] = [];
     let running = 0;
@@ -42,11 +44,15 @@ describe("createSerialQueue()", () => {
       running--;
       return name;
     };
-    const results = await Promise.all([
+    const all = Promise.all([
       queue.run("a", task("1", 20)),
       queue.run("a", task("2", 1)),
       queue.run("a", task("3", 5)),
     ]);
+    // the tasks wait on timers: run them on the fake clock (task 1 is the slowest, yet first)
+    await vi.runAllTimersAsync();
+    const results = await all;
+    vi.useRealTimers();
     expect(results).toEqual(["1", "2", "3"]);
     expect(maxRunning).toBe(1);
     expect(log).toEqual(["start 1", "end 1", "start 2", "end 2", "start 3", "end 3"]);
@@ -155,23 +161,39 @@ describe("progressWindowMs(quiet, busy, reading)", () => {
   });
 });
 
-describe("eventLoopGauge()", () => {
-  it("reads high after the loop was kept busy for several periods, and low when idle", async () => {
-    const gauge = eventLoopGauge(100);
+describe("eventLoopGauge(periodMs, times)", () => {
+  it("reads the share of each period the loop spent working (active / (active + idle))", () => {
+    vi.useFakeTimers();
+    // cumulative counters as Node reports them; the test moves them, not the clock of the machine
+    const counters = { active: 0, idle: 0 };
+    const gauge = eventLoopGauge(100, () => ({ ...counters }));
     try {
-      await new Promise((r) => setTimeout(r, 250));
-      // idle: the loop waited for the timer the whole time (a loaded machine delays the timer,
-      // not the waiting, so this stays low)
+      expect(gauge.busy()).toBe(0); // no full period yet
+      counters.idle += 100; // an idle period: the loop waited the whole time
+      vi.advanceTimersByTime(100);
+      expect(gauge.busy()).toBe(0);
       expect(gauge.busy()).toBeLessThan(BUSY_FROM);
-      const until = Date.now() + 400;
-      while (Date.now() < until) {
-        // spin: the loop cannot wait for anything
-      }
-      await new Promise((r) => setTimeout(r, 0));
-      // the period read holds the 400 ms spin and at most 100 ms of waiting before it
-      expect(gauge.busy()).toBeGreaterThan(0.75);
+      counters.active += 80; // a busy period: 80 ms of work, 20 ms of waiting
+      counters.idle += 20;
+      vi.advanceTimersByTime(100);
+      expect(gauge.busy()).toBeCloseTo(0.8, 12);
+      counters.active += 100; // never waiting
+      vi.advanceTimersByTime(100);
+      expect(gauge.busy()).toBe(1);
+      expect(gauge.busy()).toBeGreaterThanOrEqual(BUSY_FULL);
+      vi.advanceTimersByTime(100); // nothing happened in the period: read as idle
+      expect(gauge.busy()).toBe(0);
     } finally {
       gauge.stop();
+      vi.useRealTimers();
     }
+  });
+
+  it("Node's own counters, sampled once, are cumulative milliseconds (what the gauge subtracts)", () => {
+    const a = performance.eventLoopUtilization();
+    const b = performance.eventLoopUtilization();
+    expect(b.active + b.idle).toBeGreaterThanOrEqual(a.active + a.idle);
+    expect(a.utilization).toBeGreaterThanOrEqual(0);
+    expect(a.utilization).toBeLessThanOrEqual(1);
   });
 });
