@@ -3,6 +3,7 @@
 import { formatMoney, formatPercent } from "../../lib/format";
 import type { SolvedView } from "../../lib/solve-view";
 import { SolvedEquilibrium } from "../EquilibriumTable";
+import { MixedStrategyChart } from "./MixedStrategyChart";
 
 /** The solved scenario (or the leader-follower outcome) with any further equilibria listed. */
 export function EquilibriumCard({
@@ -22,20 +23,27 @@ export function EquilibriumCard({
         solved={solved}
         currency={currency}
         testPrefix="eq"
-        more={(ok) =>
-          ok.result.alternatives.length > 0 && (
-            <div data-testid="eq-alternatives">
-              <h3>Further equilibria</h3>
-              {ok.result.alternatives.map((alt, k) => (
-                <p key={k} className="small">
-                  {k + 2}. efforts{" "}
-                  {(alt.efforts ?? alt.expectedEfforts ?? []).map(money).join(", ")} · dissipation{" "}
-                  {formatPercent(alt.dissipation)}
-                </p>
-              ))}
-            </div>
-          )
-        }
+        more={(ok) => (
+          <>
+            <MixedStrategyChart
+              contest={ok.contest}
+              equilibrium={ok.result.equilibrium}
+              currency={currency}
+            />
+            {ok.result.alternatives.length > 0 && (
+              <div data-testid="eq-alternatives">
+                <h3>Further equilibria</h3>
+                {ok.result.alternatives.map((alt, k) => (
+                  <p key={k} className="small">
+                    {k + 2}. efforts{" "}
+                    {(alt.efforts ?? alt.expectedEfforts ?? []).map(money).join(", ")} · dissipation{" "}
+                    {formatPercent(alt.dissipation)}
+                  </p>
+                ))}
+              </div>
+            )}
+          </>
+        )}
       />
     </section>
   );
