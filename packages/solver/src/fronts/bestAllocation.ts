@@ -98,9 +98,15 @@ export function bestAllocationAgainst(
   const rv = fc.rivals[i]!;
   const K = fc.fronts.length;
   const B = rv.budget;
-  // one mutable copy of rival i per front, so a probe allocates nothing but its row
+  // one mutable copy of rival i per front, so a probe allocates nothing but its row. No cap per
+  // front: the budget is priced by mu, and a cap of B / c on one front would stop mu from rising
+  // where that front alone could take the whole budget (a wrong shadow price of 0)
   const caps = rv.cost.map((c) => (B === Infinity ? Infinity : B / c));
-  const mine: Rival[] = fc.contests.map((c, k) => ({ ...c.rivals[i]!, maxEffort: caps[k]! }));
+  const mine: Rival[] = fc.contests.map((c) => ({
+    ...c.rivals[i]!,
+    maxEffort: Infinity,
+    maxSpend: Infinity,
+  }));
   const scratch: Contest[] = fc.contests.map((c, k) => {
     const rivals = c.rivals.slice();
     rivals[i] = mine[k]!;
@@ -114,10 +120,8 @@ export function bestAllocationAgainst(
   const at = (mu: number): number[] => {
     const row = new Array<number>(K);
     for (let k = 0; k < K; k++) {
-      // the shadow cost buys effort; the cap is still the whole budget in effort on this front
-      const me = mine[k]!;
-      me.cost = mu * rv.cost[k]!;
-      me.maxSpend = caps[k]! * me.cost;
+      // effort bought at the shadow cost
+      mine[k]!.cost = mu * rv.cost[k]!;
       row[k] = bestResponseAgainst(scratch[k]!, i, opp[k]!, steps[k]).effort;
     }
     return row;

@@ -40,10 +40,17 @@ import type {
 } from "./types";
 
 const OUTER_ITERATIONS = 400;
+/** fewer rounds when fronts need the verified single-contest search (slower per round) */
+const OUTER_ITERATIONS_SEARCH = 60;
+/** most an accelerated step may move ln mu beyond the plain step */
+const MAX_EXTRAPOLATION = 0.5;
 /** relative tolerance on a binding budget in the multiplier loop */
 const BUDGET_TOL = 1e-9;
 const BR_SWEEPS = 200;
 const BR_DAMPING = 0.5;
+/** sweeps between Nash-gap checks in the best-response iteration */
+const GAP_CHECK_EVERY = 5;
+const STALL_CHECKS = 4;
 
 export function solveFronts(fc: FrontsContest, opts: FrontsSolveOptions = {}): FrontsSolveResult {
   const totalPrize = fc.fronts.reduce((s, f) => s + f.prize, 0);
@@ -56,7 +63,7 @@ export function solveFronts(fc: FrontsContest, opts: FrontsSolveOptions = {}): F
     if (eq.nashGap <= tol) return { equilibrium: eq, alternatives: [] };
   }
   const start = viaMultipliers ?? evenSplit(fc);
-  const it = bestResponseIteration(fc, start);
+  const it = bestResponseIteration(fc, start, tol);
   const eq = packageProfile(fc, it.profile, "fronts:best-response-iteration");
   if (eq.nashGap <= tol) return { equilibrium: eq, alternatives: [] };
   const why = frontsAreConcave(fc)
@@ -120,9 +127,16 @@ function multiplierEquilibrium(fc: FrontsContest): number[][] | null {
   const concave = frontsAreConcave(fc);
   const n = fc.rivals.length;
   const floor = fc.rivals.map((r) => (r.sunkBudget ? 0 : 1));
-  const mu = floor.map((f, i) => (f > 0 ? f : 1 / (fc.rivals[i]!.budget || 1)));
+  // a sunk rival's first multiplier: the symmetric Tullock spend sum_k V_k (n - 1) / (n^2 mu)
+  // (Tullock 1980) set equal to its budget
+  const mu = fc.rivals.map((r, i) =>
+    floor[i]! > 0
+      ? floor[i]!
+      : (r.value.reduce((a, b) => a + b, 0) * Math.max(1, n - 1)) / (n * n * (r.budget || 1)),
+  );
   const accel = anderson();
-  for (let it = 0; it < OUTER_ITERATIONS; it++) {
+  const rounds = concave ? OUTER_ITERATIONS : OUTER_ITERATIONS_SEARCH;
+  for (let it = 0; it < rounds; it++) {
     const x = frontsAt(fc, mu, concave);
     if (!x) return null;
     let done = true;
@@ -158,8 +172,11 @@ function multiplierEquilibrium(fc: FrontsContest): number[][] | null {
       next.map((m) => Math.log(m)),
     );
     for (let i = 0; i < n; i++) {
-      const v = Math.exp(step[i]!);
-      mu[i] = Number.isFinite(v) && v > 0 ? Math.max(floor[i]!, v) : Math.max(floor[i]!, next[i]!);
+      // trust the extrapolation only within MAX_EXTRAPOLATION of the plain step in ln mu
+      const plain = Math.log(next[i]!);
+      const t = Math.min(plain + MAX_EXTRAPOLATION, Math.max(plain - MAX_EXTRAPOLATION, step[i]!));
+      const v = Math.exp(Number.isFinite(t) ? t : plain);
+      mu[i] = Math.max(floor[i]!, v);
     }
   }
   return null;
@@ -184,15 +201,38 @@ function fitBudgets(fc: FrontsContest, x: number[][], binding?: readonly boolean
 }
 
 /** Method 2 of the file header: the profile with the smallest gap seen. */
-function bestResponseIteration(fc: FrontsContest, start: number[][]): { profile: number[][] } {
+function bestResponseIteration(
+  fc: FrontsContest,
+  start: number[][],
+  tol: number,
+): { profile: number[][] } {
   const x = fitBudgets(fc, start).map((r) => r.slice());
   const n = fc.rivals.length;
+  // each rival's last multiplier starts its next search nearby
+  const hints = fc.rivals.map((): number | undefined => undefined);
+  let bestGap = Infinity;
+  let stalled = 0;
   for (let s = 0; s < BR_SWEEPS; s++) {
+    // stop as soon as the profile passes the check with room to spare
+    if (s % GAP_CHECK_EVERY === GAP_CHECK_EVERY - 1) {
+      const gap = respondFronts(fc, fitBudgets(fc, x)).nashGap;
+      if (gap <= 1e-9 * tol) break;
+      // a cycle (common with r > 1 or logit fronts): give up after STALL_CHECKS checks without
+      // a tenth off the best gap seen
+      if (gap < 0.9 * bestGap) {
+        bestGap = gap;
+        stalled = 0;
+      } else if (++stalled >= STALL_CHECKS) break;
+    }
     let moved = 0;
     for (let i = 0; i < n; i++) {
       const opp = frontOppositions(fc, x).map((o) => o[i]!);
-      const br = bestAllocationAgainst(fc, i, opp, x[i]).allocation;
       const rv = fc.rivals[i]!;
+      const best = bestAllocationAgainst(fc, i, opp, x[i], hints[i]);
+      if (best.shadowPrice !== null && Number.isFinite(best.shadowPrice)) {
+        hints[i] = best.shadowPrice + (rv.sunkBudget ? 0 : 1);
+      }
+      const br = best.allocation;
       for (let k = 0; k < br.length; k++) {
         const next = x[i]![k]! + BR_DAMPING * (br[k]! - x[i]![k]!);
         const scale = rv.value[k]! / rv.cost[k]!;
