@@ -39,6 +39,9 @@ test("calibrate(demo) -> estimates with intervals, charts, cautions -> editor ke
   await expect(page.getByTestId("calibrate-error")).toHaveText(
     'row 3, column spend: is not a number (got "lots")',
   );
+  await expect(page.getByTestId("calibrate-input-error")).toHaveText(
+    'row 3, column spend: is not a number (got "lots")',
+  );
   await page.getByTestId("grid-1-spend").fill("19600");
   await expect(page.getByTestId("calibrate-r")).toBeVisible();
 

@@ -59,7 +59,16 @@ export function Calibrator() {
       <div className="calibrate-top">
         <section className="card" aria-labelledby="calibrate-data-title">
           <h2 id="calibrate-data-title">Data</h2>
-          <DataInput data={data} onData={setData} onDemo={loadDemo} />
+          <DataInput
+            data={data}
+            onData={setData}
+            onDemo={loadDemo}
+            problem={
+              outcome && !outcome.ok
+                ? `${outcome.where ? `${outcome.where}: ` : ""}${outcome.message}`
+                : null
+            }
+          />
           <div className="grid-3" style={{ marginTop: "0.5rem" }}>
             <TextField
               label="Scenario title"

@@ -27,10 +27,13 @@ export function DataInput({
   data,
   onData,
   onDemo,
+  problem,
 }: {
   data: DataSource;
   onData: (d: DataSource) => void;
   onDemo: () => void;
+  /** the reader's or the fit's problem, shown under the input too (on a phone it is far away) */
+  problem: string | null;
 }) {
   const [mode, setMode] = useState<"text" | "grid">("text");
   const [grid, setGrid] = useState<GridRow[]>([]);
@@ -134,6 +137,9 @@ export function DataInput({
       ) : (
         <PanelGrid grid={grid} onChange={editGrid} />
       )}
+      <p className="small field-error" data-testid="calibrate-input-error">
+        {problem ?? ""}
+      </p>
       <p className="small muted">
         Source: <span data-testid="calibrate-source">{data.source || "none yet"}</span>
         {data.source === DEMO_PANEL.file ? " (invented demo data)" : ""}
