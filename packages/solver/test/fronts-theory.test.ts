@@ -288,3 +288,25 @@ describe("sweepFronts", () => {
     expect(neg.ok ? "" : neg.message).toMatch(/fronts\.0\.prize/);
   });
 });
+
+describe("shadow price of a binding budget", () => {
+  test("solveFronts(one front, cost 2, budget 20 money, r = 1) reports lambda = V Z / (e + Z)^2 / c - 1", () => {
+    // Derived here: with the others' effort Z fixed, one more unit of money buys 1/c effort,
+    // which adds V Z / (e + Z)^2 / c to V p and costs 1, so the budget is worth that minus 1.
+    // The free rival's reply to e = 10 is sqrt(V e) - e (Tullock 1980 best response, r = 1).
+    const fcx = parse({
+      title: "one",
+      fronts: [{ name: "only", prize: 100, csf: { kind: "ratio", decisiveness: 1 } }],
+      rivals: [
+        { name: "capped", cost: 2, budget: 20 },
+        { name: "free", cost: 1 },
+      ],
+    });
+    const eq = solveFronts(fcx).equilibrium;
+    const e = 10;
+    const z = Math.sqrt(100 * e) - e;
+    expect(eq.allocations![1]![0]).toBeCloseTo(z, 8);
+    expect(eq.shadowPrices![0]).toBeCloseTo((100 * z) / (e + z) ** 2 / 2 - 1, 6);
+    expect(eq.shadowPrices![1]).toBeNull();
+  });
+});
