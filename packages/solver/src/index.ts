@@ -34,3 +34,4 @@ export * from "./fronts";
 export * from "./reliability";
 export * from "./logitInterior";
 export * from "./scaledContest";
+export * from "./leaderTwoRival";

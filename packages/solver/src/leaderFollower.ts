@@ -12,13 +12,15 @@
  * is exactly zero). With common v and unit weights: e_L = v m_F / (4 m_L^2), interior iff
  * m_F < 2 m_L, matching Dixit.
  *
- * All-pay auction with a leader: pre-emption (see allPayLeader.ts).
+ * All-pay auction with a leader: pre-emption (see allPayLeader.ts); two rivals without
+ * pre-emption, and two rivals with a follower of r > 1 or logit: leaderTwoRival.ts.
  *
  * General case (numerical): followers' subgame by the share-function method with the
  * leader's w_L e_L^r_L as a fixed contribution (valid when every follower has r_i <= 1), and
  * the leader's effort by global 1-D maximisation (grid + Brent).
  */
 import { allPayLeaderPreemption } from "./allPayLeader";
+import { allPayLeaderNoPreemption, leaderTwoRivalNumeric } from "./leaderTwoRival";
 import { respond } from "./bestResponse";
 import { dissipation, payoffs, shares } from "./csf";
 import { gridMaximize } from "./gridMaximize";
@@ -83,6 +85,15 @@ export function leaderFollowerEquilibrium(contest: Contest, gridPoints?: number)
   if (L === null) return noPureEquilibrium(contest, "leader-follower", "No leader is set.");
   if (contest.csf.kind === "allpay") {
     const pre = allPayLeaderPreemption(contest);
+    const none = pre.ok ? null : allPayLeaderNoPreemption(contest);
+    if (none) {
+      return leaderRecord(
+        contest,
+        none,
+        gridPoints,
+        "all-pay auction: it cannot profitably pre-empt, so it commits nothing and the follower wins with the smallest positive bid",
+      );
+    }
     if (!pre.ok) {
       return noPureEquilibrium(
         contest,
@@ -93,14 +104,17 @@ export function leaderFollowerEquilibrium(contest: Contest, gridPoints?: number)
     return leaderRecord(contest, pre.efforts, gridPoints, "pre-emption, all-pay auction");
   }
   const closed = leaderFollowerTwoRival(contest);
-  const efforts = closed ?? leaderFollowerNumeric(contest, Math.min(gridPoints ?? 401, 2001));
+  const efforts =
+    closed ??
+    leaderFollowerNumeric(contest, Math.min(gridPoints ?? 401, 2001)) ??
+    leaderTwoRivalNumeric(contest, Math.min(gridPoints ?? 2001, 4001));
   if (!efforts) {
     return noPureEquilibrium(
       contest,
       "unsupported",
       contest.csf.kind === "ratio"
-        ? "Leader-follower games are solved when every follower has decisiveness r <= 1; a follower here has r > 1."
-        : "Leader-follower games are solved for the ratio form and the all-pay auction only.",
+        ? "Leader-follower games with three or more rivals are solved when every follower has decisiveness r <= 1; a follower here has r > 1."
+        : "Leader-follower games in the logit form are solved for two rivals only.",
     );
   }
   return leaderRecord(

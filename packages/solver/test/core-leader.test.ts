@@ -179,7 +179,7 @@ describe("all-pay auction with a leader (pre-emption, derived)", () => {
     expect(Math.abs(grid.payoff - 40)).toBeLessThanOrEqual(0.1);
   });
 
-  test("solve(all-pay, weak leader) is reported as unsupported with the reason", () => {
+  test("solve(all-pay, weak leader) commits nothing and the follower wins with the smallest bid, as a grid search finds", () => {
     const c = auction(
       [
         { name: "lead", cost: 2 },
@@ -188,7 +188,50 @@ describe("all-pay auction with a leader (pre-emption, derived)", () => {
       "lead",
     );
     const eq = solve(c).equilibrium;
-    expect(eq.kind).toBe("none-pure");
+    expect(eq.kind).toBe("pure");
+    expect(eq.efforts![0]).toBe(0);
+    expect(eq.efforts![1]).toBeGreaterThan(0);
+    expect(eq.efforts![1]).toBeLessThan(1e-3);
+    expect(eq.payoffs![0]).toBe(0);
+    expect(eq.payoffs![1]).toBeCloseTo(100, 3);
+    // the follower's only regret: the cost of its smallest step above the supremum
+    expect(eq.nashGap).toBeLessThan(1e-6);
     expect(eq.note).toMatch(/cannot profitably pre-empt/);
+    // the grid's follower answers a zero commitment with its smallest bid and wins
+    const grid = gridSubgamePerfect(100, 2, 100, 1, 0.05);
+    expect(grid.bid).toBe(0);
+    expect(grid.payoff).toBe(0);
   });
+});
+
+describe("two rivals, followers with r > 1 or logit (numerical search)", () => {
+  test.each([
+    ["ratio r = 2", { kind: "ratio", decisiveness: 2 } as const],
+    ["ratio r = 1.5", { kind: "ratio", decisiveness: 1.5 } as const],
+    ["logit k = 0.05", { kind: "logit", scale: 0.05 } as const],
+  ])(
+    "solve(%s, leader and follower) finds the leader's best commitment as a brute-force search with Nelder-Mead replies does",
+    (_, csf) => {
+      const c = normalize({
+        title: "test",
+        prize: 100,
+        csf,
+        rivals: [
+          { name: "lead", cost: 1 },
+          { name: "follow", cost: 1.5 },
+        ],
+        leader: "lead",
+      });
+      const eq = solve(c).equilibrium;
+      expect(eq.kind).toBe("pure");
+      expect(eq.method).toBe("leader-follower");
+      expect(eq.nashGap).toBeLessThan(1e-6 * 100);
+      const bf = bruteForceLeader(c);
+      const prof = [bf, refBestResponse(c, 1, [bf, 0]).effort];
+      const bfPayoff = refPayoff(c, 0, bf, prof);
+      // the solver's commitment is at least as good as the grid's, up to the grid's step
+      expect(eq.payoffs![0]!).toBeGreaterThan(bfPayoff - 0.05);
+      expect(Math.abs(eq.payoffs![0]! - bfPayoff)).toBeLessThan(1);
+    },
+  );
 });

@@ -81,12 +81,13 @@ describe("dispatcher edge cases", () => {
     expect(eq.kind).toBe("none-pure");
     expect(eq.note).toMatch(/positive step/);
   });
-  test("solve(leader with a logit contest) is reported as unsupported, not as a wrong answer", () => {
+  test("solve(leader with a three-rival logit contest) is reported as unsupported, not as a wrong answer", () => {
     const eq = solve(
       contest(
         [
           { name: "a", cost: 1 },
           { name: "b", cost: 1 },
+          { name: "c", cost: 1 },
         ],
         { kind: "logit", scale: 0.1 },
         "a",
