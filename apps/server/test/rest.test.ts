@@ -131,4 +131,21 @@ describe("REST", () => {
       await app.close();
     }
   });
+
+  it("exports download as files named after the session's title and creation date", async () => {
+    const created = await createSessionOverHttp(server.url, printShops());
+    const list = sessionListSchema.parse(await (await fetch(`${server.url}/api/sessions`)).json());
+    const day = list.find((s) => s.id === created.id)!.createdAt.slice(0, 10);
+    const stem = `three-print-shops-bid-for-the-library-poster-contract-${day}`;
+    for (const [query, ext] of [
+      ["", "json"],
+      ["?format=csv", "csv"],
+    ] as const) {
+      const res = await fetch(`${server.url}/api/sessions/${created.id}/export${query}`);
+      expect(res.status).toBe(200);
+      expect(res.headers.get("content-disposition")).toBe(
+        `attachment; filename="${stem}.${ext}"; filename*=UTF-8''${stem}.${ext}`,
+      );
+    }
+  });
 });

@@ -11,6 +11,7 @@ import {
   seatHistoryRows,
   sweepRows,
   turningPoints,
+  wholeNumberTicks,
 } from "../src/lib/chart-data";
 import { bestResponseCurves } from "../src/lib/br-curves";
 
@@ -179,5 +180,23 @@ describe("bestResponseCurves", () => {
     expect(p.e0).toBeCloseTo(Math.max(0, Math.sqrt((100 * 10) / 5) - 10), 5);
     const q = b[2]!; // rival 0 spends 4
     expect(q.e1).toBeCloseTo(Math.max(0, Math.sqrt((100 * 4) / 2) - 4), 5);
+  });
+});
+
+describe("wholeNumberTicks", () => {
+  const rounds = (n: number) => Array.from({ length: n }, (_, k) => ({ round: k + 1 }));
+  it("gives each round once, with no repeated or in-between tick", () => {
+    expect(wholeNumberTicks(rounds(3), "round")).toEqual([1, 2, 3]);
+    expect(wholeNumberTicks(rounds(1), "round")).toEqual([1]);
+    expect(wholeNumberTicks(rounds(10), "round")).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10]);
+  });
+  it("thins a long axis to every 2nd, 5th or 10th whole number", () => {
+    expect(wholeNumberTicks(rounds(11), "round")).toEqual([1, 3, 5, 7, 9, 11]);
+    expect(wholeNumberTicks(rounds(40), "round")).toEqual([1, 6, 11, 16, 21, 26, 31, 36]);
+    expect(wholeNumberTicks(rounds(3), "round", 2)).toEqual([1, 3]);
+  });
+  it("leaves an axis with a fractional value to the chart", () => {
+    expect(wholeNumberTicks([{ x: 1 }, { x: 1.5 }], "x")).toBeNull();
+    expect(wholeNumberTicks([], "x")).toBeNull();
   });
 });

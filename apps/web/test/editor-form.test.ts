@@ -184,6 +184,28 @@ describe("parseScenarioText", () => {
       }),
     );
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.message).toMatch(/^rivals\.0\.cost/);
+    if (!r.ok) expect(r.problems).toEqual(["Rival 1 cost: must be above 0 (you entered -1)."]);
+  });
+  it("parseScenarioText(several bad fields) lists every problem at once", () => {
+    const r = parseScenarioText(
+      JSON.stringify({
+        title: "",
+        prize: -5,
+        csf: { kind: "ratio", decisiveness: 1 },
+        rivals: [
+          { name: "a", cost: "cheap" },
+          { name: "b", cost: 1 },
+        ],
+        session: { rounds: 2.5 },
+      }),
+    );
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.problems).toEqual([
+      "Title: cannot be empty.",
+      "Prize: must be above 0 (you entered -5).",
+      'Rival 1 cost: enter a number above 0 (you entered "cheap").',
+      "Rounds: enter a whole number.",
+    ]);
   });
 });

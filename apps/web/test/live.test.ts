@@ -1,8 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { parseSessionScenario } from "@contend/protocol";
-import type { EventBody, RoleView, SessionEvent } from "@contend/protocol";
-import { apply, createSession, decide, fold } from "@contend/session";
-import type { Actor, EngineCommand, SessionState } from "@contend/session";
+import type { RoleView } from "@contend/protocol";
 import {
   invitesFor,
   issuedLinkOf,
@@ -15,6 +12,7 @@ import { describeEvent, parseExport, seatSummary, viewAfter } from "../src/lib/r
 import { blankDraft, describeShock, draftToShock } from "../src/lib/shock-form";
 import { roundSeatRows } from "../src/lib/chart-data";
 import { shockLineText, shockLines } from "../src/lib/shock-text";
+import { playLog } from "./session-log";
 
 // One rule, one place: the seat form checks a spend with the engine's rule, so it refuses
 // exactly what the server refuses. Two cases where the web's own copy used to disagree: 5e-7
@@ -258,44 +256,6 @@ describe("draftToShock", () => {
     expect(describeShock({ target: "retire-rival", index: 1 }, ["A", "B"])).toBe("Retire B");
   });
 });
-
-// A real log produced by the session engine (invented bakeries), replayed by the viewer.
-function playLog(): SessionEvent[] {
-  const parsed = parseSessionScenario({
-    title: "Kiosk lease drill",
-    prize: 100,
-    currency: "$",
-    csf: { kind: "ratio", decisiveness: 1 },
-    rivals: [
-      { name: "North Bakery", cost: 5 },
-      { name: "Corner Ovens", cost: 2 },
-    ],
-    session: { rounds: 2, computer: { "Corner Ovens": { kind: "equilibrium" } } },
-  });
-  if (!parsed.ok) throw new Error(parsed.message);
-  const log: SessionEvent[] = [];
-  let state: SessionState = fold([]);
-  let now = 1_000;
-  const commit = (bodies: readonly EventBody[]) => {
-    for (const b of bodies) {
-      const e = { ...b, seq: log.length + 1, at: now } as SessionEvent;
-      log.push(e);
-      state = apply(state, e);
-    }
-  };
-  const send = (cmd: EngineCommand, actor: Actor) => {
-    const d = decide(state, cmd, { now, actor });
-    if (!d.ok) throw new Error(`${cmd.type}: ${d.message}`);
-    commit(d.events);
-  };
-  commit([createSession({ sessionId: "s-1", scenario: parsed.value, seed: 11 })]);
-  send({ type: "openRound", durationSeconds: null }, { role: "facilitator" });
-  now += 1_000;
-  // a spend of 15 at cost 5: effort 3
-  send({ type: "sealMove", clientMoveId: "a", spend: 15 }, { role: "seat", seatIndex: 0 });
-  send({ type: "closeRound" }, { role: "facilitator" });
-  return log;
-}
 
 describe("replay", () => {
   it("viewAfter(events, k) stops the engine's fold at event k", () => {

@@ -141,3 +141,4 @@ export type {
   SessionListItem,
 } from "./rest";
 export type { ClientToServerEvents, PresenceMessage, ServerToClientEvents } from "./socket";
+export { attachmentHeader, downloadFileName, fileStem } from "./fileName";

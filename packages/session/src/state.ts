@@ -78,8 +78,15 @@ export function initialState(): SessionState {
   return { status: "empty", seq: 0 };
 }
 
-/** Contest of the active seats only, with the seat behind each of its rivals. */
-export function activeContest(core: SessionCore): { scenario: Scenario; seatIndices: number[] } {
+/**
+ * Contest of the active seats only, with the seat behind each of its rivals. Takes any shape
+ * with the scenario and the seats' `active` flags (the state, or a role view of it), so the web
+ * previews the coming round with the engine's own rule.
+ */
+export function activeContest(core: {
+  scenario: Scenario;
+  seats: readonly { index: number; active: boolean }[];
+}): { scenario: Scenario; seatIndices: number[] } {
   const seatIndices = core.seats.filter((s) => s.active).map((s) => s.index);
   const rivals = seatIndices.map((i) => core.scenario.rivals[i]!);
   return { scenario: { ...core.scenario, rivals }, seatIndices };

@@ -71,12 +71,18 @@ function tooLarge(limit: number): BodyResult {
   };
 }
 
-export function sendJson(res: ServerResponse, status: number, body: unknown): void {
+export function sendJson(
+  res: ServerResponse,
+  status: number,
+  body: unknown,
+  extraHeaders: Record<string, string> = {},
+): void {
   const text = JSON.stringify(body);
   res.writeHead(status, {
     "content-type": "application/json; charset=utf-8",
     "content-length": Buffer.byteLength(text),
     "cache-control": "no-store",
+    ...extraHeaders,
   });
   res.end(text);
 }

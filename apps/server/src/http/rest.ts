@@ -4,7 +4,12 @@
  */
 import type { IncomingMessage, ServerResponse } from "node:http";
 import type { Database } from "@contend/db";
-import { nameProblem, parseSessionScenario } from "@contend/protocol";
+import {
+  attachmentHeader,
+  downloadFileName,
+  nameProblem,
+  parseSessionScenario,
+} from "@contend/protocol";
 import type { Health } from "@contend/protocol";
 import type { Clock } from "../clock";
 import type { Limits } from "../env";
@@ -87,10 +92,14 @@ export function createRestHandler(deps: RestDeps) {
     if (!summary) return sendError(res, 404, "not-found", "no such session");
     const events = (await db.events.list(id)).map(toSessionEvent);
     const record = buildExport(summary, events);
-    if (format === "json") return sendJson(res, 200, record);
-    sendText(res, 200, roundsCsv(record.rounds, record.shocks), "text/csv; charset=utf-8", {
-      "content-disposition": `attachment; filename="session-${id}.csv"`,
-    });
+    // Always an attachment: a link to it downloads a file instead of replacing the page.
+    const disposition = {
+      "content-disposition": attachmentHeader(
+        downloadFileName(summary.title, format, summary.createdAt),
+      ),
+    };
+    if (format === "json") return sendJson(res, 200, record, disposition);
+    sendText(res, 200, roundsCsv(record.rounds, record.shocks), "text/csv; charset=utf-8", disposition);
   }
 
   function health(res: ServerResponse) {

@@ -2,6 +2,8 @@
 
 import type { ReactNode } from "react";
 import type { EditorForm, FieldErrors, RivalRow } from "../lib/editor-form";
+import { POLICY_LABELS } from "@contend/solver";
+import { Term } from "./Glossary";
 import {
   bindField,
   blankRival,
@@ -13,7 +15,7 @@ import {
 import { RadioGroup, SelectField, TextField } from "./Field";
 
 const CSF_OPTIONS = [
-  { value: "ratio", label: "Ratio (Tullock)" },
+  { value: "ratio", label: "Ratio (chance grows with spend)" },
   { value: "logit", label: "Logit (difference)" },
   { value: "allpay", label: "All-pay auction" },
 ] as const;
@@ -88,9 +90,10 @@ export function ContestFields({
         )}
       </div>
       <p className="small muted">
-        Ratio: p = w·e^r / Σ w·e^r (Tullock 1980); all efforts zero splits the prize equally. Logit:
-        p = w·exp(k·e) / Σ w·exp(k·e) (Hirshleifer 1989). All-pay: the highest effort wins, ties
-        split.
+        Ratio: the more a rival spends, the likelier it wins, with <Term id="decisiveness" />{" "}
+        setting how much. Logit: the same, but each extra unit counts the same however much was
+        already spent. All-pay: the highest spender wins outright. Formulas and sources are under
+        &quot;About the maths&quot;.
       </p>
     </fieldset>
   );
@@ -134,7 +137,9 @@ export function RivalsTable({
               <th scope="col">Name</th>
               <th scope="col">Cost</th>
               <th scope="col">Value</th>
-              <th scope="col">Weight</th>
+              <th scope="col">
+                <Term id="head-start">Weight</Term>
+              </th>
               <th scope="col">Budget</th>
               {ratio && <th scope="col">Own r</th>}
               {withPolicy && <th scope="col">Played by</th>}
@@ -196,6 +201,11 @@ export function RivalsTable({
                       error={rivalFieldError(errors, form, i, "policy")}
                       testId={`rival-${i}-policy`}
                     />
+                    {r.policy !== "human" && (
+                      <p className="small muted" data-testid={`rival-${i}-policy-about`}>
+                        {POLICY_LABELS[r.policy].description}
+                      </p>
+                    )}
                     {r.policy !== "human" && POLICY_ARGUMENT[r.policy] && (
                       <TextField
                         compact

@@ -1,6 +1,7 @@
 "use client";
 
 import { useId, useState } from "react";
+import { COPIED_NOTICE_MS } from "../lib/timing";
 
 /** A read-only value with a copy button; the label names what is copied. */
 export function CopyField({
@@ -18,7 +19,7 @@ export function CopyField({
     try {
       await navigator.clipboard.writeText(value);
       setCopied(true);
-      setTimeout(() => setCopied(false), 1500);
+      setTimeout(() => setCopied(false), COPIED_NOTICE_MS);
     } catch {
       // Clipboard may be blocked (insecure origin): select the text so the user can copy it.
       const el = document.getElementById(id) as HTMLInputElement | null;

@@ -1,7 +1,7 @@
 "use client";
 
 import Link from "next/link";
-import { useEffect } from "react";
+import { useEffect, useRef } from "react";
 import type { CreateSessionResponse } from "@contend/protocol";
 import { absoluteLink, localPath } from "../lib/api";
 import { rememberInvites } from "../lib/live";
@@ -22,12 +22,24 @@ export function CreatedSession({
       seats: created.seats.map((s) => ({ index: s.index, name: s.name, link: s.link })),
     });
   }, [created]);
+  // The result appears where the facilitator is looking: scrolled into view, its heading focused
+  // (so a screen reader reads it too), instead of below the fold where it looks like nothing
+  // happened.
+  const heading = useRef<HTMLHeadingElement>(null);
+  useEffect(() => {
+    const h = heading.current;
+    if (!h) return;
+    h.scrollIntoView({ block: "start" });
+    h.focus({ preventScroll: true });
+  }, []);
   const facilitator = absoluteLink(created.links.facilitator);
   const screen = absoluteLink(created.links.spectator);
   const join = absoluteLink(created.links.join);
   return (
     <section className="card" aria-labelledby="created-title" data-testid="created-session">
-      <h2 id="created-title">Session created: {title}</h2>
+      <h2 id="created-title" ref={heading} tabIndex={-1}>
+        Session created: {title}
+      </h2>
       <p className="muted small">
         Keep the facilitator link to yourself: it controls the session. Send each seat link to one
         person only, inside your organisation.

@@ -35,7 +35,6 @@ export function EquilibriumTable({
     <div>
       <p className="small" data-testid={`${testPrefix}-kind`} style={{ minHeight: "1.5em" }}>
         {eq ? KIND_TEXT[eq.kind] : "\u00a0"}
-        {eq ? <span className="muted"> · method {eq.method}</span> : null}
       </p>
       <FigureTable
         head={[
@@ -95,10 +94,10 @@ export function EquilibriumTable({
               )
             : "\u2013"}
         </Kpi>
-        <Kpi label="Rent dissipation (spend / prize)" testId={`${testPrefix}-dissipation`}>
+        <Kpi label="Share of the prize spent" testId={`${testPrefix}-dissipation`}>
           {eq && efforts ? formatPercent(eq.dissipation) : "\u2013"}
         </Kpi>
-        <Kpi label="Measured Nash gap" testId={`${testPrefix}-gap`}>
+        <Kpi label="Check: largest regret (should be 0)" testId={`${testPrefix}-gap`}>
           {eq && efforts ? formatMoney(eq.nashGap, currency) : "\u2013"}
         </Kpi>
       </div>

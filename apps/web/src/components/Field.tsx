@@ -15,6 +15,7 @@ interface TextFieldProps {
   /** hide the visible label (tables); the input keeps it as its accessible name */
   compact?: boolean;
   width?: string;
+  disabled?: boolean;
 }
 
 /**
@@ -43,6 +44,7 @@ export function TextField(props: TextFieldProps) {
         aria-invalid={props.error ? true : undefined}
         aria-describedby={props.error ? errId : undefined}
         data-testid={props.testId}
+        disabled={props.disabled}
         onChange={(e) => props.onChange(e.target.value)}
       />
       <span className="field-error" id={errId} role={props.error ? "alert" : undefined}>
@@ -60,6 +62,7 @@ interface SelectFieldProps<T extends string> {
   error?: string | undefined;
   compact?: boolean;
   testId?: string;
+  disabled?: boolean;
 }
 
 export function SelectField<T extends string>(props: SelectFieldProps<T>) {
@@ -75,6 +78,7 @@ export function SelectField<T extends string>(props: SelectFieldProps<T>) {
         aria-invalid={props.error ? true : undefined}
         aria-describedby={props.error ? errId : undefined}
         data-testid={props.testId}
+        disabled={props.disabled}
         onChange={(e) => props.onChange(e.target.value as T)}
       >
         {props.options.map((o) => (

@@ -11,6 +11,7 @@ import {
   XAxis,
   YAxis,
 } from "recharts";
+import { wholeNumberTicks } from "../lib/chart-data";
 import type { Row } from "../lib/chart-data";
 
 export interface Series {
@@ -47,6 +48,8 @@ export function LineSeriesChart({
   height?: number;
 }) {
   const axis = dark ? "#c9d4e0" : "#4a5565";
+  // Rounds (every x a whole number) get one tick per round, never "1, 2, 2, 3".
+  const ticks = wholeNumberTicks(rows, xKey);
   const grid = dark ? "#2a3848" : "#e3e7ec";
   return (
     <div
@@ -54,7 +57,9 @@ export function LineSeriesChart({
       style={{ height }}
       data-testid={testId}
       role="img"
-      aria-label={`${yLabel} against ${xLabel}`}
+      aria-label={`Chart: ${yLabel} against ${xLabel}, one line each for ${series
+        .map((s) => s.name)
+        .join(", ")}.`}
     >
       <ResponsiveContainer width="100%" height="100%">
         <LineChart data={rows as Row[]} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
@@ -63,6 +68,9 @@ export function LineSeriesChart({
             dataKey={xKey}
             type="number"
             domain={["dataMin", "dataMax"]}
+            ticks={ticks ?? undefined}
+            allowDecimals={ticks === null}
+            interval={ticks === null ? undefined : 0}
             tickFormatter={formatX}
             stroke={axis}
             label={{ value: xLabel, position: "insideBottom", offset: -12, fill: axis }}

@@ -2,8 +2,7 @@
 
 import { useDeferredValue, useMemo, useRef, useState } from "react";
 import { useSearchParams } from "next/navigation";
-import type { CreateSessionResponse } from "@contend/protocol";
-import { createSession } from "../lib/api";
+import { downloadFileName } from "@contend/protocol";
 import {
   bindField,
   defaultForm,
@@ -14,9 +13,12 @@ import {
   scenarioToForm,
 } from "../lib/editor-form";
 import type { EditorForm } from "../lib/editor-form";
+import { plainErrors } from "../lib/plain-errors";
 import { templateById } from "../lib/templates";
 import { solveForView } from "../lib/solve-view";
 import { decodeState, encodeState } from "../lib/url-state";
+import { useCreateSession } from "../hooks/useCreateSession";
+import { AboutTheMaths } from "./AboutTheMaths";
 import { CreatedSession } from "./CreatedSession";
 import { ProvenanceNote } from "./ProvenanceNote";
 import { SolvedEquilibrium } from "./EquilibriumTable";
@@ -43,16 +45,6 @@ function download(filename: string, text: string) {
   URL.revokeObjectURL(url);
 }
 
-function slug(title: string): string {
-  return (
-    title
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, "-")
-      .replace(/^-|-$/g, "")
-      .slice(0, 60) || "scenario"
-  );
-}
-
 export function ScenarioEditor() {
   const params = useSearchParams();
   const [form, setForm] = useState<EditorForm>(() => {
@@ -66,17 +58,17 @@ export function ScenarioEditor() {
     return t ? scenarioToForm(t.scenario) : defaultForm();
   });
   const [importText, setImportText] = useState("");
-  const [importMsg, setImportMsg] = useState<{ ok: boolean; text: string } | null>(null);
-  const [submitting, setSubmitting] = useState(false);
-  const [serverError, setServerError] = useState<string | null>(null);
-  const [created, setCreated] = useState<{ res: CreateSessionResponse; title: string } | null>(
-    null,
-  );
+  const [importMsg, setImportMsg] = useState<{
+    ok: boolean;
+    text: string;
+    problems?: string[];
+  } | null>(null);
+  const { create, busy: submitting, created, error: serverError } = useCreateSession();
   const [showErrors, setShowErrors] = useState(false);
   const fileRef = useRef<HTMLInputElement>(null);
 
   const result = useMemo(() => formToScenario(form), [form]);
-  const errors = result.errors;
+  const errors = useMemo(() => plainErrors(result.errors), [result.errors]);
   const deferredForm = useDeferredValue(form);
   const preview = useMemo(() => {
     const r = formToScenario(deferredForm);
@@ -92,7 +84,7 @@ export function ScenarioEditor() {
       setForm(r.form);
       setImportMsg({ ok: true, text: "Scenario imported." });
     } else {
-      setImportMsg({ ok: false, text: `Import failed: ${r.message}` });
+      setImportMsg({ ok: false, text: "Nothing was imported.", problems: r.problems });
     }
   }
 
@@ -106,14 +98,11 @@ export function ScenarioEditor() {
   async function submit(e: React.FormEvent) {
     e.preventDefault();
     setShowErrors(true);
-    setServerError(null);
-    if (!result.ok) return;
-    setSubmitting(true);
-    const r = await createSession(result.scenario);
-    setSubmitting(false);
-    if (r.ok) setCreated({ res: r.data, title: result.scenario.title });
-    else setServerError(`${r.path ? `${r.path}: ` : ""}${r.message}`);
+    if (!result.ok || alreadyCreated) return;
+    await create(result.scenario, form);
   }
+  /** this very form has made its session; an edit allows another */
+  const alreadyCreated = created !== null && created.from === form;
 
   const shown = (path: string) => (showErrors || path !== "scenario" ? errors[path] : undefined);
   const errorCount = Object.keys(errors).length;
@@ -197,7 +186,7 @@ export function ScenarioEditor() {
                 type="button"
                 onClick={() =>
                   download(
-                    `${slug(form.title)}.session.json`,
+                    downloadFileName(form.title || "scenario", "session.json"),
                     JSON.stringify(
                       result.ok ? result.scenario : { ...formToContestRaw(form) },
                       null,
@@ -213,7 +202,7 @@ export function ScenarioEditor() {
                 type="button"
                 onClick={() =>
                   download(
-                    `${slug(form.title)}.json`,
+                    downloadFileName(form.title || "scenario", "json"),
                     JSON.stringify(formToContestRaw(form), null, 2),
                   )
                 }
@@ -248,16 +237,30 @@ export function ScenarioEditor() {
                 {importMsg?.text ?? ""}
               </span>
             </div>
+            {importMsg?.problems && importMsg.problems.length > 0 && (
+              <ul className="field-error small" data-testid="import-problems">
+                {importMsg.problems.map((p) => (
+                  <li key={p}>{p}</li>
+                ))}
+              </ul>
+            )}
           </fieldset>
 
           <div className="row">
             <button
               type="submit"
               className="primary"
-              disabled={submitting}
+              disabled={submitting || alreadyCreated}
+              aria-describedby={alreadyCreated ? "created-title" : undefined}
               data-testid="create-session"
             >
-              {submitting ? "Creating…" : "Create session"}
+              {submitting
+                ? "Creating…"
+                : alreadyCreated
+                  ? "Session created"
+                  : created
+                    ? "Create another session"
+                    : "Create session"}
             </button>
             <span className="small muted" data-testid="error-count" aria-live="polite">
               {errorCount === 0
@@ -304,7 +307,10 @@ export function ScenarioEditor() {
           </div>
         </aside>
       </div>
-      {created && <CreatedSession created={created.res} title={created.title} />}
+      <AboutTheMaths method={preview?.ok ? preview.result.equilibrium.method : null} />
+      {created && (
+        <CreatedSession key={created.res.id} created={created.res} title={created.title} />
+      )}
     </form>
   );
 }

@@ -1,29 +1,17 @@
 "use client";
 
 import Link from "next/link";
-import { useState } from "react";
-import type { CreateSessionResponse } from "@contend/protocol";
-import { createSession } from "../lib/api";
+import { useCreateSession } from "../hooks/useCreateSession";
 import { encodeState } from "../lib/url-state";
 import { TEMPLATES } from "../lib/templates";
 import { CreatedSession } from "./CreatedSession";
 
 export function TemplatePicker() {
-  const [busy, setBusy] = useState<string | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const [created, setCreated] = useState<{ res: CreateSessionResponse; title: string } | null>(
-    null,
-  );
+  const { create, pending, busy, created, error } = useCreateSession();
 
-  async function start(id: string) {
+  function start(id: string) {
     const t = TEMPLATES.find((x) => x.id === id);
-    if (!t) return;
-    setBusy(id);
-    setError(null);
-    const r = await createSession(t.scenario);
-    setBusy(null);
-    if (r.ok) setCreated({ res: r.data, title: t.scenario.title });
-    else setError(`Could not create the session: ${r.message}`);
+    if (t) void create(t.scenario, id);
   }
 
   return (
@@ -42,10 +30,14 @@ export function TemplatePicker() {
                 type="button"
                 className="primary"
                 onClick={() => start(t.id)}
-                disabled={busy !== null}
+                disabled={busy || created?.from === t.id}
                 data-testid={`start-template-${t.id}`}
               >
-                {busy === t.id ? "Creating…" : "Start session"}
+                {pending === t.id
+                  ? "Creating…"
+                  : created?.from === t.id
+                    ? "Session created"
+                    : "Start session"}
               </button>
               <Link className="button" href={`/new?template=${t.id}`}>
                 Edit first
@@ -62,7 +54,9 @@ export function TemplatePicker() {
       </div>
       <div aria-live="polite">
         {error && <p className="notice error">{error}</p>}
-        {created && <CreatedSession created={created.res} title={created.title} />}
+        {created && (
+          <CreatedSession key={created.res.id} created={created.res} title={created.title} />
+        )}
       </div>
     </>
   );

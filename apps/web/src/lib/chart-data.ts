@@ -106,3 +106,36 @@ export function perSeatOverRounds(
     return row;
   });
 }
+
+/** At most this many ticks on a whole-number axis (a phone's narrow chart still reads). */
+export const MAX_WHOLE_TICKS = 10;
+
+/**
+ * Ticks for an x axis whose values are all whole numbers (rounds): each whole number from the
+ * smallest to the largest, thinned to every 2nd, 5th, 10th... when there are more than
+ * `maxTicks`, so no tick repeats a label ("1, 2, 2, 3") or sits between two rounds. Null when
+ * some x is not a whole number (the axis then picks its own ticks).
+ */
+export function wholeNumberTicks(
+  rows: readonly Row[],
+  key: string,
+  maxTicks = MAX_WHOLE_TICKS,
+): number[] | null {
+  const xs = rows.map((r) => r[key]).filter((v): v is number => typeof v === "number");
+  if (xs.length === 0 || !xs.every(Number.isInteger)) return null;
+  const lo = Math.min(...xs);
+  const hi = Math.max(...xs);
+  const span = hi - lo;
+  const steps = [1, 2, 5];
+  let step = 1;
+  for (let scale = 1; ; scale *= 10) {
+    const fit = steps.map((s) => s * scale).find((s) => Math.floor(span / s) + 1 <= maxTicks);
+    if (fit !== undefined) {
+      step = fit;
+      break;
+    }
+  }
+  const ticks: number[] = [];
+  for (let t = lo; t <= hi; t += step) ticks.push(t);
+  return ticks;
+}

@@ -4,6 +4,7 @@
  * schemas; this module only collects all of their messages instead of the first one, so each
  * field can show its own.
  */
+import { plainError } from "./plain-errors";
 import { POLICY_LABELS, validateScenario } from "@contend/solver";
 import type { CsfSpec, PolicyKind, Provenance, RivalSpec, Scenario } from "@contend/solver";
 import { sessionScenarioSchema, sessionSettingsSchema, spendStepOf } from "@contend/protocol";
@@ -352,12 +353,13 @@ export function scenarioToForm(s: SessionScenarioInput): EditorForm {
 /** Parses an imported JSON text (CLI scenario file, with or without `session`). */
 export function parseScenarioText(
   text: string,
-): { ok: true; form: EditorForm } | { ok: false; message: string } {
+): { ok: true; form: EditorForm } | { ok: false; message: string; problems: string[] } {
   let raw: unknown;
   try {
     raw = JSON.parse(text);
   } catch (e) {
-    return { ok: false, message: `not valid JSON: ${(e as Error).message}` };
+    const message = `This is not valid JSON (${(e as Error).message}).`;
+    return { ok: false, message, problems: [message] };
   }
   return parseScenarioValue(raw);
 }
@@ -367,18 +369,28 @@ export function parseScenarioValue(
   raw: unknown,
 ): { ok: true; form: EditorForm } | { ok: false; message: string } {
   if (typeof raw !== "object" || raw === null || Array.isArray(raw)) {
-    return { ok: false, message: "the file must hold one JSON object" };
+    const message = "The file must hold one JSON object, { ... }.";
+    return { ok: false, message, problems: [message] };
   }
   const { session, ...contestPart } = raw as Record<string, unknown>;
-  const contest = validateScenario(contestPart);
-  if (!contest.ok)
-    return { ok: false, message: `${contest.path || "scenario"}: ${contest.message}` };
+  // Every problem at once: the contest's fields one by one, then the session settings.
+  const errors = contestErrors(contestPart);
   const settings = sessionSettingsSchema.safeParse(session ?? {});
   if (!settings.success) {
-    const issue = settings.error.issues[0];
+    for (const issue of settings.error.issues) {
+      errors[`session.${zodPath(issue.path)}`] ??= issue.message;
+    }
+  }
+  const contest = validateScenario(contestPart);
+  if (Object.keys(errors).length > 0 || !contest.ok || !settings.success) {
+    const problems = Object.entries(errors).map(([path, message]) => plainError(path, message));
+    if (problems.length === 0 && !contest.ok)
+      problems.push(plainError(contest.path, contest.message));
+    const n = problems.length;
     return {
       ok: false,
-      message: `session.${zodPath(issue?.path ?? [])}: ${issue?.message ?? "invalid"}`,
+      message: `The scenario has ${n} problem${n === 1 ? "" : "s"}: ${problems.join(" ")}`,
+      problems,
     };
   }
   return { ok: true, form: scenarioToForm({ ...contest.value, session: settings.data }) };

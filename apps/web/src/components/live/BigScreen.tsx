@@ -3,15 +3,18 @@
 import { useMemo } from "react";
 import type { Credentials, RoleView } from "@contend/protocol";
 import { useSession } from "../../hooks/useSession";
-import { formatMoney, formatPercent } from "../../lib/format";
-import { seatNames, STATUS_TEXT } from "../../lib/live";
+import { formatMoney } from "../../lib/format";
+import { headline } from "../../lib/room-state";
 import { ConnectionBanner } from "./ConnectionBanner";
+import { LiveAnnouncer } from "./LiveAnnouncer";
 import { ShockBanner } from "./ShockBanner";
-import { RoomHistory } from "./History";
 import { RoundClock } from "./RoundClock";
-import { RoundResults } from "./RoundResults";
-import { FigureTable, numCol, textCol } from "../FigureTable";
+import { FinalSummary, RevealPanel, SeatTiles, StandingsPanel } from "../screen/ScreenPanels";
 
+/**
+ * The room's shared screen (projector or TV): no site chrome, one viewport with no scrolling at
+ * 1366x768 and up, type sized from the viewport height so it reads from the back of the room.
+ */
 export function BigScreen({
   sessionId,
   spectatorKey,
@@ -26,113 +29,65 @@ export function BigScreen({
   const { connection, view, clockOffsetMs } = useSession(credentials);
   return (
     <div className="big-screen" data-testid="big-screen">
-      {spectatorKey ? (
-        <ConnectionBanner connection={connection} dark />
-      ) : (
-        <p className="notice error">This big-screen link has no key.</p>
-      )}
       {view ? (
         <ScreenBody view={view} clockOffsetMs={clockOffsetMs} />
       ) : (
-        <p className="muted" style={{ minHeight: "60vh" }}>
-          {connection.status === "failed" ? "This link does not open the session." : "Loading…"}
-        </p>
+        <div className="screen-empty">
+          {spectatorKey
+            ? connection.status === "failed"
+              ? "This big-screen link does not open the session."
+              : "Connecting to the session…"
+            : "This big-screen link has no key."}
+        </div>
       )}
+      <footer className="screen-foot">
+        <ConnectionBanner connection={connection} dark />
+        <span>A model to aid discussion, not advice. Never share plans with real competitors.</span>
+      </footer>
     </div>
   );
 }
 
 function ScreenBody({ view, clockOffsetMs }: { view: RoleView; clockOffsetMs: number }) {
-  const names = seatNames(view);
   const currency = view.scenario.currency ?? null;
+  const head = headline(view);
   const last = view.rounds[view.rounds.length - 1];
-  const standings = view.seats
-    .map((s) => ({
-      index: s.index,
-      name: s.name,
-      total: view.totals[s.index] ?? 0,
-      active: s.active,
-    }))
-    .sort((a, b) => b.total - a.total);
   return (
     <>
-      <div className="panel">
-        <div className="row" style={{ justifyContent: "space-between", alignItems: "flex-end" }}>
-          <div>
-            <h1 style={{ marginBottom: "0.2rem" }}>{view.title}</h1>
-            <p className="muted" style={{ margin: 0 }} data-testid="screen-status">
-              {STATUS_TEXT[view.status]}
-              {view.paused ? " · paused" : ""} · prize {formatMoney(view.scenario.prize, currency)}
-            </p>
-          </div>
+      <LiveAnnouncer view={view} />
+      <header className="screen-head">
+        <div className="screen-title">
+          <h1>{view.title}</h1>
+          <p>Prize {formatMoney(view.scenario.prize, currency)}</p>
+        </div>
+        <div className={`screen-state ${head.tone}`} data-testid="screen-status">
+          <h2 data-testid="screen-headline">{head.title}</h2>
+          <span data-testid="screen-detail">{head.detail}</span>
+        </div>
+        {view.status === "open" ? (
           <RoundClock view={view} clockOffsetMs={clockOffsetMs} big />
-        </div>
-      </div>
+        ) : (
+          <span />
+        )}
+      </header>
       <ShockBanner view={view} large />
-      <div className="panel" style={{ minHeight: "8rem" }}>
-        <h2>{view.status === "open" ? `Round ${view.round}: who has sealed` : "Seats"}</h2>
-        <div className="row" data-testid="screen-seats">
-          {view.seats
-            .filter((s) => s.active)
-            .map((s) => (
-              <span
-                key={s.index}
-                className={view.status === "open" && s.sealed ? "badge accent" : "badge"}
-                data-testid={`screen-seat-${s.index}`}
-                data-sealed={s.sealed ? "yes" : "no"}
-                style={{ fontSize: "1.2rem", padding: "0.3rem 0.9rem" }}
-              >
-                {s.name}
-                {view.status === "open" ? (s.sealed ? " · sealed" : " · thinking") : ""}
-              </span>
-            ))}
-        </div>
+      <div className="screen-main">
+        {view.status === "ended" ? (
+          <>
+            <StandingsPanel view={view} final />
+            <FinalSummary view={view} />
+          </>
+        ) : (
+          <>
+            {view.status === "open" || !last ? (
+              <SeatTiles view={view} />
+            ) : (
+              <RevealPanel round={last} view={view} />
+            )}
+            <StandingsPanel view={view} />
+          </>
+        )}
       </div>
-      {last && view.status !== "open" ? (
-        <div className="panel">
-          <h2>Round {last.round} revealed</h2>
-          <p className="muted" style={{ margin: 0 }}>
-            Dissipation {formatPercent(last.dissipation)} of the prize (equilibrium{" "}
-            {formatPercent(last.equilibrium.dissipation)})
-          </p>
-          <RoundResults
-            round={last}
-            names={names}
-            currency={currency}
-            dark
-            testPrefix="screen-round"
-          />
-        </div>
-      ) : null}
-      <div className="panel">
-        <h2>Running totals</h2>
-        <FigureTable
-          head={[textCol("Rival"), numCol("Total payoff")]}
-          wrap={null}
-          testId="screen-totals"
-        >
-          {standings.map((s) => (
-            <tr key={s.index}>
-              <td>
-                {s.name}
-                {s.active ? "" : " (retired)"}
-              </td>
-              <td className="num">{formatMoney(s.total, currency)}</td>
-            </tr>
-          ))}
-        </FigureTable>
-      </div>
-      {view.rounds.length > 1 && (
-        <div className="panel">
-          <RoomHistory
-            rounds={view.rounds}
-            names={names}
-            currency={currency}
-            dark
-            testPrefix="screen-history"
-          />
-        </div>
-      )}
     </>
   );
 }

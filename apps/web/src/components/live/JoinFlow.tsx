@@ -68,12 +68,21 @@ export function JoinFlow() {
         </div>
       </form>
       {submitted && <ConnectionBanner connection={connection} />}
+      {submitted && connection.status === "failed" && (
+        <p className="notice error" role="alert" data-testid="join-error">
+          {/join code/i.test(connection.message ?? "")
+            ? `No session has the code ${submitted.toUpperCase()}. Check it with the facilitator: six letters and digits.`
+            : `This code does not open a session: ${connection.message ?? "the server refused it"}.`}
+        </p>
+      )}
       {view && (
         <form className="card" onSubmit={claim} aria-labelledby="pick-title">
           <h2 id="pick-title">{view.title}</h2>
           {free.length === 0 ? (
-            <p data-testid="join-no-seats">
-              Every seat is taken. Ask the facilitator for a seat link.
+            <p data-testid="join-no-seats" data-reason={view.status === "ended" ? "ended" : "full"}>
+              {view.status === "ended"
+                ? "This session has ended, so no seat can be taken any more. Ask the facilitator for the replay."
+                : "Every seat is taken. Ask the facilitator for a seat link."}
             </p>
           ) : (
             <>

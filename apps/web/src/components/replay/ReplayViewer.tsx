@@ -11,6 +11,7 @@ import { RoomHistory } from "../live/History";
 import { RoundResults } from "../live/RoundResults";
 import { FigureTable, numCol, textCol } from "../FigureTable";
 import { ProvenanceNote } from "../ProvenanceNote";
+import { AboutTheMaths } from "../AboutTheMaths";
 
 export function ReplayViewer({ sessionId, accessKey }: { sessionId: string; accessKey: string }) {
   const [data, setData] = useState<SessionExport | null>(null);
@@ -100,8 +101,9 @@ function ReplayBody({
             onClick={() => setStep(1)}
             disabled={step <= 1}
             aria-label="First event"
+            data-testid="replay-first"
           >
-            ⏮
+            <StepIcon to="first" />
           </button>
           <button
             type="button"
@@ -134,8 +136,9 @@ function ReplayBody({
             onClick={() => setStep(events.length)}
             disabled={step >= events.length}
             aria-label="Last event"
+            data-testid="replay-last"
           >
-            ⏭
+            <StepIcon to="last" />
           </button>
         </div>
         <p data-testid="replay-position" style={{ minHeight: "1.5em" }}>
@@ -230,9 +233,9 @@ function ReplayBody({
                 numCol("Total spend"),
                 numCol("Dissipation"),
                 numCol("At equilibrium"),
-                numCol("Nash gap"),
+                numCol("Largest regret"),
               ]}
-              caption="Rounds: dissipation played against equilibrium, and the largest regret"
+              caption="Rounds: share of the prize spent, played and at equilibrium, and the largest regret"
               testId="debrief-rounds"
             >
               {data.rounds.map((r) => (
@@ -281,6 +284,7 @@ function ReplayBody({
             </div>
           </>
         )}
+        <AboutTheMaths />
         <div className="caution" style={{ marginTop: "1rem" }}>
           <strong>Cautions</strong>
           <ul>
@@ -291,5 +295,22 @@ function ReplayBody({
         </div>
       </section>
     </div>
+  );
+}
+
+/** "Go to the first / last event" as a drawn icon (a bar and a triangle), not a font glyph. */
+function StepIcon({ to }: { to: "first" | "last" }) {
+  return (
+    <svg
+      viewBox="0 0 16 16"
+      width="1em"
+      height="1em"
+      aria-hidden="true"
+      focusable="false"
+      style={{ verticalAlign: "-0.125em", transform: to === "last" ? "scaleX(-1)" : undefined }}
+    >
+      <rect x="2" y="2.5" width="2" height="11" fill="currentColor" />
+      <path d="M14 2.5v11L5.5 8z" fill="currentColor" />
+    </svg>
   );
 }

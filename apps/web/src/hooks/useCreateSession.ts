@@ -1,0 +1,50 @@
+"use client";
+
+import { useCallback, useRef, useState } from "react";
+import type { CreateSessionResponse } from "@contend/protocol";
+import { createSession } from "../lib/api";
+import type { SessionScenarioInput } from "../lib/session-types";
+
+export interface CreatedRecord {
+  res: CreateSessionResponse;
+  title: string;
+  /** what the caller says this session was made from (a template id, a form state) */
+  from: unknown;
+}
+
+/**
+ * One click = one session: a second call while the first is in flight is ignored (a ref, so
+ * even two clicks inside one frame count once), and the caller disables its button while
+ * `pending` and for as long as `created.from` is what it would send again.
+ */
+export function useCreateSession() {
+  const inFlight = useRef(false);
+  const [pending, setPending] = useState<unknown>(null);
+  const [created, setCreated] = useState<CreatedRecord | null>(null);
+  const [error, setError] = useState<string | null>(null);
+
+  const create = useCallback(
+    async (scenario: SessionScenarioInput, from: unknown): Promise<boolean> => {
+      if (inFlight.current) return false;
+      inFlight.current = true;
+      setPending(from);
+      setError(null);
+      const r = await createSession(scenario);
+      inFlight.current = false;
+      setPending(null);
+      if (r.ok) {
+        setCreated({ res: r.data, title: scenario.title, from });
+        return true;
+      }
+      setError(
+        r.code === "network"
+          ? `The session was not created: ${r.message}.`
+          : `The session was not created: ${r.path ? `${r.path}: ` : ""}${r.message}`,
+      );
+      return false;
+    },
+    [],
+  );
+
+  return { create, pending, created, error, busy: pending !== null };
+}

@@ -1,0 +1,159 @@
+/// <reference lib="dom" />
+/// <reference lib="dom.iterable" />
+/**
+ * Helpers for the room-readiness journeys: a session played over the socket protocol, the
+ * three screen sizes, the no-scroll check, the accessibility scan and the print geometry.
+ */
+import AxeBuilder from "@axe-core/playwright";
+import type { Page } from "@playwright/test";
+import { expect } from "@playwright/test";
+import { createSession, exportJson } from "./api";
+import type { CreatedSession } from "./api";
+import { connectAs } from "./client";
+import type { Participant } from "./client";
+
+export const SIZES = {
+  laptop: { width: 1366, height: 768 },
+  projector: { width: 1920, height: 1080 },
+  phone: { width: 390, height: 844 },
+} as const;
+
+export const ROOM_NAMES = ["Quarry Road Print", "Inkwell Press", "Foxglove Copy Shop"];
+
+/** Three invented print shops; the third is a computer seat playing the equilibrium. */
+export function roomScenario(rounds = 3) {
+  return {
+    title: "Library reprint order: three print shops",
+    prize: 100,
+    currency: "$",
+    csf: { kind: "ratio", decisiveness: 1 },
+    rivals: [
+      { name: ROOM_NAMES[0], cost: 1 },
+      { name: ROOM_NAMES[1], cost: 1.5 },
+      { name: ROOM_NAMES[2], cost: 1.2 },
+    ],
+    leader: null,
+    session: {
+      outcome: "shares",
+      effortStep: 0.01,
+      rounds,
+      clockSeconds: 90,
+      missingMove: "zero",
+      computer: { [ROOM_NAMES[2]!]: { kind: "equilibrium" } },
+    },
+  };
+}
+
+export interface PlayedRoom {
+  created: CreatedSession;
+  facilitator: Participant;
+  seats: Participant[];
+  /** plays one round: opens it, seals both people's efforts, waits for the reveal */
+  playRound(round: number, efforts: readonly [number, number]): Promise<void>;
+  close(): void;
+}
+
+export async function startRoom(origin: string, rounds = 3): Promise<PlayedRoom> {
+  const created = await createSession(origin, roomScenario(rounds));
+  const facilitator = await connectAs(origin, {
+    role: "facilitator",
+    sessionId: created.id,
+    key: created.facilitatorKey,
+  });
+  const seats = await Promise.all(
+    [0, 1].map((i) =>
+      connectAs(origin, { role: "seat", sessionId: created.id, key: created.seats[i]!.key! }),
+    ),
+  );
+  return {
+    created,
+    facilitator,
+    seats,
+    async playRound(round, efforts) {
+      await facilitator.command({ type: "openRound" });
+      for (const [i, seat] of seats.entries()) {
+        await seat.command({
+          type: "sealMove",
+          clientMoveId: `r${round}-s${i}`,
+          effort: efforts[i],
+        });
+      }
+      await expect
+        .poll(
+          async () =>
+            ((await exportJson(origin, created.id)) as { rounds: unknown[] }).rounds.length,
+        )
+        .toBe(round);
+    },
+    close() {
+      facilitator.close();
+      for (const s of seats) s.close();
+    },
+  };
+}
+
+/** Path and query of a link the server gave (links may name another host). */
+export function pathOf(link: string): string {
+  const u = new URL(link, "http://placeholder");
+  return `${u.pathname}${u.search}${u.hash}`;
+}
+
+/** The page needs no scrolling in either direction at its current viewport. */
+export async function expectNoScroll(page: Page, what: string): Promise<void> {
+  const size = await page.evaluate(() => {
+    const el = document.scrollingElement ?? document.documentElement;
+    return {
+      scrollW: el.scrollWidth,
+      scrollH: el.scrollHeight,
+      w: window.innerWidth,
+      h: window.innerHeight,
+    };
+  });
+  expect(size.scrollH, `${what}: page height against the viewport`).toBeLessThanOrEqual(size.h);
+  expect(size.scrollW, `${what}: page width against the viewport`).toBeLessThanOrEqual(size.w);
+}
+
+/** Every element of the big screen that holds text ends inside the viewport (nothing cut off below). */
+export async function expectAllInside(page: Page, selector: string, what: string): Promise<void> {
+  const outside = await page.evaluate((sel) => {
+    const root = document.querySelector(sel);
+    if (!root) return ["(no root)"];
+    const bad: string[] = [];
+    for (const el of root.querySelectorAll("h1, h2, th, td, li, p, span")) {
+      const r = el.getBoundingClientRect();
+      if (r.width === 0 || r.height === 0) continue;
+      if (r.bottom > window.innerHeight + 0.5 || r.right > window.innerWidth + 0.5) {
+        bad.push(
+          `${el.tagName} "${(el.textContent ?? "").slice(0, 30)}" ends at ${Math.round(r.right)}x${Math.round(r.bottom)}`,
+        );
+      }
+    }
+    return bad;
+  }, selector);
+  expect(outside, `${what}: elements outside the viewport`).toEqual([]);
+}
+
+/** axe-core (WCAG 2.x A and AA rules) finds no serious or critical violation. */
+export async function expectAccessible(page: Page, what: string): Promise<void> {
+  const result = await new AxeBuilder({ page })
+    .withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"])
+    .analyze();
+  const bad = result.violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map(
+      (v) =>
+        `${v.id} (${v.impact}): ${v.help} at ${v.nodes
+          .map((n) => n.target.join(" "))
+          .slice(0, 3)
+          .join(" | ")}`,
+    );
+  expect(bad, `${what}: serious or critical accessibility violations`).toEqual([]);
+}
+
+/** Text of the tick labels of a chart's x axis. */
+export async function xTicks(page: Page, chartTestId: string): Promise<string[]> {
+  return page
+    .getByTestId(chartTestId)
+    .locator(".recharts-xAxis-tick-labels .recharts-cartesian-axis-tick-value")
+    .allTextContents();
+}
