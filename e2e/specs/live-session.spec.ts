@@ -205,8 +205,12 @@ test("live session(3 people + 1 computer, 3 rounds, shock before round 3) shows 
         seats[i]!.page.getByRole("heading", { name: `Round ${round} result` }),
       ).toBeVisible();
     }
+    // The last reveal ends the session: the big screen then leads with the final standings.
     await expect(
-      screenPage.getByRole("heading", { name: `Round ${round} revealed` }),
+      screenPage.getByRole("heading", {
+        name: round < PLAYED.length ? `Round ${round} revealed` : "Final standings",
+        exact: true,
+      }),
     ).toBeVisible();
 
     const exported = (await exportJson(origin, sessionId)) as {
@@ -246,9 +250,11 @@ test("live session(3 people + 1 computer, 3 rounds, shock before round 3) shows 
         `${label} after reveal`,
       );
     }
+    // The big screen speaks money: each person's spend, cost x effort, to the cent shown.
+    const cost = (j: number) => scenarioFor(round).rivals[j]!.cost;
     await expectShownAll(
       screenPage,
-      HUMANS.map((j) => played[j]!),
+      HUMANS.map((j) => Number((played[j]! * cost(j) + 1e-9).toFixed(2))),
       `big screen round ${round}`,
     );
     if (round === 1) {

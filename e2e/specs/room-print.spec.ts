@@ -100,6 +100,7 @@ test("debrief prints on A4 and Letter with every chart inside the paper and none
         ).toBe(false);
       }
     }
+    await saveScreen(page, `debrief-print-${paper.format}`);
     const pdf = await page.pdf({
       format: paper.format,
       margin: { top: "15mm", bottom: "15mm", left: "15mm", right: "15mm" },

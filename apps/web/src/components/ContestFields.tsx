@@ -130,7 +130,7 @@ export function RivalsTable({
         blank for 1, budget (the most the rival may spend, in money: cost x effort) blank for no cap
         {ratio ? ", own r blank for the form's r" : ""}.
       </p>
-      <div className="table-wrap">
+      <div className="table-wrap" tabIndex={0} role="region" aria-label="Rivals">
         <table className="editor-table" data-testid="rivals-table">
           <thead>
             <tr>

@@ -34,7 +34,13 @@ export function DataTable({
   maxHeight?: number;
 }) {
   return (
-    <div className="table-wrap data-table-box" style={{ maxHeight, overflow: "auto" }}>
+    <div
+      className="table-wrap data-table-box"
+      style={{ maxHeight, overflow: "auto" }}
+      tabIndex={0}
+      role="region"
+      aria-label={caption}
+    >
       <table data-testid={testId}>
         <caption className="small muted" style={{ textAlign: "left" }}>
           {caption}

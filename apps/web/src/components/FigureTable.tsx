@@ -58,7 +58,14 @@ export function FigureTable({
   );
   if (wrap === null) return table;
   return (
-    <div className={wrap} style={wrapStyle}>
+    // Focusable, so a keyboard can scroll a table wider than a phone (WCAG 2.1.1).
+    <div
+      className={wrap}
+      style={wrapStyle}
+      tabIndex={0}
+      role="region"
+      aria-label={typeof caption === "string" ? caption : "Table"}
+    >
       {table}
     </div>
   );

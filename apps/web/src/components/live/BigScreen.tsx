@@ -74,8 +74,11 @@ function ScreenBody({ view, clockOffsetMs }: { view: RoleView; clockOffsetMs: nu
       <div className="screen-main">
         {view.status === "ended" ? (
           <>
-            <StandingsPanel view={view} final />
-            <FinalSummary view={view} />
+            {last ? <RevealPanel round={last} view={view} /> : <SeatTiles view={view} />}
+            <div className="screen-column">
+              <StandingsPanel view={view} final />
+              <FinalSummary view={view} />
+            </div>
           </>
         ) : (
           <>

@@ -181,7 +181,7 @@ export function StandingsPanel({ view, final }: { view: RoleView; final?: boolea
   return (
     <section className={`screen-panel${final ? " final" : ""}`} aria-labelledby="standings-title">
       <h2 id="standings-title" className="screen-panel-title">
-        {final ? "Final standings" : "Running totals"}
+        {final ? "Ranked by total payoff" : "Running totals"}
       </h2>
       <table className="screen-table standings" data-testid="screen-totals">
         <thead>
@@ -244,7 +244,6 @@ export function FinalSummary({ view }: { view: RoleView }) {
             <b>{formatMoney(s.widestGap.gap, currency)}</b> by choosing differently.
           </li>
         ) : null}
-        <li>The replay and printable debrief are on the facilitator&apos;s console.</li>
       </ul>
     </section>
   );
