@@ -250,11 +250,9 @@ test("live session(3 people + 1 computer, 3 rounds, shock before round 3) shows 
         `${label} after reveal`,
       );
     }
-    // The big screen speaks money: each person's spend, cost x effort, to the cent shown.
-    const cost = (j: number) => scenarioFor(round).rivals[j]!.cost;
     await expectShownAll(
       screenPage,
-      HUMANS.map((j) => Number((played[j]! * cost(j) + 1e-9).toFixed(2))),
+      HUMANS.map((j) => played[j]!),
       `big screen round ${round}`,
     );
     if (round === 1) {

@@ -87,7 +87,7 @@ test("big screen and facilitator console through a 3-round session", async ({
     await expect(screen.getByTestId("screen-detail")).toHaveText("1 of 3 sealed");
     await expect(main).toHaveText("Close round 1 and reveal");
     await expect(fac.getByTestId("live-announcement")).toHaveText("Round 1 is open.");
-    await room.seats[0]!.command({ type: "sealMove", clientMoveId: "r1-s0", effort: 12.34 });
+    await room.seats[0]!.command({ type: "sealMove", clientMoveId: "r1-s0", spend: 12.34 });
     await expect(screen.getByTestId("screen-detail")).toHaveText("2 of 3 sealed");
     await bigScreenFits(screen, "big screen, round open");
     await shoot(screen, saveScreen, "big-screen-round-open", ["laptop", "projector"]);
@@ -105,7 +105,7 @@ test("big screen and facilitator console through a 3-round session", async ({
     await shoot(screen, saveScreen, "big-screen-paused", ["laptop"]);
     await main.click();
     await expect(main).toHaveText("Close round 1 and reveal");
-    await room.seats[1]!.command({ type: "sealMove", clientMoveId: "r1-s1", effort: 7.89 });
+    await room.seats[1]!.command({ type: "sealMove", clientMoveId: "r1-s1", spend: 7.89 });
     await expect(screen.getByTestId("screen-headline")).toHaveText("Round 1 revealed");
     await expect(main).toHaveText("Open round 2 of 3");
     await expect(fac.getByTestId("latest-result")).toContainText("round 1");

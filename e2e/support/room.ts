@@ -35,7 +35,7 @@ export function roomScenario(rounds = 3) {
     leader: null,
     session: {
       outcome: "shares",
-      effortStep: 0.01,
+      spendStep: 0.01,
       rounds,
       clockSeconds: 90,
       missingMove: "zero",
@@ -48,8 +48,8 @@ export interface PlayedRoom {
   created: CreatedSession;
   facilitator: Participant;
   seats: Participant[];
-  /** plays one round: opens it, seals both people's efforts, waits for the reveal */
-  playRound(round: number, efforts: readonly [number, number]): Promise<void>;
+  /** plays one round: opens it, seals both people's spends, waits for the reveal */
+  playRound(round: number, spends: readonly [number, number]): Promise<void>;
   close(): void;
 }
 
@@ -69,13 +69,13 @@ export async function startRoom(origin: string, rounds = 3): Promise<PlayedRoom>
     created,
     facilitator,
     seats,
-    async playRound(round, efforts) {
+    async playRound(round, spends) {
       await facilitator.command({ type: "openRound" });
       for (const [i, seat] of seats.entries()) {
         await seat.command({
           type: "sealMove",
           clientMoveId: `r${round}-s${i}`,
-          effort: efforts[i],
+          spend: spends[i],
         });
       }
       await expect

@@ -1,5 +1,8 @@
 import { describe, expect, it } from "vitest";
-import type { RoleView } from "@contend/protocol";
+import { parseSessionScenario } from "@contend/protocol";
+import type { EventBody, RoleView, SessionEvent } from "@contend/protocol";
+import { apply, createSession, decide, fold } from "@contend/session";
+import type { Actor, EngineCommand, SessionState } from "@contend/session";
 import {
   invitesFor,
   issuedLinkOf,

@@ -367,7 +367,7 @@ export function parseScenarioText(
 /** A parsed scenario value (an import, or one handed over in the address) -> form. */
 export function parseScenarioValue(
   raw: unknown,
-): { ok: true; form: EditorForm } | { ok: false; message: string } {
+): { ok: true; form: EditorForm } | { ok: false; message: string; problems: string[] } {
   if (typeof raw !== "object" || raw === null || Array.isArray(raw)) {
     const message = "The file must hold one JSON object, { ... }.";
     return { ok: false, message, problems: [message] };

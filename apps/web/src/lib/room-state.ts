@@ -105,14 +105,6 @@ export function announcement(before: RoleView | null, after: RoleView): string |
   return null;
 }
 
-/** A rival's spend in a resolved round: cost per unit of effort times the effort played. */
-export function spendIn(round: RoundResult, seat: number): number | null {
-  const k = round.seatIndices.indexOf(seat);
-  const cost = k < 0 ? undefined : round.scenario.rivals[k]?.cost;
-  const effort = round.efforts[seat];
-  return cost === undefined || effort === undefined ? null : cost * effort;
-}
-
 export interface Standing {
   seat: number;
   name: string;

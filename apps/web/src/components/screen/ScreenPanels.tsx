@@ -2,10 +2,9 @@
 
 import { Bar, BarChart, CartesianGrid, ResponsiveContainer, XAxis, YAxis } from "recharts";
 import type { RoleView, RoundResult } from "@contend/protocol";
-import { equilibriumEffortOf } from "../../lib/chart-data";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { SCREEN } from "../../lib/palette";
-import { sealProgress, sessionSummary, spendIn, standings } from "../../lib/room-state";
+import { sealProgress, sessionSummary, standings } from "../../lib/room-state";
 
 /** Open round (or lobby): one tile per rival saying whether it has sealed. */
 export function SeatTiles({ view }: { view: RoleView }) {
@@ -73,14 +72,12 @@ function TickIcon() {
 export function RevealPanel({ round, view }: { round: RoundResult; view: RoleView }) {
   const currency = view.scenario.currency ?? null;
   const money = (v: number | null) => (v === null ? "\u2013" : formatMoney(v, currency));
-  const rows = round.seatIndices.map((seat, k) => {
-    const eqEffort = equilibriumEffortOf(round, seat);
-    const cost = round.scenario.rivals[k]?.cost ?? null;
+  const rows = round.seatIndices.map((seat) => {
     return {
       seat,
       name: view.seats[seat]?.name ?? `Seat ${seat + 1}`,
-      spent: spendIn(round, seat),
-      equilibrium: eqEffort === null || cost === null ? null : eqEffort * cost,
+      spent: round.spends[seat] ?? null,
+      equilibrium: round.equilibriumSpends[seat] ?? null,
       share: round.shares[seat] ?? null,
       payoff: round.payoffs[seat] ?? null,
     };
