@@ -99,7 +99,13 @@ export function createRestHandler(deps: RestDeps) {
       ),
     };
     if (format === "json") return sendJson(res, 200, record, disposition);
-    sendText(res, 200, roundsCsv(record.rounds, record.shocks), "text/csv; charset=utf-8", disposition);
+    sendText(
+      res,
+      200,
+      roundsCsv(record.rounds, record.shocks),
+      "text/csv; charset=utf-8",
+      disposition,
+    );
   }
 
   function health(res: ServerResponse) {
