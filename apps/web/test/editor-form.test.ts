@@ -153,7 +153,7 @@ describe("computer policy settings without a field", () => {
     if (r.ok)
       expect(r.scenario.session?.computer?.[imported.rivals[0]!.name]).toEqual({
         kind: "fixed",
-        effort: 3,
+        spend: 3,
       });
   });
 });

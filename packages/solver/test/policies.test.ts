@@ -102,6 +102,8 @@ describe("createPolicy", () => {
     expect(p.decide(ctx(0, history, 5))).toBe(75);
     expect(p.decide(ctx(2))).toBe(50 / 1.6); // rival C's budget of 50 (money) at cost 1.6
     expect(clampEffort(49, 50, 20)).toBe(40); // rounding up would break the budget
+    // money: a fixed spend of 40 at C's cost 1.6 is effort 25 (spend = cost x effort)
+    expect(createPolicy({ kind: "fixed", spend: 40 }, 1).decide(ctx(2))).toBe(25);
     expect(clampEffort(-3, 50)).toBe(0);
     expect(clampEffort(0.1 + 0.2, 50, 0.1)).toBe(0.3);
   });
@@ -209,6 +211,8 @@ describe("validatePolicySpec", () => {
       validatePolicySpec({ kind: "overspender", factor: 1.5, noise: 0.1, decay: 0.95 }).ok,
     ).toBe(true);
     expect(validatePolicySpec({ kind: "fixed", effort: 0 }).ok).toBe(true);
+    expect(validatePolicySpec({ kind: "fixed", spend: 12 }).ok).toBe(true);
+    expect(validatePolicySpec({ kind: "fixed", spend: 1, effort: 1 }).ok).toBe(false);
   });
 
   it("validatePolicySpec(bad specs) names the field", () => {

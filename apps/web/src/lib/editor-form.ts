@@ -30,7 +30,7 @@ export const POLICY_ARGUMENT: Partial<
     label: "multiple of equilibrium",
     placeholder: "factor (default)",
   },
-  fixed: { field: "effort", label: "fixed effort", placeholder: "effort" },
+  fixed: { field: "spend", label: "fixed spend (money)", placeholder: "spend" },
 };
 
 export interface RivalRow {
@@ -162,6 +162,8 @@ function policyOf(row: RivalRow): Record<string, unknown> | null {
   const arg = POLICY_ARGUMENT[row.policy];
   const v = arg === undefined ? undefined : parseNumberField(row.policyArg);
   if (arg !== undefined && v !== undefined) policy[arg.field] = v;
+  // a typed spend replaces the older effort form of an imported fixed policy
+  if (row.policy === "fixed" && v !== undefined) delete policy.effort;
   return policy;
 }
 

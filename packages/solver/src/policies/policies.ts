@@ -8,7 +8,7 @@
  * - overspender: spends a multiple of equilibrium, as laboratory subjects do on average
  *   (Sheremeta 2013, Journal of Economic Surveys 27, volume from memory: overbidding of about
  *   70% on average, heterogeneous, falling with repetition but rarely reaching equilibrium).
- * - fixed: a set effort every round.
+ * - fixed: a set spend (money) every round, i.e. effort spend / cost (older specs: a set effort).
  */
 import { bestResponse } from "../bestResponse";
 import { solve } from "../solve";
@@ -138,8 +138,10 @@ function decideRaw(spec: PolicySpec, seed: number, ctx: PolicyContext): number {
       const jitter = 1 + noise * (2 * rngFor(seed, ctx)() - 1);
       return base * (1 + excess) * jitter;
     }
-    case "fixed":
-      return spec.effort;
+    case "fixed": {
+      const cost = ctx.contest.rivals[ctx.self]?.cost ?? 1;
+      return spec.spend !== undefined ? spec.spend / cost : (spec.effort ?? 0);
+    }
   }
 }
 
@@ -180,7 +182,7 @@ export function validatePolicySpec(input: unknown): Parsed<PolicySpec> {
     "best-reply": ["kind"],
     "fictitious-play": ["kind"],
     overspender: ["kind", "factor", "noise", "decay"],
-    fixed: ["kind", "effort"],
+    fixed: ["kind", "spend", "effort"],
   };
   const kind = o.kind;
   if (typeof kind !== "string" || !(kind in allowed)) {
@@ -196,9 +198,14 @@ export function validatePolicySpec(input: unknown): Parsed<PolicySpec> {
     if (bad) return bad;
   }
   if (kind === "fixed") {
-    const e = o.effort;
+    // money (spend) is the amount; the older specs give effort. Exactly one of them.
+    const field = o.spend !== undefined ? "spend" : "effort";
+    if (o.spend !== undefined && o.effort !== undefined) {
+      return fail("effort", "give spend (money) or the older effort, not both");
+    }
+    const e = o[field];
     if (typeof e !== "number" || !Number.isFinite(e) || e < 0) {
-      return fail("effort", `must be a finite number >= 0 (got ${String(e)})`);
+      return fail(field, `must be a finite number >= 0 (got ${String(e)})`);
     }
   }
   return { ok: true, value: { ...o } as PolicySpec };

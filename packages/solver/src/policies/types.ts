@@ -13,7 +13,8 @@ export type PolicySpec =
       /** per-round multiplier of the excess over equilibrium, in (0, 1]; 1 = no learning */
       decay?: number;
     }
-  | { kind: "fixed"; effort: number };
+  /** a set amount of money every round (`spend`); the older form gives `effort` instead */
+  | { kind: "fixed"; spend?: number; effort?: number };
 
 export type PolicyKind = PolicySpec["kind"];
 

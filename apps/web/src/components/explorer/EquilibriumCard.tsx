@@ -35,9 +35,11 @@ export function EquilibriumCard({
                 <h3>Further equilibria</h3>
                 {ok.result.alternatives.map((alt, k) => (
                   <p key={k} className="small">
-                    {k + 2}. efforts{" "}
-                    {(alt.efforts ?? alt.expectedEfforts ?? []).map(money).join(", ")} · dissipation{" "}
-                    {formatPercent(alt.dissipation)}
+                    {k + 2}. spends{" "}
+                    {(alt.efforts ?? alt.expectedEfforts ?? [])
+                      .map((e, i) => money(e * (ok.contest.rivals[i]?.cost ?? Number.NaN)))
+                      .join(", ")}{" "}
+                    · dissipation {formatPercent(alt.dissipation)}
                   </p>
                 ))}
               </div>
