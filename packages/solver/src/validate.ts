@@ -30,15 +30,15 @@ const CSF_FIELDS: Record<CsfSpec["kind"], readonly string[]> = {
   allpay: ["kind"],
 };
 
-function fail(path: string, message: string): InputError {
+export function fail(path: string, message: string): InputError {
   return { ok: false, path, message };
 }
 
-function isRecord(x: unknown): x is Record<string, unknown> {
+export function isRecord(x: unknown): x is Record<string, unknown> {
   return typeof x === "object" && x !== null && !Array.isArray(x);
 }
 
-function describe(x: unknown): string {
+export function describe(x: unknown): string {
   if (typeof x === "string") return JSON.stringify(x.length > 40 ? `${x.slice(0, 40)}...` : x);
   if (typeof x === "number") return String(x);
   if (x === null) return "null";

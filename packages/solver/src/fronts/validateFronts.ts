@@ -5,7 +5,15 @@
  * value naming the field, e.g. `rivals.1.cost.2` or `rivals.0.sunkBudget`; never throws.
  */
 import type { InputError, Parsed } from "../types";
-import { LIMITS, validateScenario } from "../validate";
+import {
+  LIMITS,
+  POSITIVE,
+  checkNumber,
+  describe,
+  fail,
+  isRecord,
+  validateScenario,
+} from "../validate";
 import type { FrontSpec, FrontsRivalSpec, FrontsScenario, PerFront } from "./types";
 
 /** Most fronts in one scenario. */
@@ -14,22 +22,6 @@ export const FRONTS_MAX = 200;
 const SCENARIO_FIELDS = ["title", "fronts", "rivals", "currency"] as const;
 const FRONT_FIELDS = ["name", "prize", "csf"] as const;
 const RIVAL_FIELDS = ["name", "cost", "value", "weight", "budget", "sunkBudget"] as const;
-
-function fail(path: string, message: string): InputError {
-  return { ok: false, path, message };
-}
-
-function isRecord(x: unknown): x is Record<string, unknown> {
-  return typeof x === "object" && x !== null && !Array.isArray(x);
-}
-
-function describe(x: unknown): string {
-  if (typeof x === "string") return JSON.stringify(x.length > 40 ? `${x.slice(0, 40)}...` : x);
-  if (typeof x === "number" || typeof x === "boolean") return String(x);
-  if (x === null) return "null";
-  if (Array.isArray(x)) return "an array";
-  return typeof x;
-}
 
 function unknownField(obj: Record<string, unknown>, allowed: readonly string[], prefix: string) {
   const extra = Object.keys(obj).filter((k) => !allowed.includes(k));
@@ -55,10 +47,7 @@ function checkName(x: unknown, path: string): InputError | null {
 }
 
 function checkPositive(x: unknown, path: string): InputError | null {
-  if (typeof x !== "number" || !Number.isFinite(x)) {
-    return fail(path, `must be a finite number > 0 (got ${describe(x)})`);
-  }
-  return x > 0 ? null : fail(path, `must be > 0 (got ${x})`);
+  return checkNumber(x, path, POSITIVE);
 }
 
 /** A number for every front or an array of exactly one positive number per front. */
