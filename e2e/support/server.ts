@@ -3,7 +3,7 @@
  * embedded database directory, and can kill and restart it on the same port and data
  * directory so a test can prove that acknowledged events survive a restart.
  */
-import { spawn, type ChildProcess } from "node:child_process";
+import type { ChildProcess } from "node:child_process";
 import {
   createWriteStream,
   mkdirSync,
@@ -12,29 +12,15 @@ import {
   rmSync,
   type WriteStream,
 } from "node:fs";
-import { createServer } from "node:net";
 import os from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import { freePort, spawnServer, waitForHttp } from "@contend/bench/serverProcess";
+
+export { freePort, REPO_ROOT, SERVER_DIR } from "@contend/bench/serverProcess";
 
 const here = path.dirname(fileURLToPath(import.meta.url));
-export const REPO_ROOT = path.resolve(here, "../..");
-export const SERVER_DIR = path.join(REPO_ROOT, "apps/server");
 export const RESULTS_DIR = path.resolve(here, "../test-results");
-
-/** Asks the OS for a port nobody listens on, then releases it for the server to take. */
-export async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const probe = createServer();
-    probe.unref();
-    probe.on("error", reject);
-    probe.listen(0, "127.0.0.1", () => {
-      const address = probe.address();
-      const port = typeof address === "object" && address ? address.port : 0;
-      probe.close(() => resolve(port));
-    });
-  });
-}
 
 export interface ServerOptions {
   /** short label used in the data directory and log file names */
@@ -77,10 +63,8 @@ export class ServerProcess {
     );
     // node --import tsx runs the TypeScript entry in this very process (no tsx wrapper child),
     // so killing the pid kills the server itself.
-    const child = spawn(process.execPath, ["--import", "tsx", "src/main.ts"], {
-      cwd: SERVER_DIR,
+    const child = spawnServer({
       env: {
-        ...process.env,
         NODE_ENV: "production",
         PORT: String(this.port),
         HOST: "127.0.0.1",
@@ -94,7 +78,6 @@ export class ServerProcess {
         RATE_LIMIT_BURST: "400",
         ...this.options.env,
       },
-      stdio: ["ignore", "pipe", "pipe"],
       detached: true,
     });
     this.child = child;
@@ -111,23 +94,11 @@ export class ServerProcess {
   }
 
   private async waitForHealth(child: ChildProcess): Promise<void> {
-    const deadline = Date.now() + (this.options.startTimeoutMs ?? 90_000);
-    while (Date.now() < deadline) {
-      if (child.exitCode !== null || child.signalCode !== null) {
-        throw new Error(`server ${this.name} exited during start-up:\n${this.logTail()}`);
-      }
-      try {
-        const res = await fetch(`${this.baseURL}/api/health`);
-        if (res.ok) {
-          const body = (await res.json()) as { ok?: boolean };
-          if (body.ok === true) return;
-        }
-      } catch {
-        // not listening yet
-      }
-      await new Promise((r) => setTimeout(r, 250));
-    }
-    throw new Error(`server ${this.name} did not become healthy in time:\n${this.logTail()}`);
+    await waitForHttp(`${this.baseURL}/api/health`, child, {
+      timeoutMs: this.options.startTimeoutMs ?? 90_000,
+      tail: () => this.logTail(),
+      pollMs: 250,
+    });
   }
 
   /**

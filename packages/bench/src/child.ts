@@ -3,30 +3,18 @@
  * the pid we measure and signal is the server itself, not a wrapper) and the bare baseline.
  * Every child is killed when this process exits, however it exits.
  */
-import { spawn } from "node:child_process";
 import type { ChildProcess } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync } from "node:fs";
-import { createServer } from "node:net";
+import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import { HOST, SERVER_MAIN, spawnServer, waitForHttp as waitForAnswer } from "./serverProcess";
+
+export { freePort, HOST, REPO_ROOT, SERVER_MAIN, serverNodeFlags } from "./serverProcess";
 
 const here = path.dirname(fileURLToPath(import.meta.url));
-export const REPO_ROOT = path.resolve(here, "../../..");
-export const SERVER_MAIN = path.join(REPO_ROOT, "apps/server/src/main.ts");
-
-/**
- * The Node flags `npm start` gives the server (apps/server/package.json, config.nodeOptions),
- * given here to both the real server and the bare baseline, so both run as deployed.
- */
-export function serverNodeFlags(): string[] {
-  const pkg = JSON.parse(
-    readFileSync(path.join(REPO_ROOT, "apps/server/package.json"), "utf8"),
-  ) as { config?: { nodeOptions?: string } };
-  return (pkg.config?.nodeOptions ?? "").split(" ").filter(Boolean);
-}
+/** The bare baseline gets the same Node flags as the real server, so both run as deployed. */
 export const BARE_MAIN = path.join(here, "bare-server.ts");
-export const HOST = "127.0.0.1";
 
 const children = new Set<ChildProcess>();
 const tempDirs = new Set<string>();
@@ -55,19 +43,6 @@ export function tempDir(prefix: string): string {
   return dir;
 }
 
-/** A port that was free a moment ago on 127.0.0.1 (the OS picks it). */
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.once("error", reject);
-    srv.listen(0, HOST, () => {
-      const address = srv.address();
-      const port = typeof address === "object" && address ? address.port : 0;
-      srv.close(() => resolve(port));
-    });
-  });
-}
-
 export interface Child {
   proc: ChildProcess;
   pid: number;
@@ -86,15 +61,7 @@ function startChild(script: string, env: Record<string, string>, port: number): 
   hookExit();
   // BENCH_NODE_ARGS adds flags to the children, e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof"
   const extra = (process.env.BENCH_NODE_ARGS ?? "").split(" ").filter(Boolean);
-  const proc = spawn(
-    process.execPath,
-    [...serverNodeFlags(), ...extra, "--import", "tsx", script],
-    {
-      cwd: REPO_ROOT,
-      env: { ...process.env, ...env },
-      stdio: ["ignore", "pipe", "pipe"],
-    },
-  );
+  const proc = spawnServer({ env, script, nodeArgs: extra });
   children.add(proc);
   const lines: string[] = [];
   const problemLines: string[] = [];
@@ -137,22 +104,9 @@ function startChild(script: string, env: Record<string, string>, port: number): 
   };
 }
 
-/** Polls GET path until it answers 200; bounded by timeoutMs. */
+/** Polls GET url until it answers 200; bounded by timeoutMs. */
 export async function waitForHttp(url: string, child: Child, timeoutMs = 60_000): Promise<void> {
-  const until = Date.now() + timeoutMs;
-  while (Date.now() < until) {
-    if (child.proc.exitCode !== null || child.proc.signalCode !== null) {
-      throw new Error(`child exited before answering ${url}:\n${child.tail()}`);
-    }
-    try {
-      const res = await fetch(url, { signal: AbortSignal.timeout(2000) });
-      if (res.ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`no answer from ${url} within ${timeoutMs} ms:\n${child.tail()}`);
+  await waitForAnswer(url, child.proc, { timeoutMs, tail: child.tail });
 }
 
 /** Which database the real server gets: what the reports print. */
