@@ -13,6 +13,7 @@ export {
   readMigrations,
   DEFAULT_MIGRATIONS_DIR,
   MIGRATIONS_TABLE,
+  type MigrationStatus,
 } from "./migrate";
 export type { AppendEffects } from "./repos/events";
 export type { CreateSessionInput, CreateSessionResult } from "./repos/sessions";

@@ -93,3 +93,40 @@ export async function applyMigrations(
   }
   return applied;
 }
+
+export type MigrationStatus =
+  | { ok: true; applied: number }
+  | { ok: false; reason: "unreachable" | "migrations-pending"; message: string };
+
+/**
+ * Whether the database answers and holds every migration this code knows (the readiness
+ * check). A failed query is an expected outcome here (the server is down or the network
+ * is cut), so it comes back as a value; the message names no table rows.
+ */
+export async function migrationStatus(
+  runner: SqlRunner,
+  migrations: Migration[],
+): Promise<MigrationStatus> {
+  let recorded: { name: string }[];
+  try {
+    const [table] = await runner.query<{ present: boolean }>(
+      `SELECT to_regclass('"${MIGRATIONS_TABLE}"') IS NOT NULL AS "present"`,
+    );
+    recorded = table?.present
+      ? await runner.query<{ name: string }>(`SELECT "name" FROM "${MIGRATIONS_TABLE}"`)
+      : [];
+  } catch (error) {
+    const message = error instanceof Error ? error.message : String(error);
+    return { ok: false, reason: "unreachable", message: `database unreachable: ${message}` };
+  }
+  const have = new Set(recorded.map((r) => r.name));
+  const pending = migrations.filter((m) => !have.has(m.name)).map((m) => m.name);
+  if (pending.length > 0) {
+    return {
+      ok: false,
+      reason: "migrations-pending",
+      message: `migrations not applied yet: ${pending.join(", ")}`,
+    };
+  }
+  return { ok: true, applied: migrations.length };
+}

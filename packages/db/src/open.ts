@@ -4,7 +4,13 @@ import { PrismaPg } from "@prisma/adapter-pg";
 import pg from "pg";
 import { lockDataDir } from "./dir-lock";
 import { PrismaClient } from "./generated/prisma/client";
-import { applyMigrations, DEFAULT_MIGRATIONS_DIR, readMigrations } from "./migrate";
+import {
+  applyMigrations,
+  DEFAULT_MIGRATIONS_DIR,
+  migrationStatus,
+  readMigrations,
+  type MigrationStatus,
+} from "./migrate";
 import { eventsRepository } from "./repos/events";
 import { keysRepository } from "./repos/keys";
 import { sessionsRepository } from "./repos/sessions";
@@ -28,6 +34,8 @@ export interface Database {
   keys: ReturnType<typeof keysRepository>;
   /** migrations applied by this open (empty when the database was up to date) */
   migrationsApplied: string[];
+  /** the readiness check: the database answers now and holds every migration this code knows */
+  readiness(): Promise<MigrationStatus>;
   /**
    * Resolves if the database is gone for good while open (the PGlite thread crashed): every
    * call fails from then on, and the process should restart. A PostgreSQL pool replaces lost
@@ -119,6 +127,7 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<Database> {
     events: eventsRepository(prisma, connection.runner),
     keys: keysRepository(prisma, connection.runner),
     migrationsApplied,
+    readiness: () => migrationStatus(connection.runner, migrations),
     lost: connection.lost,
     close: connection.close,
   };
