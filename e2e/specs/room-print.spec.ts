@@ -88,6 +88,19 @@ test("debrief prints on A4 and Letter with every chart inside the paper and none
         b.bottom + 0.5,
       );
     }
+    const tableRights = await page.evaluate(() =>
+      [...document.querySelectorAll(".debrief table")].map((t) => t.getBoundingClientRect().right),
+    );
+    expect(tableRights.length, "the debrief has tables").toBeGreaterThan(0);
+    for (const [k, right] of tableRights.entries()) {
+      expect(right, `${paper.format} table ${k} right edge`).toBeLessThanOrEqual(paper.width + 0.5);
+    }
+    const legendIcons = await page.evaluate(() =>
+      [...document.querySelectorAll(".debrief .recharts-legend-item svg")].map(
+        (svg) => svg.getBoundingClientRect().width,
+      ),
+    );
+    for (const w of legendIcons) expect(w, `${paper.format} legend icon width`).toBeLessThan(30);
     for (let a = 0; a < boxes.length; a++) {
       for (let c = a + 1; c < boxes.length; c++) {
         const x = boxes[a]!;

@@ -1,7 +1,7 @@
 "use client";
 
 import { useId, useState } from "react";
-import { COPIED_NOTICE_MS } from "../lib/timing";
+import { COPIED_NOTICE_MS } from "../hooks/useCopyLink";
 
 /** A read-only value with a copy button; the label names what is copied. */
 export function CopyField({

@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 
-/** How long the "Link copied" acknowledgement stays on the button. */
+/** How long a "Copied" acknowledgement stays on a copy button (links, invite fields). */
 export const COPIED_NOTICE_MS = 1500;
 
 /** Copies the page address to the clipboard; `copied` is true for a moment afterwards. */
