@@ -201,6 +201,13 @@ test("shock(prize and cost) is announced on the seat, the big screen and the con
     // it stays up while the changed round is open, and goes once that round is revealed
     await fac.command({ type: "openRound" });
     await expect(seat.getByTestId("shock-banner")).toContainText("(this round)");
+    // the same seat on a phone, with the banner and the amount box in the open round
+    const phone = await (await phoneContext(browser, origin)).newPage();
+    await phone.goto(pathOf(created.seats[0]!.link!));
+    await expect(phone.getByTestId("shock-banner")).toContainText("(this round)");
+    await expect(phone.getByTestId("spend-input")).toBeEnabled();
+    await noSideScroll(phone, "seat at 390 with a shock");
+    await saveScreen(phone, "money-shock-seat-open-390");
     await seatClient.command({ type: "sealMove", clientMoveId: "r2", spend: 150 });
     await expect(seat.getByTestId("seat-ended")).toBeVisible();
     for (const [who, page] of Object.entries(pages)) {

@@ -60,31 +60,36 @@ function SeatBody({
   const seat = view.you!.seatIndex;
   const currency = view.scenario.currency ?? null;
   const playing = view.status === "open" && (view.roundSeats?.includes(seat) ?? false);
+  // While a round is open the move comes first (on a phone it is then above the fold).
+  const move = (
+    <section className="card" aria-labelledby="move-title">
+      <div className="row" style={{ justifyContent: "space-between" }}>
+        <h2 id="move-title">Your move</h2>
+        <RoundClock view={view} clockOffsetMs={clockOffsetMs} />
+      </div>
+      <div style={{ minHeight: "9.5rem" }}>
+        {view.status === "lobby" && (
+          <p data-testid="seat-waiting">Waiting for the facilitator to open round 1.</p>
+        )}
+        {view.status === "ended" && (
+          <p data-testid="seat-ended">The session has ended. Thank you for playing.</p>
+        )}
+        {view.status === "review" && (
+          <p data-testid="seat-waiting">
+            Round {view.round} is revealed below. The next round opens soon.
+          </p>
+        )}
+        {view.status === "open" && !playing && <p>Your rival sits this round out.</p>}
+        {playing && <SeatMoveForm view={view} send={send} canSeal={!view.paused && connected} />}
+      </div>
+    </section>
+  );
   return (
     <>
       <ShockBanner view={view} />
+      {view.status === "open" && move}
       <SeatTerms view={view} />
-      <section className="card" aria-labelledby="move-title">
-        <div className="row" style={{ justifyContent: "space-between" }}>
-          <h2 id="move-title">Your move</h2>
-          <RoundClock view={view} clockOffsetMs={clockOffsetMs} />
-        </div>
-        <div style={{ minHeight: "9.5rem" }}>
-          {view.status === "lobby" && (
-            <p data-testid="seat-waiting">Waiting for the facilitator to open round 1.</p>
-          )}
-          {view.status === "ended" && (
-            <p data-testid="seat-ended">The session has ended. Thank you for playing.</p>
-          )}
-          {view.status === "review" && (
-            <p data-testid="seat-waiting">
-              Round {view.round} is revealed below. The next round opens soon.
-            </p>
-          )}
-          {view.status === "open" && !playing && <p>Your rival sits this round out.</p>}
-          {playing && <SeatMoveForm view={view} send={send} canSeal={!view.paused && connected} />}
-        </div>
-      </section>
+      {view.status !== "open" && move}
       <SeatRoundResult view={view} />
       {view.rounds.length > 0 && (
         <section className="card" aria-labelledby="history-title">
