@@ -100,6 +100,32 @@ describe("R12: the move is money", () => {
   });
 });
 
+describe("R23: a sealed spend is private until the reveal", () => {
+  it("viewFor(others) holds neither the spend nor the effort it buys; the owner's view holds both", () => {
+    const room = new Room(scenarioWith({ spendStep: 0.01 }, { rivals: money.rivals }));
+    room.ok({ type: "openRound" }, facilitator);
+    // Corner Ovens (cost 2) seals 14.62 on a grid of 0.01: effort 7.31
+    expect(spendOf(room, 1, 14.62).ok).toBe(true);
+    const hidden = (text: string, n: number) =>
+      new RegExp(`(?<![\\d.])${String(n).replace(".", "\\.")}(?![\\d])`).test(text);
+    for (const viewer of [
+      { role: "facilitator" as const },
+      { role: "spectator" as const },
+      { role: "guest" as const },
+      { role: "seat" as const, seatIndex: 0 },
+      { role: "seat" as const, seatIndex: 2 },
+    ]) {
+      const text = JSON.stringify(viewFor(room.state, viewer));
+      expect(hidden(text, 14.62), `${viewer.role} sees the spend`).toBe(false);
+      expect(hidden(text, 7.31), `${viewer.role} sees the effort`).toBe(false);
+    }
+    // positive control: the same search finds both in the owner's view
+    const own = JSON.stringify(viewFor(room.state, { role: "seat", seatIndex: 1 }));
+    expect(hidden(own, 14.62)).toBe(true);
+    expect(hidden(own, 7.31)).toBe(true);
+  });
+});
+
 describe("old event logs replay", () => {
   it("fold(a log written before spends) derives spends from efforts and costs", () => {
     const room = new Room(money);
