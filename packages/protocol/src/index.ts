@@ -142,3 +142,10 @@ export type {
 } from "./rest";
 export type { ClientToServerEvents, PresenceMessage, ServerToClientEvents } from "./socket";
 export { attachmentHeader, downloadFileName, fileStem } from "./fileName";
+export {
+  sessionSummarySchema,
+  summaryRoundSchema,
+  summarySeatSchema,
+  summaryShockSchema,
+} from "./summary";
+export type { SessionSummaryBody, SummaryRound, SummarySeat, SummaryShock } from "./summary";

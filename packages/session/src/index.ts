@@ -29,3 +29,6 @@ export {
 } from "./effort";
 export type { SpendCheck } from "./effort";
 export { roundWithMoney } from "./money";
+export { shockText } from "./shockText";
+export { NEAR_BEST_REPLY, summarizeSession } from "./summary";
+export type { SummaryOptions } from "./summary";

@@ -17,6 +17,7 @@ import { buildExport, listItem, roundsCsv } from "../live/export";
 import { createLiveSession } from "../live/create";
 import { baseUrlOf } from "../live/links";
 import { toSessionEvent } from "../live/hub";
+import { summaryRoute } from "./summary";
 import type { Logger } from "../logger";
 import { credentialFrom, readJsonBody, sendError, sendJson, sendText } from "./io";
 
@@ -31,6 +32,7 @@ export interface RestDeps {
 }
 
 const EXPORT_PATH = /^\/api\/sessions\/([^/]+)\/export\/?$/;
+const SUMMARY_PATH = /^\/api\/sessions\/([^/]+)\/summary\/?$/;
 
 export function createRestHandler(deps: RestDeps) {
   const { db } = deps;
@@ -127,6 +129,11 @@ export function createRestHandler(deps: RestDeps) {
         if (method === "POST") await createSessionRoute(req, res);
         else if (method === "GET") await listRoute(req, res, url);
         else methodNotAllowed(res, "GET, POST");
+      } else if (SUMMARY_PATH.test(path)) {
+        if (method !== "GET") return methodNotAllowed(res, "GET");
+        const id = safeDecode(SUMMARY_PATH.exec(path)![1]!);
+        if (id === null) sendError(res, 404, "not-found", "no such session");
+        else await summaryRoute({ db, allowed: () => allowed(req, url, id) }, res, id);
       } else {
         const m = EXPORT_PATH.exec(path);
         if (m) {
