@@ -4,7 +4,6 @@ import { normalize, sweep1d } from "@contend/solver";
 import type { RoundResult } from "@contend/protocol";
 import {
   effortKey,
-  equilibriumEffortOf,
   payoffKey,
   perSeatOverRounds,
   roundSeatRows,
@@ -139,10 +138,8 @@ const round: RoundResult = roundWithMoney(
 );
 
 describe("session rows", () => {
-  it("equilibriumEffortOf(round, seat) follows seatIndices, not seat numbers", () => {
-    expect(equilibriumEffortOf(round, 0)).toBe(11);
-    expect(equilibriumEffortOf(round, 2)).toBe(22);
-    expect(equilibriumEffortOf(round, 1)).toBeNull();
+  it("round.equilibriumSpends follows seatIndices, not seat numbers (cost x equilibrium effort)", () => {
+    expect(round.equilibriumSpends).toEqual([11, null, 1.5 * 22]);
   });
   it("seatHistoryRows(rounds, seat) lists only rounds the seat played, in money", () => {
     // cost 1.5: effort 30 -> spend 45, equilibrium effort 22 -> 33, best reply 20 -> 30

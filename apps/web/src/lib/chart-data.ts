@@ -48,15 +48,6 @@ export function turningPoints(values: readonly (number | null)[]): number[] {
   return out;
 }
 
-/** Equilibrium effort of a seat in a resolved round (the equilibrium follows seatIndices). */
-export function equilibriumEffortOf(round: RoundResult, seat: number): number | null {
-  const k = round.seatIndices.indexOf(seat);
-  if (k < 0) return null;
-  const eq = round.equilibrium;
-  const e = eq.efforts ?? eq.expectedEfforts ?? null;
-  return e?.[k] ?? null;
-}
-
 export function equilibriumPayoffOf(round: RoundResult, seat: number): number | null {
   const k = round.seatIndices.indexOf(seat);
   if (k < 0) return null;
