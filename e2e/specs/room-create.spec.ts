@@ -32,6 +32,8 @@ test("start page: a double click on Start session, then another click, makes one
   await page.mouse.click(10, 10);
   await expect(page.getByTestId("join-code")).toBeVisible();
   expect(posts).toHaveLength(1);
+  // The computer seat says how it plays.
+  await expect(page.getByTestId("seat-computer-2")).toContainText("Textbook strategist");
 });
 
 test("editor: a double click on Create session, then another click, makes one session shown in view", async ({

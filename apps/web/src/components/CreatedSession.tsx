@@ -3,17 +3,28 @@
 import Link from "next/link";
 import { useEffect, useRef } from "react";
 import type { CreateSessionResponse } from "@contend/protocol";
+import { POLICY_LABELS } from "@contend/solver";
+import type { PolicyKind } from "@contend/solver";
 import { absoluteLink, localPath } from "../lib/api";
 import { rememberInvites } from "../lib/live";
 import { CopyField } from "./CopyField";
+
+/** " (Textbook strategist: plays the Nash equilibrium effort every round.)" or "". */
+function policyText(kind: string | undefined): string {
+  const entry = kind ? POLICY_LABELS[kind as PolicyKind] : undefined;
+  return entry ? ` (${entry.label}: ${entry.description.replace(/\.$/, "")}).` : ".";
+}
 
 /** What a facilitator needs right after creating a session: links, code, seat invitations. */
 export function CreatedSession({
   created,
   title,
+  computer = {},
 }: {
   created: CreateSessionResponse;
   title: string;
+  /** rival name -> computer policy kind (to say how each computer seat plays) */
+  computer?: Record<string, string>;
 }) {
   useEffect(() => {
     rememberInvites(created.id, {
@@ -74,6 +85,7 @@ export function CreatedSession({
           seat.link === null ? (
             <p key={seat.index} className="small muted" data-testid={`seat-computer-${seat.index}`}>
               Seat {seat.index + 1}, {seat.name}: played by the computer
+              {policyText(computer[seat.name])}
             </p>
           ) : (
             <CopyField

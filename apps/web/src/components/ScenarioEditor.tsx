@@ -309,7 +309,12 @@ export function ScenarioEditor() {
       </div>
       <AboutTheMaths method={preview?.ok ? preview.result.equilibrium.method : null} />
       {created && (
-        <CreatedSession key={created.res.id} created={created.res} title={created.title} />
+        <CreatedSession
+          key={created.res.id}
+          created={created.res}
+          title={created.title}
+          computer={created.computer}
+        />
       )}
     </form>
   );

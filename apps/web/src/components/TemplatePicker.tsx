@@ -55,7 +55,12 @@ export function TemplatePicker() {
       <div aria-live="polite">
         {error && <p className="notice error">{error}</p>}
         {created && (
-          <CreatedSession key={created.res.id} created={created.res} title={created.title} />
+          <CreatedSession
+            key={created.res.id}
+            created={created.res}
+            title={created.title}
+            computer={created.computer}
+          />
         )}
       </div>
     </>

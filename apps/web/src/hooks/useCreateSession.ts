@@ -8,6 +8,8 @@ import type { SessionScenarioInput } from "../lib/session-types";
 export interface CreatedRecord {
   res: CreateSessionResponse;
   title: string;
+  /** rival name -> computer policy kind, for describing computer seats */
+  computer: Record<string, string>;
   /** what the caller says this session was made from (a template id, a form state) */
   from: unknown;
 }
@@ -33,7 +35,13 @@ export function useCreateSession() {
       inFlight.current = false;
       setPending(null);
       if (r.ok) {
-        setCreated({ res: r.data, title: scenario.title, from });
+        const computer = Object.fromEntries(
+          Object.entries(scenario.session?.computer ?? {}).map(([name, p]) => [
+            name,
+            String((p as { kind?: unknown }).kind ?? ""),
+          ]),
+        );
+        setCreated({ res: r.data, title: scenario.title, computer, from });
         return true;
       }
       setError(
