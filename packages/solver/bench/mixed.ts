@@ -1,7 +1,8 @@
 /**
  * Benchmarks of the answers without a symmetric pure equilibrium: identical rivals above the
- * existence bound (one representative per number of active rivals) and two-rival mixed
- * equilibria (double oracle with its certified gap).
+ * existence bound (one representative per number of active rivals), two-rival mixed
+ * equilibria (double oracle with its certified gap) and a three-rival approximate one
+ * (fictitious play with its certified gap).
  */
 import { normalize, solve, type Scenario } from "../src/index";
 
@@ -73,5 +74,21 @@ export function mixedBench(
       note: `${eq.kind}, certified gap ${(eq.nashGap / c.prize).toExponential(2)} of the prize`,
     });
   }
+  const three = normalize({
+    title: "three rivals",
+    prize: 100,
+    csf: { kind: "ratio", decisiveness: 3 },
+    rivals: [1, 1.2, 1.5].map((cost, i) => ({ name: `R${i}`, cost })),
+  });
+  const t3 = time(() => solve(three), { warmup: 1, runs: 5 });
+  const eq3 = solve(three).equilibrium;
+  rows.push({
+    case: "solve() three rivals, mixed (fictitious play, 200 rounds), r = 3, costs 1, 1.2, 1.5",
+    target: "none set",
+    runs: 5,
+    medianMs: t3.median,
+    p95Ms: t3.p95,
+    note: `${eq3.kind}, certified gap ${(eq3.nashGap / three.prize).toExponential(2)} of the prize`,
+  });
   return rows;
 }

@@ -29,6 +29,7 @@ export * from "./calibrate";
 export * from "./matrixGame";
 export * from "./discreteMixed";
 export * from "./twoRivalMixed";
+export * from "./manyRivalMixed";
 export * from "./symmetricActiveSets";
 export * from "./fronts";
 export * from "./reliability";

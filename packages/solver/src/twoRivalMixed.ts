@@ -49,7 +49,7 @@ export interface TwoRivalMixedOptions {
 }
 
 /** Log-spaced near zero, linear above: 0, hi 10^(-k/2) for k = 16..1, hi j / 16. */
-function startGrid(hi: number): number[] {
+export function startGrid(hi: number): number[] {
   if (!(hi > 0)) return [0];
   const out = new Set<number>([0]);
   for (let k = 16; k >= 1; k--) out.add(hi * Math.pow(10, -k / 2));
