@@ -92,3 +92,88 @@ describe("sealed moves stay private", () => {
     for (const secret of SECRET) expect(exportAfter).toContain(secret);
   });
 });
+
+// Private numbers (docs/protocol.md R40-R41): true numbers no other value of this session equals.
+const TRUE_COST = 1.3125;
+const TRUE_VALUE = 87.4375;
+const shows = (text: string, x: number) =>
+  new RegExp(`(^|[^\\d.])${String(x).replace(".", "\\.")}($|[^\\d])`).test(text);
+
+describe("private costs and values stay private until the session ends", () => {
+  it("no seat but the owner, no screen, guest or export sees the truth; the facilitator does; after the end everyone does", async () => {
+    const scenario = printShops({
+      rounds: 2,
+      hidden: {
+        truth: "scenario",
+        rivals: {
+          "Foxglove Prints": { cost: { dist: "uniform", low: 1, high: 1.75 } },
+          "Cobble Copy": { value: { dist: "triangular", low: 60, mode: 90, high: 120 } },
+        },
+      },
+    });
+    scenario.rivals[1]!.cost = TRUE_COST;
+    (scenario.rivals[2] as { value?: number }).value = TRUE_VALUE;
+    const created = await createSessionOverHttp(file.server.url, scenario);
+    const id = created.id;
+    const fac = await client();
+    const screen = await client();
+    const guest = await client();
+    const seats = [await client(), await client(), await client()];
+    expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
+    expectOk(await hello(screen, { role: "spectator", sessionId: id, key: created.spectatorKey }));
+    expectOk(await hello(guest, { role: "guest", joinCode: created.joinCode }));
+    for (const [i, s] of seats.entries()) {
+      expectOk(await hello(s, { role: "seat", sessionId: id, key: created.seats[i]!.key }));
+    }
+    const exportNow = () =>
+      fetch(`${file.server.url}/api/sessions/${id}/export`, {
+        headers: { authorization: `Bearer ${created.facilitatorKey}` },
+      });
+    expectOk(await command(fac, { type: "openRound" }));
+    expectOk(await command(seats[0]!, { type: "sealMove", clientMoveId: "a", spend: 20 }));
+    expectOk(await command(seats[1]!, { type: "sealMove", clientMoveId: "b", spend: 15 }));
+    expectOk(await command(fac, { type: "closeRound" }));
+    await eventually(() => expect(lastView(screen).hidden?.rounds).toHaveLength(1));
+    await eventually(() => expect(lastView(seats[0]!).hidden?.rounds).toHaveLength(1));
+
+    const before = await exportNow();
+    expect(before.status).toBe(409);
+    const beforeText = await before.text();
+    const csv = await (
+      await fetch(`${file.server.url}/api/sessions/${id}/export?format=csv`, {
+        headers: { authorization: `Bearer ${created.facilitatorKey}` },
+      })
+    ).text();
+    const blind: [string, string][] = [
+      ["spectator", everything(screen)],
+      ["guest", everything(guest)],
+      ["seat 0", everything(seats[0]!)],
+      ["export", beforeText],
+      ["csv export", csv],
+    ];
+    for (const [who, text] of blind) {
+      expect(shows(text, TRUE_COST), `${who} saw the cost`).toBe(false);
+      expect(shows(text, TRUE_VALUE), `${who} saw the value`).toBe(false);
+    }
+    // each owner sees its own number and not the other's
+    expect(shows(everything(seats[1]!), TRUE_COST)).toBe(true);
+    expect(shows(everything(seats[1]!), TRUE_VALUE)).toBe(false);
+    expect(shows(everything(seats[2]!), TRUE_VALUE)).toBe(true);
+    expect(shows(everything(seats[2]!), TRUE_COST)).toBe(false);
+    // positive control: the same search finds both in the facilitator's frames
+    expect(shows(everything(fac), TRUE_COST)).toBe(true);
+    expect(shows(everything(fac), TRUE_VALUE)).toBe(true);
+
+    expectOk(await command(fac, { type: "endSession" }));
+    for (const c of [screen, guest, seats[0]!]) {
+      await eventually(() => expect(lastView(c).status).toBe("ended"));
+      expect(shows(everything(c), TRUE_COST)).toBe(true);
+      expect(shows(everything(c), TRUE_VALUE)).toBe(true);
+    }
+    const after = await exportNow();
+    expect(after.status).toBe(200);
+    const afterText = await after.text();
+    expect(shows(afterText, TRUE_COST)).toBe(true);
+    expect(shows(afterText, TRUE_VALUE)).toBe(true);
+  });
+});

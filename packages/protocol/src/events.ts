@@ -103,6 +103,12 @@ export const roundResolvedSchema = z.object({
   equilibrium: equilibriumSchema,
   nashGap: finiteSchema,
   dissipation: finiteSchema,
+  /**
+   * sessions with private numbers (R43): each seat's best reply (money) to the others' actual
+   * spends when every private number of another seat is uncertain over its range (the spend
+   * maximising expected payoff); 0 where not playing. Absent without private numbers.
+   */
+  beliefReplySpends: perSeat.optional(),
 });
 export const shockAppliedSchema = z.object({
   type: z.literal("shock-applied"),
@@ -118,9 +124,26 @@ export const resumedSchema = z.object({
   type: z.literal("resumed"),
   deadline: epochMsSchema.nullable(),
 });
+/** The robust plan of one seat under what it did not know (R44; solver `runUncertain`). */
+export const robustPlanRecordSchema = z.object({
+  seatIndex: seatIndexSchema,
+  /** money: the spend maximising the seat's expected payoff over the others' ranges */
+  spend: finiteSchema,
+  expectedPayoff: finiteSchema,
+  p10Payoff: finiteSchema,
+  meanRegret: finiteSchema,
+  /** money: the seat's equilibrium spend when every private number sits at its median */
+  equilibriumSpendAtMedians: finiteSchema.nullable(),
+  draws: z.int().min(0),
+  seed: seeds,
+});
+export type RobustPlanRecord = z.output<typeof robustPlanRecordSchema>;
+
 export const sessionEndedSchema = z.object({
   type: z.literal("session-ended"),
   reason: z.enum(END_REASONS),
+  /** sessions with private numbers: each human or computer seat's robust plan, computed once */
+  robustPlans: z.array(robustPlanRecordSchema).optional(),
 });
 
 const bodies = [

@@ -149,3 +149,16 @@ export {
   summaryShockSchema,
 } from "./summary";
 export type { SessionSummaryBody, SummaryRound, SummarySeat, SummaryShock } from "./summary";
+export {
+  beliefContest,
+  fieldOf,
+  HIDDEN_FIELDS,
+  hiddenEntries,
+  hiddenIssue,
+  hiddenSettingsSchema,
+} from "./hidden";
+export type { HiddenEntry, HiddenField, HiddenSettings } from "./hidden";
+export { hiddenRoundViewSchema, hiddenViewSchema } from "./hiddenView";
+export type { HiddenRoundView, HiddenView } from "./hiddenView";
+export { robustPlanRecordSchema } from "./events";
+export type { RobustPlanRecord } from "./events";

@@ -10,11 +10,19 @@ import { LIMITS } from "./limits";
 import { sessionSettingsSchema } from "./settings";
 import type { SessionSettings } from "./settings";
 import { findTextIssue } from "./text";
+import { HIDDEN_FIELDS, hiddenIssue } from "./hidden";
 
 export type SessionScenario = Scenario & { session: SessionSettings };
 
 function isRecord(x: unknown): x is Record<string, unknown> {
   return typeof x === "object" && x !== null && !Array.isArray(x);
+}
+
+/** The keys an object at `path` inside `session` may have (for "unknown field" messages). */
+function allowedKeys(path: readonly PropertyKey[]): readonly string[] {
+  if (path.length === 0) return Object.keys(sessionSettingsSchema.shape);
+  if (path[0] === "hidden") return path.length === 1 ? ["truth", "rivals"] : HIDDEN_FIELDS;
+  return [];
 }
 
 export const sessionScenarioSchema = z.unknown().transform((raw, ctx): SessionScenario => {
@@ -43,7 +51,7 @@ export const sessionScenarioSchema = z.unknown().transform((raw, ctx): SessionSc
         code: "custom",
         message:
           unknown.length > 0
-            ? `unknown field ${JSON.stringify(unknown[0])}; allowed: ${Object.keys(sessionSettingsSchema.shape).join(", ")}`
+            ? `unknown field ${JSON.stringify(unknown[0])}; allowed: ${allowedKeys(issue.path).join(", ")}`
             : issue.message,
         path: ["session", ...issue.path, ...unknown.slice(0, 1)],
       });
@@ -79,6 +87,11 @@ export const sessionScenarioSchema = z.unknown().transform((raw, ctx): SessionSc
       });
       return z.NEVER;
     }
+  }
+  const hidden = settings.data.hidden ? hiddenIssue(scenario, settings.data.hidden) : null;
+  if (hidden) {
+    ctx.addIssue({ code: "custom", message: hidden.message, path: hidden.path });
+    return z.NEVER;
   }
   return { ...scenario, session: settings.data };
 });

@@ -2,6 +2,7 @@ import { z } from "zod";
 import { LIMITS } from "./limits";
 import { positiveNumberSchema } from "./numbers";
 import { policySpecSchema } from "./policy";
+import { hiddenSettingsSchema } from "./hidden";
 
 /** The `session` object of a session scenario; every field has a default. */
 export const sessionSettingsSchema = z.strictObject({
@@ -35,6 +36,8 @@ export const sessionSettingsSchema = z.strictObject({
       error: `must name at most ${LIMITS.seatsMax} rivals`,
     })
     .default({}),
+  /** private costs and values with their public ranges (R40); absent: every number is public */
+  hidden: hiddenSettingsSchema.optional(),
 });
 
 export type SessionSettings = z.output<typeof sessionSettingsSchema>;

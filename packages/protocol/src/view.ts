@@ -10,6 +10,7 @@ import { effortSchema, epochMsSchema, seatIndexSchema } from "./numbers";
 import { policySpecSchema } from "./policy";
 import { sessionSettingsSchema } from "./settings";
 import { shockSchema } from "./shock";
+import { hiddenViewSchema } from "./hiddenView";
 
 export const SESSION_STATUSES = ["lobby", "open", "review", "ended"] as const;
 export type SessionStatus = (typeof SESSION_STATUSES)[number];
@@ -74,6 +75,8 @@ export const roleViewSchema = z.object({
   shocks: z.array(shockRecordSchema),
   /** facilitator only: the session's join code (it lives in the database, not in the log) */
   joinCode: z.string().optional(),
+  /** sessions with private numbers only (R41) */
+  hidden: hiddenViewSchema.optional(),
   /** seat role only */
   you: z
     .object({

@@ -184,6 +184,7 @@ export function apply(state: SessionState, event: SessionEvent): SessionState {
         ...stamp,
         status: "ended",
         endedReason: event.reason,
+        robustPlans: event.robustPlans ?? [],
         paused: false,
         remainingMs: null,
       };

@@ -1,4 +1,5 @@
 import type { EventOf, SessionScenario } from "@contend/protocol";
+import { drawTruth } from "./hidden";
 
 /**
  * The first event of every session. The caller validates the scenario (parseSessionScenario)
@@ -9,7 +10,8 @@ export function createSession(input: {
   scenario: SessionScenario;
   seed: number;
 }): EventOf<"session-created"> {
-  const { scenario } = input;
+  const seed = Math.trunc(input.seed) >>> 0;
+  const scenario = drawTruth(input.scenario, seed);
   return {
     type: "session-created",
     sessionId: input.sessionId,
@@ -21,6 +23,6 @@ export function createSession(input: {
       const policy = Object.hasOwn(computer, r.name) ? (computer[r.name] ?? null) : null;
       return { index, name: r.name, kind: policy ? "computer" : "human", policy };
     }),
-    seed: Math.trunc(input.seed) >>> 0,
+    seed,
   };
 }

@@ -6,10 +6,18 @@
  */
 import { validateScenario } from "@contend/solver";
 import { roleMaySend, spendStepOf } from "@contend/protocol";
-import type { CloseReason, Command, CommandOf, EventBody, Role } from "@contend/protocol";
+import type {
+  CloseReason,
+  Command,
+  CommandOf,
+  EndReason,
+  EventBody,
+  Role,
+} from "@contend/protocol";
 import { computerMoves } from "./computer";
 import { checkMove, spendProblemText } from "./effort";
 import { resolveRound } from "./resolve";
+import { robustPlans, roundBeliefs } from "./hidden";
 import type { Decision } from "./result";
 import { accept, reject } from "./result";
 import { applyChanges } from "./shocks";
@@ -176,8 +184,14 @@ function endSession(state: LiveState): Decision {
   const events: EventBody[] = [];
   // R17: ending during a round resolves it with the moves sealed so far.
   if (state.status === "open") events.push(resolveRound(state, state.open, "facilitator"));
-  events.push({ type: "session-ended", reason: "facilitator" });
+  events.push(sessionEnded(state, "facilitator"));
   return accept(events);
+}
+
+/** R18/R44: the end of a session; with private numbers it carries each seat's robust plan. */
+function sessionEnded(state: LiveState, reason: EndReason): EventBody {
+  if (!state.settings.hidden) return { type: "session-ended", reason };
+  return { type: "session-ended", reason, robustPlans: robustPlans(state) };
 }
 
 function openRound(state: LiveState, command: CommandOf<"openRound">, now: number): Decision {
@@ -203,6 +217,9 @@ function openRound(state: LiveState, command: CommandOf<"openRound">, now: numbe
     seats: state.seats,
     history: state.rounds,
     step: spendStepOf(state.settings),
+    beliefsOf: state.settings.hidden
+      ? (seat) => roundBeliefs(state, valid.value, seatIndices, seat)
+      : undefined,
   });
   return accept([
     { type: "round-opened", round, scenario: valid.value, seatIndices, deadline },
@@ -217,7 +234,7 @@ function closeRound(state: LiveState, reason: CloseReason): Decision {
   const events: EventBody[] = [resolveRound(state, state.open, reason)];
   // R18: the last round's resolution ends the session.
   if (state.open.round >= state.settings.rounds) {
-    events.push({ type: "session-ended", reason: "rounds-complete" });
+    events.push(sessionEnded(state, "rounds-complete"));
   }
   return accept(events);
 }

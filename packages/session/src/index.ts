@@ -32,3 +32,5 @@ export { roundWithMoney } from "./money";
 export { shockText } from "./shockText";
 export { NEAR_BEST_REPLY, summarizeSession } from "./summary";
 export type { SummaryOptions } from "./summary";
+export { truthSealed, truthWithheld, withHidden } from "./hiddenView";
+export { BELIEF_DRAWS, PLAN_DRAWS, drawTruth } from "./hidden";

@@ -22,6 +22,7 @@ import { spendStepOf } from "@contend/protocol";
 import type { CloseReason, EventOf } from "@contend/protocol";
 import type { OpenRound, SessionCore } from "./state";
 import { drawSeedFor } from "./seeds";
+import { beliefReplies } from "./hidden";
 
 /**
  * Spends and efforts of the round's seats in round order, and which were filled in by the
@@ -97,7 +98,7 @@ export function resolveRound(
     defaultedBySeat[seat] = defaulted[k]!;
   });
 
-  return {
+  const event: EventOf<"round-resolved"> = {
     type: "round-resolved",
     round: open.round,
     reason,
@@ -116,4 +117,9 @@ export function resolveRound(
     nashGap: responses.nashGap,
     dissipation: dissipation(contest, efforts),
   };
+  if (core.settings.hidden) {
+    const beliefs = beliefReplies(core, open.round, open.scenario, seats, spends);
+    event.beliefReplySpends = perSeat(n, seats, beliefs);
+  }
+  return event;
 }

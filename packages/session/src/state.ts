@@ -6,6 +6,7 @@
 import type { PolicySpec, Scenario } from "@contend/solver";
 import type {
   EndReason,
+  RobustPlanRecord,
   RoundResult,
   SessionScenario,
   SessionSettings,
@@ -70,7 +71,12 @@ export type SessionState =
   | (SessionCore & { status: "lobby" })
   | (SessionCore & { status: "open"; open: OpenRound })
   | (SessionCore & { status: "review" })
-  | (SessionCore & { status: "ended"; endedReason: EndReason });
+  | (SessionCore & {
+      status: "ended";
+      endedReason: EndReason;
+      /** sessions with private numbers: each seat's robust plan (R44) */
+      robustPlans: RobustPlanRecord[];
+    });
 
 export type LiveState = Exclude<SessionState, { status: "empty" }>;
 

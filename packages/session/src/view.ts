@@ -5,6 +5,7 @@
  */
 import type { RoleView, Role, SeatView } from "@contend/protocol";
 import type { SessionState } from "./state";
+import { withHidden } from "./hiddenView";
 
 export interface Viewer {
   role: Role;
@@ -61,5 +62,7 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
       clientMoveId: mine ? mine.clientMoveId : null,
     };
   }
-  return view;
+  // R41: private numbers stay with their owner (and the facilitator) until the end.
+  const own = viewer.role === "seat" ? (viewer.seatIndex ?? null) : null;
+  return withHidden(state, view, own);
 }

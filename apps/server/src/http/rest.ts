@@ -11,6 +11,7 @@ import {
   parseSessionScenario,
 } from "@contend/protocol";
 import type { Health } from "@contend/protocol";
+import { fold, truthSealed } from "@contend/session";
 import type { Clock } from "../clock";
 import type { Limits } from "../env";
 import { buildExport, listItem, roundsCsv } from "../live/export";
@@ -93,6 +94,16 @@ export function createRestHandler(deps: RestDeps) {
     const summary = await db.sessions.get(id);
     if (!summary) return sendError(res, 404, "not-found", "no such session");
     const events = (await db.events.list(id)).map(toSessionEvent);
+    // R41: a session with private numbers exports once it has ended, never before.
+    const state = fold(events);
+    if (state.status !== "empty" && truthSealed(state)) {
+      return sendError(
+        res,
+        409,
+        "wrong-state",
+        "this session has private costs or values: its export is available once it has ended",
+      );
+    }
     const record = buildExport(summary, events);
     // Always an attachment: a link to it downloads a file instead of replacing the page.
     const disposition = {
