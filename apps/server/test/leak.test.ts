@@ -144,7 +144,12 @@ describe("private costs and values stay private until the session ends", () => {
         headers: { authorization: `Bearer ${created.facilitatorKey}` },
       })
     ).text();
+    const summaryBefore = await fetch(`${file.server.url}/api/sessions/${id}/summary`, {
+      headers: { authorization: `Bearer ${created.facilitatorKey}` },
+    });
+    expect(summaryBefore.status).toBe(409);
     const blind: [string, string][] = [
+      ["summary", await summaryBefore.text()],
       ["spectator", everything(screen)],
       ["guest", everything(guest)],
       ["seat 0", everything(seats[0]!)],
@@ -173,6 +178,10 @@ describe("private costs and values stay private until the session ends", () => {
     const after = await exportNow();
     expect(after.status).toBe(200);
     const afterText = await after.text();
+    const summaryAfter = await fetch(`${file.server.url}/api/sessions/${id}/summary`, {
+      headers: { authorization: `Bearer ${created.facilitatorKey}` },
+    });
+    expect(summaryAfter.status).toBe(200);
     expect(shows(afterText, TRUE_COST)).toBe(true);
     expect(shows(afterText, TRUE_VALUE)).toBe(true);
   });

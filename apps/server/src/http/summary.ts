@@ -5,7 +5,7 @@
  */
 import type { ServerResponse } from "node:http";
 import type { Database } from "@contend/db";
-import { summarizeSession } from "@contend/session";
+import { fold, summarizeSession, truthSealed } from "@contend/session";
 import { publicEvents } from "../live/export";
 import { toSessionEvent } from "../live/hub";
 import { sendError, sendJson } from "./io";
@@ -29,6 +29,16 @@ export async function summaryRoute(deps: SummaryDeps, res: ServerResponse, id: s
   const session = await deps.db.sessions.get(id);
   if (!session) return sendError(res, 404, "not-found", "no such session");
   const events = publicEvents((await deps.db.events.list(id)).map(toSessionEvent));
+  // R41: a session with private numbers is summarised once it has ended, never before.
+  const state = fold(events);
+  if (state.status !== "empty" && truthSealed(state)) {
+    return sendError(
+      res,
+      409,
+      "wrong-state",
+      "this session has private costs or values: its summary is available once it has ended",
+    );
+  }
   const summary = summarizeSession(events);
   if (!summary) return sendError(res, 404, "not-found", "no such session");
   sendJson(res, 200, summary);
