@@ -63,6 +63,7 @@ export function createApplication(deps: ApplicationDeps): Application {
   const limits: Limits = { ...DEFAULT_LIMITS, ...deps.limits };
   const hub = createSessionHub({ db: deps.db, clock, logger });
   const load = deps.load ?? eventLoopGauge();
+  let draining = false;
   const api = createRestHandler({
     db: deps.db,
     clock,
@@ -71,6 +72,7 @@ export function createApplication(deps: ApplicationDeps): Application {
     adminKey: deps.adminKey ?? null,
     publicUrl: deps.publicUrl ?? null,
     version: SERVER_VERSION,
+    draining: () => draining,
   });
   const web = deps.web ?? null;
   const webUpgrade = deps.webUpgrade ?? null;
@@ -143,10 +145,20 @@ export function createApplication(deps: ApplicationDeps): Application {
     },
     close() {
       closing ??= (async () => {
+        // Drain: readiness turns 503 and the port stops taking connections at once, so a
+        // proxy sends newcomers elsewhere; open sockets and requests carry on meanwhile.
+        draining = true;
+        if (http.listening) http.close();
+        // The commit under way finishes; commands queued behind it are refused.
         await hub.close();
+        // Every handler sends its ack (the committed move's, or a refusal) before transports close.
+        await sockets.settled();
         sockets.stop();
         load.stop();
-        // io.close() disconnects every client and closes the HTTP server as well.
+        // Close every transport once its buffered packets (those acks) are written: a
+        // socket.io client reconnects by itself after a transport close, through the proxy to
+        // a process still running. io.close() alone would discard what is still buffered.
+        await closeTransports(io);
         await new Promise<void>((resolve) => {
           void io.close(() => resolve());
         });
@@ -155,6 +167,21 @@ export function createApplication(deps: ApplicationDeps): Application {
       return closing;
     },
   };
+}
+
+/** Closes each client's connection after its write buffer drains; resolves when all are closed. */
+function closeTransports(io: AppServer): Promise<void> {
+  const conns = new Set([...io.of("/").sockets.values()].map((socket) => socket.conn));
+  return Promise.all(
+    [...conns].map(
+      (conn) =>
+        new Promise<void>((resolve) => {
+          if (conn.readyState === "closed") return resolve();
+          conn.once("close", () => resolve());
+          conn.close();
+        }),
+    ),
+  ).then(() => undefined);
 }
 
 /**

@@ -6,6 +6,7 @@ import { systemClock } from "./clock";
 import { describeLinks, ensureDemoSession } from "./demo";
 import { parseEnv, WEB_DIR } from "./env";
 import { createConsoleLogger } from "./logger";
+import { createShutdown } from "./shutdown";
 import { loadWebApp } from "./web";
 
 async function main() {
@@ -55,30 +56,14 @@ async function main() {
     else logger.info(`sessions are in the database; start a new one at ${baseUrl}/new`);
   }
 
-  let stopping = false;
-  const stop = (signal: string) => {
-    if (stopping) return;
-    stopping = true;
-    logger.info(`${signal}: shutting down`);
-    const force = setTimeout(() => {
-      logger.error("shutdown took too long; exiting");
-      process.exit(1);
-    }, 10_000);
-    force.unref();
-    void (async () => {
-      try {
-        await app.close();
-        await web?.close();
-        await db.close();
-        process.exit(0);
-      } catch (error) {
-        logger.error("shutdown failed", { error });
-        process.exit(1);
-      }
-    })();
-  };
-  process.on("SIGINT", () => stop("SIGINT"));
-  process.on("SIGTERM", () => stop("SIGTERM"));
+  const stop = createShutdown({
+    steps: [() => app.close(), async () => web?.close(), () => db.close()],
+    clock: systemClock,
+    logger,
+    exit: (code) => process.exit(code),
+  });
+  process.on("SIGINT", () => void stop("SIGINT"));
+  process.on("SIGTERM", () => void stop("SIGTERM"));
 }
 
 main().catch((error: unknown) => {

@@ -419,6 +419,9 @@ export function attachSockets(deps: SocketDeps) {
     return ackError(result.code, result.message, result.path);
   }
 
+  /** handlers still running, so a drain can wait for their acks before closing transports */
+  const inFlight = new Set<Promise<void>>();
+
   io.on("connection", (raw) => {
     const socket = raw as AppSocket;
     socket.data.bucket = createTokenBucket(limits.ratePerSecond, limits.rateBurst, clock.now());
@@ -453,10 +456,12 @@ export function attachSockets(deps: SocketDeps) {
         );
         return;
       }
-      work.catch((error: unknown) => {
+      const handled = work.catch((error: unknown) => {
         logger.error("socket handler failed", { event: String(event), error });
         ack(ackError("internal", "internal error"));
       });
+      inFlight.add(handled);
+      void handled.finally(() => inFlight.delete(handled));
     });
   });
 
@@ -465,6 +470,10 @@ export function attachSockets(deps: SocketDeps) {
     stop() {
       for (const timer of pendingProgress.values()) clearTimeout(timer);
       pendingProgress.clear();
+    },
+    /** resolves once every message handler has sent its ack (new ones included) */
+    async settled() {
+      while (inFlight.size > 0) await Promise.all([...inFlight]);
     },
     /** sockets currently registered with a session (for tests and health) */
     connectedTo(sessionId: string): number {

@@ -128,6 +128,7 @@ export {
   createSessionResponseSchema,
   errorBodySchema,
   healthSchema,
+  readySchema,
   parseSessionScenario,
   sessionExportSchema,
   sessionListItemSchema,
@@ -137,6 +138,7 @@ export type {
   CreateSessionResponse,
   ErrorBody,
   Health,
+  Ready,
   SessionExport,
   SessionListItem,
 } from "./rest";

@@ -68,3 +68,15 @@ export const healthSchema = z.object({
   db: z.enum(["pglite", "postgres"]),
 });
 export type Health = z.output<typeof healthSchema>;
+
+/**
+ * GET /api/ready: 200 with ok true when this process can take players (database answers,
+ * every migration applied, not shutting down); 503 with the reason otherwise. Like health,
+ * it says nothing about sessions.
+ */
+export const readySchema = z.object({
+  ok: z.boolean(),
+  db: z.enum(["pglite", "postgres"]),
+  reason: z.enum(["draining", "unreachable", "migrations-pending"]).optional(),
+});
+export type Ready = z.output<typeof readySchema>;

@@ -21,6 +21,7 @@ import { toSessionEvent } from "../live/hub";
 import { summaryRoute } from "./summary";
 import type { Logger } from "../logger";
 import { credentialFrom, readJsonBody, sendError, sendJson, sendText } from "./io";
+import { sendReady } from "./ready";
 
 export interface RestDeps {
   db: Database;
@@ -30,6 +31,8 @@ export interface RestDeps {
   adminKey: string | null;
   publicUrl: string | null;
   version: string;
+  /** true once a shutdown has begun (readiness then answers 503) */
+  draining: () => boolean;
 }
 
 const EXPORT_PATH = /^\/api\/sessions\/([^/]+)\/export\/?$/;
@@ -136,6 +139,9 @@ export function createRestHandler(deps: RestDeps) {
       if (path === "/api/health" || path === "/api/health/") {
         if (method !== "GET" && method !== "HEAD") return methodNotAllowed(res, "GET");
         health(res);
+      } else if (path === "/api/ready" || path === "/api/ready/") {
+        if (method !== "GET" && method !== "HEAD") return methodNotAllowed(res, "GET");
+        await sendReady(res, deps);
       } else if (path === "/api/sessions" || path === "/api/sessions/") {
         if (method === "POST") await createSessionRoute(req, res);
         else if (method === "GET") await listRoute(req, res, url);
