@@ -109,6 +109,26 @@ describe("three or more rivals without a pure equilibrium", () => {
     },
   );
 
+  // seconds under load, as above
+  test(
+    "three identical rivals, logit k = 0.2: mixed, gap confirmed independently",
+    {
+      timeout: 60_000,
+    },
+    () => {
+      const c = normalize({
+        title: "t",
+        prize: 100,
+        csf: { kind: "logit", scale: 0.2 },
+        rivals: [0, 1, 2].map((i) => ({ name: `R${i}`, cost: 1 })),
+      });
+      const eq = solve(c).equilibrium;
+      expectWellFormed(c, eq);
+      for (const u of eq.payoffs!) expect(u).toBeGreaterThanOrEqual(-eq.nashGap);
+      expect(Math.abs(independentGap(c, eq) - eq.nashGap)).toBeLessThan(1e-4 * c.prize);
+    },
+  );
+
   test("four rivals: too many grid points for exact expectations, none-pure with the reason", () => {
     const eq = solve(ratio([1, 1, 1, 1], 3)).equilibrium;
     expect(eq.kind).toBe("none-pure");
