@@ -5,6 +5,7 @@
 import { existsSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import { resolveTarget } from "@contend/db";
 import { z } from "zod";
 
 const here = path.dirname(fileURLToPath(import.meta.url));
@@ -44,6 +45,8 @@ const EnvSchema = z.object({
   /** "off" skips creating the demo session on an empty database */
   DEMO: z.enum(["on", "off"]).default("on"),
   LOG_LEVEL: z.enum(["debug", "info", "warn", "error"]).default("info"),
+  /** worker processes behind one port; only 1 exists today (docs/deploy.md, "Not built yet") */
+  WORKERS: positiveInt(1),
   /** comma-separated extra origins allowed to open sockets (e.g. a separate dev server) */
   ALLOWED_ORIGINS: z.string().optional(),
 });
@@ -92,6 +95,8 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
     throw new Error(`invalid environment:\n${lines.join("\n")}`);
   }
   const e = parsed.data;
+  const workers = workersProblem(e.WORKERS, e.DATABASE_URL);
+  if (workers) throw new Error(`invalid environment:\n  WORKERS: ${workers}`);
   const dataDir = path.join(
     path.resolve(e.CONTEND_DATA_DIR ?? path.join(SERVER_ROOT, "data")),
     "pglite",
@@ -120,4 +125,23 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
       .map((o) => o.trim())
       .filter((o) => o !== ""),
   };
+}
+
+/**
+ * Several workers share one database, which the embedded one cannot be (one process holds its
+ * directory); and the workers themselves are not built yet, so any N > 1 is refused plainly
+ * rather than ignored.
+ */
+function workersProblem(workers: number, databaseUrl: string | undefined): string | null {
+  if (workers === 1) return null;
+  if (databaseUrl === undefined || resolveTarget(databaseUrl).kind !== "postgres") {
+    return (
+      `WORKERS=${workers} needs DATABASE_URL=postgres://...: ` +
+      "the embedded database serves one process only"
+    );
+  }
+  return (
+    `WORKERS=${workers} is not built yet; run one process per PORT behind a proxy ` +
+    "(docs/deploy.md)"
+  );
 }

@@ -112,6 +112,20 @@ describe("parseEnv(source)", () => {
     expect(() => parseEnv({ PROGRESS_PUSH_BUSY_MS: "-1" })).toThrow(/PROGRESS_PUSH_BUSY_MS/);
   });
 
+  it("WORKERS=N refuses with a clear line: without PostgreSQL, and (not built yet) with it", () => {
+    expect(parseEnv({ WORKERS: "1", WEB: "off" }).port).toBe(3000);
+    expect(() => parseEnv({ WORKERS: "4" })).toThrow(
+      /WORKERS=4 needs DATABASE_URL=postgres:\/\/\.\.\.: the embedded database serves one process only/,
+    );
+    expect(() => parseEnv({ WORKERS: "2", DATABASE_URL: "/tmp/contend-pglite" })).toThrow(
+      /needs DATABASE_URL=postgres/,
+    );
+    expect(() =>
+      parseEnv({ WORKERS: "2", DATABASE_URL: "postgres://contend@db.internal/contend" }),
+    ).toThrow(/WORKERS=2 is not built yet/);
+    expect(() => parseEnv({ WORKERS: "0" })).toThrow(/WORKERS/);
+  });
+
   it("parseEnv rejects a non-numeric PORT naming the variable", () => {
     expect(() => parseEnv({ PORT: "eighty" })).toThrow(/PORT/);
   });
