@@ -151,8 +151,15 @@ describe("drain", () => {
     expect(closed).toBe(false);
     expect(disconnects).toEqual([]);
 
+    // a command arriving during the drain is refused, and that refusal is acked too
+    const late = command(seat, { type: "sealMove", clientMoveId: "m-late", effort: 31 });
     release();
     const sealed = expectOk(await ack);
+    expect(await late).toEqual({
+      ok: false,
+      code: "internal",
+      message: "the server is shutting down",
+    });
     await closing;
     expect(closed).toBe(true);
     // a transport close: socket.io clients reconnect by themselves (to another process)
@@ -162,6 +169,7 @@ describe("drain", () => {
       type: "move-sealed",
       clientMoveId: "m-drain",
     });
+    expect(log.some((e) => e.type === "move-sealed" && e.clientMoveId === "m-late")).toBe(false);
   });
 });
 
