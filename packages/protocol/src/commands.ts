@@ -4,6 +4,7 @@ import { LIMITS } from "./limits";
 import { effortSchema, roundNumberSchema, seatIndexSchema } from "./numbers";
 import { policySpecSchema } from "./policy";
 import { shockListSchema } from "./shock";
+import { lineProblem } from "./text";
 import { parseInput } from "./result";
 import type { ParseResult } from "./result";
 import type { Role } from "./roles";
@@ -13,6 +14,15 @@ export const displayNameSchema = z
   .trim()
   .min(1, { error: "must not be empty" })
   .max(LIMITS.displayNameMax, { error: `must be at most ${LIMITS.displayNameMax} characters` });
+
+/** A seat's one-line reason for its move; empty means none. Revealed with the round. */
+export const moveReasonSchema = z
+  .string({ error: "must be a string" })
+  .trim()
+  .max(LIMITS.reasonMax, { error: `must be at most ${LIMITS.reasonMax} characters` })
+  .refine((s) => lineProblem(s) === null, {
+    error: (issue) => lineProblem(String(issue.input)) ?? "must be one line",
+  });
 
 export const clientMoveIdSchema = z
   .string({ error: "must be a string" })
@@ -56,6 +66,8 @@ export const sealMoveSchema = z
     effort: effortSchema.optional(),
     /** optional guard: refused with wrong-state unless this round is the open one */
     round: roundNumberSchema.optional(),
+    /** optional one-line reason, private to the seat until the round resolves */
+    reason: moveReasonSchema.optional(),
   })
   .refine((c) => (c.spend === undefined) !== (c.effort === undefined), {
     error: "give spend (money), or the older effort, not both and not neither",

@@ -74,6 +74,8 @@ export const moveSealedSchema = z.object({
   spend: effortSchema.optional(),
   clientMoveId: clientMoveIdSchema,
   by: z.enum(["seat", "computer"]),
+  /** the seat's one-line reason; absent when none was given */
+  reason: z.string().optional(),
 });
 
 const perSeat = z.array(finiteSchema);
@@ -109,6 +111,8 @@ export const roundResolvedSchema = z.object({
    * maximising expected payoff); 0 where not playing. Absent without private numbers.
    */
   beliefReplySpends: perSeat.optional(),
+  /** per seat: the reason sealed with the move (null: none); absent when no seat gave one */
+  moveReasons: z.array(z.string().nullable()).optional(),
 });
 export const shockAppliedSchema = z.object({
   type: z.literal("shock-applied"),

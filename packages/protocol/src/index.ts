@@ -1,7 +1,7 @@
 export { PROTOCOL_VERSION } from "./version";
 export { LIMITS } from "./limits";
 export { ERROR_CODES, firstProblem, parseInput, parseWith } from "./result";
-export { findTextIssue, nameProblem, RESERVED_KEYS, textProblem } from "./text";
+export { findTextIssue, lineProblem, nameProblem, RESERVED_KEYS, textProblem } from "./text";
 export type { TextIssue } from "./text";
 export type { ErrorCode, ParseResult } from "./result";
 export {

@@ -19,4 +19,6 @@ export const LIMITS = {
   joinCodeMin: 4,
   joinCodeMax: 16,
   nameMax: 80,
+  /** a seat's one-line reason for its move */
+  reasonMax: 140,
 } as const;

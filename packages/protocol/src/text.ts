@@ -51,10 +51,17 @@ export function textProblem(s: string): string | null {
   return null;
 }
 
-/** What is wrong with a name, id, key or code (one line, never an object key), or null. */
-export function nameProblem(s: string): string | null {
+/** What is wrong with a one-line free text (a seat's reason), or null. */
+export function lineProblem(s: string): string | null {
   if (hasLoneSurrogate(s)) return "must not contain a lone surrogate (invalid Unicode)";
   if (CONTROL_IN_NAME.test(s)) return `must not contain ${describeChar(s, CONTROL_IN_NAME)}`;
+  return null;
+}
+
+/** What is wrong with a name, id, key or code (one line, never an object key), or null. */
+export function nameProblem(s: string): string | null {
+  const line = lineProblem(s);
+  if (line) return line;
   if (RESERVED_KEYS.has(s.trim())) return `${JSON.stringify(s.trim())} is a reserved word`;
   return null;
 }

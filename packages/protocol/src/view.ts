@@ -85,6 +85,8 @@ export const roleViewSchema = z.object({
       /** the money sealed this round (null: nothing sealed) */
       sealedSpend: effortSchema.nullable(),
       clientMoveId: z.string().nullable(),
+      /** the reason sealed with this round's move; absent when none */
+      sealedReason: z.string().optional(),
     })
     .optional(),
 });

@@ -146,6 +146,7 @@ export function apply(state: SessionState, event: SessionEvent): SessionState {
         clientMoveId: event.clientMoveId,
         by: event.by,
         replacedIds: prev ? [...prev.replacedIds, prev.clientMoveId] : [],
+        reason: event.reason ?? null,
       };
       return { ...s, ...stamp, open: { ...s.open, moves } };
     }

@@ -288,8 +288,10 @@ function sealMove(state: LiveState, command: CommandOf<"sealMove">, seatIndex: n
     );
   }
   const move = { effort: check.effort, spend: check.spend, clientMoveId: command.clientMoveId };
+  // R26: an optional one-line reason travels with the move, private until the round resolves.
+  const reason = command.reason ? { reason: command.reason } : {};
   return accept(
-    [{ type: "move-sealed", round: open.round, seatIndex, ...move, by: "seat" }],
+    [{ type: "move-sealed", round: open.round, seatIndex, ...move, by: "seat", ...reason }],
     data(move),
   );
 }

@@ -98,6 +98,11 @@ export function resolveRound(
     defaultedBySeat[seat] = defaulted[k]!;
   });
 
+  // Reasons are revealed with the round (R26); logs without any keep their old shape.
+  const reasons = open.moves.map((m) => m?.reason ?? null);
+  while (reasons.length < n) reasons.push(null);
+  const moveReasons = reasons.some((r) => r !== null) ? { moveReasons: reasons } : {};
+
   const event: EventOf<"round-resolved"> = {
     type: "round-resolved",
     round: open.round,
@@ -116,6 +121,7 @@ export function resolveRound(
     equilibrium,
     nashGap: responses.nashGap,
     dissipation: dissipation(contest, efforts),
+    ...moveReasons,
   };
   if (core.settings.hidden) {
     const beliefs = beliefReplies(core, open.round, open.scenario, seats, spends);

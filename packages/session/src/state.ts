@@ -31,6 +31,8 @@ export interface SealedMove {
   by: "seat" | "computer";
   /** clientMoveIds of moves this one replaced in the same round */
   replacedIds: string[];
+  /** the seat's one-line reason (private until the round resolves); null: none */
+  reason: string | null;
 }
 
 export interface OpenRound {

@@ -61,6 +61,7 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
       sealedSpend: mine ? mine.spend : null,
       clientMoveId: mine ? mine.clientMoveId : null,
     };
+    if (mine?.reason) view.you.sealedReason = mine.reason;
   }
   // R41: private numbers stay with their owner (and the facilitator) until the end.
   const own = viewer.role === "seat" ? (viewer.seatIndex ?? null) : null;

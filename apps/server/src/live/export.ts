@@ -68,6 +68,7 @@ export const CSV_HEADER = [
   "defaulted",
   "reason",
   "changesBefore",
+  "moveReason",
 ] as const;
 
 /**
@@ -104,6 +105,7 @@ export function roundsCsv(
         r.defaulted[seat] ?? null,
         r.reason,
         changes,
+        r.moveReasons?.[seat] ?? null,
       ]);
     });
   }
