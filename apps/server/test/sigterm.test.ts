@@ -1,16 +1,14 @@
 /**
- * SIGTERM to a real server process (src/main.ts, started as `npm start` starts it): it drains
- * and exits 0, a connected client sees its transport close (socket.io reconnects after that by
- * itself), the port takes no new connections, and every acked move is in the log afterwards.
- * Nothing here waits on a timer: each step waits for the process's own output or events.
+ * SIGTERM to a real server process (src/main.ts, started by the one helper that starts the
+ * real server, with the Node flags `npm start` uses): it drains and exits 0, a connected
+ * client sees its transport close (socket.io reconnects after that by itself), the port takes
+ * no new connections, and every acked move is in the log afterwards. Nothing here waits on a
+ * timer: each step waits for the process's own output or events.
  */
-import { spawn } from "node:child_process";
 import type { ChildProcess } from "node:child_process";
-import { readFileSync } from "node:fs";
-import path from "node:path";
+import { spawnServer } from "@contend/bench/serverProcess";
 import { openDatabase } from "@contend/db";
 import { afterAll, describe, expect, it } from "vitest";
-import { SERVER_ROOT } from "../src/env";
 import {
   command,
   connect,
@@ -33,34 +31,19 @@ afterAll(() => {
   removeDataDir(dataDir);
 });
 
-/** the Node flags `npm start` uses (package.json config.nodeOptions) */
-function nodeFlags(): string[] {
-  const pkg = JSON.parse(readFileSync(path.join(SERVER_ROOT, "package.json"), "utf8")) as {
-    config?: { nodeOptions?: string };
-  };
-  return (pkg.config?.nodeOptions ?? "").split(" ").filter(Boolean);
-}
-
 /** Starts src/main.ts; resolves with its address once it logs that it listens. */
 function startProcess(): Promise<{ proc: ChildProcess; url: string; output: () => string }> {
-  const proc = spawn(
-    process.execPath,
-    [...nodeFlags(), "--import", "tsx", path.join(SERVER_ROOT, "src/main.ts")],
-    {
-      cwd: SERVER_ROOT,
-      env: {
-        ...process.env,
-        DATABASE_URL: dataDir,
-        PORT: "0",
-        HOST: "127.0.0.1",
-        WEB: "off",
-        DEMO: "off",
-        PUBLIC_URL: "",
-        LOG_LEVEL: "info",
-      },
-      stdio: ["ignore", "pipe", "pipe"],
+  const proc = spawnServer({
+    env: {
+      DATABASE_URL: dataDir,
+      PORT: "0",
+      HOST: "127.0.0.1",
+      WEB: "off",
+      DEMO: "off",
+      PUBLIC_URL: "",
+      LOG_LEVEL: "info",
     },
-  );
+  });
   let out = "";
   const output = () => out;
   return new Promise((resolve, reject) => {
