@@ -17,7 +17,7 @@ export function useSealMove(
   const [confirming, setConfirming] = useState<number | null>(null);
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
-  const pending = useRef<{ round: number; spend: number; id: string } | null>(null);
+  const pending = useRef<{ round: number; spend: number; reason: string; id: string } | null>(null);
 
   // A new round (or a reveal) clears any half-finished confirmation.
   useEffect(() => {
@@ -25,13 +25,22 @@ export function useSealMove(
     setError(null);
   }, [round, status]);
 
-  async function seal(spend: number): Promise<boolean> {
+  /** `reason`: the seat's optional one-line reason (R26), revealed with the round. */
+  async function seal(spend: number, reason = ""): Promise<boolean> {
     setBusy(true);
     setError(null);
     const p = pending.current;
-    const id = p && p.round === round && p.spend === spend ? p.id : newClientMoveId();
-    pending.current = { round, spend, id };
-    const ack = await send({ type: "sealMove", clientMoveId: id, spend, round });
+    const trimmed = reason.trim();
+    const same = p && p.round === round && p.spend === spend && p.reason === trimmed;
+    const id = same ? p.id : newClientMoveId();
+    pending.current = { round, spend, reason: trimmed, id };
+    const ack = await send({
+      type: "sealMove",
+      clientMoveId: id,
+      spend,
+      round,
+      ...(trimmed ? { reason: trimmed } : {}),
+    });
     setBusy(false);
     if (ack.ok) {
       setConfirming(null);

@@ -37,6 +37,7 @@ export function RoundResults({
   const money = (v: number) => formatMoney(v, currency);
   const axis = dark ? "#c9d4e0" : "#4a5565";
   const eqKind = round.equilibrium.kind;
+  const reasons = round.moveReasons ?? null;
   return (
     <div data-testid={`${testPrefix}-results`}>
       <div className="kpis" style={{ marginBottom: "0.75rem" }}>
@@ -109,6 +110,20 @@ export function RoundResults({
           { key: "defaulted", label: "Missed" },
         ]}
       />
+      {reasons ? (
+        <div data-testid={`${testPrefix}-reasons`} style={{ marginTop: "0.75rem" }}>
+          <h4 style={{ margin: "0 0 0.25rem" }}>Reasons given with the moves</h4>
+          <ul className="small" style={{ margin: 0, paddingLeft: "1.2rem" }}>
+            {reasons.map((text, seat) =>
+              text === null ? null : (
+                <li key={seat} data-seat={seat}>
+                  <strong>{names[seat] ?? `Seat ${seat + 1}`}</strong>: {text}
+                </li>
+              ),
+            )}
+          </ul>
+        </div>
+      ) : null}
     </div>
   );
 }

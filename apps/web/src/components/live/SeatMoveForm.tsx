@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import type { RoleView } from "@contend/protocol";
-import { spendStepOf } from "@contend/protocol";
+import { LIMITS, spendStepOf } from "@contend/protocol";
 import type { useSession } from "../../hooks/useSession";
 import { useSealMove } from "../../hooks/useSealMove";
 import { formatMoney, formatNumber } from "../../lib/format";
@@ -24,6 +24,7 @@ export function SeatMoveForm({
   const step = spendStepOf(view.settings);
   const money = (v: number) => formatMoney(v, currency);
   const [text, setText] = useState("");
+  const [reason, setReason] = useState("");
   const { confirming, setConfirming, busy, error, seal } = useSealMove(
     view.round,
     view.status,
@@ -39,8 +40,14 @@ export function SeatMoveForm({
         {sealed !== null ? (
           <>
             <span className="badge accent">sealed</span> You sealed{" "}
-            <strong data-testid="seat-sealed-amount">{money(sealed)}</strong>. You can replace it
-            until the round closes.
+            <strong data-testid="seat-sealed-amount">{money(sealed)}</strong>
+            {you.sealedReason ? (
+              <>
+                {" "}
+                with your reason “<span data-testid="seat-sealed-reason">{you.sealedReason}</span>”
+              </>
+            ) : null}
+            . You can replace it until the round closes.
           </>
         ) : (
           <span className="badge warn">not sealed yet</span>
@@ -98,6 +105,20 @@ export function SeatMoveForm({
               ) : null}
             </span>
           </div>
+          <div className="field" style={{ flex: "2 1 16rem" }}>
+            <label htmlFor="reason-input">
+              Why (optional, one line; others see it only when the round is revealed)
+            </label>
+            <input
+              id="reason-input"
+              type="text"
+              maxLength={LIMITS.reasonMax}
+              value={reason}
+              onChange={(e) => setReason(e.target.value.replace(/[\r\n]+/g, " "))}
+              disabled={!canSeal}
+              data-testid="reason-input"
+            />
+          </div>
           <div className="field">
             <span aria-hidden="true">&nbsp;</span>
             <button
@@ -127,7 +148,10 @@ export function SeatMoveForm({
               type="button"
               className="primary"
               onClick={async () => {
-                if (await seal(confirming)) setText("");
+                if (await seal(confirming, reason)) {
+                  setText("");
+                  setReason("");
+                }
               }}
               disabled={busy || !canSeal}
               data-testid="seal-confirm-button"

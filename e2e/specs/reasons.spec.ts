@@ -1,0 +1,82 @@
+/**
+ * Reasons journey (R26): a seat types a one-line reason with its spend, sees it beside its
+ * sealed amount, and after the reveal the round's table lists it. Screens at 1366x768 and
+ * 390x844 are saved as artifacts.
+ */
+import { createSession } from "../support/api";
+import { connectAs } from "../support/client";
+import { expect, test } from "../support/fixtures";
+import { pathOf, phoneContext } from "../support/live";
+
+const SCENARIO = {
+  title: "Two ferry operators bid for the island mail contract",
+  prize: 500,
+  currency: "EUR",
+  csf: { kind: "ratio", decisiveness: 1 },
+  rivals: [
+    { name: "Gullwing Ferries", cost: 1 },
+    { name: "Saltmarsh Boats", cost: 1 },
+  ],
+  leader: null,
+  session: {
+    outcome: "shares",
+    spendStep: 1,
+    rounds: 2,
+    clockSeconds: null,
+    missingMove: "zero",
+    computer: {},
+  },
+};
+const REASON = "Match last year's winning bid, no more";
+
+test("a seat's reason is sealed with its spend and shown in the revealed round", async ({
+  browser,
+  baseURL,
+  saveScreen,
+}) => {
+  const origin = baseURL!;
+  const created = await createSession(origin, SCENARIO);
+  const fac = await connectAs(origin, {
+    role: "facilitator",
+    sessionId: created.id,
+    key: created.facilitatorKey,
+  });
+  const other = await connectAs(origin, {
+    role: "seat",
+    sessionId: created.id,
+    key: created.seats[1]!.key!,
+  });
+  try {
+    const ctx = await browser.newContext({
+      baseURL: origin,
+      viewport: { width: 1366, height: 768 },
+    });
+    const seat = await ctx.newPage();
+    const link = pathOf(created.seats[0]!.link!);
+    await seat.goto(link);
+    await expect(seat.getByRole("heading", { level: 1, name: "Gullwing Ferries" })).toBeVisible();
+    await fac.command({ type: "openRound" });
+    await expect(seat.getByTestId("spend-input")).toBeEnabled();
+    await seat.getByTestId("spend-input").fill("120");
+    await seat.getByTestId("reason-input").fill(REASON);
+    await seat.getByTestId("seal-button").click();
+    await seat.getByTestId("seal-confirm-button").click();
+    await expect(seat.getByTestId("seat-sealed-reason")).toHaveText(REASON);
+    await saveScreen(seat, "reasons-seat-sealed-1366");
+
+    await other.command({ type: "sealMove", clientMoveId: "o1", spend: 90 });
+    await expect(seat.getByRole("heading", { name: "Round 1 result" })).toBeVisible();
+    const listed = seat.getByTestId("seat-round-reasons").locator("li");
+    await expect(listed).toHaveCount(1);
+    await expect(listed.first()).toHaveText(`Gullwing Ferries: ${REASON}`);
+    await saveScreen(seat, "reasons-seat-result-1366");
+
+    const phone = await (await phoneContext(browser, origin)).newPage();
+    await phone.goto(link);
+    await expect(phone.getByTestId("seat-round-reasons")).toContainText(REASON);
+    await saveScreen(phone, "reasons-seat-result-390");
+  } finally {
+    fac.close();
+    other.close();
+  }
+});
