@@ -7,6 +7,7 @@ import { ConnectionBanner } from "./ConnectionBanner";
 import { SeatHistory } from "./History";
 import { RoundClock } from "./RoundClock";
 import { SeatMoveForm } from "./SeatMoveForm";
+import { PrivateNumbers } from "./PrivateNumbers";
 import { SeatRoundResult } from "./SeatRoundResult";
 import { SeatTerms } from "./SeatTerms";
 import { ShockBanner } from "./ShockBanner";
@@ -90,7 +91,8 @@ function SeatBody({
       {view.status === "open" && move}
       <SeatTerms view={view} />
       {view.status !== "open" && move}
-      <SeatRoundResult view={view} />
+      {!view.hidden?.withheld && <SeatRoundResult view={view} />}
+      <PrivateNumbers view={view} />
       {view.rounds.length > 0 && (
         <section className="card" aria-labelledby="history-title">
           <h2 id="history-title">Your rounds</h2>

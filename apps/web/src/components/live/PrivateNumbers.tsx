@@ -1,0 +1,148 @@
+import type { HiddenView, RoleView } from "@contend/protocol";
+import { formatMoney, formatPercent } from "../../lib/format";
+import { seatNames } from "../../lib/live";
+
+type Range = HiddenView["entries"][number]["range"];
+
+function rangeText(r: Range, money: (v: number) => string): string {
+  return r.dist === "uniform"
+    ? `from ${money(r.low)} to ${money(r.high)}, any value equally likely`
+    : `from ${money(r.low)} to ${money(r.high)}, most likely ${money(r.mode)}`;
+}
+
+function truthOf(view: RoleView, seat: number, field: "cost" | "value"): number {
+  const r = view.scenario.rivals[seat];
+  if (!r) return NaN;
+  return field === "cost" ? r.cost : (r.value ?? view.scenario.prize);
+}
+
+const FIELD_LABEL = { cost: "cost per unit of effort", value: "worth of the prize" } as const;
+
+/**
+ * Sessions with private numbers (docs/protocol.md R40-R44): the ranges this seat plays
+ * against, its rounds with both best replies, and after the end the robust plans beside play.
+ */
+export function PrivateNumbers({ view }: { view: RoleView }) {
+  const hidden = view.hidden;
+  if (!hidden) return null;
+  const seat = view.you?.seatIndex ?? null;
+  const currency = view.scenario.currency ?? null;
+  const money = (v: number | null | undefined) => formatMoney(v ?? NaN, currency);
+  const names = seatNames(view);
+  const others = hidden.entries.filter((e) => e.seatIndex !== seat);
+  const mine = hidden.withheld
+    ? hidden.rounds.filter((r) => r.you !== null).map((r) => ({ round: r.round, ...r.you! }))
+    : seat === null
+      ? []
+      : view.rounds
+          .filter((r) => r.seatIndices.includes(seat))
+          .map((r) => ({
+            round: r.round,
+            spend: r.spends[seat]!,
+            share: r.shares[seat]!,
+            payoff: r.payoffs[seat]!,
+            truthReplySpend: r.bestResponseSpends[seat]!,
+            beliefReplySpend: r.beliefReplySpends?.[seat] ?? null,
+          }));
+  return (
+    <section className="card" aria-labelledby="private-title" data-testid="private-numbers">
+      <h2 id="private-title">What you do not know</h2>
+      {others.length === 0 ? (
+        <p className="muted small">Every rival&apos;s numbers are known to you.</p>
+      ) : (
+        <ul className="small" data-testid="private-ranges">
+          {others.map((e) => (
+            <li key={`${e.seatIndex}-${e.field}`}>
+              {names[e.seatIndex]}: {FIELD_LABEL[e.field]} {rangeText(e.range, money)}
+              {hidden.withheld ? "" : `; the truth: ${money(truthOf(view, e.seatIndex, e.field))}`}
+            </li>
+          ))}
+        </ul>
+      )}
+      <p className="muted small">
+        {hidden.withheld
+          ? "The true numbers are revealed when the session ends. Until then results show spends and shares only."
+          : "The session has ended: every number is revealed."}{" "}
+        A model, not advice; never share plans with real competitors.
+      </p>
+      {mine.length > 0 && (
+        <div className="table-wrap">
+          <table className="small" data-testid="private-rounds">
+            <caption className="muted">Your rounds (money)</caption>
+            <thead>
+              <tr>
+                <th scope="col">Round</th>
+                <th scope="col">You spent</th>
+                <th scope="col">Your share</th>
+                <th scope="col">Your payoff</th>
+                <th scope="col">Best reply, true numbers</th>
+                <th scope="col">Best reply, your beliefs</th>
+              </tr>
+            </thead>
+            <tbody>
+              {mine.map((r) => (
+                <tr key={r.round}>
+                  <td>{r.round}</td>
+                  <td className="num">{money(r.spend)}</td>
+                  <td className="num">{formatPercent(r.share)}</td>
+                  <td className="num">{money(r.payoff)}</td>
+                  <td className="num">{money(r.truthReplySpend)}</td>
+                  <td className="num">{money(r.beliefReplySpend)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+      {mine.length > 0 && (
+        <p className="muted small">
+          Best reply: the spend that would have earned most against what the others actually spent.
+          Under your beliefs, each unknown number is spread over its range and the expected payoff
+          is maximised.
+        </p>
+      )}
+      {hidden.robustPlans.length > 0 && <Debrief view={view} money={money} />}
+    </section>
+  );
+}
+
+/** After the end: the robust plan of each seat beside its average spend and the equilibrium. */
+function Debrief({ view, money }: { view: RoleView; money: (v: number | null) => string }) {
+  const names = seatNames(view);
+  const plans = view.hidden!.robustPlans;
+  const last = view.rounds.at(-1);
+  const played = (i: number) => view.rounds.filter((r) => r.seatIndices.includes(i));
+  const avg = (i: number) => {
+    const rs = played(i);
+    return rs.length ? rs.reduce((s, r) => s + (r.spends[i] ?? 0), 0) / rs.length : null;
+  };
+  return (
+    <div className="table-wrap">
+      <table className="small" data-testid="private-debrief">
+        <caption className="muted">Debrief: play, equilibrium under the truth, robust plan</caption>
+        <thead>
+          <tr>
+            <th scope="col">Rival</th>
+            <th scope="col">Average spend</th>
+            <th scope="col">Equilibrium spend (truth, last round)</th>
+            <th scope="col">Robust plan spend</th>
+            <th scope="col">Plan&apos;s expected payoff</th>
+            <th scope="col">Plan&apos;s P10 payoff</th>
+          </tr>
+        </thead>
+        <tbody>
+          {plans.map((p) => (
+            <tr key={p.seatIndex}>
+              <th scope="row">{names[p.seatIndex]}</th>
+              <td className="num">{money(avg(p.seatIndex))}</td>
+              <td className="num">{money(last?.equilibriumSpends[p.seatIndex] ?? null)}</td>
+              <td className="num">{money(p.spend)}</td>
+              <td className="num">{money(p.expectedPayoff)}</td>
+              <td className="num">{money(p.p10Payoff)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
