@@ -209,3 +209,33 @@ describe("parseScenarioText", () => {
     ]);
   });
 });
+
+describe("private numbers from a loaded file (docs/protocol.md R40)", () => {
+  const file = {
+    title: "Kiosk",
+    prize: 100,
+    csf: { kind: "ratio", decisiveness: 1 },
+    rivals: [
+      { name: "North Bakery", cost: 1 },
+      { name: "Corner Ovens", cost: 2 },
+    ],
+    session: {
+      hidden: {
+        truth: "draw",
+        rivals: { "Corner Ovens": { cost: { dist: "uniform", low: 1.5, high: 3 } } },
+      },
+    },
+  };
+
+  it("survive the form and reach the session scenario; clearing them makes every number public", () => {
+    const loaded = parseScenarioText(JSON.stringify(file));
+    expect(loaded.ok).toBe(true);
+    if (!loaded.ok) return;
+    const r = formToScenario(loaded.form);
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.scenario.session?.hidden).toEqual(file.session.hidden);
+    const cleared = formToScenario({ ...loaded.form, hidden: null });
+    expect(cleared.ok && cleared.scenario.session?.hidden).toBeUndefined();
+  });
+});

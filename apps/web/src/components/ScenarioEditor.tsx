@@ -124,6 +124,23 @@ export function ScenarioEditor() {
               testId="editor-provenance"
             />
           )}
+          {form.hidden && (
+            <p className="notice small" data-testid="editor-hidden">
+              Private numbers (from the loaded file):{" "}
+              {Object.entries(form.hidden.rivals)
+                .map(([name, f]) => `${name} ${Object.keys(f).join(" and ")}`)
+                .join("; ")}
+              . Each seat sees its own numbers and only the ranges of the others until the session
+              ends; the truth is{" "}
+              {form.hidden.truth === "draw"
+                ? "drawn from the ranges when the session starts"
+                : "the numbers in the table"}
+              .{" "}
+              <button type="button" onClick={() => setForm((f) => ({ ...f, hidden: null }))}>
+                Make every number public
+              </button>
+            </p>
+          )}
           <ContestFields form={form} setForm={setForm} errors={errors} />
           <RivalsTable form={form} setForm={setForm} errors={errors} withPolicy />
 

@@ -8,6 +8,7 @@ import { plainError } from "./plain-errors";
 import { POLICY_LABELS, validateScenario } from "@contend/solver";
 import type { CsfSpec, PolicyKind, Provenance, RivalSpec, Scenario } from "@contend/solver";
 import { sessionScenarioSchema, sessionSettingsSchema, spendStepOf } from "@contend/protocol";
+import type { HiddenSettings } from "@contend/protocol";
 import type { SessionScenarioInput } from "./session-types";
 
 export type PolicyChoice = "human" | PolicyKind;
@@ -67,6 +68,8 @@ export interface EditorForm {
   missingMove: "zero" | "repeat";
   /** where the numbers came from (a calibration), kept unchanged into the session */
   provenance: Provenance | null;
+  /** private costs and values (docs/protocol.md R40), kept unchanged from a loaded file */
+  hidden: HiddenSettings | null;
 }
 
 /** value + onChange of one form field, for spreading into a field component. */
@@ -121,6 +124,7 @@ export function defaultForm(): EditorForm {
     clockSeconds: "",
     missingMove: "zero",
     provenance: null,
+    hidden: null,
   };
 }
 
@@ -201,6 +205,7 @@ export function formToSessionRaw(form: EditorForm): Record<string, unknown> {
     clockSeconds: clock === undefined ? null : clock,
     missingMove: form.missingMove,
     computer,
+    ...(form.hidden === null ? {} : { hidden: form.hidden }),
   };
 }
 
@@ -349,6 +354,7 @@ export function scenarioToForm(s: SessionScenarioInput): EditorForm {
     clockSeconds: numberText(session.clockSeconds ?? null),
     missingMove: session.missingMove ?? "zero",
     provenance: s.provenance ?? null,
+    hidden: (session.hidden as HiddenSettings | undefined) ?? null,
   };
 }
 
