@@ -60,11 +60,16 @@ function maskShock(s: ShockRecord, entries: HiddenEntry[], own: number | null): 
 }
 
 /** Adds `hidden` to a view of a session with private numbers, withholding the truth (R41). */
-export function withHidden(state: LiveState, view: RoleView, own: number | null): RoleView {
+export function withHidden(
+  state: LiveState,
+  view: RoleView,
+  own: number | null,
+  revealed = false,
+): RoleView {
   const hidden = state.settings.hidden;
   if (!hidden) return view;
   const entries = entriesOf(state);
-  const withheld = truthWithheld(state, view.role);
+  const withheld = !revealed && truthWithheld(state, view.role);
   const info: HiddenView = {
     truth: hidden.truth,
     entries,

@@ -11,6 +11,11 @@ export interface Viewer {
   role: Role;
   /** for role "seat" */
   seatIndex?: number;
+  /**
+   * true when reading the log of a session that has ended (a replay): a step before the end
+   * shows its private numbers too (R41)
+   */
+  revealed?: boolean;
   /** the session's join code (kept in the database, not the log); shown to the facilitator only */
   joinCode?: string;
 }
@@ -65,5 +70,5 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
   }
   // R41: private numbers stay with their owner (and the facilitator) until the end.
   const own = viewer.role === "seat" ? (viewer.seatIndex ?? null) : null;
-  return withHidden(state, view, own);
+  return withHidden(state, view, own, viewer.revealed === true);
 }

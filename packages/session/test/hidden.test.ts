@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { roleViewSchema } from "@contend/protocol";
-import { viewFor } from "../src/index";
+import { fold, viewFor } from "../src/index";
 import type { Viewer } from "../src/index";
 import { expectLogValid, facilitator, guest, Room, scenarioWith, seat } from "./harness";
 
@@ -140,6 +140,14 @@ describe("R41 views withhold the truth until the end", () => {
       expect(v.rounds, who).toHaveLength(2);
     }
     expectLogValid(room.log);
+
+    // a replay of the ended log shows the truth at a step before the end, not otherwise
+    const step = fold(room.log.slice(0, -1));
+    expect(step.status).toBe("review");
+    const replayed = viewFor(step, { role: "spectator", revealed: true });
+    expect(replayed.hidden!.withheld).toBe(false);
+    expect(has(text(replayed), TRUE_COST)).toBe(true);
+    expect(has(text(viewFor(step, { role: "spectator" })), TRUE_COST)).toBe(false);
   });
 });
 

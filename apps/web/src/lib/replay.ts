@@ -39,7 +39,9 @@ export function viewAfter(
   const n = Math.max(1, Math.min(events.length, Math.floor(count)));
   try {
     const state = fold(events.slice(0, n));
-    return { ok: true, view: viewFor(state, { role: "spectator" }) };
+    // R41: a replay of a session that has ended shows its private numbers at every step.
+    const revealed = events.some((e) => e.type === "session-ended");
+    return { ok: true, view: viewFor(state, { role: "spectator", revealed }) };
   } catch (e) {
     return {
       ok: false,
