@@ -7,6 +7,7 @@ import { formatMoney } from "../../lib/format";
 import { headline } from "../../lib/room-state";
 import { ConnectionBanner } from "./ConnectionBanner";
 import { LiveAnnouncer } from "./LiveAnnouncer";
+import { PrivateNumbers } from "./PrivateNumbers";
 import { ShockBanner } from "./ShockBanner";
 import { RoundClock } from "./RoundClock";
 import { FinalSummary, RevealPanel, SeatTiles, StandingsPanel } from "../screen/ScreenPanels";
@@ -87,7 +88,12 @@ function ScreenBody({ view, clockOffsetMs }: { view: RoleView; clockOffsetMs: nu
             ) : (
               <RevealPanel round={last} view={view} />
             )}
-            <StandingsPanel view={view} />
+            {/* R41: standings need payoffs, which private numbers keep until the end */}
+            {view.hidden?.withheld ? (
+              <PrivateNumbers view={view} screen />
+            ) : (
+              <StandingsPanel view={view} />
+            )}
           </>
         )}
       </div>

@@ -22,7 +22,14 @@ const FIELD_LABEL = { cost: "cost per unit of effort", value: "worth of the priz
  * Sessions with private numbers (docs/protocol.md R40-R44): the ranges this seat plays
  * against, its rounds with both best replies, and after the end the robust plans beside play.
  */
-export function PrivateNumbers({ view }: { view: RoleView }) {
+export function PrivateNumbers({
+  view,
+  screen = false,
+}: {
+  view: RoleView;
+  /** styled as a big-screen panel */
+  screen?: boolean;
+}) {
   const hidden = view.hidden;
   if (!hidden) return null;
   const seat = view.you?.seatIndex ?? null;
@@ -45,8 +52,14 @@ export function PrivateNumbers({ view }: { view: RoleView }) {
             beliefReplySpend: r.beliefReplySpends?.[seat] ?? null,
           }));
   return (
-    <section className="card" aria-labelledby="private-title" data-testid="private-numbers">
-      <h2 id="private-title">What you do not know</h2>
+    <section
+      className={screen ? "screen-panel" : "card"}
+      aria-labelledby="private-title"
+      data-testid="private-numbers"
+    >
+      <h2 id="private-title" className={screen ? "screen-panel-title" : undefined}>
+        {seat === null ? "Private numbers" : "What you do not know"}
+      </h2>
       {others.length === 0 ? (
         <p className="muted small">Every rival&apos;s numbers are known to you.</p>
       ) : (
@@ -65,6 +78,9 @@ export function PrivateNumbers({ view }: { view: RoleView }) {
           : "The session has ended: every number is revealed."}{" "}
         A model, not advice; never share plans with real competitors.
       </p>
+      {hidden.withheld && seat === null && (
+        <PublicRound view={view} money={money} screen={screen} />
+      )}
       {mine.length > 0 && (
         <div className="table-wrap">
           <table className="small" data-testid="private-rounds">
@@ -103,6 +119,46 @@ export function PrivateNumbers({ view }: { view: RoleView }) {
       )}
       {hidden.robustPlans.length > 0 && <Debrief view={view} money={money} />}
     </section>
+  );
+}
+
+/** Withheld views without a seat: the last round's spends and shares, which are public. */
+function PublicRound({
+  view,
+  money,
+  screen,
+}: {
+  view: RoleView;
+  money: (v: number | null) => string;
+  screen: boolean;
+}) {
+  const last = view.hidden!.rounds.at(-1);
+  if (!last) return null;
+  const names = seatNames(view);
+  return (
+    <div className="table-wrap">
+      <table className={screen ? "screen-table" : "small"} data-testid="private-public-round">
+        <caption className="muted">Round {last.round}: spends and shares</caption>
+        <thead>
+          <tr>
+            <th scope="col">Rival</th>
+            <th scope="col">Spend</th>
+            <th scope="col">Share</th>
+          </tr>
+        </thead>
+        <tbody>
+          {names.map((name, i) =>
+            last.played[i] ? (
+              <tr key={i}>
+                <th scope="row">{name}</th>
+                <td className="num">{money(last.spends[i] ?? null)}</td>
+                <td className="num">{formatPercent(last.shares[i] ?? NaN)}</td>
+              </tr>
+            ) : null,
+          )}
+        </tbody>
+      </table>
+    </div>
   );
 }
 
