@@ -80,8 +80,8 @@ describe("move reasons stay private until the reveal", () => {
     }
     expect(lastView(fac).rounds[0]!.moveReasons).toEqual([REASON[0], REASON[1], null]);
     const csv = (await (await fetch(`${base}/export?format=csv`)).text()).trimEnd().split("\r\n");
-    expect(csv[0]!.split(",").at(-1)).toBe("moveReason");
-    expect(csv.slice(1).map((l) => l.split(",").at(-1))).toEqual([REASON[0], REASON[1], ""]);
+    expect(csv[0]!.split(",").at(-2)).toBe("moveReason");
+    expect(csv.slice(1).map((l) => l.split(",").at(-2))).toEqual([REASON[0], REASON[1], ""]);
   });
 
   it("a reason must be one line of at most 140 characters", async () => {

@@ -178,7 +178,7 @@ describe("a full live session over sockets", () => {
     expect(csvRes.headers.get("content-type")).toMatch(/text\/csv/);
     const lines = (await csvRes.text()).trimEnd().split("\r\n");
     expect(lines[0]).toBe(
-      "round,seat,rival,spend,effort,share,payoff,total,bestResponseSpend,bestResponse,regret,equilibriumSpend,equilibriumEffort,defaulted,reason,changesBefore,moveReason",
+      "round,seat,rival,spend,effort,share,payoff,total,bestResponseSpend,bestResponse,regret,equilibriumSpend,equilibriumEffort,defaulted,reason,changesBefore,moveReason,roundNote",
     );
     expect(lines).toHaveLength(1 + 3 * 3);
     const row = lines[1]!.split(",");
@@ -190,9 +190,9 @@ describe("a full live session over sockets", () => {
     expect(lines.filter((l) => l.startsWith("3,"))).toHaveLength(3);
     // the round-3 rows list the shocks applied before it; earlier rows list none
     expect(lines.find((l) => l.startsWith("3,"))).toMatch(
-      /,prize 100 -> 150; Foxglove Prints cost 1\.25 -> 1\.1,$/,
+      /,prize 100 -> 150; Foxglove Prints cost 1\.25 -> 1\.1,,$/,
     );
-    expect(lines[1]).toMatch(/,,$/);
+    expect(lines[1]).toMatch(/,,,$/);
   });
 
   it("a guest claims a free seat with the join code and then plays it with the returned key", async () => {

@@ -80,6 +80,16 @@ export const claimSeatSchema = z.strictObject({
 });
 
 /** Fresh invite link: a new key for a seat, or for the big screen; older keys keep working. */
+/** R27: the facilitator's note on a resolved round (empty text removes it). */
+export const noteRoundSchema = z.strictObject({
+  type: z.literal("noteRound"),
+  round: roundNumberSchema,
+  text: z
+    .string({ error: "must be a string" })
+    .trim()
+    .max(LIMITS.noteMax, { error: `must be at most ${LIMITS.noteMax} characters` }),
+});
+
 export const issueLinksSchema = z.strictObject({
   type: z.literal("issueLinks"),
   /** a seat index: a new seat key; null or absent: a new spectator (big-screen) key */
@@ -97,6 +107,7 @@ export const commandSchema = z.discriminatedUnion("type", [
   sealMoveSchema,
   claimSeatSchema,
   issueLinksSchema,
+  noteRoundSchema,
 ]);
 
 export type Command = z.output<typeof commandSchema>;
@@ -118,6 +129,7 @@ export const COMMAND_ROLES = {
   endSession: ["facilitator"],
   setSeatPolicy: ["facilitator"],
   issueLinks: ["facilitator"],
+  noteRound: ["facilitator"],
   sealMove: ["seat"],
   claimSeat: ["guest", "seat"],
 } as const satisfies Record<CommandType, readonly Role[]>;

@@ -150,6 +150,13 @@ export const sessionEndedSchema = z.object({
   robustPlans: z.array(robustPlanRecordSchema).optional(),
 });
 
+export const roundNotedSchema = z.object({
+  type: z.literal("round-noted"),
+  round: roundNumberSchema,
+  /** the note; empty removes it */
+  text: z.string(),
+});
+
 const bodies = [
   sessionCreatedSchema,
   seatClaimedSchema,
@@ -161,6 +168,7 @@ const bodies = [
   pausedSchema,
   resumedSchema,
   sessionEndedSchema,
+  roundNotedSchema,
 ] as const;
 
 export const eventBodySchema = z.discriminatedUnion("type", bodies);
@@ -178,6 +186,7 @@ export const sessionEventSchema = z.discriminatedUnion("type", [
   pausedSchema.extend(stamp),
   resumedSchema.extend(stamp),
   sessionEndedSchema.extend(stamp),
+  roundNotedSchema.extend(stamp),
 ]);
 
 export type EventBody = z.output<typeof eventBodySchema>;

@@ -21,4 +21,6 @@ export const LIMITS = {
   nameMax: 80,
   /** a seat's one-line reason for its move */
   reasonMax: 140,
+  /** the facilitator's note on a round */
+  noteMax: 500,
 } as const;

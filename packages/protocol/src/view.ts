@@ -40,6 +40,8 @@ export const roundResultSchema = roundResolvedSchema.omit({ type: true }).extend
   spends: z.array(z.number()),
   bestResponseSpends: z.array(z.number()),
   equilibriumSpends: z.array(z.number().nullable()),
+  /** the facilitator's note on the round (R27); absent when none */
+  note: z.string().optional(),
 });
 
 export const shockRecordSchema = z.object({

@@ -33,6 +33,8 @@ const valid: unknown[] = [
   { type: "issueLinks", seatIndex: 1 },
   { type: "issueLinks", seatIndex: null },
   { type: "issueLinks" },
+  { type: "noteRound", round: 2, text: "Both teams held back after the prize rose" },
+  { type: "noteRound", round: 1, text: "" },
 ];
 
 describe("parseCommand", () => {

@@ -178,6 +178,15 @@ export function apply(state: SessionState, event: SessionEvent): SessionState {
         return { ...next, open: { ...next.open, deadline: event.deadline } };
       return next;
     }
+    case "round-noted": {
+      if (!s.rounds.some((r) => r.round === event.round)) corrupt(event, s);
+      const rounds = s.rounds.map((r) => {
+        if (r.round !== event.round) return r;
+        const { note: _old, ...rest } = r;
+        return event.text ? { ...rest, note: event.text } : rest;
+      });
+      return { ...s, ...stamp, rounds };
+    }
     case "session-ended":
       if (s.status === "ended") corrupt(event, s);
       return {

@@ -81,6 +81,8 @@ export function decide(state: SessionState, command: EngineCommand, ctx: DecideC
   if (state.status === "empty") return reject("not-found", "no such session");
   const denied = checkRole(command, ctx.actor);
   if (denied) return denied;
+  // R27: notes on played rounds are for the debrief, so they are taken after the end too.
+  if (command.type === "noteRound") return noteRound(state, command);
   if (state.status === "ended") {
     return reject("wrong-state", "R4: the session has ended; nothing more can change");
   }
@@ -111,6 +113,13 @@ export function decide(state: SessionState, command: EngineCommand, ctx: DecideC
       throw new Error(`unknown command ${JSON.stringify(never)}`);
     }
   }
+}
+
+function noteRound(state: LiveState, command: CommandOf<"noteRound">): Decision {
+  if (!state.rounds.some((r) => r.round === command.round)) {
+    return reject("not-found", `round: R27: round ${command.round} has not been played`, "round");
+  }
+  return accept([{ type: "round-noted", round: command.round, text: command.text }]);
 }
 
 function notPaused(state: LiveState, what: string): Decision | null {

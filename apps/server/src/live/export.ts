@@ -69,6 +69,7 @@ export const CSV_HEADER = [
   "reason",
   "changesBefore",
   "moveReason",
+  "roundNote",
 ] as const;
 
 /**
@@ -106,6 +107,7 @@ export function roundsCsv(
         r.reason,
         changes,
         r.moveReasons?.[seat] ?? null,
+        r.note ?? null,
       ]);
     });
   }

@@ -72,6 +72,8 @@ export function describeEvent(e: SessionEvent, names: readonly string[]): string
       return "Paused";
     case "resumed":
       return "Resumed";
+    case "round-noted":
+      return e.text ? `Note on round ${e.round}: ${e.text}` : `Note on round ${e.round} removed`;
     case "session-ended":
       return e.reason === "rounds-complete"
         ? "Session ended: all rounds played"

@@ -110,6 +110,15 @@ export function RoundResults({
           { key: "defaulted", label: "Missed" },
         ]}
       />
+      {round.note ? (
+        <p
+          className="notice small"
+          data-testid={`${testPrefix}-note`}
+          style={{ marginTop: "0.75rem" }}
+        >
+          <strong>Facilitator&apos;s note:</strong> {round.note}
+        </p>
+      ) : null}
       {reasons ? (
         <div data-testid={`${testPrefix}-reasons`} style={{ marginTop: "0.75rem" }}>
           <h4 style={{ margin: "0 0 0.25rem" }}>Reasons given with the moves</h4>
