@@ -63,7 +63,7 @@ export function PrivateNumbers({
       {others.length === 0 ? (
         <p className="muted small">Every rival&apos;s numbers are known to you.</p>
       ) : (
-        <ul className="small" data-testid="private-ranges">
+        <ul className={screen ? undefined : "small"} data-testid="private-ranges">
           {others.map((e) => (
             <li key={`${e.seatIndex}-${e.field}`}>
               {names[e.seatIndex]}: {FIELD_LABEL[e.field]} {rangeText(e.range, money)}
