@@ -9,6 +9,13 @@ export {
   JOIN_CODE_LENGTH,
 } from "./credentials";
 export {
+  ensureOperatorKey,
+  isOperatorKey,
+  OPERATOR_KEY_FILE,
+  OPERATOR_KEY_MIN_LENGTH,
+} from "./operator-key";
+export type { OperatorKey } from "./operator-key";
+export {
   applyMigrations,
   readMigrations,
   DEFAULT_MIGRATIONS_DIR,

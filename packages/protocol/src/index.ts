@@ -142,7 +142,12 @@ export type {
   SessionExport,
   SessionListItem,
 } from "./rest";
-export type { ClientToServerEvents, PresenceMessage, ServerToClientEvents } from "./socket";
+export type {
+  ClientToServerEvents,
+  PresenceMessage,
+  RevokedMessage,
+  ServerToClientEvents,
+} from "./socket";
 export { attachmentHeader, downloadFileName, fileStem } from "./fileName";
 export {
   sessionSummarySchema,

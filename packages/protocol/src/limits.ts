@@ -23,4 +23,6 @@ export const LIMITS = {
   reasonMax: 140,
   /** the facilitator's note on a round */
   noteMax: 500,
+  /** moves one seat may seal in one round (its first and every replacement) */
+  movesPerSeatPerRound: 30,
 } as const;

@@ -58,6 +58,8 @@ export const sessionExportSchema = z.object({
   rounds: z.array(roundResultSchema),
   /** every shock of the exported log: when, what, and the contest before and after */
   shocks: z.array(shockRecordSchema),
+  /** before the session ends: what the export leaves out (computer policies, seeds) */
+  withheld: z.array(z.string()).optional(),
 });
 export type SessionExport = z.output<typeof sessionExportSchema>;
 

@@ -21,6 +21,17 @@ export interface ServerToClientEvents {
    * loses its last: the seats (indices, ascending) with at least one connected seat page
    */
   presence: (msg: PresenceMessage) => void;
+  /**
+   * This connection's key no longer opens the session (a new link was issued for its seat,
+   * or the session was deleted); the server closes the connection right after.
+   */
+  revoked: (msg: RevokedMessage) => void;
+}
+
+export interface RevokedMessage {
+  reason: "new-link" | "session-deleted";
+  /** a sentence to show as it is */
+  message: string;
 }
 
 /** Who is connected right now. Not an event: it is never logged, exported or replayed. */

@@ -5,7 +5,7 @@
  * protocol document and the tests.
  */
 import { validateScenario } from "@contend/solver";
-import { roleMaySend, spendStepOf } from "@contend/protocol";
+import { LIMITS, roleMaySend, spendStepOf } from "@contend/protocol";
 import type {
   CloseReason,
   Command,
@@ -160,6 +160,13 @@ function issueLinks(state: LiveState, command: CommandOf<"issueLinks">): Decisio
   if (!seat) return reject("not-found", `seatIndex: there is no seat ${seatIndex}`, "seatIndex");
   if (!seat.active)
     return reject("wrong-state", `R25: seat ${seat.index} (${seat.name}) is retired`);
+  if (state.status === "open" && (state.open.moves[seat.index] ?? null) !== null) {
+    return reject(
+      "wrong-state",
+      `R25: seat ${seat.index} (${seat.name}) has sealed its move for round ${state.open.round}; ` +
+        "its new link can be issued once the round is resolved (the move stays its holder's)",
+    );
+  }
   return accept([], { kind: "issueLinks", seatIndex: seat.index });
 }
 
@@ -279,6 +286,12 @@ function sealMove(state: LiveState, command: CommandOf<"sealMove">, seatIndex: n
       "conflict",
       `clientMoveId: ${JSON.stringify(command.clientMoveId)} was used for a move that has since been replaced`,
       "clientMoveId",
+    );
+  }
+  if (current && current.replacedIds.length + 1 >= LIMITS.movesPerSeatPerRound) {
+    return reject(
+      "rate-limited",
+      `R13: at most ${LIMITS.movesPerSeatPerRound} moves per seat in a round; the last one stands`,
     );
   }
   const rival = open.scenario.rivals[k]!;

@@ -1,9 +1,12 @@
 /**
  * viewFor(state, viewer): what one connection may see (R23). Sealed efforts of the open round
  * appear only in their owner's `you`; everyone sees which seats have sealed. Computer
- * policies are shown to the facilitator only. Resolved rounds are public to every role.
+ * policies (in the seats and in the settings) are shown to the facilitator only. Resolved
+ * rounds are public to every role, except the winner draws' seeds: from one of them the
+ * session's 32-bit seed can be searched out, and with it every later computer move and draw,
+ * so they stay with the facilitator until the session ends.
  */
-import type { RoleView, Role, SeatView } from "@contend/protocol";
+import type { RoleView, Role, RoundResult, SeatView, SessionSettings } from "@contend/protocol";
 import type { SessionState } from "./state";
 import { withHidden } from "./hiddenView";
 
@@ -36,6 +39,7 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
     if (viewer.role === "facilitator") seat.policy = s.policy;
     return seat;
   });
+  const trusted = viewer.role === "facilitator";
   const view: RoleView = {
     role: viewer.role,
     sessionId: state.sessionId,
@@ -44,14 +48,14 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
     paused: state.paused,
     remainingMs: state.remainingMs,
     endedReason: state.status === "ended" ? state.endedReason : null,
-    settings: state.settings,
+    settings: trusted ? state.settings : withoutComputer(state.settings),
     round: open ? open.round : state.rounds.length,
     roundsTotal: state.settings.rounds,
     deadline: open ? open.deadline : null,
     scenario: state.scenario,
     roundSeats: open ? open.seatIndices : null,
     seats,
-    rounds: state.rounds,
+    rounds: trusted || state.status === "ended" ? state.rounds : withoutDrawSeeds(state.rounds),
     totals: state.totals,
     shocks: state.shocks,
   };
@@ -71,4 +75,14 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
   // R41: private numbers stay with their owner (and the facilitator) until the end.
   const own = viewer.role === "seat" ? (viewer.seatIndex ?? null) : null;
   return withHidden(state, view, own, viewer.revealed === true);
+}
+
+/** The settings with no computer policy in them (who plays is in `seats[].kind`). */
+export function withoutComputer(settings: SessionSettings): SessionSettings {
+  return Object.keys(settings.computer).length === 0 ? settings : { ...settings, computer: {} };
+}
+
+/** The rounds with their winner draws' seeds left out (null). */
+export function withoutDrawSeeds(rounds: readonly RoundResult[]): RoundResult[] {
+  return rounds.map((r) => (r.drawSeed === null ? r : { ...r, drawSeed: null }));
 }

@@ -1,3 +1,4 @@
+import { LIMITS } from "@contend/protocol";
 import { describe, expect, it } from "vitest";
 import { decide, initialState } from "../src/index";
 import type { EngineCommand } from "../src/index";
@@ -134,15 +135,45 @@ describe("decide: roles", () => {
     const spectatorLink = room.ok({ type: "issueLinks" }, facilitator);
     expect(spectatorLink.events).toEqual([]);
     expect(spectatorLink.data).toEqual({ kind: "issueLinks", seatIndex: null });
-    room.ok({ type: "openRound" }, facilitator);
-    room.ok({ type: "pause" }, facilitator);
     for (const seatIndex of [0, 1]) {
       // seat 1 is computer-played: a link for a person to take it over later
       const d = room.ok({ type: "issueLinks", seatIndex }, facilitator);
       expect(d.events).toEqual([]);
       expect(d.data).toEqual({ kind: "issueLinks", seatIndex });
     }
+    room.ok({ type: "openRound" }, facilitator);
+    room.ok({ type: "pause" }, facilitator);
+    // seat 0 has not sealed yet: its link may be reissued while the round is open and paused
+    expect(room.ok({ type: "issueLinks", seatIndex: 0 }, facilitator).events).toEqual([]);
     expect(room.log.map((e) => e.type)).not.toContain("seat-claimed");
+  });
+
+  it("R25: no new link for a seat with a sealed move in the open round (computer seats seal at open)", () => {
+    const room = new Room(scenarioWith({ computer: { "Corner Ovens": { kind: "equilibrium" } } }));
+    room.ok({ type: "openRound" }, facilitator);
+    room.ok({ type: "sealMove", clientMoveId: "a", effort: 5 }, seat(0));
+    for (const seatIndex of [0, 1]) {
+      expectRejected(
+        room.send({ type: "issueLinks", seatIndex }, facilitator),
+        "wrong-state",
+        /R25.*sealed/,
+      );
+    }
+    room.ok({ type: "closeRound" }, facilitator);
+    expect(room.ok({ type: "issueLinks", seatIndex: 0 }, facilitator).events).toEqual([]);
+  });
+
+  it("R13: a seat seals at most LIMITS.movesPerSeatPerRound moves in a round; the last stands", () => {
+    const room = new Room(scenarioWith());
+    room.ok({ type: "openRound" }, facilitator);
+    for (let i = 0; i < LIMITS.movesPerSeatPerRound; i++) {
+      room.ok({ type: "sealMove", clientMoveId: `m${i}`, effort: i % 2 ? 5 : 6 }, seat(0));
+    }
+    expectRejected(
+      room.send({ type: "sealMove", clientMoveId: "one-too-many", effort: 7 }, seat(0)),
+      "rate-limited",
+      /R13/,
+    );
   });
 
   it("R25: issueLinks for a missing or retired seat is refused", () => {

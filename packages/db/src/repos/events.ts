@@ -11,7 +11,10 @@ export interface AppendEffects {
   status?: string;
   /** Seats to mark claimed (with seat-claimed); fails the whole append if one is already taken. */
   claimSeats?: { seatIndex: number; displayName: string }[];
-  /** Keys to store hashed (e.g. the key handed to whoever claimed a seat). */
+  /**
+   * Keys to store hashed (e.g. the key handed to whoever claimed a seat). A seat key added here
+   * revokes that seat's earlier keys: a seat is held by one key at a time.
+   */
   addKeys?: KeyInput[];
 }
 
@@ -78,6 +81,14 @@ export function eventsRepository(db: Db, runner: SqlRunner) {
             }
           }
           if (effects.addKeys?.length) {
+            const seats = effects.addKeys.flatMap((k) =>
+              k.role === "seat" && k.seatIndex !== null ? [k.seatIndex] : [],
+            );
+            if (seats.length > 0) {
+              await tx.accessKey.deleteMany({
+                where: { sessionId, role: "seat", seatIndex: { in: seats } },
+              });
+            }
             await tx.accessKey.createMany({ data: keyRows(sessionId, effects.addKeys) });
           }
           return { ok: true, seqs } as const;

@@ -23,6 +23,20 @@ export function keysRepository(db: Db, runner: SqlRunner) {
     },
 
     /**
+     * A new key for a seat that revokes every earlier key of that seat, in one transaction: a
+     * seat is held by one key at a time, so a fresh link takes it from whoever held the old one.
+     * Returns how many keys were revoked.
+     */
+    async replaceSeat(sessionId: string, seatIndex: number, plaintext: string) {
+      const [row] = keyRows(sessionId, [{ role: "seat", seatIndex, plaintext }]);
+      const [revoked] = await db.$transaction([
+        db.accessKey.deleteMany({ where: { sessionId, role: "seat", seatIndex } }),
+        db.accessKey.create({ data: row! }),
+      ]);
+      return { id: row!.id, revoked: revoked.count };
+    },
+
+    /**
      * What a key grants in a session, or null. The lookup is by hash through a unique index,
      * so there is no byte-by-byte comparison of secrets to time: an attacker would have to
      * find a sha256 preimage; a constant-time compare would add nothing here.

@@ -96,6 +96,28 @@ export function sessionsRepository(db: Db) {
     async list(): Promise<SessionSummary[]> {
       return db.session.findMany({ select: summarySelect, orderBy: { createdAt: "desc" } });
     },
+
+    /**
+     * Deletes a session for good: its seats, keys and events go with it (the foreign keys
+     * cascade), in one statement. Returns false when there was no such session.
+     */
+    async delete(id: string): Promise<boolean> {
+      const { count } = await db.session.deleteMany({ where: { id } });
+      return count === 1;
+    },
+
+    /** Deletes every session with no activity since `before` (the retention period); their ids. */
+    async deleteIdleSince(before: Date): Promise<string[]> {
+      const rows = await db.session.findMany({
+        where: { updatedAt: { lt: before } },
+        select: { id: true },
+      });
+      if (rows.length === 0) return [];
+      const ids = rows.map((r) => r.id);
+      await db.session.deleteMany({ where: { id: { in: ids }, updatedAt: { lt: before } } });
+      return ids;
+    },
+
   };
   return repo;
 }
