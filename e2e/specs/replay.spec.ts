@@ -106,7 +106,10 @@ test("replay(finished 3-round session) steps round by round and its downloads eq
   const exported = (await exportJson(origin, created.id)) as Exported;
   const csv = await exportCsv(origin, created.id);
 
-  // The replay list names the session and links to it.
+  // The replay list names the sessions whose facilitator consoles this browser has opened,
+  // and links to them: open the console once, then the list.
+  await page.goto(`/facilitate/${created.id}#key=${created.facilitatorKey}`);
+  await expect(page.getByRole("heading", { level: 1, name: SCENARIO.title })).toBeVisible();
   await page.goto("/replays");
   await expect(page.getByRole("heading", { name: "Past sessions" })).toBeVisible();
   await expect(page.getByTestId("replays-table")).toContainText(SCENARIO.title);

@@ -6,10 +6,13 @@ import type { Browser, BrowserContext, Locator, Page } from "@playwright/test";
 import { expect } from "@playwright/test";
 import { mentions } from "./frames";
 
-/** Path and query of an absolute or relative link, so pages open on the test server's origin. */
+/**
+ * Path, query and fragment (where keys travel) of an absolute or relative link, so pages open
+ * on the test server's origin.
+ */
 export function pathOf(link: string): string {
   const u = new URL(link, "http://placeholder");
-  return `${u.pathname}${u.search}`;
+  return `${u.pathname}${u.search}${u.hash}`;
 }
 
 export const PHONE = { width: 390, height: 844 } as const;

@@ -15,6 +15,7 @@ import {
 import os from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import { E2E_OPERATOR_KEY } from "./api";
 import { freePort, spawnServer, waitForHttp } from "@contend/bench/serverProcess";
 
 export { freePort, REPO_ROOT, SERVER_DIR } from "@contend/bench/serverProcess";
@@ -76,6 +77,14 @@ export class ServerProcess {
         // Several browser contexts share 127.0.0.1; keep the per-connection limits generous.
         RATE_LIMIT_PER_SECOND: "200",
         RATE_LIMIT_BURST: "400",
+        // ... and the per-address ones (every context comes from 127.0.0.1; the server tests
+        // measure the limits themselves).
+        LIMIT_CONNECTIONS_PER_IP: "100000",
+        LIMIT_CONNECTS_PER_IP_PER_MINUTE: "100000",
+        LIMIT_MESSAGES_PER_IP_PER_SECOND: "100000",
+        LIMIT_AUTH_FAILURES_PER_IP_PER_MINUTE: "100000",
+        LIMIT_SESSIONS_PER_IP_PER_HOUR: "100000",
+        CONTEND_OPERATOR_KEY: E2E_OPERATOR_KEY,
         ...this.options.env,
       },
       detached: true,

@@ -13,6 +13,8 @@ import { systemClock } from "./clock";
 import type { Clock } from "./clock";
 import { DEFAULT_LIMITS } from "./env";
 import type { Limits } from "./env";
+import { createAbuseBudgets } from "./abuse";
+import { setApiHeaders, setPageHeaders } from "./http/headers";
 import { sendError, sendText } from "./http/io";
 import { createRestHandler } from "./http/rest";
 import { createSessionHub } from "./live/hub";
@@ -37,7 +39,10 @@ export interface ApplicationDeps {
   /** development only: Next's hot-reload upgrade handler */
   webUpgrade?: NextUpgradeHandler | null;
   limits?: Partial<Limits>;
-  adminKey?: string | null;
+  /** sha256 of the operator key (db's ensureOperatorKey); null or absent: no operator key */
+  operatorKeyDigest?: Buffer | null;
+  /** Next.js development mode: its hot reload needs eval in the page policy */
+  webDev?: boolean;
   publicUrl?: string | null;
   /** origins allowed to open sockets besides the server's own (e.g. a separate dev server) */
   allowedOrigins?: string[];
@@ -51,6 +56,8 @@ export interface Application {
   hub: SessionHub;
   /** rebuild every session that has not ended and re-arm its round clock */
   restore(): Promise<number>;
+  /** a session was deleted outside a request (retention): forget it and close its sockets */
+  sessionDeleted(sessionId: string): void;
   listen(port: number, host: string): Promise<{ port: number; host: string }>;
   close(): Promise<void>;
 }
@@ -64,15 +71,19 @@ export function createApplication(deps: ApplicationDeps): Application {
   const hub = createSessionHub({ db: deps.db, clock, logger });
   const load = deps.load ?? eventLoopGauge();
   let draining = false;
+  const budgets = createAbuseBudgets(limits);
+  let sessionDeleted = (_sessionId: string) => {};
   const api = createRestHandler({
     db: deps.db,
     clock,
     logger,
     limits,
-    adminKey: deps.adminKey ?? null,
+    operatorKeyDigest: deps.operatorKeyDigest ?? null,
     publicUrl: deps.publicUrl ?? null,
     version: SERVER_VERSION,
     draining: () => draining,
+    budgets,
+    onDeleted: (id) => sessionDeleted(id),
   });
   const web = deps.web ?? null;
   const webUpgrade = deps.webUpgrade ?? null;
@@ -80,10 +91,12 @@ export function createApplication(deps: ApplicationDeps): Application {
 
   async function onRequest(req: IncomingMessage, res: ServerResponse) {
     try {
+      const path = (req.url ?? "/").split("?")[0] ?? "/";
+      if (web && !path.startsWith("/api/")) setPageHeaders(req, res, deps.webDev ?? false);
+      else setApiHeaders(res);
       if (await api(req, res)) return;
       if (web) return await web(req, res);
-      const path = (req.url ?? "/").split("?")[0];
-      if (path === "/" || !path?.startsWith("/_next")) {
+      if (path === "/" || !path.startsWith("/_next")) {
         sendText(res, 200, placeholderPage(), "text/html; charset=utf-8");
       } else {
         sendError(res, 404, "not-found", "the web app is not built");
@@ -123,7 +136,12 @@ export function createApplication(deps: ApplicationDeps): Application {
     limits,
     publicUrl: deps.publicUrl ?? null,
     load,
+    budgets,
   });
+  sessionDeleted = (id) => {
+    hub.forget(id);
+    sockets.sessionDeleted(id);
+  };
 
   let closing: Promise<void> | null = null;
 
@@ -132,6 +150,7 @@ export function createApplication(deps: ApplicationDeps): Application {
     io,
     hub,
     restore: () => hub.restoreAll(),
+    sessionDeleted: (id) => sessionDeleted(id),
     listen(port, host) {
       return new Promise((resolve, reject) => {
         const onError = (error: Error) => reject(error);

@@ -7,6 +7,8 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { resolveTarget } from "@contend/db";
 import { z } from "zod";
+import { DEFAULT_ABUSE_LIMITS } from "./abuse";
+import type { AbuseLimits } from "./abuse";
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 /** apps/server */
@@ -24,8 +26,21 @@ const EnvSchema = z.object({
   DATABASE_URL: z.string().min(1).optional(),
   /** where the embedded database lives when DATABASE_URL is not set */
   CONTEND_DATA_DIR: z.string().min(1).optional(),
-  /** when set, listing and exporting sessions need this key (or the session's facilitator key) */
-  CONTEND_ADMIN_KEY: z.string().min(8).optional(),
+  /**
+   * opens every session's list and export; unset: one is made on first start, printed once,
+   * and only its sha256 kept in the data directory
+   */
+  CONTEND_OPERATOR_KEY: z.string().min(24, { error: "must be at least 24 characters" }).optional(),
+  /** delete sessions with no activity for this many days (checked hourly); unset: keep */
+  CONTEND_RETAIN_DAYS: z.coerce.number().int().positive().optional(),
+  /** "on" behind a reverse proxy: limits count the last X-Forwarded-For address */
+  TRUST_PROXY: z.enum(["on", "off"]).default("off"),
+  /** abuse limits per client address (see docs/security.md) */
+  LIMIT_CONNECTIONS_PER_IP: positiveInt(200),
+  LIMIT_CONNECTS_PER_IP_PER_MINUTE: positiveInt(400),
+  LIMIT_MESSAGES_PER_IP_PER_SECOND: positiveInt(400),
+  LIMIT_AUTH_FAILURES_PER_IP_PER_MINUTE: positiveInt(20),
+  LIMIT_SESSIONS_PER_IP_PER_HOUR: positiveInt(30),
   WEB: z.enum(["on", "off"]).optional(),
   /** Next.js development mode (hot reload); off for `npm start` */
   WEB_DEV: z.enum(["on", "off"]).default("off"),
@@ -55,7 +70,10 @@ export interface ServerEnv {
   port: number;
   host: string;
   databaseUrl: string;
-  adminKey: string | null;
+  /** where the server keeps its files (the embedded database, the operator key's digest) */
+  dataDir: string;
+  operatorKey: string | null;
+  retainDays: number | null;
   web: boolean;
   webDev: boolean;
   publicUrl: string | null;
@@ -65,7 +83,7 @@ export interface ServerEnv {
   allowedOrigins: string[];
 }
 
-export interface Limits {
+export interface Limits extends AbuseLimits {
   ratePerSecond: number;
   rateBurst: number;
   maxMessageBytes: number;
@@ -83,6 +101,7 @@ export const DEFAULT_LIMITS: Limits = {
   maxBodyBytes: 256 * 1024,
   progressPushMs: 200,
   progressPushBusyMs: 1_000,
+  ...DEFAULT_ABUSE_LIMITS,
 };
 
 /** Parses an environment (process.env by default); throws with every problem listed. */
@@ -97,16 +116,16 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
   const e = parsed.data;
   const workers = workersProblem(e.WORKERS, e.DATABASE_URL);
   if (workers) throw new Error(`invalid environment:\n  WORKERS: ${workers}`);
-  const dataDir = path.join(
-    path.resolve(e.CONTEND_DATA_DIR ?? path.join(SERVER_ROOT, "data")),
-    "pglite",
-  );
+  const root = path.resolve(e.CONTEND_DATA_DIR ?? path.join(SERVER_ROOT, "data"));
+  const dataDir = path.join(root, "pglite");
   const web = e.WEB ? e.WEB === "on" : existsSync(path.join(WEB_DIR, ".next"));
   return {
     port: e.PORT,
     host: e.HOST,
     databaseUrl: e.DATABASE_URL ?? dataDir,
-    adminKey: e.CONTEND_ADMIN_KEY ?? null,
+    dataDir: root,
+    operatorKey: e.CONTEND_OPERATOR_KEY ?? null,
+    retainDays: e.CONTEND_RETAIN_DAYS ?? null,
     web,
     webDev: e.WEB_DEV === "on",
     publicUrl: e.PUBLIC_URL ? e.PUBLIC_URL.replace(/\/+$/, "") : null,
@@ -117,6 +136,12 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
       maxBodyBytes: e.MAX_BODY_BYTES,
       progressPushMs: e.PROGRESS_PUSH_MS,
       progressPushBusyMs: e.PROGRESS_PUSH_BUSY_MS,
+      connectionsPerIp: e.LIMIT_CONNECTIONS_PER_IP,
+      connectsPerIpPerMinute: e.LIMIT_CONNECTS_PER_IP_PER_MINUTE,
+      messagesPerIpPerSecond: e.LIMIT_MESSAGES_PER_IP_PER_SECOND,
+      authFailuresPerIpPerMinute: e.LIMIT_AUTH_FAILURES_PER_IP_PER_MINUTE,
+      sessionsPerIpPerHour: e.LIMIT_SESSIONS_PER_IP_PER_HOUR,
+      trustProxy: e.TRUST_PROXY === "on",
     },
     demo: e.DEMO === "on",
     logLevel: e.LOG_LEVEL,

@@ -1,7 +1,10 @@
 /** Starts the server: environment, database, web app, sessions restored, then listen. */
 import path from "node:path";
-import { openDatabase } from "@contend/db";
+import { ensureOperatorKey, openDatabase } from "@contend/db";
+import type { Database } from "@contend/db";
 import { createApplication } from "./app";
+import type { Application } from "./app";
+import type { Logger } from "./logger";
 import { systemClock } from "./clock";
 import { describeLinks, ensureDemoSession } from "./demo";
 import { parseEnv, WEB_DIR } from "./env";
@@ -12,6 +15,7 @@ import { loadWebApp } from "./web";
 async function main() {
   const env = parseEnv();
   const logger = createConsoleLogger(env.logLevel);
+  const operator = ensureOperatorKey(env.dataDir, env.operatorKey);
   const db = await openDatabase({ url: env.databaseUrl });
   logger.info("database open", {
     kind: db.kind,
@@ -41,7 +45,8 @@ async function main() {
     web: web?.handle ?? null,
     webUpgrade: web?.upgrade ?? null,
     limits: env.limits,
-    adminKey: env.adminKey,
+    operatorKeyDigest: operator.digest,
+    webDev: env.webDev,
     publicUrl: env.publicUrl,
     allowedOrigins: env.allowedOrigins,
   });
@@ -50,6 +55,15 @@ async function main() {
   const shownHost = env.host === "0.0.0.0" || env.host === "::" ? "localhost" : env.host;
   const baseUrl = env.publicUrl ?? `http://${shownHost}:${port}`;
   logger.info(`listening on ${baseUrl}`, { restoredSessions: restored });
+  if (operator.created) {
+    // Printed this once; only its digest is kept (docs/security.md).
+    console.log(
+      `\nOperator key (shown once; it lists and exports every session, keep it safe):\n  ${operator.created}\n` +
+        `Open ${baseUrl}/replays#operator=${operator.created} to see every session.\n`,
+    );
+  }
+  const stopRetention =
+    env.retainDays === null ? () => {} : startRetention(db, env.retainDays, app, logger);
   if (env.demo) {
     const demo = await ensureDemoSession(db, { now: systemClock.now(), baseUrl });
     if (demo) console.log(`\n${describeLinks(demo)}\n`);
@@ -57,13 +71,36 @@ async function main() {
   }
 
   const stop = createShutdown({
-    steps: [() => app.close(), async () => web?.close(), () => db.close()],
+    steps: [
+      async () => stopRetention(),
+      () => app.close(),
+      async () => web?.close(),
+      () => db.close(),
+    ],
     clock: systemClock,
     logger,
     exit: (code) => process.exit(code),
   });
   process.on("SIGINT", () => void stop("SIGINT"));
   process.on("SIGTERM", () => void stop("SIGTERM"));
+}
+
+/** Deletes sessions idle for longer than the retention period: at start, then every hour. */
+function startRetention(db: Database, days: number, app: Application, logger: Logger): () => void {
+  const sweep = async () => {
+    const before = new Date(systemClock.now() - days * 86_400_000);
+    const ids = await db.sessions.deleteIdleSince(before);
+    for (const id of ids) {
+      app.sessionDeleted(id);
+      logger.info("session deleted", { sessionId: id, by: `retention (${days} days)` });
+    }
+  };
+  const run = () =>
+    void sweep().catch((error: unknown) => logger.error("retention failed", { error }));
+  run();
+  const timer = setInterval(run, 3_600_000);
+  timer.unref();
+  return () => clearInterval(timer);
 }
 
 main().catch((error: unknown) => {

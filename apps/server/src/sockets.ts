@@ -27,6 +27,7 @@ import type {
   IssueLinksAckData,
   PatchOp,
   Role,
+  RevokedMessage,
   RoleView,
   ServerToClientEvents,
 } from "@contend/protocol";
@@ -39,6 +40,8 @@ import { baseUrlOf, sessionLinks } from "./live/links";
 import { progressWindowMs } from "./loadGauge";
 import type { LoadGauge } from "./loadGauge";
 import type { Logger } from "./logger";
+import { clientAddress } from "./abuse";
+import type { AbuseBudgets } from "./abuse";
 import { createTokenBucket } from "./rateLimit";
 import type { TokenBucket } from "./rateLimit";
 
@@ -54,6 +57,8 @@ interface Identity {
 
 interface SocketData {
   bucket: TokenBucket;
+  /** the client address the per-address limits count against */
+  address: string;
   identity: Identity | null;
   /** consecutive rate-limited messages; a client that keeps flooding is disconnected */
   strikes: number;
@@ -93,10 +98,12 @@ export interface SocketDeps {
   publicUrl: string | null;
   /** how busy the process is; stretches the progress window under load */
   load: LoadGauge;
+  /** per-address limits shared by every connection (abuse.ts) */
+  budgets: AbuseBudgets;
 }
 
 export function attachSockets(deps: SocketDeps) {
-  const { io, db, hub, clock, logger, limits, publicUrl, load } = deps;
+  const { io, db, hub, clock, logger, limits, publicUrl, load, budgets } = deps;
   /** sockets that said hello, by session */
   const rooms = new Map<string, Set<AppSocket>>();
   /** per session: seat index -> how many seat sockets of that seat are connected */
@@ -228,16 +235,32 @@ export function attachSockets(deps: SocketDeps) {
     pendingProgress.set(live.id, timer);
   });
 
+  /**
+   * Who the credentials make this connection. Failed join codes and keys count against the
+   * address (`authFailuresPerIpPerMinute`); past that budget every attempt is refused unread,
+   * so codes cannot be guessed at speed.
+   */
   async function authenticate(
     credentials: Credentials,
+    address: string,
   ): Promise<{ ok: true; identity: Identity } | AckError> {
+    if (!(await budgets.authFailures.left(address))) {
+      return ackError(
+        "rate-limited",
+        `too many wrong join codes or keys from this address; wait a minute (at most ${limits.authFailuresPerIpPerMinute} a minute)`,
+      );
+    }
     if (credentials.role === "guest") {
       const session = await db.sessions.byJoinCode(normaliseJoinCode(credentials.joinCode));
-      if (!session) return ackError("not-found", "no session has this join code");
+      if (!session) {
+        await budgets.authFailures.take(address);
+        return ackError("not-found", "no session has this join code");
+      }
       return { ok: true, identity: { role: "guest", sessionId: session.id } };
     }
     const grant = await db.keys.resolve(credentials.sessionId, credentials.key);
     if (!grant || grant.role !== credentials.role) {
+      await budgets.authFailures.take(address);
       return ackError(
         "unauthorized",
         `this key does not open session ${credentials.sessionId} as ${credentials.role}`,
@@ -294,7 +317,7 @@ export function attachSockets(deps: SocketDeps) {
   async function hello(socket: AppSocket, raw: unknown, ack: AnyAck): Promise<void> {
     const parsed = parseHello(raw);
     if (!parsed.ok) return ack(ackError(parsed.code, parsed.message, parsed.path));
-    const auth = await authenticate(parsed.value.credentials);
+    const auth = await authenticate(parsed.value.credentials, socket.data.address);
     if (!auth.ok) return ack(auth);
     const { identity } = auth;
     const live = await hub.get(identity.sessionId);
@@ -400,7 +423,21 @@ export function attachSockets(deps: SocketDeps) {
   ): Promise<IssueLinksAckData> {
     const key = newKey();
     const role = seatIndex === null ? "spectator" : "seat";
-    await db.keys.add(identity.sessionId, role, seatIndex, key);
+    if (seatIndex === null) await db.keys.add(identity.sessionId, role, null, key);
+    else {
+      // A seat is held by one key at a time: the new link revokes the old ones (R25).
+      await db.keys.replaceSeat(identity.sessionId, seatIndex, key);
+      revoke(
+        (id) =>
+          id.sessionId === identity.sessionId && id.role === "seat" && id.seatIndex === seatIndex,
+        {
+          reason: "new-link",
+          message:
+            "The facilitator has given this seat a new link, so this one no longer opens it. " +
+            "If the seat is yours, ask the facilitator for the new link.",
+        },
+      );
+    }
     const links = sessionLinks(
       baseUrlOf(publicUrl, socket.request),
       identity.sessionId,
@@ -414,6 +451,49 @@ export function attachSockets(deps: SocketDeps) {
       link: seatIndex === null ? links.spectator(key) : links.seat(key),
     };
   }
+
+  /** Tells the sockets whose key no longer works why, then closes them. */
+  function revoke(which: (identity: Identity) => boolean, msg: RevokedMessage) {
+    for (const room of rooms.values()) {
+      for (const socket of [...room]) {
+        const identity = socket.data.identity;
+        if (!identity || !which(identity)) continue;
+        leave(socket);
+        socket.emit("revoked", msg);
+        socket.disconnect(true);
+      }
+    }
+  }
+
+  /** Per-address connection limits: how many at once, and how many new ones a minute. */
+  const openByAddress = new Map<string, number>();
+  io.use((raw, next) => {
+    const socket = raw as AppSocket;
+    const address = clientAddress(socket.request, limits.trustProxy);
+    const open = openByAddress.get(address) ?? 0;
+    if (open >= limits.connectionsPerIp) {
+      return next(
+        new Error(`rate-limited: at most ${limits.connectionsPerIp} connections per address`),
+      );
+    }
+    void budgets.connects.take(address).then((ok) => {
+      if (!ok) {
+        return next(
+          new Error(
+            `rate-limited: at most ${limits.connectsPerIpPerMinute} new connections a minute`,
+          ),
+        );
+      }
+      socket.data.address = address;
+      openByAddress.set(address, (openByAddress.get(address) ?? 0) + 1);
+      socket.on("disconnect", () => {
+        const n = (openByAddress.get(address) ?? 1) - 1;
+        if (n <= 0) openByAddress.delete(address);
+        else openByAddress.set(address, n);
+      });
+      next();
+    }, next);
+  });
 
   function failure(result: Extract<ExecuteResult, { ok: false }>): AckError {
     return ackError(result.code, result.message, result.path);
@@ -445,9 +525,16 @@ export function attachSockets(deps: SocketDeps) {
       socket.data.strikes = 0;
       const payload = typeof last === "function" ? args.slice(0, -1) : args;
       let work: Promise<void>;
-      if (event === "hello") work = hello(socket, payload[0], ack);
-      else if (event === "command") work = command(socket, payload[0]).then(ack);
-      else {
+      const within = budgets.messages.take(socket.data.address);
+      const refused = ackError(
+        "rate-limited",
+        `slow down: at most ${limits.messagesPerIpPerSecond} messages per second from one address`,
+      );
+      if (event === "hello") {
+        work = within.then((ok) => (ok ? hello(socket, payload[0], ack) : ack(refused)));
+      } else if (event === "command") {
+        work = within.then(async (ok) => ack(ok ? await command(socket, payload[0]) : refused));
+      } else {
         ack(
           ackError(
             "bad-request",
@@ -470,6 +557,13 @@ export function attachSockets(deps: SocketDeps) {
     stop() {
       for (const timer of pendingProgress.values()) clearTimeout(timer);
       pendingProgress.clear();
+    },
+    /** tells every socket of a deleted session so, and closes them */
+    sessionDeleted(sessionId: string) {
+      revoke((id) => id.sessionId === sessionId, {
+        reason: "session-deleted",
+        message: "This session has been deleted by its facilitator.",
+      });
     },
     /** resolves once every message handler has sent its ack (new ones included) */
     async settled() {

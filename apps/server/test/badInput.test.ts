@@ -16,8 +16,15 @@ import {
 import type { Client } from "./helpers";
 import { printShops } from "./fixtures";
 
-// generous rate limits here, so that the flood reaches validation instead of the limiter
-const file = serverForFile({ limits: { ratePerSecond: 1e6, rateBurst: 1e6 } });
+// generous limits here (per connection and per address), so that the flood reaches validation
+const file = serverForFile({
+  limits: {
+    ratePerSecond: 1e6,
+    rateBurst: 1e6,
+    messagesPerIpPerSecond: 1e6,
+    authFailuresPerIpPerMinute: 1e6,
+  },
+});
 const client = file.client;
 
 /** emit without the typed event map, as a hostile client would */

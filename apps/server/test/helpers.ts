@@ -159,6 +159,11 @@ export async function createSessionOverHttp(
   return (await res.json()) as CreateSessionResponse;
 }
 
+/** GET with the key in the Authorization header (the only place REST reads keys from). */
+export function getWithKey(url: string, key: string): Promise<Response> {
+  return fetch(url, { headers: { authorization: `Bearer ${key}` } });
+}
+
 export async function eventLog(db: Database, sessionId: string): Promise<SessionEvent[]> {
   return (await db.events.list(sessionId)).map(toSessionEvent);
 }

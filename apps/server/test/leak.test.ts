@@ -4,6 +4,7 @@ import {
   createSessionOverHttp,
   eventually,
   expectOk,
+  getWithKey,
   hello,
   lastView,
   serverForFile,
@@ -51,9 +52,10 @@ describe("sealed moves stay private", () => {
       expect(lastView(seats[2]!).seats.filter((s) => s.sealed)).toHaveLength(2),
     );
 
-    const exportBefore = await (await fetch(`${file.server.url}/api/sessions/${id}/export`)).text();
+    const exportUrl = `${file.server.url}/api/sessions/${id}/export`;
+    const exportBefore = await (await getWithKey(exportUrl, created.facilitatorKey)).text();
     const csvBefore = await (
-      await fetch(`${file.server.url}/api/sessions/${id}/export?format=csv`)
+      await getWithKey(`${exportUrl}?format=csv`, created.facilitatorKey)
     ).text();
 
     const others: [Client, string][] = [
@@ -88,7 +90,7 @@ describe("sealed moves stay private", () => {
       await eventually(() => expect(lastView(c).rounds).toHaveLength(1));
       for (const secret of SECRET) expect(everything(c)).toContain(secret);
     }
-    const exportAfter = await (await fetch(`${file.server.url}/api/sessions/${id}/export`)).text();
+    const exportAfter = await (await getWithKey(exportUrl, created.facilitatorKey)).text();
     for (const secret of SECRET) expect(exportAfter).toContain(secret);
   });
 });

@@ -25,7 +25,7 @@ async function facilitatorOf(sessionId: string, key: string) {
 }
 
 function keyOf(link: string): string {
-  return new URL(link).searchParams.get("key") ?? "";
+  return new URLSearchParams(new URL(link).hash.slice(1)).get("key") ?? "";
 }
 
 describe("issueLinks over sockets", () => {
@@ -51,9 +51,17 @@ describe("issueLinks over sockets", () => {
     expect(screen.view).not.toHaveProperty("joinCode");
   });
 
-  it("issueLinks(seat 1) returns a new seat key that opens seat 1 and seals; the old key still works", async () => {
+  it("issueLinks(seat 1) returns a new seat key that opens seat 1 and seals; the old key is revoked and its holder told", async () => {
     const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 1 }));
     const { socket: f } = await facilitatorOf(created.id, created.facilitatorKey);
+    const holder = await client();
+    expectOk(
+      await hello(holder, { role: "seat", sessionId: created.id, key: created.seats[1]!.key }),
+    );
+    const told = new Promise<{ reason: string; message: string }>((resolve) =>
+      holder.once("revoked", resolve),
+    );
+    const closed = new Promise<void>((resolve) => holder.once("disconnect", () => resolve()));
     const before = (await eventLog(file.server.db, created.id)).length;
     const data = expectOk(
       await command(f, { type: "issueLinks", seatIndex: 1 }),
@@ -62,30 +70,60 @@ describe("issueLinks over sockets", () => {
     expect(data.key).toMatch(/^[A-Za-z0-9_-]{43}$/);
     expect(data.key).not.toBe(created.seats[1]!.key);
     expect(data.link).toBe(
-      `${file.server.url}/seat/${encodeURIComponent(created.id)}?key=${data.key}`,
+      `${file.server.url}/seat/${encodeURIComponent(created.id)}#key=${data.key}`,
     );
     expect(keyOf(data.link)).toBe(data.key);
     // no event for a link
     expect(await eventLog(file.server.db, created.id)).toHaveLength(before);
+    expect(await told).toMatchObject({
+      reason: "new-link",
+      message: expect.stringMatching(/new link/),
+    });
+    await closed;
 
     const fresh = await client();
     const s = expectOk(await hello(fresh, { role: "seat", sessionId: created.id, key: data.key }));
     expect(s.seatIndex).toBe(1);
     expect(s.view.seats[1]).toMatchObject({ claimed: true });
-    const old = expectOk(
-      await hello(await client(), {
-        role: "seat",
-        sessionId: created.id,
-        key: created.seats[1]!.key,
-      }),
-    );
-    expect(old.seatIndex).toBe(1);
+    const old = await hello(await client(), {
+      role: "seat",
+      sessionId: created.id,
+      key: created.seats[1]!.key,
+    });
+    expect(old).toMatchObject({ ok: false, code: "unauthorized" });
 
     expectOk(await command(f, { type: "openRound" }));
     const sealed = expectOk(
       await command(fresh, { type: "sealMove", clientMoveId: "new-link-1", effort: 10 }),
     );
     expect(sealed).toMatchObject({ seatIndex: 1, effort: 10 });
+  });
+
+  it("R25: no new link for a seat that has sealed in the open round: its move is neither shown nor replaced", async () => {
+    const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 1 }));
+    const { socket: f } = await facilitatorOf(created.id, created.facilitatorKey);
+    const player = await client();
+    expectOk(
+      await hello(player, { role: "seat", sessionId: created.id, key: created.seats[0]!.key }),
+    );
+    expectOk(await command(f, { type: "openRound" }));
+    expectOk(await command(player, { type: "sealMove", clientMoveId: "mine", effort: 23.75 }));
+    const refused = await command(f, { type: "issueLinks", seatIndex: 0 });
+    expect(refused).toMatchObject({
+      ok: false,
+      code: "wrong-state",
+      message: expect.stringMatching(/R25/),
+    });
+    // the player's key still works and its move stands
+    const again = expectOk(
+      await hello(await client(), {
+        role: "seat",
+        sessionId: created.id,
+        key: created.seats[0]!.key,
+      }),
+    );
+    expect(again.view.you).toMatchObject({ sealedEffort: 23.75, clientMoveId: "mine" });
+    expect(f.received.join("\n")).not.toContain("23.75");
   });
 
   it("issueLinks(null) returns a spectator key for the big screen, which is no seat key", async () => {
@@ -95,7 +133,7 @@ describe("issueLinks over sockets", () => {
       const data = expectOk(await command(f, cmd)) as IssueLinksAckData;
       expect(data).toMatchObject({ role: "spectator", seatIndex: null });
       expect(data.link).toBe(
-        `${file.server.url}/screen/${encodeURIComponent(created.id)}?key=${data.key}`,
+        `${file.server.url}/screen/${encodeURIComponent(created.id)}#key=${data.key}`,
       );
       const screen = expectOk(
         await hello(await client(), { role: "spectator", sessionId: created.id, key: data.key }),
@@ -155,7 +193,7 @@ describe("issueLinks with PUBLIC_URL", () => {
         await command(f, { type: "issueLinks", seatIndex: 0 }),
       ) as IssueLinksAckData;
       expect(data.link).toBe(
-        `https://contest.example.test/seat/${encodeURIComponent(created.id)}?key=${data.key}`,
+        `https://contest.example.test/seat/${encodeURIComponent(created.id)}#key=${data.key}`,
       );
       f.disconnect();
     } finally {

@@ -1,13 +1,17 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { healthSchema, sessionListSchema } from "@contend/protocol";
-import { createApplication } from "../src/app";
-import { createSessionOverHttp, removeDataDir, startServer } from "./helpers";
+import { hashKey } from "@contend/db";
+import { createSessionOverHttp, getWithKey, removeDataDir, startServer } from "./helpers";
 import type { TestServer } from "./helpers";
 import { printShops } from "./fixtures";
 
+const OPERATOR_KEY = "operator-key-for-the-rest-tests";
 let server: TestServer;
 beforeAll(async () => {
-  server = await startServer({ publicUrl: "https://workshop.example.org" });
+  server = await startServer({
+    publicUrl: "https://workshop.example.org",
+    operatorKeyDigest: Buffer.from(hashKey(OPERATOR_KEY), "hex"),
+  });
 });
 afterAll(async () => {
   await server.stop();
@@ -43,16 +47,18 @@ describe("REST", () => {
     const body = (await res.json()) as Awaited<ReturnType<typeof createSessionOverHttp>>;
     expect(body.joinCode).toMatch(/^[2-9A-HJKMNP-Z]{6}$/);
     expect(body.links.facilitator).toBe(
-      `https://workshop.example.org/facilitate/${body.id}?key=${body.facilitatorKey}`,
+      `https://workshop.example.org/facilitate/${body.id}#key=${body.facilitatorKey}`,
     );
-    expect(body.links.spectator).toContain(`/screen/${body.id}?key=`);
+    expect(body.links.spectator).toContain(`/screen/${body.id}#key=`);
     expect(body.links.join).toBe(`https://workshop.example.org/join?code=${body.joinCode}`);
     expect(body.seats.map((s) => [s.kind, s.key === null, s.link === null])).toEqual([
       ["human", false, false],
       ["human", false, false],
       ["computer", true, true],
     ]);
-    const list = sessionListSchema.parse(await (await fetch(`${server.url}/api/sessions`)).json());
+    const list = sessionListSchema.parse(
+      await (await getWithKey(`${server.url}/api/sessions`, OPERATOR_KEY)).json(),
+    );
     expect(list.find((s) => s.id === body.id)).toMatchObject({ status: "lobby", rounds: 0 });
   });
 
@@ -96,9 +102,9 @@ describe("REST", () => {
     expect((await errorOf(r1)).code).toBe("not-found");
     const r2 = await fetch(`${server.url}/api/health`, { method: "DELETE" });
     expect(r2.status).toBe(405);
-    const r3 = await fetch(`${server.url}/api/sessions/nope/export`);
+    const r3 = await getWithKey(`${server.url}/api/sessions/nope/export`, OPERATOR_KEY);
     expect(r3.status).toBe(404);
-    const r4 = await fetch(`${server.url}/api/sessions/%E0%A4%A/export`);
+    const r4 = await getWithKey(`${server.url}/api/sessions/%E0%A4%A/export`, OPERATOR_KEY);
     expect(r4.status).toBe(404);
   });
 
@@ -108,28 +114,21 @@ describe("REST", () => {
     expect(await res.text()).toContain("web app has not been built");
   });
 
-  it("with CONTEND_ADMIN_KEY set, listing needs it and exporting needs it or the facilitator key", async () => {
+  it("listing needs the operator key; exporting needs it or the facilitator key, in the Authorization header", async () => {
     const created = await createSessionOverHttp(server.url, printShops());
-    const app = createApplication({ db: server.db, adminKey: "admin-secret-123" });
-    const { port } = await app.listen(0, "127.0.0.1");
-    const base = `http://127.0.0.1:${port}`;
-    try {
-      expect((await fetch(`${base}/api/sessions`)).status).toBe(401);
-      const listed = await fetch(`${base}/api/sessions`, {
-        headers: { authorization: "Bearer admin-secret-123" },
-      });
-      expect(listed.status).toBe(200);
-      const exportUrl = `${base}/api/sessions/${created.id}/export`;
-      expect((await fetch(exportUrl)).status).toBe(401);
-      expect((await fetch(`${exportUrl}?key=${created.spectatorKey}`)).status).toBe(401);
-      expect((await fetch(`${exportUrl}?key=${created.facilitatorKey}`)).status).toBe(200);
-      expect((await fetch(`${exportUrl}?key=admin-secret-123&format=csv`)).status).toBe(200);
-      const wrongFormat = await fetch(`${exportUrl}?key=admin-secret-123&format=xml`);
-      expect(wrongFormat.status).toBe(400);
-      expect((await errorOf(wrongFormat)).path).toBe("format");
-    } finally {
-      await app.close();
-    }
+    const base = server.url;
+    expect((await fetch(`${base}/api/sessions`)).status).toBe(401);
+    expect((await getWithKey(`${base}/api/sessions`, created.facilitatorKey)).status).toBe(403);
+    expect((await getWithKey(`${base}/api/sessions`, OPERATOR_KEY)).status).toBe(200);
+    const exportUrl = `${base}/api/sessions/${created.id}/export`;
+    expect((await fetch(exportUrl)).status).toBe(401);
+    // a key in the query string is not read
+    expect((await fetch(`${exportUrl}?key=${created.facilitatorKey}`)).status).toBe(401);
+    expect((await getWithKey(exportUrl, created.facilitatorKey)).status).toBe(200);
+    expect((await getWithKey(`${exportUrl}?format=csv`, OPERATOR_KEY)).status).toBe(200);
+    const wrongFormat = await getWithKey(`${exportUrl}?format=xml`, OPERATOR_KEY);
+    expect(wrongFormat.status).toBe(400);
+    expect((await errorOf(wrongFormat)).path).toBe("format");
   });
 
   it("exports download as files named after the session's title and creation date", async () => {

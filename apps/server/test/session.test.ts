@@ -14,6 +14,7 @@ import {
   lastView,
   serverForFile,
 } from "./helpers";
+import { getWithKey } from "./helpers";
 import { printShops } from "./fixtures";
 
 const clock = createManualClock();
@@ -159,7 +160,7 @@ describe("a full live session over sockets", () => {
     // Export: the JSON record is the event log, the rounds are the views' rounds.
     const log = await eventLog(file.server.db, id);
     const exported = (await (
-      await fetch(`${file.server.url}/api/sessions/${id}/export`)
+      await getWithKey(`${file.server.url}/api/sessions/${id}/export`, created.facilitatorKey)
     ).json()) as {
       session: { id: string; status: string; rounds: number };
       events: unknown[];
@@ -174,7 +175,10 @@ describe("a full live session over sockets", () => {
     expect(exported.session).toMatchObject({ id, status: "ended", rounds: 3 });
     expect(log.map((e) => e.seq)).toEqual(log.map((_, i) => i + 1));
 
-    const csvRes = await fetch(`${file.server.url}/api/sessions/${id}/export?format=csv`);
+    const csvRes = await getWithKey(
+      `${file.server.url}/api/sessions/${id}/export?format=csv`,
+      created.facilitatorKey,
+    );
     expect(csvRes.headers.get("content-type")).toMatch(/text\/csv/);
     const lines = (await csvRes.text()).trimEnd().split("\r\n");
     expect(lines[0]).toBe(

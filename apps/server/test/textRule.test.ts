@@ -16,7 +16,15 @@ import {
 } from "./helpers";
 import { printShops } from "./fixtures";
 
-const file = serverForFile({ limits: { ratePerSecond: 1e6, rateBurst: 1e6 } });
+// generous limits here (per connection and per address), so that the flood reaches validation
+const file = serverForFile({
+  limits: {
+    ratePerSecond: 1e6,
+    rateBurst: 1e6,
+    messagesPerIpPerSecond: 1e6,
+    authFailuresPerIpPerMinute: 1e6,
+  },
+});
 
 const BAD_PIECES = [
   "\u0000",

@@ -91,7 +91,8 @@ describe("parseEnv(source)", () => {
     const env = parseEnv({ WEB: "off" });
     expect(env.port).toBe(3000);
     expect(env.host).toBe("0.0.0.0");
-    expect(env.adminKey).toBeNull();
+    expect(env.operatorKey).toBeNull();
+    expect(env.retainDays).toBeNull();
     expect(env.web).toBe(false);
     expect(env.limits).toEqual({
       ratePerSecond: 20,
@@ -100,6 +101,12 @@ describe("parseEnv(source)", () => {
       maxBodyBytes: 262144,
       progressPushMs: 200,
       progressPushBusyMs: 1000,
+      connectionsPerIp: 200,
+      connectsPerIpPerMinute: 400,
+      messagesPerIpPerSecond: 400,
+      authFailuresPerIpPerMinute: 20,
+      sessionsPerIpPerHour: 30,
+      trustProxy: false,
     });
     expect(env.databaseUrl).toMatch(/data\/pglite$/);
   });

@@ -43,8 +43,15 @@ export async function createSession(base: string, body: unknown): Promise<Create
   return (await res.json()) as CreatedSession;
 }
 
+/**
+ * The operator key every benchmark server is started with (child.ts): it exports any session.
+ * A bench-only value for servers on loopback that live for one run.
+ */
+export const BENCH_OPERATOR_KEY = "bench-operator-key-for-loopback-runs-only";
+
 export async function exportEvents(base: string, id: string): Promise<ExportedEvent[]> {
   const res = await fetch(`${base}/api/sessions/${encodeURIComponent(id)}/export`, {
+    headers: { authorization: `Bearer ${BENCH_OPERATOR_KEY}` },
     signal: AbortSignal.timeout(30_000),
   });
   if (!res.ok) throw new Error(`export ${id}: ${res.status} ${await res.text()}`);

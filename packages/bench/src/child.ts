@@ -9,6 +9,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { HOST, SERVER_MAIN, spawnServer, waitForHttp as waitForAnswer } from "./serverProcess";
+import { BENCH_OPERATOR_KEY } from "./api";
 
 export { freePort, HOST, REPO_ROOT, SERVER_MAIN, serverNodeFlags } from "./serverProcess";
 
@@ -125,6 +126,15 @@ export interface ServerOptions {
  * The real server: API and sockets only (WEB=off), no demo session, embedded PGlite in dataDir;
  * or PostgreSQL when BENCH_DATABASE_URL names an empty database (the server migrates it).
  */
+/** Per-address limits far above anything a benchmark sends from loopback. */
+export const UNLIMITED_ADDRESS = {
+  LIMIT_CONNECTIONS_PER_IP: "1000000",
+  LIMIT_CONNECTS_PER_IP_PER_MINUTE: "1000000",
+  LIMIT_MESSAGES_PER_IP_PER_SECOND: "1000000",
+  LIMIT_AUTH_FAILURES_PER_IP_PER_MINUTE: "1000000",
+  LIMIT_SESSIONS_PER_IP_PER_HOUR: "1000000",
+} as const;
+
 export async function startServer(opts: ServerOptions): Promise<Child> {
   const child = startChild(
     SERVER_MAIN,
@@ -136,6 +146,10 @@ export async function startServer(opts: ServerOptions): Promise<Child> {
       CONTEND_DATA_DIR: opts.dataDir,
       DATABASE_URL: benchDatabase() === "embedded PGlite" ? "" : benchDatabase(),
       LOG_LEVEL: "warn",
+      CONTEND_OPERATOR_KEY: BENCH_OPERATOR_KEY,
+      // Every simulated client comes from this one address: lift the per-address limits
+      // (they are measured by the server tests, not here).
+      ...UNLIMITED_ADDRESS,
       ...opts.env,
     },
     opts.port,

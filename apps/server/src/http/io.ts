@@ -14,8 +14,10 @@ export function readJsonBody(req: IncomingMessage, limit: number): Promise<BodyR
       resolve(tooLarge(limit));
       return;
     }
+    // A body without a JSON type is refused: a form or text/plain POST is what a cross-site
+    // page can send without asking, so only application/json is read.
     const type = String(req.headers["content-type"] ?? "");
-    if (type !== "" && !/^application\/([\w.+-]+\+)?json\b/i.test(type)) {
+    if (!/^application\/([\w.+-]+\+)?json\b/i.test(type)) {
       req.resume();
       resolve({
         ok: false,
@@ -114,13 +116,13 @@ export function sendError(
   sendJson(res, status, { error: { code, path, message } });
 }
 
-/** Bearer token from Authorization, else ?key= from the query string. */
-export function credentialFrom(req: IncomingMessage, url: URL): string | null {
+/**
+ * The key of a request: the Bearer token of its Authorization header. Keys never travel in a
+ * query string, where proxies log them and browsers keep them in history.
+ */
+export function credentialFrom(req: IncomingMessage): string | null {
   const header = req.headers.authorization;
-  if (typeof header === "string") {
-    const m = /^Bearer\s+(.+)$/i.exec(header.trim());
-    if (m?.[1]) return m[1].trim();
-  }
-  const key = url.searchParams.get("key");
-  return key && key.length > 0 ? key : null;
+  if (typeof header !== "string") return null;
+  const m = /^Bearer\s+(\S+)\s*$/i.exec(header.trim());
+  return m?.[1] ?? null;
 }

@@ -1,17 +1,25 @@
 /**
  * The JSON endpoints under /api. Every body is validated by the protocol package; failures
  * answer {error: {code, path, message}} naming the field, and nothing internal leaks out.
+ * Nothing about a session is read without a key for it (docs/security.md): the operator key
+ * lists and exports every session, a facilitator key its own; keys travel only in the
+ * Authorization header. An id the key does not open answers exactly like an unknown id.
  */
 import type { IncomingMessage, ServerResponse } from "node:http";
 import type { Database } from "@contend/db";
+import { isOperatorKey } from "@contend/db";
 import {
   attachmentHeader,
   downloadFileName,
   nameProblem,
+  parseInput,
   parseSessionScenario,
 } from "@contend/protocol";
 import type { Health } from "@contend/protocol";
 import { fold, truthSealed } from "@contend/session";
+import { z } from "zod";
+import { clientAddress } from "../abuse";
+import type { AbuseBudgets } from "../abuse";
 import type { Clock } from "../clock";
 import type { Limits } from "../env";
 import { buildExport, listItem, roundsCsv } from "../live/export";
@@ -28,46 +36,86 @@ export interface RestDeps {
   clock: Clock;
   logger: Logger;
   limits: Limits;
-  adminKey: string | null;
+  /** sha256 of the operator key; null: no operator (facilitator keys only) */
+  operatorKeyDigest: Buffer | null;
   publicUrl: string | null;
   version: string;
   /** true once a shutdown has begun (readiness then answers 503) */
   draining: () => boolean;
+  budgets: AbuseBudgets;
+  /** a session was deleted: drop it from memory and close its sockets */
+  onDeleted(sessionId: string): void;
 }
 
+const SESSION_PATH = /^\/api\/sessions\/([^/]+)\/?$/;
 const EXPORT_PATH = /^\/api\/sessions\/([^/]+)\/export\/?$/;
 const SUMMARY_PATH = /^\/api\/sessions\/([^/]+)\/summary\/?$/;
+const MINE_PATH = /^\/api\/sessions\/mine\/?$/;
+
+/** Sessions a browser asks about at once (POST /api/sessions/mine). */
+export const MINE_MAX = 200;
+
+const mineBodySchema = z.strictObject({
+  sessions: z
+    .array(z.strictObject({ id: z.string().min(1).max(64), key: z.string().min(1).max(128) }))
+    .max(MINE_MAX, { error: `must list at most ${MINE_MAX} sessions` }),
+});
+
+type Access = "operator" | "facilitator" | "none";
 
 export function createRestHandler(deps: RestDeps) {
   const { db } = deps;
 
-  /** With an admin key configured, reading sessions needs it (or that session's facilitator key). */
-  async function allowed(req: IncomingMessage, url: URL, sessionId: string | null) {
-    if (deps.adminKey === null) return true;
-    const presented = credentialFrom(req, url);
-    if (presented === null) return false;
-    if (presented === deps.adminKey) return true;
-    if (sessionId === null) return false;
+  /** What the request's key opens: every session (operator), this one (facilitator), or nothing. */
+  async function access(presented: string, sessionId: string | null): Promise<Access> {
+    if (isOperatorKey(deps.operatorKeyDigest, presented)) return "operator";
+    if (sessionId === null) return "none";
     const grant = await db.keys.resolve(sessionId, presented);
-    return grant?.role === "facilitator";
+    return grant?.role === "facilitator" ? "facilitator" : "none";
+  }
+
+  function noKey(res: ServerResponse, what: string) {
+    res.setHeader("www-authenticate", "Bearer");
+    sendError(res, 401, "unauthorized", `${what} needs a key: send Authorization: Bearer <key>`);
+  }
+
+  /** The one answer for an id that is unknown or that the key does not open. */
+  function noSession(res: ServerResponse) {
+    sendError(res, 404, "not-found", "no session with this id opens with this key");
   }
 
   async function createSessionRoute(req: IncomingMessage, res: ServerResponse) {
+    const address = clientAddress(req, deps.limits.trustProxy);
     const body = await readJsonBody(req, deps.limits.maxBodyBytes);
     if (!body.ok) return sendError(res, body.status, body.code, body.message);
     const parsed = parseSessionScenario(body.value);
     if (!parsed.ok) return sendError(res, 400, parsed.code, parsed.message, parsed.path);
+    if (!(await deps.budgets.sessions.take(address))) {
+      return sendError(
+        res,
+        429,
+        "rate-limited",
+        `at most ${deps.limits.sessionsPerIpPerHour} new sessions an hour from one address`,
+      );
+    }
     const created = await createLiveSession(db, parsed.value, {
       now: deps.clock.now(),
       baseUrl: baseUrlOf(deps.publicUrl, req),
     });
-    deps.logger.info("session created", { sessionId: created.id, title: parsed.value.title });
+    deps.logger.info("session created", { sessionId: created.id });
     sendJson(res, 201, created);
   }
 
-  async function listRoute(req: IncomingMessage, res: ServerResponse, url: URL) {
-    if (!(await allowed(req, url, null))) {
-      return sendError(res, 401, "unauthorized", "listing sessions needs the admin key");
+  async function listRoute(req: IncomingMessage, res: ServerResponse) {
+    const presented = credentialFrom(req);
+    if (presented === null) return noKey(res, "listing sessions");
+    if ((await access(presented, null)) !== "operator") {
+      return sendError(
+        res,
+        403,
+        "forbidden",
+        "listing every session needs the operator key; a browser lists its own with POST /api/sessions/mine",
+      );
     }
     const [summaries, counts] = await Promise.all([
       db.sessions.list(),
@@ -80,22 +128,35 @@ export function createRestHandler(deps: RestDeps) {
     );
   }
 
-  async function exportRoute(req: IncomingMessage, res: ServerResponse, url: URL, id: string) {
-    if (id.length > 64) return sendError(res, 404, "not-found", "no such session");
-    if (!(await allowed(req, url, id))) {
-      return sendError(
-        res,
-        401,
-        "unauthorized",
-        "exporting needs the admin key or the session's facilitator key",
-      );
+  /** The sessions among those listed whose facilitator key is right; the others are left out. */
+  async function mineRoute(req: IncomingMessage, res: ServerResponse) {
+    const body = await readJsonBody(req, deps.limits.maxBodyBytes);
+    if (!body.ok) return sendError(res, body.status, body.code, body.message);
+    const parsed = parseInput(mineBodySchema, body.value);
+    if (!parsed.ok) return sendError(res, 400, parsed.code, parsed.message, parsed.path);
+    const open: string[] = [];
+    for (const { id, key } of parsed.value.sessions) {
+      const grant = await db.keys.resolve(id, key);
+      if (grant?.role === "facilitator") open.push(id);
     }
+    const [summaries, counts] = await Promise.all([
+      Promise.all(open.map((id) => db.sessions.get(id))),
+      db.events.countOfType("round-resolved"),
+    ]);
+    const items = summaries.flatMap((s) => (s ? [listItem(s, counts[s.id] ?? 0)] : []));
+    sendJson(res, 200, items);
+  }
+
+  async function exportRoute(req: IncomingMessage, res: ServerResponse, url: URL, id: string) {
+    const presented = credentialFrom(req);
+    if (presented === null) return noKey(res, "exporting a session");
+    if ((await access(presented, id)) === "none") return noSession(res);
     const format = url.searchParams.get("format") ?? "json";
     if (format !== "json" && format !== "csv") {
       return sendError(res, 400, "bad-request", "format: must be json or csv", "format");
     }
     const summary = await db.sessions.get(id);
-    if (!summary) return sendError(res, 404, "not-found", "no such session");
+    if (!summary) return noSession(res);
     const events = (await db.events.list(id)).map(toSessionEvent);
     // R41: a session with private numbers exports once it has ended, never before.
     const state = fold(events);
@@ -124,9 +185,55 @@ export function createRestHandler(deps: RestDeps) {
     );
   }
 
+  /** DELETE /api/sessions/<id>: final; events, seats and keys go with it; logged. */
+  async function deleteRoute(req: IncomingMessage, res: ServerResponse, id: string) {
+    const presented = credentialFrom(req);
+    if (presented === null) return noKey(res, "deleting a session");
+    const who = await access(presented, id);
+    if (who === "none") return noSession(res);
+    if (!(await db.sessions.delete(id))) return noSession(res);
+    deps.onDeleted(id);
+    deps.logger.info("session deleted", { sessionId: id, by: who });
+    res.writeHead(204, { "cache-control": "no-store" });
+    res.end();
+  }
+
   function health(res: ServerResponse) {
     const body: Health = { ok: true, version: deps.version, db: db.kind };
     sendJson(res, 200, body);
+  }
+
+  async function sessionRoute(
+    req: IncomingMessage,
+    res: ServerResponse,
+    url: URL,
+    method: string,
+    path: string,
+  ): Promise<void> {
+    const summarised = SUMMARY_PATH.exec(path);
+    if (summarised) {
+      if (method !== "GET") return void methodNotAllowed(res, "GET");
+      const sid = safeDecode(summarised[1] ?? "");
+      if (sid === null) return noSession(res);
+      const presented = credentialFrom(req);
+      if (presented === null) return noKey(res, "a session's summary");
+      if ((await access(presented, sid)) === "none") return noSession(res);
+      return summaryRoute(db, res, sid);
+    }
+    const exported = EXPORT_PATH.exec(path);
+    const single = exported ? null : SESSION_PATH.exec(path);
+    const id = safeDecode((exported ?? single)?.[1] ?? "");
+    if (exported) {
+      if (method !== "GET") return void methodNotAllowed(res, "GET");
+      if (id === null) return noSession(res);
+      return exportRoute(req, res, url, id);
+    }
+    if (single) {
+      if (method !== "DELETE") return void methodNotAllowed(res, "DELETE");
+      if (id === null) return noSession(res);
+      return deleteRoute(req, res, id);
+    }
+    sendError(res, 404, "not-found", `no API route ${method} ${path}`);
   }
 
   /** Handles the request when it is an API route; returns false to let others try. */
@@ -144,23 +251,13 @@ export function createRestHandler(deps: RestDeps) {
         await sendReady(res, deps);
       } else if (path === "/api/sessions" || path === "/api/sessions/") {
         if (method === "POST") await createSessionRoute(req, res);
-        else if (method === "GET") await listRoute(req, res, url);
+        else if (method === "GET") await listRoute(req, res);
         else methodNotAllowed(res, "GET, POST");
-      } else if (SUMMARY_PATH.test(path)) {
-        if (method !== "GET") return methodNotAllowed(res, "GET");
-        const id = safeDecode(SUMMARY_PATH.exec(path)![1]!);
-        if (id === null) sendError(res, 404, "not-found", "no such session");
-        else await summaryRoute({ db, allowed: () => allowed(req, url, id) }, res, id);
+      } else if (MINE_PATH.test(path)) {
+        if (method === "POST") await mineRoute(req, res);
+        else methodNotAllowed(res, "POST");
       } else {
-        const m = EXPORT_PATH.exec(path);
-        if (m) {
-          if (method !== "GET") return methodNotAllowed(res, "GET");
-          const id = safeDecode(m[1]!);
-          if (id === null) sendError(res, 404, "not-found", "no such session");
-          else await exportRoute(req, res, url, id);
-        } else {
-          sendError(res, 404, "not-found", `no API route ${method} ${path}`);
-        }
+        await sessionRoute(req, res, url, method, path);
       }
     } catch (error) {
       deps.logger.error("API request failed", { method, path, error });
@@ -181,7 +278,7 @@ function methodNotAllowed(res: ServerResponse, allow: string): true {
 function safeDecode(segment: string): string | null {
   try {
     const id = decodeURIComponent(segment);
-    return nameProblem(id) === null ? id : null;
+    return id !== "" && id.length <= 64 && nameProblem(id) === null ? id : null;
   } catch {
     return null;
   }

@@ -11,7 +11,7 @@ import type {
   SessionListItem,
   ShockRecord,
 } from "@contend/protocol";
-import { fold, shockText } from "@contend/session";
+import { fold, shockText, WITHHELD_UNTIL_END, withholdSecrets } from "@contend/session";
 import { toCsv } from "../http/csv";
 import type { CsvCell } from "../http/csv";
 
@@ -40,15 +40,28 @@ export function listItem(summary: SessionSummary, rounds: number): SessionListIt
   };
 }
 
+/**
+ * The export of a session: the log without the open round; before the session has ended, also
+ * without computer policies and seeds (R23, `withholdSecrets`), and `withheld` says so.
+ */
 export function buildExport(
   summary: SessionSummary,
   allEvents: readonly SessionEvent[],
 ): SessionExport {
-  const events = publicEvents(allEvents);
+  const ended = allEvents.some((e) => e.type === "session-ended");
+  const cut = publicEvents(allEvents);
+  const events = ended ? cut : withholdSecrets(cut);
   const state = fold(events);
   const rounds: RoundResult[] = state.status === "empty" ? [] : state.rounds;
   const shocks = state.status === "empty" ? [] : state.shocks;
-  return { session: listItem(summary, rounds.length), events, rounds, shocks };
+  const record: SessionExport = {
+    session: listItem(summary, rounds.length),
+    events,
+    rounds,
+    shocks,
+  };
+  if (!ended) record.withheld = [...WITHHELD_UNTIL_END];
+  return record;
 }
 
 export const CSV_HEADER = [

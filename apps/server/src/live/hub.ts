@@ -72,6 +72,8 @@ export interface SessionHub {
   /** load every session that has not ended and re-arm its clock (on start) */
   restoreAll(): Promise<number>;
   onCommit(listener: CommitListener): void;
+  /** a session was deleted: drop it from memory and stop its clock */
+  forget(sessionId: string): void;
   /** stop all timers and wait for queued commands to finish */
   close(): Promise<void>;
 }
@@ -354,6 +356,11 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
     },
     onCommit(listener) {
       listeners.push(listener);
+    },
+    forget(sessionId) {
+      const live = sessions.get(sessionId);
+      if (live?.timer) clock.clearTimer(live.timer);
+      sessions.delete(sessionId);
     },
     async close() {
       closed = true;

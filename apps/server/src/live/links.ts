@@ -1,10 +1,14 @@
 import type { IncomingMessage } from "node:http";
 
-/** The web pages a session's participants open; keys travel in the query string. */
+/**
+ * The web pages a session's participants open. Keys travel in the URL fragment (`#key=`),
+ * which browsers never send to a server: no server or proxy log, no Referer and no page
+ * request carries them; the page reads it and sends it in its hello.
+ */
 export function sessionLinks(baseUrl: string, sessionId: string, joinCode: string) {
   const base = baseUrl.replace(/\/+$/, "");
   const id = encodeURIComponent(sessionId);
-  const q = (key: string) => `?key=${encodeURIComponent(key)}`;
+  const q = (key: string) => `#key=${encodeURIComponent(key)}`;
   return {
     facilitator: (key: string) => `${base}/facilitate/${id}${q(key)}`,
     seat: (key: string) => `${base}/seat/${id}${q(key)}`,

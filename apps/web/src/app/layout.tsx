@@ -10,6 +10,11 @@ export const metadata: Metadata = {
     "Live war-gaming workshops for contests: rivals spend money they do not get back to win one prize.",
 };
 
+// Every page is rendered per request: the server's Content-Security-Policy carries a fresh
+// nonce, which Next puts on its inline scripts only when it renders the page (a prerendered
+// page's scripts would carry none and be blocked).
+export const dynamic = "force-dynamic";
+
 export const viewport: Viewport = {
   width: "device-width",
   initialScale: 1,

@@ -6,6 +6,7 @@ import type { CreateSessionResponse } from "@contend/protocol";
 import { POLICY_LABELS } from "@contend/solver";
 import type { PolicyKind } from "@contend/solver";
 import { absoluteLink, localPath } from "../lib/api";
+import { rememberFacilitatorKey } from "../lib/keyring";
 import { rememberInvites } from "../lib/live";
 import { CopyField } from "./CopyField";
 
@@ -27,6 +28,7 @@ export function CreatedSession({
   computer?: Record<string, string>;
 }) {
   useEffect(() => {
+    rememberFacilitatorKey(created.id, created.facilitatorKey);
     rememberInvites(created.id, {
       joinCode: created.joinCode,
       links: created.links,

@@ -1,15 +1,18 @@
 import type { ReactNode } from "react";
+import { KeyedPage } from "./KeyedPage";
+import type { KeyedRoute } from "./KeyedPage";
 
 export interface SessionPageProps {
   params: Promise<{ id: string }>;
-  searchParams: Promise<{ key?: string | string[] }>;
 }
 
-/** A `/<route>/[id]?key=` page: the session id and its key (empty when absent or repeated). */
-export function sessionPage(render: (sessionId: string, key: string) => ReactNode) {
-  return async function SessionPage({ params, searchParams }: SessionPageProps) {
+/**
+ * A `/<route>/[id]#key=` page. The key is in the fragment, so the server never sees it: the
+ * page is rendered without it and the browser reads it (KeyedPage).
+ */
+export function sessionPage(route: KeyedRoute) {
+  return async function SessionPage({ params }: SessionPageProps): Promise<ReactNode> {
     const { id } = await params;
-    const { key } = await searchParams;
-    return render(id, typeof key === "string" ? key : "");
+    return <KeyedPage route={route} sessionId={id} />;
   };
 }

@@ -150,6 +150,13 @@ export function useSession(credentials: Credentials | null): SessionHandle {
       else if (outcome === "resync") sayHello();
     });
     socket.on("presence", (msg) => setPresence(msg.seats));
+    // The key no longer opens the session (a new link, or the session was deleted): say why
+    // and stop; reconnecting with the same key could only be refused.
+    socket.on("revoked", (msg) => {
+      fatal = true;
+      setConnection({ status: "failed", message: msg.message });
+      socket.disconnect();
+    });
     socket.on("disconnect", (reason) => {
       setPresence(null);
       if (fatal) return;

@@ -63,26 +63,87 @@ export function createSession(
   });
 }
 
-function keyQuery(key: string | undefined, first: boolean): string {
-  return key ? `${first ? "?" : "&"}key=${encodeURIComponent(key)}` : "";
+/** Keys go in the Authorization header, never in a URL (no log, history or Referer keeps them). */
+function withKey(key: string | undefined): RequestInit {
+  return key ? { headers: { authorization: `Bearer ${key}` } } : {};
 }
 
-/** GET /api/sessions; `key` is the admin key when the server requires one. */
-export function listSessions(key?: string): Promise<ApiResult<SessionListItem[]>> {
-  return request<SessionListItem[]>(`/api/sessions${keyQuery(key, true)}`);
+/** GET /api/sessions: every session; needs the operator key. */
+export function listSessions(operatorKey: string): Promise<ApiResult<SessionListItem[]>> {
+  return request<SessionListItem[]>("/api/sessions", withKey(operatorKey));
+}
+
+/** POST /api/sessions/mine: the sessions among these whose facilitator keys are right. */
+export function listMySessions(
+  sessions: { id: string; key: string }[],
+): Promise<ApiResult<SessionListItem[]>> {
+  return request<SessionListItem[]>("/api/sessions/mine", {
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body: JSON.stringify({ sessions }),
+  });
 }
 
 /** Raw export body; the caller validates it with the protocol schema. */
 export function exportSession(id: string, key?: string): Promise<ApiResult<unknown>> {
-  return request<unknown>(`/api/sessions/${encodeURIComponent(id)}/export${keyQuery(key, true)}`);
+  return request<unknown>(`/api/sessions/${encodeURIComponent(id)}/export`, withKey(key));
 }
 
-export function exportCsvUrl(id: string, key?: string): string {
-  return apiUrl(`/api/sessions/${encodeURIComponent(id)}/export?format=csv${keyQuery(key, false)}`);
+/** The export as a file to save (JSON or CSV), fetched with the key in its header. */
+export async function exportFile(
+  id: string,
+  key: string,
+  format: "json" | "csv",
+): Promise<ApiResult<{ blob: Blob; fileName: string }>> {
+  const path = `/api/sessions/${encodeURIComponent(id)}/export${format === "csv" ? "?format=csv" : ""}`;
+  try {
+    const res = await fetch(apiUrl(path), withKey(key));
+    if (!res.ok) return { ok: false, status: res.status, ...(await readError(res)) };
+    // The server names the file (title and date) in Content-Disposition.
+    const disposition = res.headers.get("content-disposition") ?? "";
+    const named = /filename="([^"]+)"/.exec(disposition)?.[1];
+    return {
+      ok: true,
+      data: { blob: await res.blob(), fileName: named ?? `session-${id}.${format}` },
+    };
+  } catch (e) {
+    return {
+      ok: false,
+      status: 0,
+      code: "network",
+      path: "",
+      message: `cannot reach the server (${(e as Error).message})`,
+    };
+  }
 }
 
-export function exportJsonUrl(id: string, key?: string): string {
-  return apiUrl(`/api/sessions/${encodeURIComponent(id)}/export${keyQuery(key, true)}`);
+/** DELETE /api/sessions/<id>: final. */
+export async function deleteSession(id: string, key: string): Promise<ApiResult<null>> {
+  try {
+    const res = await fetch(apiUrl(`/api/sessions/${encodeURIComponent(id)}`), {
+      method: "DELETE",
+      headers: { authorization: `Bearer ${key}` },
+    });
+    if (!res.ok) return { ok: false, status: res.status, ...(await readError(res)) };
+    return { ok: true, data: null };
+  } catch (e) {
+    return {
+      ok: false,
+      status: 0,
+      code: "network",
+      path: "",
+      message: `cannot reach the server (${(e as Error).message})`,
+    };
+  }
+}
+
+/** A page link with its key in the fragment, which the browser never sends to a server. */
+export function keyedPath(
+  route: "facilitate" | "seat" | "screen" | "replays",
+  id: string,
+  key: string,
+) {
+  return `/${route}/${encodeURIComponent(id)}#key=${encodeURIComponent(key)}`;
 }
 
 /** Links the server returns may be relative or absolute; show them absolute for copying. */
@@ -92,11 +153,11 @@ export function absoluteLink(link: string): string {
   return new URL(link, window.location.origin).toString();
 }
 
-/** Path and query of a link, for navigating inside this app whatever origin the server named. */
+/** Path, query and fragment of a link, for navigating inside this app whatever origin the server named. */
 export function localPath(link: string): string {
   try {
     const u = new URL(link, "http://placeholder.invalid");
-    return `${u.pathname}${u.search}`;
+    return `${u.pathname}${u.search}${u.hash}`;
   } catch {
     return link;
   }

@@ -1,11 +1,12 @@
 "use client";
 
-import { useMemo } from "react";
+import { useEffect, useMemo } from "react";
 import type { Credentials, RoleView } from "@contend/protocol";
 import { useConsoleCommands } from "../../hooks/useConsoleCommands";
 import { useSession } from "../../hooks/useSession";
 import type { SessionHandle } from "../../hooks/useSession";
-import { exportCsvUrl, exportJsonUrl } from "../../lib/api";
+import { keyedPath } from "../../lib/api";
+import { rememberFacilitatorKey } from "../../lib/keyring";
 import { formatMoney } from "../../lib/format";
 import { STATUS_TEXT } from "../../lib/live";
 import { NextStep } from "../console/NextStep";
@@ -17,6 +18,7 @@ import { InviteLinks } from "./InviteLinks";
 import { LiveAnnouncer } from "./LiveAnnouncer";
 import { ShockBanner } from "./ShockBanner";
 import { RoundClock } from "./RoundClock";
+import { ExportDownload } from "../ExportDownload";
 
 /**
  * The facilitator's console, ordered by the flow of a workshop: the next step and the latest
@@ -36,6 +38,11 @@ export function FacilitatorConsole({
   );
   const session = useSession(credentials);
   const { connection, view } = session;
+  // Once the key has opened the console, this browser lists the session among its replays.
+  const opened = view !== null;
+  useEffect(() => {
+    if (opened) rememberFacilitatorKey(sessionId, facilitatorKey);
+  }, [opened, sessionId, facilitatorKey]);
   if (!facilitatorKey) return <p className="notice error">This facilitator link has no key.</p>;
   return (
     <div>
@@ -105,27 +112,25 @@ function ConsoleBody({
         <InviteLinks view={view} sessionId={sessionId} send={session.send} onNotice={setNotice} />
         <p className="small" style={{ marginTop: "0.75rem" }}>
           Download the session:{" "}
-          <a
-            href={exportJsonUrl(sessionId, facilitatorKey)}
-            download
-            data-testid="console-export-json"
-          >
-            JSON
-          </a>{" "}
+          <ExportDownload
+            sessionId={sessionId}
+            accessKey={facilitatorKey}
+            format="json"
+            label="JSON"
+            className="link-button"
+            testId="console-export-json"
+          />{" "}
           ·{" "}
-          <a
-            href={exportCsvUrl(sessionId, facilitatorKey)}
-            download
-            data-testid="console-export-csv"
-          >
-            CSV
-          </a>{" "}
+          <ExportDownload
+            sessionId={sessionId}
+            accessKey={facilitatorKey}
+            format="csv"
+            label="CSV"
+            className="link-button"
+            testId="console-export-csv"
+          />{" "}
           ·{" "}
-          <a
-            href={`/replays/${encodeURIComponent(sessionId)}?key=${encodeURIComponent(facilitatorKey)}`}
-          >
-            replay and printable debrief
-          </a>
+          <a href={keyedPath("replays", sessionId, facilitatorKey)}>replay and printable debrief</a>
         </p>
       </section>
 

@@ -6,6 +6,7 @@ import type { ClaimSeatAckData, Credentials } from "@contend/protocol";
 import { useSession } from "../../hooks/useSession";
 import { TextField } from "../Field";
 import { ConnectionBanner } from "./ConnectionBanner";
+import { keyedPath } from "../../lib/api";
 
 export function JoinFlow() {
   const params = useSearchParams();
@@ -40,7 +41,7 @@ export function JoinFlow() {
       return;
     }
     const d = ack.data as ClaimSeatAckData;
-    router.push(`/seat/${encodeURIComponent(d.sessionId)}?key=${encodeURIComponent(d.seatKey)}`);
+    router.push(keyedPath("seat", d.sessionId, d.seatKey));
   }
 
   return (

@@ -2,22 +2,25 @@
 
 import { useEffect, useMemo, useState } from "react";
 import type { SessionExport } from "@contend/protocol";
-import { exportCsvUrl, exportJsonUrl, exportSession } from "../../lib/api";
+import { exportSession } from "../../lib/api";
 import { formatDateTime, formatMoney, formatPercent } from "../../lib/format";
 import { seatNames, STATUS_TEXT } from "../../lib/live";
 import { describeEvent, parseExport, seatSummary, viewAfter } from "../../lib/replay";
 import { CAUTION_LINES } from "../Cautions";
+import { ExportDownload } from "../ExportDownload";
 import { RoomHistory } from "../live/History";
 import { RoundResults } from "../live/RoundResults";
 import { FigureTable, numCol, textCol } from "../FigureTable";
 import { ProvenanceNote } from "../ProvenanceNote";
 import { AboutTheMaths } from "../AboutTheMaths";
+import { DeleteSession } from "./DeleteSession";
 
 export function ReplayViewer({ sessionId, accessKey }: { sessionId: string; accessKey: string }) {
   const [data, setData] = useState<SessionExport | null>(null);
   const [error, setError] = useState<string | null>(null);
   useEffect(() => {
     let live = true;
+    if (!accessKey) return;
     void exportSession(sessionId, accessKey || undefined).then((r) => {
       if (!live) return;
       if (!r.ok) return setError(r.message);
@@ -30,6 +33,13 @@ export function ReplayViewer({ sessionId, accessKey }: { sessionId: string; acce
     };
   }, [sessionId, accessKey]);
 
+  if (!accessKey) {
+    return (
+      <p className="notice error" data-testid="replay-error">
+        This replay link has no key. Open it from the facilitator console or from the replays list.
+      </p>
+    );
+  }
   if (error)
     return (
       <p className="notice error" data-testid="replay-error">
@@ -71,25 +81,24 @@ function ReplayBody({
           </p>
         </div>
         <div className="row no-print">
-          <a
-            className="button"
-            href={exportJsonUrl(sessionId, accessKey || undefined)}
-            download
-            data-testid="download-json"
-          >
-            Download JSON
-          </a>
-          <a
-            className="button"
-            href={exportCsvUrl(sessionId, accessKey || undefined)}
-            download
-            data-testid="download-csv"
-          >
-            Download CSV
-          </a>
+          <ExportDownload
+            sessionId={sessionId}
+            accessKey={accessKey}
+            format="json"
+            label="Download JSON"
+            testId="download-json"
+          />
+          <ExportDownload
+            sessionId={sessionId}
+            accessKey={accessKey}
+            format="csv"
+            label="Download CSV"
+            testId="download-csv"
+          />
           <button type="button" onClick={() => window.print()} data-testid="print-debrief">
             Print debrief
           </button>
+          <DeleteSession sessionId={sessionId} accessKey={accessKey} />
         </div>
       </div>
 
