@@ -1,7 +1,8 @@
 /**
  * viewFor(state, viewer): what one connection may see (R23). Sealed efforts of the open round
  * appear only in their owner's `you`; everyone sees which seats have sealed. Computer
- * policies (in the seats and in the settings) are shown to the facilitator only. Resolved
+ * policies (in the seats and in the settings) are shown to the facilitator only until the
+ * session ends. Resolved
  * rounds are public to every role, except the winner draws' seeds: from one of them the
  * session's 32-bit seed can be searched out, and with it every later computer move and draw,
  * so they stay with the facilitator until the session ends.
@@ -26,6 +27,8 @@ export interface Viewer {
 export function viewFor(state: SessionState, viewer: Viewer): RoleView {
   if (state.status === "empty") throw new Error("viewFor: the session has no events yet");
   const open = state.status === "open" ? state.open : null;
+  // Computer policies and draw seeds: the facilitator's until the session ends, then everyone's.
+  const revealed = viewer.role === "facilitator" || state.status === "ended";
   const seats: SeatView[] = state.seats.map((s) => {
     const seat: SeatView = {
       index: s.index,
@@ -36,10 +39,9 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
       sealed: (open?.moves[s.index] ?? null) !== null,
       active: s.active,
     };
-    if (viewer.role === "facilitator") seat.policy = s.policy;
+    if (revealed) seat.policy = s.policy;
     return seat;
   });
-  const trusted = viewer.role === "facilitator";
   const view: RoleView = {
     role: viewer.role,
     sessionId: state.sessionId,
@@ -48,14 +50,14 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
     paused: state.paused,
     remainingMs: state.remainingMs,
     endedReason: state.status === "ended" ? state.endedReason : null,
-    settings: trusted ? state.settings : withoutComputer(state.settings),
+    settings: revealed ? state.settings : withoutComputer(state.settings),
     round: open ? open.round : state.rounds.length,
     roundsTotal: state.settings.rounds,
     deadline: open ? open.deadline : null,
     scenario: state.scenario,
     roundSeats: open ? open.seatIndices : null,
     seats,
-    rounds: trusted || state.status === "ended" ? state.rounds : withoutDrawSeeds(state.rounds),
+    rounds: revealed ? state.rounds : withoutDrawSeeds(state.rounds),
     totals: state.totals,
     shocks: state.shocks,
   };
