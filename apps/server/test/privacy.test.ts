@@ -131,6 +131,43 @@ describe("hidden until revealed, for computers too (R23)", () => {
     expect(everything(screen)).toMatch(FIXED_RE);
   });
 
+  it("a rival added by a shock with a computer policy: its policy reaches the facilitator only", async () => {
+    const url = file.server.url;
+    const created = await createSessionOverHttp(url, printShops({ rounds: 2 }));
+    const id = created.id;
+    const fac = await file.client();
+    const screen = await file.client();
+    const seat = await file.client();
+    expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
+    expectOk(await hello(screen, { role: "spectator", sessionId: id, key: created.spectatorKey }));
+    expectOk(await hello(seat, { role: "seat", sessionId: id, key: created.seats[0]!.key }));
+    expectOk(
+      await command(fac, {
+        type: "applyShock",
+        changes: [
+          {
+            target: "add-rival",
+            rival: { name: "Quire and Quill", cost: 1 },
+            policy: { kind: "fixed", effort: FIXED },
+          },
+        ],
+      }),
+    );
+    await eventually(() => expect(lastView(screen).shocks).toHaveLength(1));
+    await eventually(() => expect(lastView(seat).shocks).toHaveLength(1));
+    const exported = await (
+      await getWithKey(`${url}/api/sessions/${id}/export`, created.facilitatorKey)
+    ).text();
+    for (const [text, who] of [
+      [everything(screen), "spectator"],
+      [everything(seat), "seat"],
+      [exported, "export"],
+    ] as const) {
+      expect(FIXED_RE.test(text), `${who} saw the added computer's effort`).toBe(false);
+    }
+    expect(everything(fac)).toMatch(FIXED_RE); // positive control
+  });
+
   it("winner-draw seeds stay out of participants' views until the session ends (the session seed could be searched out of one)", async () => {
     const created = await createSessionOverHttp(
       file.server.url,

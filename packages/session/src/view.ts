@@ -7,7 +7,14 @@
  * session's 32-bit seed can be searched out, and with it every later computer move and draw,
  * so they stay with the facilitator until the session ends.
  */
-import type { RoleView, Role, RoundResult, SeatView, SessionSettings } from "@contend/protocol";
+import type {
+  RoleView,
+  Role,
+  RoundResult,
+  SeatView,
+  SessionSettings,
+  Shock,
+} from "@contend/protocol";
 import type { SessionState } from "./state";
 import { withHidden } from "./hiddenView";
 
@@ -59,7 +66,7 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
     seats,
     rounds: revealed ? state.rounds : withoutDrawSeeds(state.rounds),
     totals: state.totals,
-    shocks: state.shocks,
+    shocks: revealed ? state.shocks : state.shocks.map(withoutShockPolicy),
   };
   if (viewer.role === "facilitator" && viewer.joinCode !== undefined) {
     view.joinCode = viewer.joinCode;
@@ -87,4 +94,17 @@ export function withoutComputer(settings: SessionSettings): SessionSettings {
 /** The rounds with their winner draws' seeds left out (null). */
 export function withoutDrawSeeds(rounds: readonly RoundResult[]): RoundResult[] {
   return rounds.map((r) => (r.drawSeed === null ? r : { ...r, drawSeed: null }));
+}
+
+/** A shock record without the policy of a rival it adds (absent: not shown, not "human"). */
+export function withoutShockPolicy<T extends { changes: Shock[] }>(record: T): T {
+  if (!record.changes.some((c) => c.target === "add-rival" && c.policy)) return record;
+  return {
+    ...record,
+    changes: record.changes.map((c) => {
+      if (c.target !== "add-rival" || !c.policy) return c;
+      const { policy: _hidden, ...rest } = c;
+      return rest;
+    }),
+  };
 }

@@ -117,7 +117,6 @@ export function sessionsRepository(db: Db) {
       await db.session.deleteMany({ where: { id: { in: ids }, updatedAt: { lt: before } } });
       return ids;
     },
-
   };
   return repo;
 }
