@@ -133,14 +133,19 @@ describe("REST", () => {
 
   it("exports download as files named after the session's title and creation date", async () => {
     const created = await createSessionOverHttp(server.url, printShops());
-    const list = sessionListSchema.parse(await (await fetch(`${server.url}/api/sessions`)).json());
+    const list = sessionListSchema.parse(
+      await (await getWithKey(`${server.url}/api/sessions`, OPERATOR_KEY)).json(),
+    );
     const day = list.find((s) => s.id === created.id)!.createdAt.slice(0, 10);
     const stem = `three-print-shops-bid-for-the-library-poster-contract-${day}`;
     for (const [query, ext] of [
       ["", "json"],
       ["?format=csv", "csv"],
     ] as const) {
-      const res = await fetch(`${server.url}/api/sessions/${created.id}/export${query}`);
+      const res = await getWithKey(
+        `${server.url}/api/sessions/${created.id}/export${query}`,
+        created.facilitatorKey,
+      );
       expect(res.status).toBe(200);
       expect(res.headers.get("content-disposition")).toBe(
         `attachment; filename="${stem}.${ext}"; filename*=UTF-8''${stem}.${ext}`,
