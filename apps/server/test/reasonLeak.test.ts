@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import {
+  getWithKey,
   command,
   createSessionOverHttp,
   eventually,
@@ -51,9 +52,9 @@ describe("move reasons stay private until the reveal", () => {
     );
     const base = `${file.server.url}/api/sessions/${id}`;
     const before = [
-      await (await fetch(`${base}/export`)).text(),
-      await (await fetch(`${base}/export?format=csv`)).text(),
-      await (await fetch(`${base}/summary`)).text(),
+      await (await getWithKey(`${base}/export`, created.facilitatorKey)).text(),
+      await (await getWithKey(`${base}/export?format=csv`, created.facilitatorKey)).text(),
+      await (await getWithKey(`${base}/summary`, created.facilitatorKey)).text(),
     ];
 
     const others: [Client, string][] = [
@@ -79,7 +80,11 @@ describe("move reasons stay private until the reveal", () => {
       for (const r of REASON) expect(everything(c)).toContain(r);
     }
     expect(lastView(fac).rounds[0]!.moveReasons).toEqual([REASON[0], REASON[1], null]);
-    const csv = (await (await fetch(`${base}/export?format=csv`)).text()).trimEnd().split("\r\n");
+    const csv = (
+      await (await getWithKey(`${base}/export?format=csv`, created.facilitatorKey)).text()
+    )
+      .trimEnd()
+      .split("\r\n");
     expect(csv[0]!.split(",").at(-2)).toBe("moveReason");
     expect(csv.slice(1).map((l) => l.split(",").at(-2))).toEqual([REASON[0], REASON[1], ""]);
   });
