@@ -28,6 +28,7 @@ const SCENARIO = {
   },
 };
 const REASON = "Match last year's winning bid, no more";
+const NOTE = "Both ferries stayed under the equilibrium spend";
 
 test("a seat's reason is sealed with its spend and shown in the revealed round", async ({
   browser,
@@ -71,9 +72,25 @@ test("a seat's reason is sealed with its spend and shown in the revealed round",
     await expect(listed.first()).toHaveText(`Gullwing Ferries: ${REASON}`);
     await saveScreen(seat, "reasons-seat-result-1366");
 
+    // The facilitator notes the round in the console; the seat reads the note with the round.
+    const consoleCtx = await browser.newContext({
+      baseURL: origin,
+      viewport: { width: 1366, height: 768 },
+    });
+    const console_ = await consoleCtx.newPage();
+    await console_.goto(pathOf(created.links.facilitator));
+    await console_.getByTestId("round-note-input").fill(NOTE);
+    await console_.getByTestId("round-note-save").click();
+    await expect(console_.getByTestId("round-note-status")).toHaveText("Note saved.");
+    await expect(console_.getByTestId("console-round-note")).toContainText(NOTE);
+    await expect(seat.getByTestId("seat-round-note")).toContainText(NOTE);
+    await console_.getByTestId("round-note-input").scrollIntoViewIfNeeded();
+    await saveScreen(console_, "reasons-console-note-1366");
+
     const phone = await (await phoneContext(browser, origin)).newPage();
     await phone.goto(link);
     await expect(phone.getByTestId("seat-round-reasons")).toContainText(REASON);
+    await expect(phone.getByTestId("seat-round-note")).toContainText(NOTE);
     await saveScreen(phone, "reasons-seat-result-390");
   } finally {
     fac.close();

@@ -11,6 +11,8 @@ import { Kpi } from "../Kpi";
 import { Term } from "../Glossary";
 import { RoomHistory } from "../live/History";
 import { RoundResults } from "../live/RoundResults";
+import type { useSession } from "../../hooks/useSession";
+import { RoundNoteForm } from "./RoundNoteForm";
 import { SelectField } from "../Field";
 
 /** Beside the next step: the latest revealed round in a few figures. */
@@ -71,7 +73,13 @@ export function ComingRound({ view }: { view: RoleView }) {
 }
 
 /** Every revealed round, one at a time, and the whole session's history. */
-export function ResultsPanel({ view }: { view: RoleView }) {
+export function ResultsPanel({
+  view,
+  send,
+}: {
+  view: RoleView;
+  send?: ReturnType<typeof useSession>["send"];
+}) {
   const [shownRound, setShownRound] = useState<number | null>(null);
   const names = seatNames(view);
   const currency = view.scenario.currency ?? null;
@@ -106,6 +114,9 @@ export function ResultsPanel({ view }: { view: RoleView }) {
       ) : (
         <p className="muted">No round revealed yet.</p>
       )}
+      {roundToShow && send ? (
+        <RoundNoteForm round={roundToShow.round} note={roundToShow.note} send={send} />
+      ) : null}
       {view.rounds.length > 0 && (
         <div style={{ marginTop: "1rem" }}>
           <RoomHistory

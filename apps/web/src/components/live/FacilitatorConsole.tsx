@@ -134,7 +134,7 @@ function ConsoleBody({
         </p>
       </section>
 
-      <ResultsPanel view={view} />
+      <ResultsPanel view={view} send={session.send} />
     </>
   );
 }
