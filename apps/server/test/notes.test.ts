@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import {
+  getWithKey,
   command,
   createSessionOverHttp,
   eventually,
@@ -29,7 +30,10 @@ describe("R27 over the socket", () => {
     expectOk(await command(fac, { type: "noteRound", round: 1, text: note }));
     await eventually(() => expect(lastView(seat).rounds[0]!.note).toBe(note));
     const csv = await (
-      await fetch(`${file.server.url}/api/sessions/${id}/export?format=csv`)
+      await getWithKey(
+        `${file.server.url}/api/sessions/${id}/export?format=csv`,
+        created.facilitatorKey,
+      )
     ).text();
     const lines = csv.trimEnd().split("\r\n");
     expect(lines[0]!.split(",").at(-1)).toBe("roundNote");
