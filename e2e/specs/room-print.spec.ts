@@ -64,7 +64,7 @@ test("debrief prints on A4 and Letter with every chart inside the paper and none
   room.close();
   await page.addInitScript(holdResizeObservers);
   await page.setViewportSize(SIZES.laptop);
-  await page.goto(`/replays/${room.created.id}?key=${room.created.facilitatorKey}`);
+  await page.goto(`/replays/${room.created.id}#key=${room.created.facilitatorKey}`);
   await expect(page.locator(".debrief .chart").first()).toBeVisible();
   const onScreen = await chartBoxes(page);
   expect(onScreen.length, "the debrief has charts").toBeGreaterThanOrEqual(2);
