@@ -114,6 +114,14 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
     throw new Error(`invalid environment:\n${lines.join("\n")}`);
   }
   const e = parsed.data;
+  if (cleaned.CONTEND_ADMIN_KEY !== undefined) {
+    // The old name must not be ignored silently: a server that thinks it is keyed would print a
+    // new operator key and the old one would stop working.
+    throw new Error(
+      "invalid environment:\n  CONTEND_ADMIN_KEY: renamed CONTEND_OPERATOR_KEY (at least 24 characters); " +
+        "set that instead, or unset both to have the first start make a key",
+    );
+  }
   const workers = workersProblem(e.WORKERS, e.DATABASE_URL);
   if (workers) throw new Error(`invalid environment:\n  WORKERS: ${workers}`);
   const root = path.resolve(e.CONTEND_DATA_DIR ?? path.join(SERVER_ROOT, "data"));

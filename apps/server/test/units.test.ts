@@ -119,6 +119,15 @@ describe("parseEnv(source)", () => {
     expect(() => parseEnv({ PROGRESS_PUSH_BUSY_MS: "-1" })).toThrow(/PROGRESS_PUSH_BUSY_MS/);
   });
 
+  it("CONTEND_ADMIN_KEY (the old name) refuses with a line naming the new one", () => {
+    expect(() => parseEnv({ CONTEND_ADMIN_KEY: "an-old-style-key" })).toThrow(
+      /CONTEND_ADMIN_KEY: renamed CONTEND_OPERATOR_KEY/,
+    );
+    expect(parseEnv({ CONTEND_OPERATOR_KEY: "x".repeat(24), WEB: "off" }).operatorKey).toBe(
+      "x".repeat(24),
+    );
+  });
+
   it("WORKERS=N refuses with a clear line: without PostgreSQL, and (not built yet) with it", () => {
     expect(parseEnv({ WORKERS: "1", WEB: "off" }).port).toBe(3000);
     expect(() => parseEnv({ WORKERS: "4" })).toThrow(
