@@ -76,6 +76,35 @@ describe("room state in words", () => {
     expect(announcement(paused, open)).toBe("Resumed.");
   });
 
+  it("announces a shock: what changed, from what to what, and the round it applies to", () => {
+    const review = views().at(-1)!;
+    const before = review.scenario;
+    const after = { ...before, prize: before.prize * 2 };
+    const shocked: RoleView = {
+      ...review,
+      scenario: after,
+      shocks: [
+        ...review.shocks,
+        {
+          afterRound: review.rounds.length,
+          changes: [{ target: "prize", value: after.prize }],
+          before,
+          after,
+        },
+      ],
+    };
+    const said = announcement(review, shocked);
+    expect(said).toMatch(
+      new RegExp(`^The contest changes from round ${review.rounds.length + 1}: Prize: `),
+    );
+    expect(said).toContain("\u2192");
+    // said once: the same shocks again are no news
+    expect(announcement(shocked, shocked)).toBeNull();
+    // a shock and the next round opening together are both said
+    const open: RoleView = { ...shocked, status: "open", round: review.round + 1 };
+    expect(announcement(review, open)).toMatch(/Prize: .* Round \d+ is open\.$/);
+  });
+
   it("standings rank by total with ties sharing a rank; the summary reads the rounds", () => {
     const review = views().at(-1)!;
     const round = review.rounds[0]!;

@@ -4,6 +4,7 @@
  * the same thing and a test can check each state.
  */
 import type { RoleView, RoundResult } from "@contend/protocol";
+import { roundOfShock, shockLines, shockLineText } from "./shock-text";
 
 /** Seats that play the open round (or would play the next one) and how many of them sealed. */
 export function sealProgress(view: RoleView): { sealed: number; playing: number } {
@@ -93,16 +94,26 @@ export function nextAction(view: RoleView): NextAction {
  */
 export function announcement(before: RoleView | null, after: RoleView): string | null {
   if (!before) return null;
-  if (after.status === "ended" && before.status !== "ended") return "The session has ended.";
-  if (after.paused && !before.paused) return "Paused.";
-  if (!after.paused && before.paused) return "Resumed.";
+  const said: string[] = [];
+  if (after.status === "ended" && before.status !== "ended") said.push("The session has ended.");
+  if (after.paused && !before.paused) said.push("Paused.");
+  if (!after.paused && before.paused) said.push("Resumed.");
+  const shocks = after.shocks.slice(before.shocks.length);
+  if (shocks.length > 0) {
+    const cur = after.scenario.currency ?? null;
+    const lines = shocks.flatMap((s) => shockLines(s, cur)).map(shockLineText);
+    const round = roundOfShock(shocks[0]!);
+    said.push(
+      `The contest changes from round ${round}${lines.length > 0 ? `: ${lines.join("; ")}` : ""}.`,
+    );
+  }
   if (after.status === "open" && (before.status !== "open" || before.round !== after.round)) {
-    return `Round ${after.round} is open.`;
+    said.push(`Round ${after.round} is open.`);
   }
   if (after.status === "review" && before.status === "open") {
-    return `Round ${after.round} revealed.`;
+    said.push(`Round ${after.round} revealed.`);
   }
-  return null;
+  return said.length > 0 ? said.join(" ") : null;
 }
 
 export interface Standing {

@@ -6,7 +6,7 @@ import { announcement } from "../../lib/room-state";
 
 /**
  * A polite live region that says, once, what just happened (round opened, revealed, paused,
- * resumed, ended), so people using a screen reader hear it without hunting for it.
+ * resumed, ended, the contest changed by a shock), so people using a screen reader hear it without hunting for it.
  */
 export function LiveAnnouncer({ view }: { view: RoleView }) {
   const previous = useRef<RoleView | null>(null);

@@ -4,6 +4,7 @@ import { useMemo } from "react";
 import type { Credentials, RoleView } from "@contend/protocol";
 import { useSession } from "../../hooks/useSession";
 import { ConnectionBanner } from "./ConnectionBanner";
+import { LiveAnnouncer } from "./LiveAnnouncer";
 import { SeatHistory } from "./History";
 import { RoundClock } from "./RoundClock";
 import { SeatMoveForm } from "./SeatMoveForm";
@@ -87,6 +88,7 @@ function SeatBody({
   );
   return (
     <>
+      <LiveAnnouncer view={view} />
       <ShockBanner view={view} />
       {view.status === "open" && move}
       <SeatTerms view={view} />
