@@ -6,6 +6,7 @@ import {
   effortKey,
   payoffKey,
   perSeatOverRounds,
+  roundMarks,
   roundSeatRows,
   seatHistoryRows,
   sweepRows,
@@ -195,5 +196,22 @@ describe("wholeNumberTicks", () => {
   it("leaves an axis with a fractional value to the chart", () => {
     expect(wholeNumberTicks([{ x: 1 }, { x: 1.5 }], "x")).toBeNull();
     expect(wholeNumberTicks([], "x")).toBeNull();
+  });
+});
+
+describe("roundMarks", () => {
+  it("marks every changed round and every noted round once, in round order", () => {
+    const marks = roundMarks(new Set([3, 2]), [
+      { round: 1 },
+      { round: 2, note: "price war starts" },
+      { round: 4, note: "  " },
+      { round: 5, note: "regulator steps in" },
+    ]);
+    expect(marks).toEqual([
+      { x: 2, label: "changed, note" },
+      { x: 3, label: "changed" },
+      { x: 5, label: "note" },
+    ]);
+    expect(roundMarks([], [{ round: 1 }])).toEqual([]);
   });
 });

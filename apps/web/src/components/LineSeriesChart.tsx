@@ -12,7 +12,7 @@ import {
   YAxis,
 } from "recharts";
 import { wholeNumberTicks } from "../lib/chart-data";
-import type { Row } from "../lib/chart-data";
+import type { AxisMark, Row } from "../lib/chart-data";
 
 export interface Series {
   key: string;
@@ -30,7 +30,7 @@ export function LineSeriesChart({
   yLabel,
   formatY,
   formatX,
-  markX,
+  marks = [],
   testId,
   dark,
   height = 300,
@@ -42,7 +42,8 @@ export function LineSeriesChart({
   yLabel: string;
   formatY?: (v: number) => string;
   formatX?: (v: number) => string;
-  markX?: number | null;
+  /** vertical marks on the x axis (every shocked round, a chosen point), each with a short label */
+  marks?: readonly AxisMark[];
   testId?: string;
   dark?: boolean;
   height?: number;
@@ -59,7 +60,11 @@ export function LineSeriesChart({
       role="img"
       aria-label={`Chart: ${yLabel} against ${xLabel}, one line each for ${series
         .map((s) => s.name)
-        .join(", ")}.`}
+        .join(", ")}.${
+        marks.length > 0
+          ? ` Marked: ${marks.map((m) => `${xLabel} ${m.x} (${m.label})`).join("; ")}.`
+          : ""
+      }`}
     >
       <ResponsiveContainer width="100%" height="100%">
         <LineChart data={rows as Row[]} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
@@ -96,9 +101,15 @@ export function LineSeriesChart({
             }
           />
           <Legend verticalAlign="top" wrapperStyle={{ paddingBottom: 6 }} />
-          {markX !== null && markX !== undefined ? (
-            <ReferenceLine x={markX} stroke={axis} strokeDasharray="4 3" />
-          ) : null}
+          {marks.map((m) => (
+            <ReferenceLine
+              key={m.x}
+              x={m.x}
+              stroke={axis}
+              strokeDasharray="4 3"
+              label={{ value: m.label, position: "insideTopRight", fill: axis, fontSize: 11 }}
+            />
+          ))}
           {series.map((s) => (
             <Line
               key={s.key}

@@ -130,3 +130,26 @@ export function wholeNumberTicks(
   for (let t = lo; t <= hi; t += step) ticks.push(t);
   return ticks;
 }
+
+/** A mark on a chart's x axis (a shocked round, a round with a note). */
+export interface AxisMark {
+  x: number;
+  label: string;
+}
+
+/**
+ * The marks for a round axis: every round whose contest changed from the round before
+ * ("changed") and every round the facilitator wrote a note on ("note"), one mark per round.
+ */
+export function roundMarks(
+  changedRounds: Iterable<number>,
+  rounds: readonly { round: number; note?: string | undefined }[] = [],
+): AxisMark[] {
+  const labels = new Map<number, string[]>();
+  const add = (x: number, label: string) => labels.set(x, [...(labels.get(x) ?? []), label]);
+  for (const r of changedRounds) add(r, "changed");
+  for (const r of rounds) if (r.note && r.note.trim() !== "") add(r.round, "note");
+  return [...labels.entries()]
+    .sort(([a], [b]) => a - b)
+    .map(([x, ls]) => ({ x, label: ls.join(", ") }));
+}

@@ -50,7 +50,6 @@ export function FitCharts({ c }: { c: Calibration }) {
         yLabel="residual (log share)"
         formatX={periodLabel}
         formatY={(v) => formatNumber(v, 2)}
-        markX={null}
         height={260}
         testId="calibrate-residual-chart"
       />

@@ -1,7 +1,7 @@
 "use client";
 
 import type { RoundResult } from "@contend/protocol";
-import { perSeatOverRounds, seatHistoryRows } from "../../lib/chart-data";
+import { perSeatOverRounds, roundMarks, seatHistoryRows } from "../../lib/chart-data";
 import { changesBetweenRounds, shockLineText } from "../../lib/shock-text";
 import { formatMoney, formatPlain } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
@@ -18,6 +18,7 @@ function RoundsChart({
   testId,
   currency,
   changed,
+  notes = [],
   dark,
   height,
 }: {
@@ -28,6 +29,8 @@ function RoundsChart({
   currency: string | null | undefined;
   /** rounds whose contest changed from the round before: marked on the round axis */
   changed: ReadonlySet<number>;
+  /** rounds with a facilitator's note: also marked */
+  notes?: readonly RoundResult[];
   dark?: boolean;
   height?: number;
 }) {
@@ -39,6 +42,7 @@ function RoundsChart({
       yLabel={`${yLabel} (${currency ?? "money"})`}
       formatY={(v) => formatMoney(v, currency)}
       formatX={(v) => `${formatPlain(v, 0)}${changed.has(v) ? " \u26a1 changed" : ""}`}
+      marks={roundMarks(changed, notes)}
       testId={testId}
       dark={dark}
       height={height}
@@ -135,6 +139,7 @@ export function RoomHistory({
           yLabel="Spend"
           currency={currency}
           changed={changed}
+          notes={rounds}
           testId={`${testPrefix}-effort-chart`}
           dark={dark}
           series={seats.flatMap((s) => [
@@ -175,6 +180,7 @@ export function RoomHistory({
           yLabel="Regret"
           currency={currency}
           changed={changed}
+          notes={rounds}
           testId={`${testPrefix}-regret-chart`}
           dark={dark}
           series={seats.map((s) => ({ key: `s${s}`, name: nameOf(s), colour: seriesColour(s) }))}
