@@ -47,6 +47,14 @@ export function AboutTheMaths({ method }: { method?: string | null }) {
           gap&quot;) is measured and shown.
         </li>
       </ul>
+      <h3>Sensitivity (comparative statics)</h3>
+      <ul className="small">
+        <li>
+          Rows marked &ldquo;analytic&rdquo; differentiate the two-rival closed form (Hillman &amp;
+          Riley 1989); rows marked &ldquo;numeric&rdquo; are numerical derivatives of the solved
+          equilibrium (central differences with Richardson extrapolation).
+        </li>
+      </ul>
       {method ? (
         <p className="small muted" data-testid="about-method">
           Method used for this result: {method}

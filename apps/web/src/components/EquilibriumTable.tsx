@@ -4,6 +4,7 @@ import { formatMoney, formatNumber, formatPercent } from "../lib/format";
 import type { SolvedView } from "../lib/solve-view";
 import { Kpi } from "./Kpi";
 import { FigureTable, numCol, RowHeader, textCol } from "./FigureTable";
+import { Term } from "./Glossary";
 
 const KIND_TEXT: Record<Equilibrium["kind"], string> = {
   pure: "Pure-strategy equilibrium",
@@ -94,10 +95,20 @@ export function EquilibriumTable({
               )
             : "\u2013"}
         </Kpi>
-        <Kpi label="Share of the prize spent" testId={`${testPrefix}-dissipation`}>
+        <Kpi
+          label={<Term id="dissipation">Share of the prize spent</Term>}
+          testId={`${testPrefix}-dissipation`}
+        >
           {eq && efforts ? formatPercent(eq.dissipation) : "\u2013"}
         </Kpi>
-        <Kpi label="Check: largest regret (should be 0)" testId={`${testPrefix}-gap`}>
+        <Kpi
+          label={
+            <>
+              Check: largest <Term id="regret">regret</Term> (should be 0)
+            </>
+          }
+          testId={`${testPrefix}-gap`}
+        >
           {eq && efforts ? formatMoney(eq.nashGap, currency) : "\u2013"}
         </Kpi>
       </div>

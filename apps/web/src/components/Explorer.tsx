@@ -18,6 +18,7 @@ import { StaticsSection } from "./explorer/StaticsSection";
 import { SweepSection } from "./explorer/SweepSection";
 import { TimingFields } from "./explorer/TimingFields";
 import { UncertaintySection } from "./explorer/UncertaintySection";
+import { AboutTheMaths } from "./AboutTheMaths";
 
 /**
  * The equilibrium explorer: edit a scenario and see its equilibrium, two rivals' best-response
@@ -90,6 +91,7 @@ export function Explorer() {
         built={ranges.built}
         fields={ranges.fields}
       />
+      <AboutTheMaths method={eq?.method ?? null} />
     </div>
   );
 }

@@ -8,6 +8,7 @@ import { DataTable } from "../DataTable";
 import { ReactionChart } from "../ReactionChart";
 import { ProfileInputs } from "./ProfileInputs";
 import { ProfileTable } from "./ProfileTable";
+import { Term } from "../Glossary";
 
 /** Whether the best-response curves apply: two rivals and a contest with pure best replies. */
 export function hasReactionCurves(contest: Contest | null): contest is Contest {
@@ -43,8 +44,9 @@ export function BestResponseSection({
     <section className="card" aria-labelledby="br-title">
       <h2 id="br-title">Best-response curves</h2>
       <p className="small muted">
-        Each curve is one rival&apos;s best reply to the other&apos;s effort; they cross at the
-        equilibrium. Click a point (or focus the chart and use the arrow keys) to test a profile.
+        Each curve is one rival&apos;s <Term id="best-reply">best reply</Term> to the other&apos;s{" "}
+        <Term id="effort">effort</Term>; they cross at the <Term id="equilibrium">equilibrium</Term>
+        . Click a point (or focus the chart and use the arrow keys) to test a profile.
       </p>
       <div className="grid-2">
         <ReactionChart

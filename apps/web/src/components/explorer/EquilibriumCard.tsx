@@ -4,6 +4,7 @@ import { formatMoney, formatPercent } from "../../lib/format";
 import type { SolvedView } from "../../lib/solve-view";
 import { SolvedEquilibrium } from "../EquilibriumTable";
 import { MixedStrategyChart } from "./MixedStrategyChart";
+import { Term } from "../Glossary";
 
 /** The solved scenario (or the leader-follower outcome) with any further equilibria listed. */
 export function EquilibriumCard({
@@ -18,7 +19,7 @@ export function EquilibriumCard({
   const money = (v: number) => formatMoney(v, currency);
   return (
     <section className="card" aria-labelledby="eq-title">
-      <h2 id="eq-title">{sequential ? "Leader-follower outcome" : "Equilibrium"}</h2>
+      <h2 id="eq-title">{sequential ? "Leader-follower outcome" : <Term id="equilibrium" />}</h2>
       <SolvedEquilibrium
         solved={solved}
         currency={currency}
@@ -39,7 +40,8 @@ export function EquilibriumCard({
                     {(alt.efforts ?? alt.expectedEfforts ?? [])
                       .map((e, i) => money(e * (ok.contest.rivals[i]?.cost ?? Number.NaN)))
                       .join(", ")}{" "}
-                    · dissipation {formatPercent(alt.dissipation)}
+                    · <Term id="dissipation">share of the prize spent</Term>{" "}
+                    {formatPercent(alt.dissipation)}
                   </p>
                 ))}
               </div>

@@ -5,8 +5,9 @@ import { respond, shares } from "@contend/solver";
 import type { Contest } from "@contend/solver";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { FigureTable, numCol, RowHeader, textCol } from "../FigureTable";
+import { Term } from "../Glossary";
 
-/** Shares, payoffs, best replies and regrets at a picked effort profile, and its Nash gap. */
+/** Shares, payoffs, best replies and regrets at a picked effort profile, and the largest regret. */
 export function ProfileTable({
   contest,
   profile,
@@ -28,8 +29,8 @@ export function ProfileTable({
           textCol("Rival"),
           numCol("Share"),
           numCol("Payoff"),
-          numCol("Best reply"),
-          numCol("Regret"),
+          numCol(<Term id="best-reply" />, "Best reply"),
+          numCol(<Term id="regret" />, "Regret"),
         ]}
         caption="At the picked profile"
         testId="profile-table"
@@ -54,7 +55,15 @@ export function ProfileTable({
         ))}
       </FigureTable>
       <p className="small" data-testid="profile-gap" style={{ minHeight: "1.5em" }}>
-        {profileEval ? `Nash gap (largest regret): ${money(profileEval.nashGap)}` : ""}
+        {profileEval ? (
+          <>
+            Largest <Term id="regret">regret</Term> (how far this profile is from{" "}
+            <Term id="equilibrium">equilibrium</Term>; 0 at equilibrium):{" "}
+            {money(profileEval.nashGap)}
+          </>
+        ) : (
+          ""
+        )}
       </p>
     </>
   );

@@ -32,8 +32,7 @@ export function StaticsSection({ scenario }: { scenario: Scenario | null }) {
       <p className="small muted">
         How each rival&apos;s equilibrium effort responds to a small change in one parameter: the
         derivative, and the elasticity (percent change in effort per percent change in the
-        parameter). Analytic rows use the Hillman &amp; Riley (1989) closed form; the others are
-        checked numerical derivatives.
+        parameter). How each row is computed is under &ldquo;About the maths&rdquo; below.
       </p>
       {statics === null ? (
         <p className="muted">

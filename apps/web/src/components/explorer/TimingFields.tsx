@@ -2,6 +2,7 @@
 
 import type { EditorForm } from "../../lib/editor-form";
 import { SelectField } from "../Field";
+import { Term } from "../Glossary";
 
 /** Who moves first: simultaneous moves, or one named rival commits and the others follow. */
 export function TimingFields({
@@ -33,8 +34,8 @@ export function TimingFields({
         testId="field-leader"
       />
       <p className="small muted">
-        With a leader, the others see its effort and best-respond; the leader chooses knowing that
-        (Dixit 1987).
+        With a leader, the others see its spend and each picks its{" "}
+        <Term id="best-reply">best reply</Term>; the leader chooses knowing that.
       </p>
     </fieldset>
   );

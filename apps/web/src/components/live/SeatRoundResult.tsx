@@ -4,6 +4,7 @@ import { formatMoney, formatPercent } from "../../lib/format";
 import { seatNames } from "../../lib/live";
 import { Kpi } from "../Kpi";
 import { RoundResults } from "./RoundResults";
+import { Term } from "../Glossary";
 
 /** The seat's own numbers for the last revealed round, in money, then everyone's. */
 export function SeatRoundResult({ view }: { view: RoleView }) {
@@ -29,13 +30,16 @@ export function SeatRoundResult({ view }: { view: RoleView }) {
             <Kpi label="You spent" testId="seat-spend">
               {money(last.spends[seat])}
             </Kpi>
-            <Kpi label="Equilibrium spend" testId="seat-eq-spend">
+            <Kpi label={<Term id="equilibrium">Equilibrium spend</Term>} testId="seat-eq-spend">
               {money(last.equilibriumSpends[seat])}
             </Kpi>
-            <Kpi label="Best reply to the others (spend)" testId="seat-best-reply">
+            <Kpi
+              label={<Term id="best-reply">Best reply to the others (spend)</Term>}
+              testId="seat-best-reply"
+            >
               {money(last.bestResponseSpends[seat])}
             </Kpi>
-            <Kpi label="It would have added" testId="seat-regret">
+            <Kpi label={<Term id="regret">It would have added (regret)</Term>} testId="seat-regret">
               {money(last.regrets[seat])}
             </Kpi>
             <Kpi label="Running total" testId="seat-total">

@@ -14,6 +14,7 @@ import { FigureTable, numCol, textCol } from "../FigureTable";
 import { ProvenanceNote } from "../ProvenanceNote";
 import { AboutTheMaths } from "../AboutTheMaths";
 import { DeleteSession } from "./DeleteSession";
+import { Term } from "../Glossary";
 
 export function ReplayViewer({ sessionId, accessKey }: { sessionId: string; accessKey: string }) {
   const [data, setData] = useState<SessionExport | null>(null);
@@ -240,9 +241,9 @@ function ReplayBody({
               head={[
                 textCol("Round"),
                 numCol("Total spend"),
-                numCol("Dissipation"),
-                numCol("At equilibrium"),
-                numCol("Largest regret"),
+                numCol(<Term id="dissipation">Share of the prize spent</Term>, "Dissipation"),
+                numCol(<Term id="equilibrium">At equilibrium</Term>, "At equilibrium"),
+                numCol(<Term id="regret">Largest regret</Term>, "Largest regret"),
               ]}
               caption="Rounds: share of the prize spent, played and at equilibrium, and the largest regret"
               testId="debrief-rounds"
@@ -262,8 +263,11 @@ function ReplayBody({
                 textCol("Rival"),
                 numCol("Rounds"),
                 numCol("Mean spend"),
-                numCol("Mean equilibrium spend"),
-                numCol("Total regret"),
+                numCol(
+                  <Term id="equilibrium">Mean equilibrium spend</Term>,
+                  "Mean equilibrium spend",
+                ),
+                numCol(<Term id="regret">Total regret</Term>, "Total regret"),
                 numCol("Total payoff"),
               ]}
               caption="Seats: what each spent against equilibrium, and what it left on the table"
