@@ -4,7 +4,8 @@
  */
 export interface Clock {
   now(): number;
-  setTimer(fn: () => void, ms: number): TimerHandle;
+  /** `unref`: the timer alone does not keep the process running (a manual clock ignores it) */
+  setTimer(fn: () => void, ms: number, opts?: { unref?: boolean }): TimerHandle;
   clearTimer(handle: TimerHandle): void;
 }
 
@@ -15,7 +16,7 @@ const MAX_DELAY = 2_147_483_647;
 
 export const systemClock: Clock = {
   now: () => Date.now(),
-  setTimer(fn, ms) {
+  setTimer(fn, ms, opts) {
     const handle: { id: ReturnType<typeof setTimeout> | null } = { id: null };
     const arm = (remaining: number) => {
       const step = Math.min(Math.max(0, remaining), MAX_DELAY);
@@ -23,6 +24,7 @@ export const systemClock: Clock = {
         if (remaining > MAX_DELAY) arm(remaining - MAX_DELAY);
         else fn();
       }, step);
+      if (opts?.unref) handle.id.unref();
     };
     arm(ms);
     return handle;

@@ -33,7 +33,7 @@ import type {
 } from "@contend/protocol";
 import { viewFor } from "@contend/session";
 import type { Viewer } from "@contend/session";
-import type { Clock } from "./clock";
+import type { Clock, TimerHandle } from "./clock";
 import type { Limits } from "./env";
 import type { ExecuteResult, LiveSession, SessionHub } from "./live/hub";
 import { baseUrlOf, sessionLinks } from "./live/links";
@@ -194,7 +194,7 @@ export function attachSockets(deps: SocketDeps) {
   }
 
   /** sessions whose progress push to the other sockets is waiting, with its timer */
-  const pendingProgress = new Map<string, ReturnType<typeof setTimeout>>();
+  const pendingProgress = new Map<string, TimerHandle>();
 
   /**
    * After every commit. A commit that only seals moves changes, for everyone but the sealers,
@@ -210,7 +210,7 @@ export function attachSockets(deps: SocketDeps) {
     if (!room) return;
     if (limits.progressPushMs === 0 || !events.every((e) => e.type === "move-sealed")) {
       const waiting = pendingProgress.get(live.id);
-      if (waiting) clearTimeout(waiting);
+      if (waiting) clock.clearTimer(waiting);
       pendingProgress.delete(live.id);
       push(live, room);
       return;
@@ -223,15 +223,15 @@ export function attachSockets(deps: SocketDeps) {
       ),
     );
     if (pendingProgress.has(live.id)) return;
-    const timer = setTimeout(
+    const timer = clock.setTimer(
       () => {
         pendingProgress.delete(live.id);
         const current = rooms.get(live.id);
         if (current) push(live, current);
       },
       progressWindowMs(limits.progressPushMs, limits.progressPushBusyMs, load.busy()),
+      { unref: true },
     );
-    timer.unref();
     pendingProgress.set(live.id, timer);
   });
 
@@ -555,7 +555,7 @@ export function attachSockets(deps: SocketDeps) {
   return {
     /** drops the progress pushes still waiting (the server is closing) */
     stop() {
-      for (const timer of pendingProgress.values()) clearTimeout(timer);
+      for (const timer of pendingProgress.values()) clock.clearTimer(timer);
       pendingProgress.clear();
     },
     /** tells every socket of a deleted session so, and closes them */

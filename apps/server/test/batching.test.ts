@@ -34,23 +34,34 @@ describe("commands of one session that arrive together", () => {
     expectOk(await command(fac, { type: "openRound" }));
     const before = (await eventLog(file.server.db, id)).length;
 
-    // Seat 0's append is held for a moment, so the commands behind it arrive while it is in
-    // flight and wait for the session's next turn together.
+    // Seat 0's append is held until the commands behind it have reached the session's inbox,
+    // so they arrive while it is in flight and wait for the session's next turn together.
     const append = file.server.db.events.append.bind(file.server.db.events);
     const appends = vi.spyOn(file.server.db.events, "append");
+    const executes = vi.spyOn(file.server.app.hub, "execute");
+    let appendStarted!: () => void;
+    const started = new Promise<void>((r) => (appendStarted = r));
+    let releaseAppend!: () => void;
+    const released = new Promise<void>((r) => (releaseAppend = r));
     appends.mockImplementationOnce(async (...args) => {
-      await new Promise((r) => setTimeout(r, 300));
+      appendStarted();
+      await released;
       return append(...args);
     });
     const first = command(s0, { type: "sealMove", clientMoveId: "m0", effort: 12 });
-    await new Promise((r) => setTimeout(r, 50));
+    await started;
     // (in this order: after the last seal the round is closed and a repeat would be refused)
-    const [bad, again, a1, a2] = await Promise.all([
+    const rest = Promise.all([
       command(s1, { type: "sealMove", clientMoveId: "m1-bad", effort: 12, round: 9 }),
       command(s0, { type: "sealMove", clientMoveId: "m0", effort: 12 }),
       command(s1, { type: "sealMove", clientMoveId: "m1", effort: 7.5 }),
       command(s2, { type: "sealMove", clientMoveId: "m2", effort: 3 }),
     ]);
+    // seat 0's seal and the four behind it have all been handed to the hub
+    await eventually(() => expect(executes).toHaveBeenCalledTimes(5));
+    executes.mockRestore();
+    releaseAppend();
+    const [bad, again, a1, a2] = await rest;
     const a0 = expectOk(await first);
     const calls = appends.mock.calls.map((c) => c[2].map((e) => e.type));
     appends.mockRestore();

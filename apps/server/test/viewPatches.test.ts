@@ -9,6 +9,7 @@ import {
 } from "./helpers";
 import type { Client } from "./helpers";
 import { printShops } from "./fixtures";
+import { createManualClock } from "../src/clock";
 import { fixedGauge } from "../src/loadGauge";
 
 const file = serverForFile();
@@ -109,10 +110,13 @@ describe("progress pushes", () => {
 });
 
 describe("progress pushes on a busy server", () => {
-  // The gauge reads a full event loop, so the window is the busy one (1.2 s), not 50 ms.
+  // The gauge reads a full event loop, so the window is the busy one (1.2 s), not 50 ms; the
+  // window runs on a test clock, so the test moves time by hand instead of waiting for it.
+  const clock = createManualClock();
   const busy = serverForFile({
     limits: { progressPushMs: 50, progressPushBusyMs: 1_200 },
     load: fixedGauge(1),
+    clock,
   });
 
   it("other seats' progress waits for the busy window; the sealer's ack and a result do not", async () => {
@@ -127,14 +131,17 @@ describe("progress pushes on a busy server", () => {
     );
     const opened = expectOk(await command(fac, { type: "openRound" })).seq;
     await eventually(() => expect(seat.tracker.seq).toBe(opened));
-    const sealedAt = Date.now();
     const ack = expectOk(await command(seat, { type: "sealMove", clientMoveId: "b0", effort: 4 }));
     expect(seat.tracker.seq).toBe(ack.seq);
-    // timers never fire early: well past the quiet window the facilitator still holds the opening
-    await new Promise((r) => setTimeout(r, 600));
+    // Timers never fire early: well past the quiet window, 1 ms short of the busy one, the
+    // facilitator still holds the opening. A refused command is the barrier: its ack comes
+    // on the same socket after anything pushed to it before.
+    clock.advance(1_199);
+    const refused = await command(fac, { type: "openRound" });
+    expect(refused).toMatchObject({ ok: false, code: "wrong-state" });
     expect(fac.tracker.seq).toBe(opened);
-    await eventually(() => expect(fac.tracker.seq).toBe(ack.seq), 5_000);
-    expect(Date.now() - sealedAt).toBeGreaterThanOrEqual(1_100);
+    clock.advance(1);
+    await eventually(() => expect(fac.tracker.seq).toBe(ack.seq));
     // a close goes out at once, busy or not
     const seal2 = expectOk(
       await command(seat, { type: "sealMove", clientMoveId: "b1", effort: 5 }),
