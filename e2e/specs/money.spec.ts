@@ -193,6 +193,10 @@ test("shock(prize and cost) is announced on the seat, the big screen and the con
       const live = page.getByTestId("shock-live");
       await expect(live, who).toHaveAttribute("role", "status");
       await expect(live, who).toHaveAttribute("aria-live", "polite");
+      // and every role's live announcer says it once, in the same words
+      await expect(page.getByTestId("live-announcement"), who).toContainText(
+        "The contest changes from round 2: Prize: \u20ack1,000 \u2192 \u20ack1,500",
+      );
     }
     await saveScreen(seat, "money-shock-seat-1366");
     await saveScreen(screen, "money-shock-big-screen-1920");
@@ -201,6 +205,7 @@ test("shock(prize and cost) is announced on the seat, the big screen and the con
     // it stays up while the changed round is open, and goes once that round is revealed
     await fac.command({ type: "openRound" });
     await expect(seat.getByTestId("shock-banner")).toContainText("(this round)");
+    await expect(seat.getByTestId("live-announcement")).toHaveText("Round 2 is open.");
     // the same seat on a phone, with the banner and the amount box in the open round
     const phone = await (await phoneContext(browser, origin)).newPage();
     await phone.goto(pathOf(created.seats[0]!.link!));
@@ -217,6 +222,12 @@ test("shock(prize and cost) is announced on the seat, the big screen and the con
     const changes = console_.getByTestId("console-history-changes");
     await expect(changes).toContainText("From round 2: Prize: \u20ack1,000 \u2192 \u20ack1,500");
     await expect(seat.getByTestId("seat-history-chart")).toContainText("2 \u26a1 changed");
+    // a marked line on the round axis, named in the chart's label
+    await expect(seat.getByTestId("seat-history-chart")).toHaveAttribute(
+      "aria-label",
+      /Marked: Round 2 \(changed\)/,
+    );
+    await saveScreen(seat, "money-shock-seat-ended-1366");
     // the export lists it too
     const exported = (await exportJson(origin, created.id)) as {
       shocks: { afterRound: number; changes: unknown[] }[];
