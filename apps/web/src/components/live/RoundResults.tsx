@@ -16,6 +16,7 @@ import { formatMoney, formatPercent } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";
 import { Kpi } from "../Kpi";
+import { Term } from "../Glossary";
 
 /** One revealed round, in money: spends against equilibrium spends, shares, payoffs, regrets. */
 export function RoundResults({
@@ -42,11 +43,19 @@ export function RoundResults({
     <div data-testid={`${testPrefix}-results`}>
       <div className="kpis" style={{ marginBottom: "0.75rem" }}>
         <Kpi label="Round">{round.round}</Kpi>
-        <Kpi label="Prize spent by all (dissipation)" testId={`${testPrefix}-dissipation`}>
+        <Kpi
+          label={<Term id="dissipation">Share of the prize spent by all</Term>}
+          testId={`${testPrefix}-dissipation`}
+        >
           {formatPercent(round.dissipation)}
         </Kpi>
-        <Kpi label="… at equilibrium">{formatPercent(round.equilibrium.dissipation)}</Kpi>
-        <Kpi label="Largest regret (Nash gap)" testId={`${testPrefix}-gap`}>
+        <Kpi label={<Term id="equilibrium">… at equilibrium</Term>}>
+          {formatPercent(round.equilibrium.dissipation)}
+        </Kpi>
+        <Kpi
+          label={<Term id="regret">Largest regret (distance from equilibrium)</Term>}
+          testId={`${testPrefix}-gap`}
+        >
           {money(round.nashGap)}
         </Kpi>
         {round.winner !== null && (
