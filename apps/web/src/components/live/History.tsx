@@ -41,7 +41,7 @@ function RoundsChart({
       xLabel="Round"
       yLabel={`${yLabel} (${currency ?? "money"})`}
       formatY={(v) => formatMoney(v, currency)}
-      formatX={(v) => `${formatPlain(v, 0)}${changed.has(v) ? " \u26a1 changed" : ""}`}
+      formatX={(v) => `${formatPlain(v, 0)}${changed.has(v) ? " \u26a1" : ""}`}
       marks={roundMarks(changed, notes)}
       testId={testId}
       dark={dark}
