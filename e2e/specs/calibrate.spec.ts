@@ -91,14 +91,17 @@ test("a session from a calibrated scenario shows its calibration in the debrief"
     await expect
       .poll(
         async () =>
-          ((await exportJson(origin, created.id)) as { session: { status: string } }).session
-            .status,
+          (
+            (await exportJson(origin, created.id, created.facilitatorKey)) as {
+              session: { status: string };
+            }
+          ).session.status,
       )
       .toBe("ended");
   } finally {
     fac.close();
   }
-  await page.goto(`/replays/${created.id}`);
+  await page.goto(`/replays/${created.id}#key=${created.facilitatorKey}`);
   const note = page.getByTestId("debrief-provenance");
   await expect(note).toContainText("Calibrated from data");
   await expect(note).toContainText("48 observations in 12 periods");
