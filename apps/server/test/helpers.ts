@@ -159,6 +159,30 @@ export async function createSessionOverHttp(
   return (await res.json()) as CreateSessionResponse;
 }
 
+/**
+ * Connects and says hello as every role of a created session: facilitator, big screen, a guest
+ * by join code and each of its first `seatCount` seats (the leak tests watch all of them).
+ */
+export async function helloEveryRole(
+  client: () => Promise<Client>,
+  created: CreateSessionResponse,
+  seatCount: number,
+) {
+  const id = created.id;
+  const fac = await client();
+  const screen = await client();
+  const guest = await client();
+  const seats: Client[] = [];
+  for (let i = 0; i < seatCount; i++) seats.push(await client());
+  expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
+  expectOk(await hello(screen, { role: "spectator", sessionId: id, key: created.spectatorKey }));
+  expectOk(await hello(guest, { role: "guest", joinCode: created.joinCode }));
+  for (const [i, s] of seats.entries()) {
+    expectOk(await hello(s, { role: "seat", sessionId: id, key: created.seats[i]!.key }));
+  }
+  return { fac, screen, guest, seats };
+}
+
 /** GET with the key in the Authorization header (the only place REST reads keys from). */
 export function getWithKey(url: string, key: string): Promise<Response> {
   return fetch(url, { headers: { authorization: `Bearer ${key}` } });

@@ -5,9 +5,9 @@ import {
   eventually,
   expectOk,
   getWithKey,
-  hello,
   lastView,
   serverForFile,
+  helloEveryRole,
 } from "./helpers";
 import type { Client } from "./helpers";
 import { printShops } from "./fixtures";
@@ -27,16 +27,7 @@ describe("sealed moves stay private", () => {
   it("no other client receives a sealed effort before the round resolves, and the export leaves the open round out", async () => {
     const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 2 }));
     const id = created.id;
-    const fac = await client();
-    const screen = await client();
-    const guest = await client();
-    const seats = [await client(), await client(), await client()];
-    expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
-    expectOk(await hello(screen, { role: "spectator", sessionId: id, key: created.spectatorKey }));
-    expectOk(await hello(guest, { role: "guest", joinCode: created.joinCode }));
-    for (const [i, s] of seats.entries()) {
-      expectOk(await hello(s, { role: "seat", sessionId: id, key: created.seats[i]!.key }));
-    }
+    const { fac, screen, guest, seats } = await helloEveryRole(client, created, 3);
     expectOk(await command(fac, { type: "openRound" }));
     expectOk(
       await command(seats[0]!, { type: "sealMove", clientMoveId: "a", effort: Number(SECRET[0]) }),
@@ -117,16 +108,7 @@ describe("private costs and values stay private until the session ends", () => {
     (scenario.rivals[2] as { value?: number }).value = TRUE_VALUE;
     const created = await createSessionOverHttp(file.server.url, scenario);
     const id = created.id;
-    const fac = await client();
-    const screen = await client();
-    const guest = await client();
-    const seats = [await client(), await client(), await client()];
-    expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
-    expectOk(await hello(screen, { role: "spectator", sessionId: id, key: created.spectatorKey }));
-    expectOk(await hello(guest, { role: "guest", joinCode: created.joinCode }));
-    for (const [i, s] of seats.entries()) {
-      expectOk(await hello(s, { role: "seat", sessionId: id, key: created.seats[i]!.key }));
-    }
+    const { fac, screen, guest, seats } = await helloEveryRole(client, created, 3);
     const exportNow = () =>
       fetch(`${file.server.url}/api/sessions/${id}/export`, {
         headers: { authorization: `Bearer ${created.facilitatorKey}` },

@@ -13,6 +13,7 @@ import {
   hello,
   lastView,
   serverForFile,
+  helloEveryRole,
 } from "./helpers";
 import type { Client } from "./helpers";
 import { printShops } from "./fixtures";
@@ -29,16 +30,7 @@ describe("move reasons stay private until the reveal", () => {
   it("only the owner sees its reason while the round is open; everyone after", async () => {
     const created = await createSessionOverHttp(file.server.url, printShops({ rounds: 2 }));
     const id = created.id;
-    const fac = await client();
-    const screen = await client();
-    const guest = await client();
-    const seats = [await client(), await client(), await client()];
-    expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
-    expectOk(await hello(screen, { role: "spectator", sessionId: id, key: created.spectatorKey }));
-    expectOk(await hello(guest, { role: "guest", joinCode: created.joinCode }));
-    for (const [i, s] of seats.entries()) {
-      expectOk(await hello(s, { role: "seat", sessionId: id, key: created.seats[i]!.key }));
-    }
+    const { fac, screen, guest, seats } = await helloEveryRole(client, created, 3);
     expectOk(await command(fac, { type: "openRound" }));
     for (const k of [0, 1]) {
       const seal = { type: "sealMove", clientMoveId: `m${k}`, spend: 20, reason: REASON[k] };
