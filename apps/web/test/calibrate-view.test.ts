@@ -10,9 +10,9 @@ import {
   roundedScenario,
   runCalibration,
   shareRows,
-} from "../src/lib/calibrate-view";
-import { formToScenario, parseScenarioValue } from "../src/lib/editor-form";
-import { decodeState } from "../src/lib/url-state";
+} from "../src/lib/calibrateView";
+import { formToScenario, parseScenarioValue } from "../src/lib/editorForm";
+import { decodeState } from "../src/lib/urlState";
 
 const demoInput = {
   text: DEMO_PANEL.csv,

@@ -12,8 +12,8 @@ import {
   sweepRows,
   turningPoints,
   wholeNumberTicks,
-} from "../src/lib/chart-data";
-import { bestResponseCurves } from "../src/lib/br-curves";
+} from "../src/lib/chartData";
+import { bestResponseCurves } from "../src/lib/brCurves";
 
 describe("sweepRows", () => {
   it("sweepRows(sweep) gives one row per point with one key per rival series", () => {

@@ -10,9 +10,9 @@ import {
   parseScenarioText,
   rivalFieldError,
   scenarioToForm,
-} from "../src/lib/editor-form";
-import type { EditorForm } from "../src/lib/editor-form";
-import type { SessionScenarioInput } from "../src/lib/session-types";
+} from "../src/lib/editorForm";
+import type { EditorForm } from "../src/lib/editorForm";
+import type { SessionScenarioInput } from "../src/lib/sessionTypes";
 import { TEMPLATES } from "../src/lib/templates";
 
 function withRival(

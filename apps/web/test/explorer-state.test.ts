@@ -5,8 +5,8 @@ import {
   encodeExplorer,
   initialState,
   sweepParams,
-} from "../src/lib/explorer-state";
-import { encodeState } from "../src/lib/url-state";
+} from "../src/lib/explorerState";
+import { encodeState } from "../src/lib/urlState";
 
 describe("explorer URL state", () => {
   it("encodeExplorer(state) then decodeExplorer gives the same state", () => {

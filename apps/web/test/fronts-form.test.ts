@@ -11,7 +11,7 @@ import {
   initialFrontsForm,
   removeFront,
   scenarioToFrontsForm,
-} from "../src/lib/fronts-form";
+} from "../src/lib/frontsForm";
 
 describe("fronts form", () => {
   it("frontsFormToRaw(initial form) is a valid fronts scenario with money budgets and a sunk one", () => {

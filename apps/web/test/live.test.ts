@@ -12,9 +12,9 @@ import {
   withIssuedLink,
 } from "../src/lib/live";
 import { describeEvent, parseExport, seatSummary, viewAfter } from "../src/lib/replay";
-import { blankDraft, describeShock, draftToShock } from "../src/lib/shock-form";
-import { roundSeatRows } from "../src/lib/chart-data";
-import { shockLineText, shockLines } from "../src/lib/shock-text";
+import { blankDraft, describeShock, draftToShock } from "../src/lib/shockForm";
+import { roundSeatRows } from "../src/lib/chartData";
+import { shockLineText, shockLines } from "../src/lib/shockText";
 import { playLog } from "./session-log";
 
 // One rule, one place: the seat form checks a spend with the engine's rule, so it refuses

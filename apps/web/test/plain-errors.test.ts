@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { validateScenario } from "@contend/solver";
-import { fieldName, plainError } from "../src/lib/plain-errors";
+import { fieldName, plainError } from "../src/lib/plainErrors";
 
 /** The solver validator's own message for a scenario with one bad field. */
 function messageFor(patch: Record<string, unknown>, rival?: Record<string, unknown>) {

@@ -6,7 +6,7 @@ import {
   rangeFields,
   rangeKeyOf,
   rangesByPath,
-} from "../src/lib/range-form";
+} from "../src/lib/rangeForm";
 
 const s: Scenario = {
   title: "Two",

@@ -6,7 +6,7 @@ import {
   nextAction,
   sessionSummary,
   standings,
-} from "../src/lib/room-state";
+} from "../src/lib/roomState";
 import { viewAfter } from "../src/lib/replay";
 import { playLog } from "./session-log";
 

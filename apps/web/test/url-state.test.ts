@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { decodeState, encodeState } from "../src/lib/url-state";
+import { decodeState, encodeState } from "../src/lib/urlState";
 
 describe("encodeState / decodeState", () => {
   it("encodeState(value) round-trips nested JSON with non-ASCII text", () => {

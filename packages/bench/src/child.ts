@@ -15,7 +15,7 @@ export { freePort, HOST, REPO_ROOT, SERVER_MAIN, serverNodeFlags } from "./serve
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 /** The bare baseline gets the same Node flags as the real server, so both run as deployed. */
-export const BARE_MAIN = path.join(here, "bare-server.ts");
+export const BARE_MAIN = path.join(here, "bareServer.ts");
 
 const children = new Set<ChildProcess>();
 const tempDirs = new Set<string>();

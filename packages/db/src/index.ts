@@ -13,8 +13,8 @@ export {
   isOperatorKey,
   OPERATOR_KEY_FILE,
   OPERATOR_KEY_MIN_LENGTH,
-} from "./operator-key";
-export type { OperatorKey } from "./operator-key";
+} from "./operatorKey";
+export type { OperatorKey } from "./operatorKey";
 export {
   applyMigrations,
   readMigrations,

@@ -2,7 +2,7 @@ import { createHash } from "node:crypto";
 import { existsSync, readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
-import type { SqlRunner } from "./sql-runner";
+import type { SqlRunner } from "./sqlRunner";
 
 /** prisma/migrations at the repository root, next to schema.prisma. */
 export const DEFAULT_MIGRATIONS_DIR = fileURLToPath(

@@ -2,7 +2,7 @@ import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { PrismaPg } from "@prisma/adapter-pg";
 import pg from "pg";
-import { lockDataDir } from "./dir-lock";
+import { lockDataDir } from "./dirLock";
 import { PrismaClient } from "./generated/prisma/client";
 import {
   applyMigrations,
@@ -15,7 +15,7 @@ import { eventsRepository } from "./repos/events";
 import { keysRepository } from "./repos/keys";
 import { sessionsRepository } from "./repos/sessions";
 import { startPgliteThread } from "./pglite-thread/proxy";
-import { poolRunner, type SqlRunner } from "./sql-runner";
+import { poolRunner, type SqlRunner } from "./sqlRunner";
 import { resolveTarget } from "./target";
 import type { Db } from "./types";
 

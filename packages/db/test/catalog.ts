@@ -1,4 +1,4 @@
-import type { SqlTx } from "../src/sql-runner";
+import type { SqlTx } from "../src/sqlRunner";
 
 /**
  * The parts of a schema that matter to the application, as sorted plain rows: tables,

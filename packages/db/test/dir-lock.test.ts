@@ -3,7 +3,7 @@
 import { existsSync, readFileSync, utimesSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { afterEach, describe, expect, it } from "vitest";
-import { LOCK_WRITE_GRACE_MS, lockDataDir, lockState, processStart } from "../src/dir-lock";
+import { LOCK_WRITE_GRACE_MS, lockDataDir, lockState, processStart } from "../src/dirLock";
 import { tempDir } from "./fixtures";
 
 describe("lockState", () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { createGroupCommit, groupMember } from "../src/repos/group-commit";
-import type { PreparedStatement, PreparedValue, SqlRunner } from "../src/sql-runner";
+import { createGroupCommit, groupMember } from "../src/repos/groupCommit";
+import type { PreparedStatement, PreparedValue, SqlRunner } from "../src/sqlRunner";
 
 /**
  * A database stand-in that records each group statement and answers only when the test says

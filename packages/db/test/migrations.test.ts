@@ -11,7 +11,7 @@ import {
   openDatabase,
   readMigrations,
 } from "../src/index";
-import { pgliteRunner } from "../src/sql-runner";
+import { pgliteRunner } from "../src/sqlRunner";
 import { catalog } from "./catalog";
 import { tempDir } from "./fixtures";
 

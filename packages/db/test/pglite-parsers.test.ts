@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PGlite } from "@electric-sql/pglite";
-import { useLeanParsers } from "../src/pglite-parsers";
+import { useLeanParsers } from "../src/pgliteParsers";
 
 // One value (and a NULL) of every type PGlite parses by default, and arrays of them.
 const SAMPLE = `SELECT

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { PGlite } from "@electric-sql/pglite";
-import { pgliteRunner, sqlLiteral } from "../src/sql-runner";
-import type { PreparedStatement, PreparedValue } from "../src/sql-runner";
+import { pgliteRunner, sqlLiteral } from "../src/sqlRunner";
+import type { PreparedStatement, PreparedValue } from "../src/sqlRunner";
 
 const ECHO: PreparedStatement = {
   name: "test_echo",

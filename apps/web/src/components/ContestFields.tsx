@@ -1,7 +1,7 @@
 "use client";
 
 import type { ReactNode } from "react";
-import type { EditorForm, FieldErrors, RivalRow } from "../lib/editor-form";
+import type { EditorForm, FieldErrors, RivalRow } from "../lib/editorForm";
 import { POLICY_LABELS } from "@contend/solver";
 import { Term } from "./Glossary";
 import {
@@ -11,7 +11,7 @@ import {
   POLICY_ARGUMENT,
   POLICY_CHOICES,
   rivalFieldError,
-} from "../lib/editor-form";
+} from "../lib/editorForm";
 import { RadioGroup, SelectField, TextField } from "./Field";
 
 const CSF_OPTIONS = [

@@ -1,4 +1,4 @@
-import type { Row } from "../lib/chart-data";
+import type { Row } from "../lib/chartData";
 import { formatNumber } from "../lib/format";
 
 export interface Column {

@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
 import type { Contest, Equilibrium } from "@contend/solver";
 import { formatMoney, formatNumber, formatPercent } from "../lib/format";
-import type { SolvedView } from "../lib/solve-view";
+import type { SolvedView } from "../lib/solveView";
 import { Kpi } from "./Kpi";
 import { FigureTable, numCol, RowHeader, textCol } from "./FigureTable";
 import { Term } from "./Glossary";

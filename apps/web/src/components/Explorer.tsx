@@ -3,9 +3,9 @@
 import Link from "next/link";
 import { useDeferredValue, useMemo, useState } from "react";
 import { useSearchParams } from "next/navigation";
-import { decodeExplorer, initialState } from "../lib/explorer-state";
-import type { ExplorerState } from "../lib/explorer-state";
-import { solveForView } from "../lib/solve-view";
+import { decodeExplorer, initialState } from "../lib/explorerState";
+import type { ExplorerState } from "../lib/explorerState";
+import { solveForView } from "../lib/solveView";
 import { useAddressBarSync } from "../hooks/useAddressBarSync";
 import { useCopyLink } from "../hooks/useCopyLink";
 import { useExplorerRanges } from "../hooks/useExplorerRanges";

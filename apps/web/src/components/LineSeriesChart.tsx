@@ -11,8 +11,8 @@ import {
   XAxis,
   YAxis,
 } from "recharts";
-import { wholeNumberTicks } from "../lib/chart-data";
-import type { AxisMark, Row } from "../lib/chart-data";
+import { wholeNumberTicks } from "../lib/chartData";
+import type { AxisMark, Row } from "../lib/chartData";
 
 export interface Series {
   key: string;

@@ -2,7 +2,7 @@
 
 import { Fragment } from "react";
 import type { KeyboardEvent, MouseEvent } from "react";
-import type { CurvePoint } from "../lib/br-curves";
+import type { CurvePoint } from "../lib/brCurves";
 import { seriesColour } from "../lib/palette";
 
 const W = 520;

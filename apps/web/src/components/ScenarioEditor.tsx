@@ -11,12 +11,12 @@ import {
   parseScenarioText,
   parseScenarioValue,
   scenarioToForm,
-} from "../lib/editor-form";
-import type { EditorForm } from "../lib/editor-form";
-import { plainErrors } from "../lib/plain-errors";
+} from "../lib/editorForm";
+import type { EditorForm } from "../lib/editorForm";
+import { plainErrors } from "../lib/plainErrors";
 import { templateById } from "../lib/templates";
-import { solveForView } from "../lib/solve-view";
-import { decodeState, encodeState } from "../lib/url-state";
+import { solveForView } from "../lib/solveView";
+import { decodeState, encodeState } from "../lib/urlState";
 import { useCreateSession } from "../hooks/useCreateSession";
 import { AboutTheMaths } from "./AboutTheMaths";
 import { CreatedSession } from "./CreatedSession";

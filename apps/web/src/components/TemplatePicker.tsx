@@ -2,7 +2,7 @@
 
 import Link from "next/link";
 import { useCreateSession } from "../hooks/useCreateSession";
-import { encodeState } from "../lib/url-state";
+import { encodeState } from "../lib/urlState";
 import { TEMPLATES } from "../lib/templates";
 import { CreatedSession } from "./CreatedSession";
 

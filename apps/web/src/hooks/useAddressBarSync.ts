@@ -2,8 +2,8 @@
 
 import { useEffect } from "react";
 import type { AxisSpec, Scenario } from "@contend/solver";
-import { encodeExplorer } from "../lib/explorer-state";
-import type { RangeForm } from "../lib/range-form";
+import { encodeExplorer } from "../lib/explorerState";
+import type { RangeForm } from "../lib/rangeForm";
 
 /** Quiet time after the last edit before the address bar is rewritten. */
 export const ADDRESS_SYNC_DELAY_MS = 300;

@@ -3,7 +3,7 @@
 import { useCallback, useState } from "react";
 import type { Command } from "@contend/protocol";
 import type { SessionHandle } from "./useSession";
-import { plainAckError } from "../lib/room-state";
+import { plainAckError } from "../lib/roomState";
 
 export interface Notice {
   ok: boolean;

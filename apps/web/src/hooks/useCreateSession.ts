@@ -3,7 +3,7 @@
 import { useCallback, useRef, useState } from "react";
 import type { CreateSessionResponse } from "@contend/protocol";
 import { createSession } from "../lib/api";
-import type { SessionScenarioInput } from "../lib/session-types";
+import type { SessionScenarioInput } from "../lib/sessionTypes";
 
 export interface CreatedRecord {
   res: CreateSessionResponse;

@@ -4,7 +4,7 @@ import { useMemo, useState } from "react";
 import type { ReactNode } from "react";
 import { createElement } from "react";
 import type { Scenario } from "@contend/solver";
-import type { EditorForm } from "../lib/editor-form";
+import type { EditorForm } from "../lib/editorForm";
 import {
   buildUncertain,
   rangeFields,
@@ -12,7 +12,7 @@ import {
   rangesByPath,
   type RangeForm,
   type RangeText,
-} from "../lib/range-form";
+} from "../lib/rangeForm";
 import { RangeToggle } from "../components/explorer/RangeToggle";
 
 type RivalField = "cost" | "value" | "weight" | "budget";

@@ -3,8 +3,8 @@
 import { useMemo, useState } from "react";
 import { validateScenario } from "@contend/solver";
 import type { Scenario } from "@contend/solver";
-import { contestErrors, formToContestRaw, scenarioToForm } from "../lib/editor-form";
-import type { EditorForm } from "../lib/editor-form";
+import { contestErrors, formToContestRaw, scenarioToForm } from "../lib/editorForm";
+import type { EditorForm } from "../lib/editorForm";
 
 function formOf(s: Scenario): EditorForm {
   return scenarioToForm({ ...s, session: {} });

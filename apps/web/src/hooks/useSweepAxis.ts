@@ -2,7 +2,7 @@
 
 import { useEffect, useMemo, useState } from "react";
 import type { AxisSpec, Scenario } from "@contend/solver";
-import { defaultAxis, sweepParams } from "../lib/explorer-state";
+import { defaultAxis, sweepParams } from "../lib/explorerState";
 
 /** The sweep axis as typed: every field keeps its text so that a half-typed number survives. */
 export interface AxisText {

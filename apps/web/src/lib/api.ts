@@ -1,6 +1,6 @@
 /** REST calls to the Contend server (same origin unless NEXT_PUBLIC_SERVER_URL says otherwise). */
 import type { CreateSessionResponse, SessionListItem } from "@contend/protocol";
-import type { SessionScenarioInput } from "./session-types";
+import type { SessionScenarioInput } from "./sessionTypes";
 
 export type ApiResult<T> =
   | { ok: true; data: T }

@@ -2,7 +2,7 @@
  * Invented workshop templates (no real firms). Each is a complete session scenario: the contest
  * file the CLI reads plus the live-session settings.
  */
-import type { SessionScenarioInput } from "./session-types";
+import type { SessionScenarioInput } from "./sessionTypes";
 
 export interface Template {
   id: string;

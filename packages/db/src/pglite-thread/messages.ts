@@ -3,7 +3,7 @@
  * the reply with the same id settles it. Errors cross as plain data (structured cloning keeps
  * an Error's message but drops its class and fields) and are rebuilt on the main thread.
  */
-import type { PreparedStatement, PreparedValue } from "../sql-runner";
+import type { PreparedStatement, PreparedValue } from "../sqlRunner";
 
 export type Request =
   | { op: "adapter.query"; tx: number | null; query: unknown; rows: boolean }

@@ -9,7 +9,7 @@ import { createRequire } from "node:module";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
-import type { PreparedStatement, PreparedValue, SqlRunner, SqlTx } from "../sql-runner";
+import type { PreparedStatement, PreparedValue, SqlRunner, SqlTx } from "../sqlRunner";
 import { openChannel } from "./channel";
 import { fromWire, type Ready } from "./messages";
 

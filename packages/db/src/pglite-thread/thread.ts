@@ -7,8 +7,8 @@
 import { parentPort, workerData } from "node:worker_threads";
 import { PGlite } from "@electric-sql/pglite";
 import { PrismaPGlite } from "pglite-prisma-adapter";
-import { useLeanParsers } from "../pglite-parsers";
-import { pgliteRunner, type SqlTx } from "../sql-runner";
+import { useLeanParsers } from "../pgliteParsers";
+import { pgliteRunner, type SqlTx } from "../sqlRunner";
 import { toWire, type Envelope, type Ready, type Reply } from "./messages";
 
 interface Queryable {

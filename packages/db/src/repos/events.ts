@@ -1,6 +1,6 @@
-import type { SqlRunner } from "../sql-runner";
+import type { SqlRunner } from "../sqlRunner";
 import type { AppendResult, Db, KeyInput, NewEvent, StoredEvent } from "../types";
-import { createGroupCommit, groupMember } from "./group-commit";
+import { createGroupCommit, groupMember } from "./groupCommit";
 import { keyRows } from "./keys";
 import { Prisma } from "../generated/prisma/client";
 import { isUniqueViolation, jsonb, storedEvent } from "./rows";

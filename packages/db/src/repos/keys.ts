@@ -1,6 +1,6 @@
 import { randomUUID } from "node:crypto";
 import { hashKey } from "../credentials";
-import type { SqlRunner } from "../sql-runner";
+import type { SqlRunner } from "../sqlRunner";
 import type { Db, KeyInput, Role } from "../types";
 
 export function keyRows(sessionId: string, keys: KeyInput[]) {

@@ -2,7 +2,7 @@
 
 import { useDeferredValue, useMemo, useState } from "react";
 import { DEMO_PANEL } from "@contend/solver";
-import { runCalibration } from "../../lib/calibrate-view";
+import { runCalibration } from "../../lib/calibrateView";
 import { TextField } from "../Field";
 import { CalibrationCautions } from "./CalibrationCautions";
 import { CalibrationResults } from "./CalibrationResults";

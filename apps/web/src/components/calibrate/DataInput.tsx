@@ -2,7 +2,7 @@
 
 import { useId, useState } from "react";
 import { DEMO_PANEL } from "@contend/solver";
-import { csvToGrid, gridToCsv, newGridRow, type GridRow } from "../../lib/calibrate-view";
+import { csvToGrid, gridToCsv, newGridRow, type GridRow } from "../../lib/calibrateView";
 import { PanelGrid } from "./PanelGrid";
 
 export interface DataSource {

@@ -1,7 +1,7 @@
 "use client";
 
 import type { Calibration } from "@contend/solver";
-import { residualKey, residualRows, shareRows } from "../../lib/calibrate-view";
+import { residualKey, residualRows, shareRows } from "../../lib/calibrateView";
 import { formatNumber } from "../../lib/format";
 import { seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";

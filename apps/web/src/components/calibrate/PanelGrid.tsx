@@ -1,7 +1,7 @@
 "use client";
 
-import type { GridRow } from "../../lib/calibrate-view";
-import { newGridRow } from "../../lib/calibrate-view";
+import type { GridRow } from "../../lib/calibrateView";
+import { newGridRow } from "../../lib/calibrateView";
 
 const CELLS = [
   { key: "period", label: "Period", numeric: false, width: "5rem" },

@@ -1,7 +1,7 @@
 "use client";
 
 import type { Scenario } from "@contend/solver";
-import { handoffLinks, roundedScenario } from "../../lib/calibrate-view";
+import { handoffLinks, roundedScenario } from "../../lib/calibrateView";
 import { formatMoney, formatNumber } from "../../lib/format";
 
 function download(filename: string, text: string) {

@@ -3,8 +3,8 @@
 import { useState } from "react";
 import type { Command, RoleView } from "@contend/protocol";
 import { LIMITS } from "@contend/protocol";
-import { parseNumberField } from "../../lib/editor-form";
-import { nextAction } from "../../lib/room-state";
+import { parseNumberField } from "../../lib/editorForm";
+import { nextAction } from "../../lib/roomState";
 import type { Notice } from "../../hooks/useConsoleCommands";
 import { TextField } from "../Field";
 

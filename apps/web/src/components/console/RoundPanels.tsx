@@ -5,7 +5,7 @@ import type { RoleView } from "@contend/protocol";
 import { activeContest } from "@contend/session";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { seatNames } from "../../lib/live";
-import { solveForView } from "../../lib/solve-view";
+import { solveForView } from "../../lib/solveView";
 import { SolvedEquilibrium } from "../EquilibriumTable";
 import { Kpi } from "../Kpi";
 import { Term } from "../Glossary";

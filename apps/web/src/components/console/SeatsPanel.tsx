@@ -3,7 +3,7 @@
 import { POLICY_LABELS } from "@contend/solver";
 import type { PolicyKind, PolicySpec } from "@contend/solver";
 import type { Command, RoleView } from "@contend/protocol";
-import { sealProgress } from "../../lib/room-state";
+import { sealProgress } from "../../lib/roomState";
 import { SelectField } from "../Field";
 
 type Run = (cmd: Command, done: string) => Promise<boolean>;

@@ -9,8 +9,8 @@ import {
   draftToShock,
   SHOCK_FIELDS,
   SHOCK_TARGETS,
-} from "../../lib/shock-form";
-import type { ShockDraft } from "../../lib/shock-form";
+} from "../../lib/shockForm";
+import type { ShockDraft } from "../../lib/shockForm";
 import { SelectField, TextField } from "../Field";
 import { POLICY_OPTIONS } from "./SeatsPanel";
 

@@ -2,7 +2,7 @@
 
 import { useMemo } from "react";
 import type { Contest } from "@contend/solver";
-import { bestResponseCurves, curveRange } from "../../lib/br-curves";
+import { bestResponseCurves, curveRange } from "../../lib/brCurves";
 import { formatNumber } from "../../lib/format";
 import { DataTable } from "../DataTable";
 import { ReactionChart } from "../ReactionChart";

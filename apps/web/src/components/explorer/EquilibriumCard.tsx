@@ -1,7 +1,7 @@
 "use client";
 
 import { formatMoney, formatPercent } from "../../lib/format";
-import type { SolvedView } from "../../lib/solve-view";
+import type { SolvedView } from "../../lib/solveView";
 import { SolvedEquilibrium } from "../EquilibriumTable";
 import { MixedStrategyChart } from "./MixedStrategyChart";
 import { Term } from "../Glossary";

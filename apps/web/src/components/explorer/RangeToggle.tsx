@@ -1,7 +1,7 @@
 "use client";
 
 import { useId } from "react";
-import { defaultRange, type RangeField, type RangeText } from "../../lib/range-form";
+import { defaultRange, type RangeField, type RangeText } from "../../lib/rangeForm";
 import styles from "./UncertainCharts.module.css";
 
 /**

@@ -1,7 +1,7 @@
 "use client";
 
-import { effortKey, payoffKey, turningPoints } from "../../lib/chart-data";
-import type { Row } from "../../lib/chart-data";
+import { effortKey, payoffKey, turningPoints } from "../../lib/chartData";
+import type { Row } from "../../lib/chartData";
 import { formatNumber, formatPlain } from "../../lib/format";
 import { seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";

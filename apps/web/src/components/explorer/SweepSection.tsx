@@ -3,7 +3,7 @@
 import type { Scenario } from "@contend/solver";
 import { useChunkedSweep } from "../../hooks/useChunkedSweep";
 import type { useSweepAxis } from "../../hooks/useSweepAxis";
-import { sweepRows } from "../../lib/chart-data";
+import { sweepRows } from "../../lib/chartData";
 import { SweepControls } from "./SweepControls";
 import { SweepResults } from "./SweepResults";
 

@@ -1,6 +1,6 @@
 "use client";
 
-import type { EditorForm } from "../../lib/editor-form";
+import type { EditorForm } from "../../lib/editorForm";
 import { SelectField } from "../Field";
 import { Term } from "../Glossary";
 

@@ -4,7 +4,7 @@ import { useMemo, useState } from "react";
 import type { Scenario } from "@contend/solver";
 import { useUncertainRun } from "../../hooks/useUncertainRun";
 import { formatNumber } from "../../lib/format";
-import type { BuiltUncertain, RangeField, RangeForm } from "../../lib/range-form";
+import type { BuiltUncertain, RangeField, RangeForm } from "../../lib/rangeForm";
 import { SelectField, TextField } from "../Field";
 import { ProgressBar } from "../ProgressBar";
 import { UncertainResults } from "./UncertainResults";

@@ -1,8 +1,8 @@
 "use client";
 
 import { useState } from "react";
-import type { FrontsForm, FrontsRivalRow, PerFrontField } from "../../lib/fronts-form";
-import { addRival, removeRival } from "../../lib/fronts-form";
+import type { FrontsForm, FrontsRivalRow, PerFrontField } from "../../lib/frontsForm";
+import { addRival, removeRival } from "../../lib/frontsForm";
 import { SelectField, TextField } from "../Field";
 
 type Setter = (update: (f: FrontsForm) => FrontsForm) => void;

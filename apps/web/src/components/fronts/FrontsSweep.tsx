@@ -3,10 +3,10 @@
 import { useMemo, useState } from "react";
 import type { FrontsScenario, FrontsSweepPoint } from "@contend/solver";
 import { frontsParamPaths, sweepFronts } from "@contend/solver";
-import { frontsParamValue } from "../../lib/fronts-form";
+import { frontsParamValue } from "../../lib/frontsForm";
 import { formatMoney, formatNumber } from "../../lib/format";
 import { seriesColour } from "../../lib/palette";
-import type { Row } from "../../lib/chart-data";
+import type { Row } from "../../lib/chartData";
 import { DataTable } from "../DataTable";
 import { SelectField, TextField } from "../Field";
 import { LineSeriesChart } from "../LineSeriesChart";

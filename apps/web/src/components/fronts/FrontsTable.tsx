@@ -1,7 +1,7 @@
 "use client";
 
-import type { FrontRow, FrontsForm } from "../../lib/fronts-form";
-import { addFront, removeFront } from "../../lib/fronts-form";
+import type { FrontRow, FrontsForm } from "../../lib/frontsForm";
+import { addFront, removeFront } from "../../lib/frontsForm";
 import { SelectField, TextField } from "../Field";
 
 type Setter = (update: (f: FrontsForm) => FrontsForm) => void;

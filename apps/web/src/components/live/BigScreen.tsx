@@ -4,7 +4,7 @@ import { useMemo } from "react";
 import type { Credentials, RoleView } from "@contend/protocol";
 import { useSession } from "../../hooks/useSession";
 import { formatMoney } from "../../lib/format";
-import { headline } from "../../lib/room-state";
+import { headline } from "../../lib/roomState";
 import { ConnectionBanner } from "./ConnectionBanner";
 import { LiveAnnouncer } from "./LiveAnnouncer";
 import { PrivateNumbers } from "./PrivateNumbers";

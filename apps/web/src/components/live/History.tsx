@@ -1,14 +1,14 @@
 "use client";
 
 import type { RoundResult } from "@contend/protocol";
-import { perSeatOverRounds, roundMarks, seatHistoryRows } from "../../lib/chart-data";
-import { changesBetweenRounds, shockLineText } from "../../lib/shock-text";
+import { perSeatOverRounds, roundMarks, seatHistoryRows } from "../../lib/chartData";
+import { changesBetweenRounds, shockLineText } from "../../lib/shockText";
 import { formatMoney, formatPlain } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";
 import { LineSeriesChart } from "../LineSeriesChart";
 import type { Series } from "../LineSeriesChart";
-import type { Row } from "../../lib/chart-data";
+import type { Row } from "../../lib/chartData";
 
 /** A chart of money per round (rounds on x, whole numbers; y in the session's currency). */
 function RoundsChart({

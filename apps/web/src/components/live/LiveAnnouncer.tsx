@@ -2,7 +2,7 @@
 
 import { useEffect, useRef, useState } from "react";
 import type { RoleView } from "@contend/protocol";
-import { announcement } from "../../lib/room-state";
+import { announcement } from "../../lib/roomState";
 
 /**
  * A polite live region that says, once, what just happened (round opened, revealed, paused,

@@ -11,7 +11,7 @@ import {
   YAxis,
 } from "recharts";
 import type { RoundResult } from "@contend/protocol";
-import { roundSeatRows } from "../../lib/chart-data";
+import { roundSeatRows } from "../../lib/chartData";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";

@@ -1,5 +1,5 @@
 import type { RoleView } from "@contend/protocol";
-import { equilibriumPayoffOf } from "../../lib/chart-data";
+import { equilibriumPayoffOf } from "../../lib/chartData";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { seatNames } from "../../lib/live";
 import { Kpi } from "../Kpi";

@@ -1,5 +1,5 @@
 import type { RoleView } from "@contend/protocol";
-import { currentShocks, roundOfShock, shockLines, shockLineText } from "../../lib/shock-text";
+import { currentShocks, roundOfShock, shockLines, shockLineText } from "../../lib/shockText";
 
 /**
  * Announces the shocks applied since the last reveal, to every role, until the round they

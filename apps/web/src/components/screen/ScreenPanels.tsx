@@ -4,7 +4,7 @@ import { Bar, BarChart, CartesianGrid, ResponsiveContainer, XAxis, YAxis } from 
 import type { RoleView, RoundResult } from "@contend/protocol";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { SCREEN } from "../../lib/palette";
-import { sealProgress, sessionSummary, standings } from "../../lib/room-state";
+import { sealProgress, sessionSummary, standings } from "../../lib/roomState";
 
 /** Open round (or lobby): one tile per rival saying whether it has sealed. */
 export function SeatTiles({ view }: { view: RoleView }) {

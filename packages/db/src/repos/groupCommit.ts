@@ -1,4 +1,4 @@
-import type { PreparedStatement, SqlRunner } from "../sql-runner";
+import type { PreparedStatement, SqlRunner } from "../sqlRunner";
 import type { AppendResult, NewEvent } from "../types";
 import { jsonText } from "./rows";
 

@@ -13,8 +13,8 @@ import {
   type InputError,
   type Scenario,
 } from "@contend/solver";
-import type { Row } from "./chart-data";
-import { encodeState } from "./url-state";
+import type { Row } from "./chartData";
+import { encodeState } from "./urlState";
 
 export interface GridRow {
   /** stable React key */

@@ -9,7 +9,7 @@
  * server stretches its window while its event loop is near full; this one's loop never is
  * (40-43% of a core in the full run, below where the window starts to stretch), so the same
  * rule would keep PROGRESS_MS here.
- *   PORT=... HOST=127.0.0.1 SEATS=8 VIEW_BYTES=4000 PROGRESS_MS=200 node --import tsx src/bare-server.ts
+ *   PORT=... HOST=127.0.0.1 SEATS=8 VIEW_BYTES=4000 PROGRESS_MS=200 node --import tsx src/bareServer.ts
  */
 import { createServer } from "node:http";
 import { Server } from "socket.io";

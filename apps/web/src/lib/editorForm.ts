@@ -4,12 +4,12 @@
  * schemas; this module only collects all of their messages instead of the first one, so each
  * field can show its own.
  */
-import { plainError } from "./plain-errors";
+import { plainError } from "./plainErrors";
 import { POLICY_LABELS, validateScenario } from "@contend/solver";
 import type { CsfSpec, PolicyKind, Provenance, RivalSpec, Scenario } from "@contend/solver";
 import { sessionScenarioSchema, sessionSettingsSchema, spendStepOf } from "@contend/protocol";
 import type { HiddenSettings } from "@contend/protocol";
-import type { SessionScenarioInput } from "./session-types";
+import type { SessionScenarioInput } from "./sessionTypes";
 
 export type PolicyChoice = "human" | PolicyKind;
 

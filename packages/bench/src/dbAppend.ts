@@ -5,7 +5,7 @@
  * offered rate, its CPU includes the idle timers), then many sessions appending at once (each
  * session serial, as the server's queues are). The database runs on its own thread of this
  * process, as in the server; CPU is this process's, both threads.
- *   npx tsx src/db-append.ts [--appends 400] [--sessions 40] [--json]
+ *   npx tsx src/dbAppend.ts [--appends 400] [--sessions 40] [--json]
  */
 import path from "node:path";
 import { fileURLToPath } from "node:url";

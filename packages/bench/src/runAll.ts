@@ -2,10 +2,10 @@
  * Every benchmark of this package in one run: database appends alone, the load run (real server and bare socket.io
  * baseline), then the fault runs, then one table of targets and checks. Prints numbers and
  * pass/fail; asserts nothing and exits 0 even on misses.
- *   npx tsx src/run-all.ts [--full] [load flags, see load.ts] [fault flags, see faults.ts]
+ *   npx tsx src/runAll.ts [--full] [load flags, see load.ts] [fault flags, see faults.ts]
  */
 import os from "node:os";
-import { formatDbAppend, runDbAppend } from "./db-append";
+import { formatDbAppend, runDbAppend } from "./dbAppend";
 import { formatFault, runFaults } from "./faults";
 import { configFrom, formatLoad, runLoad } from "./load";
 import { loadAverage } from "./proc";

@@ -4,7 +4,7 @@
  * the same thing and a test can check each state.
  */
 import type { RoleView, RoundResult } from "@contend/protocol";
-import { roundOfShock, shockLines, shockLineText } from "./shock-text";
+import { roundOfShock, shockLines, shockLineText } from "./shockText";
 
 /** Seats that play the open round (or would play the next one) and how many of them sealed. */
 export function sealProgress(view: RoleView): { sealed: number; playing: number } {

@@ -7,8 +7,8 @@
  */
 import { getParam, MAX_STEPS_1D, parseParamPath, validateScenario } from "@contend/solver";
 import type { AxisSpec, Scenario } from "@contend/solver";
-import { rangeFields, type RangeForm, type RangeText } from "./range-form";
-import { decodeState, encodeState } from "./url-state";
+import { rangeFields, type RangeForm, type RangeText } from "./rangeForm";
+import { decodeState, encodeState } from "./urlState";
 
 export interface ExplorerState {
   sc: Scenario;

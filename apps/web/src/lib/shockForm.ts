@@ -7,7 +7,7 @@ import type { PolicySpec } from "@contend/solver";
 import type { Shock } from "@contend/protocol";
 import { RIVAL_SHOCK_FIELDS } from "@contend/protocol";
 import type { RivalShockField } from "@contend/protocol";
-import { parseNumberField } from "./editor-form";
+import { parseNumberField } from "./editorForm";
 
 export type ShockTarget = Shock["target"];
 
