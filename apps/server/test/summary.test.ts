@@ -86,6 +86,7 @@ describe("session summary", () => {
     expectOk(await command(a, { type: "sealMove", clientMoveId: "1a", effort: 40 }));
     expectOk(await command(b, { type: "sealMove", clientMoveId: "1b", effort: 12.5 }));
     await eventually(() => expect(lastView(fac).rounds).toHaveLength(1));
+    expectOk(await command(fac, { type: "noteRound", round: 1, text: "Inkwell went in hard" }));
     expectOk(
       await command(fac, { type: "applyShock", changes: [{ target: "prize", value: 150 }] }),
     );
@@ -126,7 +127,11 @@ describe("session summary", () => {
       expect(r.overspend).toBeCloseTo(sum(x.spends) / sum(x.eqSpends), 6);
       expect(r.nashGap).toBeCloseTo(Math.max(...x.regrets), 6);
       expect(r.dissipation).toBeCloseTo(sum(x.spends) / x.prize, 9);
+      expect(r.prize).toBe(x.prize);
+      expect(r.nashGapShare).toBeCloseTo(Math.max(...x.regrets) / x.prize, 6);
     });
+    expect(summary.rounds.map((r) => r.prize)).toEqual([100, 150]);
+    expect(summary.rounds.map((r) => r.note)).toEqual(["Inkwell went in hard", null]);
     // Round 1 by hand: 40 + 1.25 x 12.5 + Cobble Copy's spend.
     expect(summary.rounds[0]!.totalSpend).toBeCloseTo(40 + 15.625 + expected[0]!.spends[2]!, 9);
     expect(summary.rounds[0]!.shock).toBeNull();

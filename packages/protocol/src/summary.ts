@@ -22,12 +22,18 @@ export const summaryRoundSchema = z.object({
   equilibriumTotalSpend: z.number().nullable(),
   /** totalSpend / equilibriumTotalSpend */
   overspend: z.number().nullable(),
+  /** the round's prize, in money (a shock may change it between rounds) */
+  prize: z.number(),
   /** largest regret of the played profile, in money */
   nashGap: z.number(),
+  /** nashGap / prize: comparable across scenarios of different size; null for a prize of 0 */
+  nashGapShare: z.number().nullable(),
   /** money spent / prize */
   dissipation: z.number(),
   /** what changed before this round; null when nothing did */
   shock: summaryShockSchema.nullable(),
+  /** the facilitator's note on the round; null when none */
+  note: z.string().nullable(),
 });
 
 export const summarySeatSchema = z.object({

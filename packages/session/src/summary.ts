@@ -67,9 +67,12 @@ function roundSummary(r: RoundResult, state: LiveState): SummaryRound {
     totalSpend,
     equilibriumTotalSpend: eqTotal,
     overspend: ratio(totalSpend, eqTotal),
+    prize: r.scenario.prize,
     nashGap: r.nashGap,
+    nashGapShare: ratio(r.nashGap, r.scenario.prize),
     dissipation: r.dissipation,
     shock: shockBefore(r.round, state),
+    note: r.note !== undefined && r.note.trim() !== "" ? r.note : null,
   };
 }
 
