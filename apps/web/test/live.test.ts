@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { parseSessionScenario } from "@contend/protocol";
 import type { EventBody, RoleView, SessionEvent } from "@contend/protocol";
-import { apply, createSession, decide, fold } from "@contend/session";
+import { apply, createSession, decide, fold, summarizeSession } from "@contend/session";
 import type { Actor, EngineCommand, SessionState } from "@contend/session";
 import {
   invitesFor,
@@ -11,7 +11,7 @@ import {
   remainingMs,
   withIssuedLink,
 } from "../src/lib/live";
-import { describeEvent, parseExport, seatSummary, viewAfter } from "../src/lib/replay";
+import { describeEvent, parseExport, viewAfter } from "../src/lib/replay";
 import { blankDraft, describeShock, draftToShock } from "../src/lib/shockForm";
 import { roundSeatRows } from "../src/lib/chartData";
 import { shockLineText, shockLines } from "../src/lib/shockText";
@@ -280,14 +280,15 @@ describe("replay", () => {
     expect(rows[0]?.equilibrium as number).toBeCloseTo((5 * 100 * 2) / 49, 6);
     expect(rows[1]?.equilibrium as number).toBeCloseTo((2 * 100 * 5) / 49, 6);
   });
-  it("seatSummary(export, seats) averages spend and equilibrium spend per seat", () => {
-    const end = viewAfter(playLog(), Infinity);
+  it("the debrief's seat table (summarizeSession of the log) averages spend and equilibrium spend per seat", () => {
+    const log = playLog();
+    const end = viewAfter(log, Infinity);
     if (!end.ok) throw new Error(end.message);
-    const rows = seatSummary({ rounds: end.view.rounds }, 2);
+    const rows = summarizeSession(log)!.seats;
     // money: North Bakery (cost 5) spent 15; its equilibrium spend is 5 x 200/49
     expect(rows[0]).toMatchObject({ seat: 0, rounds: 1, meanSpend: 15 });
-    expect(rows[0]?.meanEqSpend as number).toBeCloseTo((5 * 200) / 49, 6);
-    expect(rows[0]?.regret).toBeCloseTo(end.view.rounds[0]!.regrets[0]!, 12);
+    expect(rows[0]?.meanEquilibriumSpend as number).toBeCloseTo((5 * 200) / 49, 6);
+    expect(rows[0]?.totalRegret).toBeCloseTo(end.view.rounds[0]!.regrets[0]!, 12);
   });
   it("describeEvent(event, names) names the seat and the round", () => {
     const log = playLog();

@@ -80,36 +80,3 @@ export function describeEvent(e: SessionEvent, names: readonly string[]): string
         : "Session ended by the facilitator";
   }
 }
-
-export interface SeatSummary {
-  seat: number;
-  rounds: number;
-  /** money: mean spend over the rounds played */
-  meanSpend: number;
-  /** money; null when no played round had a known equilibrium for this seat */
-  meanEqSpend: number | null;
-  regret: number;
-  total: number;
-}
-
-/** Per seat over the rounds it played, in money: mean spend vs mean equilibrium spend, regret, payoff. */
-export function seatSummary(data: Pick<SessionExport, "rounds">, seats: number): SeatSummary[] {
-  const out: SeatSummary[] = [];
-  for (let seat = 0; seat < seats; seat++) {
-    const played = data.rounds.filter((r) => r.seatIndices.includes(seat));
-    if (played.length === 0) continue;
-    const eqs = played
-      .map((r) => r.equilibriumSpends[seat] ?? null)
-      .filter((x): x is number => x !== null);
-    const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0);
-    out.push({
-      seat,
-      rounds: played.length,
-      meanSpend: sum(played.map((r) => r.spends[seat] ?? 0)) / played.length,
-      meanEqSpend: eqs.length === 0 ? null : sum(eqs) / eqs.length,
-      regret: sum(played.map((r) => r.regrets[seat] ?? 0)),
-      total: sum(played.map((r) => r.payoffs[seat] ?? 0)),
-    });
-  }
-  return out;
-}
