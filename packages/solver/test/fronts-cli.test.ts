@@ -89,10 +89,17 @@ describe("validateFrontsScenario names the offending field", () => {
       /> 0/,
     ],
     [
-      "an all-pay front",
-      { ...friedman, fronts: [{ name: "X", prize: 1, csf: { kind: "allpay" } }] },
-      "fronts.0.csf.kind",
-      /not supported on fronts/,
+      "nine all-pay fronts",
+      {
+        ...friedman,
+        fronts: Array.from({ length: 9 }, (_, k) => ({
+          name: `T${k}`,
+          prize: 1,
+          csf: { kind: "allpay" },
+        })),
+      },
+      "fronts.8.csf.kind",
+      /at most 8 fronts may be "allpay"/,
     ],
     [
       "duplicate front names",
@@ -206,7 +213,6 @@ describe("contend solve / respond with fronts", () => {
       /rivals\.0\.sunkBudget: needs a budget/,
     ],
     ["prize beside fronts", ["solve", "prize-too.json"], /: prize: /],
-    ["an all-pay front", ["solve", "allpay.json"], /fronts\.2\.csf\.kind/],
     [
       "a row too many",
       ["respond", "friedman.json", "--allocations", "1,1,1;1,1,1;1,1,1"],
@@ -246,5 +252,29 @@ describe("contend solve / respond with fronts", () => {
     const budgets = [90000, 60000, 20000];
     eq.budgetUsed.forEach((b: number, i: number) => expect(b).toBeLessThanOrEqual(budgets[i]!));
     expect(eq.nashGap).toBeLessThan(1e-6 * 450000);
+  });
+
+  it("solve with an all-pay front prints none-pure with the reason naming the front (exit 0)", async () => {
+    const r = await run("solve", "allpay.json", "--json");
+    expect(r.code).toBe(0);
+    const eq = JSON.parse(r.stdout).equilibrium;
+    expect(eq.kind).toBe("none-pure");
+    expect(eq.allocations).toBeNull();
+    expect(eq.note).toMatch(/front "East" is an all-pay auction/);
+    // respond still gives each rival's best allocation: outbid B's 50 on East by a step, or not
+    const resp = await run(
+      "respond",
+      "allpay.json",
+      "--allocations",
+      "10,10,10;10,10,50",
+      "--json",
+    );
+    expect(resp.code).toBe(0);
+    const out = JSON.parse(resp.stdout);
+    out.bestAllocations.forEach((row: number[], i: number) =>
+      expect(row.reduce((a, b) => a + b, 0)).toBeLessThanOrEqual([30, 70][i]! * (1 + 1e-12)),
+    );
+    // A cannot reach 50 with a budget of 30: it concedes East and keeps its ratio fronts
+    expect(out.bestAllocations[0][2]).toBe(0);
   });
 });

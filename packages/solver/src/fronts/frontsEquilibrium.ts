@@ -1,37 +1,28 @@
 /**
  * Equilibrium of several simultaneous contests fought with one budget per rival.
  *
- * Method 1, multipliers outside, one contest per front inside (derived here from the
- * Kuhn-Tucker conditions of each rival's program, see bestAllocation.ts): at an equilibrium
- * every rival i has a multiplier mu_i (1 + its budget's shadow price, or the shadow price for
- * a sunk budget) such that on every front its effort is a best response at the shadow cost
- * mu_i c_ik. Given the multipliers the fronts decouple: each is a single contest with costs
- * mu_i c_ik, solved by the share-function method (Cornes & Hartley 2005, Economic Theory 26)
- * for ratio fronts with r <= 1, where the equilibrium is unique (Szidarovszky & Okuguchi 1997,
- * Games and Economic Behavior 18), and by the single-contest solver's verified search
- * otherwise. The multipliers are then moved until each budget is spent exactly or mu_i = 1 with
- * money to spare: a secant step on ln mu_i per rival (the elasticity of its spend to its own
- * multiplier, measured from the last step). Volume numbers from memory.
- * Method 2, when method 1 fails (a front without a pure equilibrium at some multipliers, or
- * no convergence): damped Gauss-Seidel iteration of whole-allocation best responses (a convex
- * combination of two allocations within budget stays within budget). Common practice, no source.
+ * Method 1 (multiplierEquilibrium.ts): multipliers outside, one single contest per front
+ * inside. Method 2, when method 1 fails (a front without a pure equilibrium at some
+ * multipliers, an all-pay front, or no convergence): damped Gauss-Seidel iteration of
+ * whole-allocation best responses (a convex combination of two allocations within budget stays
+ * within budget). Common practice, no source.
  * Whatever either method returns passes the global check: every rival's best allocation
  * (bestAllocation.ts) against the profile; the largest regret is the reported Nash gap, and a
  * profile whose gap exceeds the tolerance is not reported as an equilibrium.
+ *
+ * All-pay fronts: a single all-pay auction with two or more rivals who value the prize has no
+ * pure-strategy equilibrium (Baye, Kovenock & de Vries 1996, Economic Theory 8; from memory):
+ * against pure bids someone always gains by outbidding the top bid by a step, or by dropping
+ * to nothing. Budgets can change that (rivals tied at their caps, or a sunk budget that is
+ * spent anyway), so the same search and check run; when no profile passes, the result is
+ * `none-pure` with a note naming the all-pay fronts. Mixed strategies over several fronts with
+ * one budget (a Colonel Blotto-type game; Roberson 2006, Economic Theory 29; from memory) are
+ * not computed here.
  */
 import { shares } from "../csf";
-import { anderson } from "./anderson";
-import { shareFunctionEquilibrium } from "../shareFunction";
-import { solve } from "../solve";
-import type { Contest } from "../types";
-import {
-  allocationPayoff,
-  bestAllocationAgainst,
-  frontOppositions,
-  frontsAreConcave,
-  respondFronts,
-  spendOf,
-} from "./bestAllocation";
+import { bestAllocationAgainst, respondFronts } from "./bestAllocation";
+import { allPayFronts, allocationPayoff, frontOppositions, frontsAreConcave } from "./frontPayoff";
+import { fitBudgets, multiplierEquilibrium } from "./multiplierEquilibrium";
 import type {
   FrontsContest,
   FrontsEquilibrium,
@@ -39,13 +30,6 @@ import type {
   FrontsSolveResult,
 } from "./types";
 
-const OUTER_ITERATIONS = 400;
-/** fewer rounds when fronts need the verified single-contest search (slower per round) */
-const OUTER_ITERATIONS_SEARCH = 60;
-/** most an accelerated step may move ln mu beyond the plain step */
-const MAX_EXTRAPOLATION = 0.5;
-/** relative tolerance on a binding budget in the multiplier loop */
-const BUDGET_TOL = 1e-9;
 const BR_SWEEPS = 200;
 const BR_DAMPING = 0.5;
 /** sweeps between Nash-gap checks in the best-response iteration */
@@ -57,7 +41,9 @@ export function solveFronts(fc: FrontsContest, opts: FrontsSolveOptions = {}): F
   const tol = opts.tolerance ?? 1e-6 * totalPrize;
   const lone = loneFront(fc);
   if (lone !== null) return { equilibrium: nonePure(fc, "numeric", lone), alternatives: [] };
-  const viaMultipliers = multiplierEquilibrium(fc);
+  const allPay = allPayFronts(fc);
+  // the per-front solver has no pure answer on an all-pay front: go straight to method 2
+  const viaMultipliers = allPay.length === 0 ? multiplierEquilibrium(fc) : null;
   if (viaMultipliers) {
     const eq = packageProfile(fc, viaMultipliers, "fronts:multipliers+share-function");
     if (eq.nashGap <= tol) return { equilibrium: eq, alternatives: [] };
@@ -66,9 +52,12 @@ export function solveFronts(fc: FrontsContest, opts: FrontsSolveOptions = {}): F
   const it = bestResponseIteration(fc, start, tol);
   const eq = packageProfile(fc, it.profile, "fronts:best-response-iteration");
   if (eq.nashGap <= tol) return { equilibrium: eq, alternatives: [] };
-  const why = frontsAreConcave(fc)
-    ? "the multiplier search and best-response iteration did not reach a profile within the tolerance (numerical trouble; please report the scenario)"
-    : "no profile passed the global best-response check: with r > 1 or a logit front a rival's best allocation can jump between fronts, and then a pure equilibrium may not exist";
+  const why =
+    allPay.length > 0
+      ? allPayReason(fc, allPay)
+      : frontsAreConcave(fc)
+        ? "the multiplier search and best-response iteration did not reach a profile within the tolerance (numerical trouble; please report the scenario)"
+        : "no profile passed the global best-response check: with r > 1 or a logit front a rival's best allocation can jump between fronts, and then a pure equilibrium may not exist";
   return {
     equilibrium: nonePure(
       fc,
@@ -77,6 +66,19 @@ export function solveFronts(fc: FrontsContest, opts: FrontsSolveOptions = {}): F
     ),
     alternatives: [],
   };
+}
+
+/** Why a scenario with all-pay fronts has no pure equilibrium (see the file header). */
+function allPayReason(fc: FrontsContest, allPay: readonly number[]): string {
+  const names = allPay.map((k) => `"${fc.fronts[k]!.name}"`);
+  const list = names.length === 1 ? `front ${names[0]!} is` : `fronts ${names.join(", ")} are`;
+  const decoupled = fc.rivals.every((r) => r.budget === Infinity);
+  return (
+    `${list} an all-pay auction: against pure bids some rival always gains by outbidding the top bid by a step or by dropping to nothing, so no pure profile passed the global best-response check (without budgets that bind, an all-pay auction has no pure-strategy equilibrium: Baye, Kovenock & de Vries 1996). ` +
+    (decoupled
+      ? "No rival has a budget, so the fronts are independent contests: solve each all-pay front on its own for its mixed equilibrium (Hillman & Riley 1989)"
+      : "Its equilibria are in mixed strategies, and mixed strategies over several fronts with one budget (a Colonel Blotto-type game) are not computed here")
+  );
 }
 
 /** A reason when some front has at most one rival able to spend (no optimum exists there). */
@@ -96,110 +98,6 @@ function evenSplit(fc: FrontsContest): number[][] {
   });
 }
 
-/** The single contest of front k with rival i's cost scaled by mu_i. */
-function scaledFront(c: Contest, mu: readonly number[]): Contest {
-  return { ...c, rivals: c.rivals.map((rv, i) => ({ ...rv, cost: rv.cost * mu[i]! })) };
-}
-
-/** Each front's equilibrium at the given multipliers: allocations[i][k], or null. */
-function frontsAt(fc: FrontsContest, mu: readonly number[], concave: boolean): number[][] | null {
-  const n = fc.rivals.length;
-  const out = fc.rivals.map(() => new Array<number>(fc.fronts.length).fill(0));
-  for (let k = 0; k < fc.fronts.length; k++) {
-    const c = scaledFront(fc.contests[k]!, mu);
-    let efforts: number[] | null;
-    if (concave) {
-      const sf = shareFunctionEquilibrium(c);
-      efforts = sf?.ok ? sf.efforts : null;
-    } else {
-      // only a pure profile is used: skip the mixed-equilibrium search
-      const eq = solve(c, { mixed: false }).equilibrium;
-      efforts = eq.kind === "pure" ? eq.efforts : null;
-    }
-    if (!efforts) return null;
-    for (let i = 0; i < n; i++) out[i]![k] = efforts[i]!;
-  }
-  return out;
-}
-
-/** Method 1 of the file header; null when it does not converge. */
-function multiplierEquilibrium(fc: FrontsContest): number[][] | null {
-  const concave = frontsAreConcave(fc);
-  const n = fc.rivals.length;
-  const floor = fc.rivals.map((r) => (r.sunkBudget ? 0 : 1));
-  // a sunk rival's first multiplier: the symmetric Tullock spend sum_k V_k (n - 1) / (n^2 mu)
-  // (Tullock 1980) set equal to its budget
-  const mu = fc.rivals.map((r, i) =>
-    floor[i]! > 0
-      ? floor[i]!
-      : (r.value.reduce((a, b) => a + b, 0) * Math.max(1, n - 1)) / (n * n * (r.budget || 1)),
-  );
-  const accel = anderson();
-  const rounds = concave ? OUTER_ITERATIONS : OUTER_ITERATIONS_SEARCH;
-  for (let it = 0; it < rounds; it++) {
-    const x = frontsAt(fc, mu, concave);
-    if (!x) return null;
-    let done = true;
-    const opp = frontOppositions(fc, x);
-    const next = mu.slice();
-    for (let i = 0; i < n; i++) {
-      const rv = fc.rivals[i]!;
-      if (!(rv.budget < Infinity) || rv.budget === 0) continue;
-      const ratio = spendOf(fc, i, x[i]!) / rv.budget;
-      if (!rv.sunkBudget && mu[i]! <= floor[i]! && ratio <= 1 + BUDGET_TOL) continue;
-      if (Math.abs(ratio - 1) <= BUDGET_TOL) continue;
-      done = false;
-      // the multiplier at which i's best allocation against the others' efforts fits its budget
-      const br = bestAllocationAgainst(
-        fc,
-        i,
-        opp.map((o) => o[i]!),
-        undefined,
-        mu[i],
-      );
-      const target = Math.max(floor[i]!, (br.shadowPrice ?? 0) + floor[i]!);
-      next[i] = target;
-    }
-    if (done) {
-      const binding = fc.rivals.map(
-        (r, i) => r.budget > 0 && r.budget < Infinity && mu[i]! > floor[i]!,
-      );
-      return fitBudgets(fc, x, binding);
-    }
-    const u = mu.map(Math.log);
-    const step = accel.next(
-      u,
-      next.map((m) => Math.log(m)),
-    );
-    for (let i = 0; i < n; i++) {
-      // trust the extrapolation only within MAX_EXTRAPOLATION of the plain step in ln mu
-      const plain = Math.log(next[i]!);
-      const t = Math.min(plain + MAX_EXTRAPOLATION, Math.max(plain - MAX_EXTRAPOLATION, step[i]!));
-      const v = Math.exp(Number.isFinite(t) ? t : plain);
-      mu[i] = Math.max(floor[i]!, v);
-    }
-  }
-  return null;
-}
-
-/**
- * Rows spend at most their budget, and exactly their budget where it binds (`binding[i]`): the
- * multiplier loop stops within BUDGET_TOL, and a sunk budget left unspent would be money lost.
- */
-function fitBudgets(fc: FrontsContest, x: number[][], binding?: readonly boolean[]): number[][] {
-  return x.map((row, i) => {
-    const s = spendOf(fc, i, row);
-    const B = fc.rivals[i]!.budget;
-    if (!(s > B) && !(binding?.[i] && s > 0 && s < B)) return row;
-    let scaled = row.map((v) => v * (B / s));
-    // rounding can leave the sum a few ulps above B: shave until it is not
-    for (let t = 1; spendOf(fc, i, scaled) > B; t *= 2) {
-      scaled = row.map((v) => v * (B / s) * (1 - t * Number.EPSILON));
-    }
-    return scaled;
-  });
-}
-
 /** Method 2 of the file header: the profile with the smallest gap seen. */
 function bestResponseIteration(
   fc: FrontsContest,
@@ -211,18 +109,20 @@ function bestResponseIteration(
   // each rival's last multiplier starts its next search nearby
   const hints = fc.rivals.map((): number | undefined => undefined);
   let bestGap = Infinity;
+  let bestProfile: number[][] | null = null;
   let stalled = 0;
   for (let s = 0; s < BR_SWEEPS; s++) {
-    // stop as soon as the profile passes the check with room to spare
-    if (s % GAP_CHECK_EVERY === GAP_CHECK_EVERY - 1) {
-      const gap = respondFronts(fc, fitBudgets(fc, x)).nashGap;
-      if (gap <= 1e-9 * tol) break;
-      // a cycle (common with r > 1 or logit fronts): give up after STALL_CHECKS checks without
-      // a tenth off the best gap seen
-      if (gap < 0.9 * bestGap) {
-        bestGap = gap;
-        stalled = 0;
-      } else if (++stalled >= STALL_CHECKS) break;
+    // stop as soon as the profile passes the check with room to spare (the start too)
+    if (s % GAP_CHECK_EVERY === 0) {
+      const fitted = fitBudgets(fc, x);
+      const gap = respondFronts(fc, fitted).nashGap;
+      if (gap < bestGap) bestProfile = fitted.map((r) => r.slice());
+      if (gap <= 1e-9 * tol) return { profile: fitted };
+      // a cycle (common with r > 1, logit or all-pay fronts): give up after STALL_CHECKS checks
+      // without a tenth off the best gap seen
+      if (gap < 0.9 * bestGap) stalled = 0;
+      else if (++stalled >= STALL_CHECKS) break;
+      bestGap = Math.min(bestGap, gap);
     }
     let moved = 0;
     for (let i = 0; i < n; i++) {
@@ -243,7 +143,9 @@ function bestResponseIteration(
     if (moved <= 1e-11) break;
   }
   // a convex combination of two rows within budget can round a few ulps above it
-  return { profile: fitBudgets(fc, x) };
+  const last = fitBudgets(fc, x);
+  if (!bestProfile || respondFronts(fc, last).nashGap <= bestGap) return { profile: last };
+  return { profile: bestProfile };
 }
 
 /** Packages a profile with its shares, payoffs, money and the measured Nash gap. */

@@ -18,6 +18,11 @@ import type { FrontSpec, FrontsRivalSpec, FrontsScenario, PerFront } from "./typ
 
 /** Most fronts in one scenario. */
 export const FRONTS_MAX = 200;
+/**
+ * Most all-pay fronts in one scenario: a best allocation tries every concede / tie / outbid
+ * combination on them (up to 3^A, see allPayAllocation.ts).
+ */
+export const ALL_PAY_FRONTS_MAX = 8;
 
 const SCENARIO_FIELDS = ["title", "fronts", "rivals", "currency"] as const;
 const FRONT_FIELDS = ["name", "prize", "csf"] as const;
@@ -84,12 +89,6 @@ function validateFront(x: unknown, k: number): Parsed<FrontSpec> {
     rivals: [{ name: "probe", cost: 1 }],
   });
   if (!probe.ok) return fail(`${path}.${probe.path}`, probe.message);
-  if (probe.value.csf.kind === "allpay") {
-    return fail(
-      `${path}.csf.kind`,
-      `"allpay" is not supported on fronts: an all-pay auction has no pure equilibrium, and mixed strategies over several fronts (a Colonel Blotto-type game) are not computed here; use "ratio" or "logit"`,
-    );
-  }
   return {
     ok: true,
     value: { name: x.name as string, prize: probe.value.prize, csf: probe.value.csf },
@@ -174,6 +173,12 @@ export function validateFrontsScenario(input: unknown): Parsed<FrontsScenario> {
     }
     frontNames.set(f.value.name, k);
     fronts.push(f.value);
+    if (fronts.filter((x) => x.csf.kind === "allpay").length > ALL_PAY_FRONTS_MAX) {
+      return fail(
+        `fronts.${k}.csf.kind`,
+        `at most ${ALL_PAY_FRONTS_MAX} fronts may be "allpay" (each rival's best allocation tries every concede, tie or outbid combination on them)`,
+      );
+    }
   }
   const rivalsIn = input.rivals;
   if (!Array.isArray(rivalsIn) || rivalsIn.length < 1 || rivalsIn.length > LIMITS.rivalsMax) {
