@@ -23,7 +23,6 @@ import { createApplication } from "../src/app";
 import type { Application, ApplicationDeps } from "../src/app";
 import type { Clock } from "../src/clock";
 import { fixedGauge } from "../src/loadGauge";
-import { toSessionEvent } from "../src/live/hub";
 
 export interface TestServer {
   app: Application;
@@ -189,7 +188,7 @@ export function getWithKey(url: string, key: string): Promise<Response> {
 }
 
 export async function eventLog(db: Database, sessionId: string): Promise<SessionEvent[]> {
-  return (await db.events.list(sessionId)).map(toSessionEvent);
+  return await db.events.list(sessionId);
 }
 
 /** Waits until `check` passes (polling), for pushed views that arrive after an ack. */

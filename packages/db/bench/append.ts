@@ -3,6 +3,7 @@
 // Usage: npm run bench -w @contend/db [-- postgres://...]   (PGlite in memory always)
 import { performance } from "node:perf_hooks";
 import { newJoinCode, openDatabase } from "../src/index";
+import { created, sealed } from "../test/fixtures";
 
 const N = 300;
 const urls = ["memory://", ...process.argv.slice(2)];
@@ -14,7 +15,6 @@ function quantile(sorted: number[], q: number): number {
 for (const url of urls) {
   const db = await openDatabase({ url });
   const id = `bench-${Date.now()}`;
-  const payload = { round: 1, seatIndex: 0, effort: 12.5, shares: [0.25, 0.75] };
   await db.sessions.create({
     id,
     joinCode: newJoinCode(),
@@ -22,13 +22,13 @@ for (const url of urls) {
     scenario: {},
     seats: [],
     keys: [],
-    firstEvent: { type: "session-created", at: Date.now(), payload },
+    firstEvent: created(Date.now()),
   });
 
   const times: number[] = [];
   for (let seq = 1; seq <= N; seq++) {
     const t0 = performance.now();
-    const r = await db.events.append(id, seq, [{ type: "move-sealed", at: Date.now(), payload }]);
+    const r = await db.events.append(id, seq, [sealed(Date.now(), 0, 12.5)]);
     times.push(performance.now() - t0);
     if (!r.ok) throw new Error("unexpected conflict");
   }
@@ -45,7 +45,7 @@ for (const url of urls) {
       for (let k = 0; k < 10; k++) {
         let expected = (await db.sessions.get(id))!.lastSeq;
         for (;;) {
-          const r = await db.events.append(id, expected, [{ type: "x", at: Date.now(), payload }]);
+          const r = await db.events.append(id, expected, [sealed(Date.now(), 1, 7.5)]);
           if (r.ok) break;
           if (r.code !== "conflict") throw new Error(r.code);
           conflicts++;

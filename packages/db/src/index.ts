@@ -23,5 +23,6 @@ export {
   type MigrationStatus,
 } from "./migrate";
 export type { AppendEffects } from "./repos/events";
+export { eventFromRow, type EventRow } from "./repos/rows";
 export type { CreateSessionInput, CreateSessionResult } from "./repos/sessions";
 export type * from "./types";

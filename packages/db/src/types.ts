@@ -15,17 +15,14 @@ export type AppendResult =
 
 /**
  * JSON columns (scenario, payload, body) take plain data: anything JSON.stringify keeps.
- * They come back as parsed JSON (`unknown`), for the caller to validate with its own schema.
+ * A session's scenario comes back as parsed JSON (`unknown`), for the caller to validate;
+ * events come back parsed by the protocol's event schema (`events.list`, `eventFromRow`).
  */
 export interface NewEvent {
   type: string;
   /** epoch milliseconds */
   at: number;
   payload: unknown;
-}
-
-export interface StoredEvent extends NewEvent {
-  seq: number;
 }
 
 export interface SeatInput {

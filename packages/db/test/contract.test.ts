@@ -1,7 +1,17 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { hashKey, newKey, openDatabase, readMigrations, type Database } from "../src/index";
 import { backends, TEST_DATABASE_URL } from "./backends";
-import { event, seatsOf, sessionInput, takeSeat } from "./fixtures";
+import {
+  claimed,
+  label,
+  note,
+  opened,
+  resolved,
+  sealed,
+  seatsOf,
+  sessionInput,
+  takeSeat,
+} from "./fixtures";
 
 describe.each(backends)("repositories on $name", (backend) => {
   let db: Database;
@@ -43,9 +53,14 @@ describe.each(backends)("repositories on $name", (backend) => {
       { index: 0, name: "North Bakery", kind: "human", displayName: null, claimedAt: null },
       { index: 1, name: "Harbour Bakery", kind: "computer", displayName: null, claimedAt: null },
     ]);
-    expect(await db.events.list(input.id)).toEqual([
-      { seq: 1, type: "session-created", at: 1_700_000_000_000, payload: { seed: 42 } },
-    ]);
+    const log = await db.events.list(input.id);
+    expect(log).toHaveLength(1);
+    expect(log[0]).toMatchObject({
+      seq: 1,
+      type: "session-created",
+      at: 1_700_000_000_000,
+      seed: 42,
+    });
     expect(await db.keys.resolve(input.id, facilitatorKey)).toEqual({
       role: "facilitator",
       seatIndex: null,
@@ -106,9 +121,10 @@ describe.each(backends)("repositories on $name", (backend) => {
       2 ** 53 + 2,
       ...Array.from({ length: 20 }, (_, i) => Math.sin(i + 1) * 10 ** (i - 10)),
     ];
-    await db.events.append(input.id, 1, [event("round-resolved", 1, { shares: values })]);
+    await db.events.append(input.id, 1, [resolved(1, values)]);
     const [, stored] = await db.events.list(input.id);
-    const shares = (stored!.payload as { shares: number[] }).shares;
+    if (stored?.type !== "round-resolved") throw new Error("expected round-resolved");
+    const shares = stored.shares;
     expect(shares).toHaveLength(values.length);
     shares.forEach((v, i) => expect(Object.is(v, values[i])).toBe(true));
   });
@@ -122,7 +138,7 @@ describe.each(backends)("repositories on $name", (backend) => {
       Object.is(((await db.sessions.get(input.id))?.scenario as { prize: number }).prize, prize),
     ).toBe(true);
 
-    await expect(db.events.append(input.id, 1, [event("x", 1, { effort: NaN })])).rejects.toThrow(
+    await expect(db.events.append(input.id, 1, [sealed(1, 0, NaN)])).rejects.toThrow(
       /cannot store NaN/,
     );
     expect((await db.sessions.get(input.id))?.lastSeq).toBe(1);
@@ -137,11 +153,11 @@ describe.each(backends)("repositories on $name", (backend) => {
     const { input } = sessionInput();
     await db.sessions.create(input);
     const appended = await db.events.append(input.id, 1, [
-      event("round-opened", 1_700_000_001_000, { round: 1, deadline: null }),
-      event("move-sealed", 1_700_000_001_001, { round: 1, seatIndex: 1, effort: 12.5 }),
+      opened(1_700_000_001_000),
+      sealed(1_700_000_001_001, 1, 12.5),
     ]);
     expect(appended).toEqual({ ok: true, seqs: [2, 3] });
-    const third = await db.events.append(input.id, 3, [event("round-resolved", 1_700_000_002_000)]);
+    const third = await db.events.append(input.id, 3, [resolved(1_700_000_002_000)]);
     expect(third).toEqual({ ok: true, seqs: [4] });
 
     const all = await db.events.list(input.id);
@@ -150,7 +166,11 @@ describe.each(backends)("repositories on $name", (backend) => {
       seq: 3,
       type: "move-sealed",
       at: 1_700_000_001_001,
-      payload: { round: 1, seatIndex: 1, effort: 12.5 },
+      round: 1,
+      seatIndex: 1,
+      effort: 12.5,
+      clientMoveId: "m-1700000001001",
+      by: "seat",
     });
     expect((await db.events.list(input.id, 2)).map((e) => e.seq)).toEqual([3, 4]);
     expect(await db.events.list(input.id, 4)).toEqual([]);
@@ -160,17 +180,17 @@ describe.each(backends)("repositories on $name", (backend) => {
   it("events.append with a stale expectedLastSeq returns conflict and the current lastSeq", async () => {
     const { input } = sessionInput();
     await db.sessions.create(input);
-    await db.events.append(input.id, 1, [event("a", 1)]);
-    expect(await db.events.append(input.id, 1, [event("b", 2)])).toEqual({
+    await db.events.append(input.id, 1, [note(1, "a")]);
+    expect(await db.events.append(input.id, 1, [note(2, "b")])).toEqual({
       ok: false,
       code: "conflict",
       lastSeq: 2,
     });
-    expect((await db.events.list(input.id)).map((e) => e.type)).toEqual(["session-created", "a"]);
+    expect((await db.events.list(input.id)).map(label)).toEqual(["session-created", "a"]);
   });
 
   it("events.append to an unknown session returns not-found", async () => {
-    expect(await db.events.append("no-such-session", 0, [event("a", 1)])).toEqual({
+    expect(await db.events.append("no-such-session", 0, [note(1, "a")])).toEqual({
       ok: false,
       code: "not-found",
     });
@@ -180,8 +200,8 @@ describe.each(backends)("repositories on $name", (backend) => {
     const { input } = sessionInput();
     await db.sessions.create(input);
     const results = await Promise.all([
-      db.events.append(input.id, 1, [event("first", 10)]),
-      db.events.append(input.id, 1, [event("second", 11)]),
+      db.events.append(input.id, 1, [note(10, "first")]),
+      db.events.append(input.id, 1, [note(11, "second")]),
     ]);
     const winners = results.filter((r) => r.ok);
     const losers = results.filter((r) => !r.ok);
@@ -189,20 +209,20 @@ describe.each(backends)("repositories on $name", (backend) => {
     expect(losers).toEqual([{ ok: false, code: "conflict", lastSeq: 2 }]);
     const log = await db.events.list(input.id);
     expect(log).toHaveLength(2);
-    expect(["first", "second"]).toContain(log[1]!.type);
+    expect(["first", "second"]).toContain(label(log[1]!));
   });
 
   it("appends to many sessions at once (group commit): a stale and an unknown one fail alone", async () => {
     const inputs = Array.from({ length: 6 }, () => sessionInput().input);
     for (const input of inputs) await db.sessions.create(input);
     const [stale, ...fresh] = inputs;
-    await db.events.append(stale!.id, 1, [event("earlier", 5)]);
+    await db.events.append(stale!.id, 1, [note(5, "earlier")]);
     // All calls start in the same turn of the event loop, so they share transactions.
     const results = await Promise.all([
-      db.events.append(stale!.id, 1, [event("late", 6)]),
-      db.events.append("no-such-session", 0, [event("lost", 6)]),
+      db.events.append(stale!.id, 1, [note(6, "late")]),
+      db.events.append("no-such-session", 0, [note(6, "lost")]),
       ...fresh.map((input, k) =>
-        db.events.append(input.id, 1, [event("a", 7, { k }), event("b", 8, { x: 0.1 + 0.2 })], {
+        db.events.append(input.id, 1, [note(7, `a${k}`), sealed(8, 0, 0.1 + 0.2)], {
           status: k === 0 ? "open" : undefined,
         }),
       ),
@@ -212,14 +232,20 @@ describe.each(backends)("repositories on $name", (backend) => {
       { ok: false, code: "not-found" },
       ...fresh.map(() => ({ ok: true, seqs: [2, 3] })),
     ]);
-    expect((await db.events.list(stale!.id)).map((e) => e.type)).toEqual([
-      "session-created",
-      "earlier",
-    ]);
+    expect((await db.events.list(stale!.id)).map(label)).toEqual(["session-created", "earlier"]);
     for (const [k, input] of fresh.entries()) {
       expect(await db.events.list(input.id, 1)).toEqual([
-        { seq: 2, type: "a", at: 7, payload: { k } },
-        { seq: 3, type: "b", at: 8, payload: { x: 0.1 + 0.2 } },
+        { seq: 2, type: "round-noted", at: 7, round: 1, text: `a${k}` },
+        {
+          seq: 3,
+          type: "move-sealed",
+          at: 8,
+          round: 1,
+          seatIndex: 0,
+          effort: 0.1 + 0.2,
+          clientMoveId: "m-8",
+          by: "seat",
+        },
       ]);
       const session = await db.sessions.get(input.id);
       expect(session).toMatchObject({ lastSeq: 3, status: k === 0 ? "open" : "lobby" });
@@ -234,7 +260,7 @@ describe.each(backends)("repositories on $name", (backend) => {
     let committedWhenTimerFired = -1;
     const writers = inputs.map(async (input) => {
       for (let seq = 1; seq <= rounds; seq++) {
-        const result = await db.events.append(input.id, seq, [event("tick", seq)]);
+        const result = await db.events.append(input.id, seq, [note(seq, "tick")]);
         expect(result.ok).toBe(true);
         committed++;
       }
@@ -253,7 +279,7 @@ describe.each(backends)("repositories on $name", (backend) => {
     const writers = Array.from({ length: 8 }, async (_, w) => {
       let expected = 1;
       for (let attempt = 0; attempt < 50; attempt++) {
-        const result = await db.events.append(input.id, expected, [event("write", w, { w })]);
+        const result = await db.events.append(input.id, expected, [note(w, `w${w}`)]);
         if (result.ok) return attempt;
         if (result.code !== "conflict") throw new Error(`unexpected ${result.code}`);
         expected = result.lastSeq;
@@ -263,34 +289,27 @@ describe.each(backends)("repositories on $name", (backend) => {
     await Promise.all(writers);
     const log = await db.events.list(input.id);
     expect(log.map((e) => e.seq)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9]);
-    const writersSeen = log.slice(1).map((e) => (e.payload as { w: number }).w);
-    expect([...writersSeen].sort()).toEqual([0, 1, 2, 3, 4, 5, 6, 7]);
+    const writersSeen = log.slice(1).map(label);
+    expect([...writersSeen].sort()).toEqual(["w0", "w1", "w2", "w3", "w4", "w5", "w6", "w7"]);
   });
 
   it("events.append effects: status, seat claim and key commit with the events", async () => {
     const { input } = sessionInput();
     await db.sessions.create(input);
     const claimKey = newKey();
-    const claimed = await db.events.append(
-      input.id,
-      1,
-      [event("seat-claimed", 5, { seatIndex: 0, displayName: "Ada" })],
-      {
-        status: "lobby",
-        claimSeats: [{ seatIndex: 0, displayName: "Ada" }],
-        addKeys: [{ role: "seat", seatIndex: 0, plaintext: claimKey }],
-      },
-    );
-    expect(claimed).toEqual({ ok: true, seqs: [2] });
+    const claim = await db.events.append(input.id, 1, [claimed(5, 0, "Ada")], {
+      status: "lobby",
+      claimSeats: [{ seatIndex: 0, displayName: "Ada" }],
+      addKeys: [{ role: "seat", seatIndex: 0, plaintext: claimKey }],
+    });
+    expect(claim).toEqual({ ok: true, seqs: [2] });
     const seat = (await seatsOf(db, input.id))[0]!;
     expect(seat.displayName).toBe("Ada");
     expect(seat.claimedAt).toBeInstanceOf(Date);
     expect(await db.keys.resolve(input.id, claimKey)).toEqual({ role: "seat", seatIndex: 0 });
 
-    const opened = await db.events.append(input.id, 2, [event("round-opened", 6)], {
-      status: "open",
-    });
-    expect(opened.ok).toBe(true);
+    const open = await db.events.append(input.id, 2, [opened(6)], { status: "open" });
+    expect(open.ok).toBe(true);
     expect((await db.sessions.get(input.id))?.status).toBe("open");
   });
 
@@ -299,7 +318,7 @@ describe.each(backends)("repositories on $name", (backend) => {
     await db.sessions.create(input);
     await takeSeat(db, input.id, 1, "Bo");
     const lateKey = newKey();
-    const result = await db.events.append(input.id, 1, [event("seat-claimed", 7)], {
+    const result = await db.events.append(input.id, 1, [claimed(7, 1, "Cy")], {
       status: "should-not-stick",
       claimSeats: [{ seatIndex: 1, displayName: "Cy" }],
       addKeys: [{ role: "seat", seatIndex: 1, plaintext: lateKey }],
@@ -321,12 +340,12 @@ describe.each(backends)("repositories on $name", (backend) => {
     // names a person may type, which the statement binds as array elements
     const awkward = `O'Neil "Ned" \\ {1,2} NULL é漢`;
     const claim = (id: string, seatIndex: number, displayName: string) =>
-      db.events.append(id, 1, [event("seat-claimed", 9, { seatIndex, displayName })], {
+      db.events.append(id, 1, [claimed(9, seatIndex, displayName)], {
         claimSeats: [{ seatIndex, displayName }],
       });
     // All calls start in the same turn of the event loop, so they share transactions.
     const results = await Promise.all([
-      db.events.append(plain!.id, 1, [event("plain", 9)]),
+      db.events.append(plain!.id, 1, [note(9, "plain")]),
       claim(claiming!.id, 0, awkward),
       claim(takenOne!.id, 0, "Late"),
       claim(missing!.id, 7, "Nobody"),
@@ -340,10 +359,9 @@ describe.each(backends)("repositories on $name", (backend) => {
     const seat = (await seatsOf(db, claiming!.id))[0]!;
     expect(seat.displayName).toBe(awkward);
     expect(seat.claimedAt).toBeInstanceOf(Date);
-    expect((await db.events.list(claiming!.id, 1))[0]?.payload).toEqual({
-      seatIndex: 0,
-      displayName: awkward,
-    });
+    expect(await db.events.list(claiming!.id, 1)).toEqual([
+      { seq: 2, type: "seat-claimed", at: 9, seatIndex: 0, displayName: awkward },
+    ]);
     for (const failed of [takenOne!, missing!]) {
       expect((await db.sessions.get(failed.id))?.lastSeq).toBe(1);
       expect(await db.events.list(failed.id)).toHaveLength(1);
@@ -355,7 +373,7 @@ describe.each(backends)("repositories on $name", (backend) => {
     const { input } = sessionInput();
     await db.sessions.create(input);
     const claim = (displayName: string) =>
-      db.events.append(input.id, 1, [event("seat-claimed", 9, { displayName })], {
+      db.events.append(input.id, 1, [claimed(9, 0, displayName)], {
         claimSeats: [{ seatIndex: 0, displayName }],
       });
     const [first, second] = await Promise.all([claim("Ann"), claim("Ben")]);
@@ -364,7 +382,7 @@ describe.each(backends)("repositories on $name", (backend) => {
     expect((await seatsOf(db, input.id))[0]?.displayName).toBe("Ann");
     // asked again on the current seq, the taken seat is what stops it
     expect(
-      await db.events.append(input.id, 2, [event("seat-claimed", 9)], {
+      await db.events.append(input.id, 2, [claimed(9, 0, "Ben")], {
         claimSeats: [{ seatIndex: 0, displayName: "Ben" }],
       }),
     ).toEqual({ ok: false, code: "seat-claimed", seatIndex: 0 });
@@ -411,13 +429,23 @@ describe.each(backends)("repositories on $name", (backend) => {
   it("events.countOfType(type) counts per session", async () => {
     const { input } = sessionInput();
     await db.sessions.create(input);
-    await db.events.append(input.id, 1, [
-      event("round-resolved", 1),
-      event("round-opened", 2),
-      event("round-resolved", 3),
-    ]);
+    await db.events.append(input.id, 1, [resolved(1), opened(2), resolved(3)]);
     const counts = await db.events.countOfType("round-resolved");
     expect(counts[input.id]).toBe(2);
+  });
+
+  it("events.list refuses a stored event the protocol's schema does not accept, naming seq and field", async () => {
+    const { input } = sessionInput();
+    await db.sessions.create(input);
+    // append stores what the server hands it; only reading checks it
+    await db.events.append(input.id, 1, [sealed(5, 0, 12.5)]);
+    expect(await db.events.list(input.id, 1)).toMatchObject([{ seq: 2, effort: 12.5 }]);
+    await db.events.append(input.id, 2, [sealed(6, 1, -1)]);
+    await expect(db.events.list(input.id)).rejects.toThrow(
+      /stored event 3 \(move-sealed\) does not parse: effort: must be >= 0/,
+    );
+    await db.events.append(input.id, 3, [{ type: "no-such-event", at: 7, payload: {} }]);
+    await expect(db.events.list(input.id, 3)).rejects.toThrow(/stored event 4 \(no-such-event\)/);
   });
 });
 
@@ -440,8 +468,8 @@ describe.skipIf(!TEST_DATABASE_URL)("two server processes sharing one PostgreSQL
       for (let round = 0; round < 5; round++) {
         const expected = 1 + round;
         const results = await Promise.all([
-          a.events.append(input.id, expected, [event("from-a", round)]),
-          b.events.append(input.id, expected, [event("from-b", round)]),
+          a.events.append(input.id, expected, [note(round, "from-a")]),
+          b.events.append(input.id, expected, [note(round, "from-b")]),
         ]);
         expect(results.filter((r) => r.ok)).toEqual([{ ok: true, seqs: [expected + 1] }]);
         expect(results.filter((r) => !r.ok)).toEqual([
@@ -451,7 +479,7 @@ describe.skipIf(!TEST_DATABASE_URL)("two server processes sharing one PostgreSQL
       expect((await b.events.list(input.id)).map((e) => e.seq)).toEqual([1, 2, 3, 4, 5, 6]);
       // racing seat claims: the seat goes to exactly one, with exactly one event
       const claim = (db: Database, displayName: string) =>
-        db.events.append(input.id, 6, [event("seat-claimed", 9, { displayName })], {
+        db.events.append(input.id, 6, [claimed(9, 0, displayName)], {
           claimSeats: [{ seatIndex: 0, displayName }],
         });
       const claims = await Promise.all([claim(a, "from-a"), claim(b, "from-b")]);
@@ -459,8 +487,8 @@ describe.skipIf(!TEST_DATABASE_URL)("two server processes sharing one PostgreSQL
       expect(claims.filter((r) => !r.ok)).toEqual([{ ok: false, code: "conflict", lastSeq: 7 }]);
       const winner = claims[0]!.ok ? "from-a" : "from-b";
       expect((await seatsOf(a, input.id))[0]?.displayName).toBe(winner);
-      expect((await a.events.list(input.id, 6)).map((e) => e.payload)).toEqual([
-        { displayName: winner },
+      expect(await a.events.list(input.id, 6)).toEqual([
+        { seq: 7, type: "seat-claimed", at: 9, seatIndex: 0, displayName: winner },
       ]);
     } finally {
       await a.close();

@@ -4,7 +4,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { afterEach, describe, expect, it } from "vitest";
 import { openDatabase } from "../src/index";
-import { event, sessionInput, takeSeat, tempDir } from "./fixtures";
+import { label, note, sessionInput, takeSeat, tempDir } from "./fixtures";
 
 describe("PGlite in a directory", () => {
   const cleanups: (() => void)[] = [];
@@ -24,7 +24,7 @@ describe("PGlite in a directory", () => {
     const first = await openDatabase({ url: dir });
     expect(first.migrationsApplied.length).toBeGreaterThan(0);
     expect((await first.sessions.create(input)).ok).toBe(true);
-    expect(await first.events.append(input.id, 1, [event("a", 1), event("b", 2)])).toEqual({
+    expect(await first.events.append(input.id, 1, [note(1, "a"), note(2, "b")])).toEqual({
       ok: true,
       seqs: [2, 3],
     });
@@ -34,7 +34,7 @@ describe("PGlite in a directory", () => {
     const second = await openDatabase({ url: `pglite:${dir}` });
     try {
       expect(second.migrationsApplied).toEqual([]);
-      expect((await second.events.list(input.id)).map((e) => e.type)).toEqual([
+      expect((await second.events.list(input.id)).map(label)).toEqual([
         "session-created",
         "a",
         "b",
@@ -50,7 +50,7 @@ describe("PGlite in a directory", () => {
         role: "seat",
         seatIndex: 0,
       });
-      expect(await second.events.append(input.id, 3, [event("c", 3)])).toEqual({
+      expect(await second.events.append(input.id, 3, [note(3, "c")])).toEqual({
         ok: true,
         seqs: [4],
       });
@@ -73,7 +73,7 @@ describe("PGlite in a directory", () => {
     const db = await openDatabase({ url: dir });
     try {
       expect(db.migrationsApplied).toEqual([]);
-      expect((await db.events.list(acked.id)).map((e) => [e.seq, e.type])).toEqual([
+      expect((await db.events.list(acked.id)).map((e) => [e.seq, label(e)])).toEqual([
         [1, "session-created"],
         [2, "a"],
         [3, "b"],

@@ -25,7 +25,6 @@ import type { Limits } from "../env";
 import { buildExport, listItem, roundsCsv } from "../live/export";
 import { createLiveSession } from "../live/create";
 import { baseUrlOf } from "../live/links";
-import { toSessionEvent } from "../live/hub";
 import { summaryRoute } from "./summary";
 import type { Logger } from "../logger";
 import { credentialFrom, readJsonBody, sendError, sendJson, sendText } from "./io";
@@ -157,7 +156,7 @@ export function createRestHandler(deps: RestDeps) {
     }
     const summary = await db.sessions.get(id);
     if (!summary) return noSession(res);
-    const events = (await db.events.list(id)).map(toSessionEvent);
+    const events = await db.events.list(id);
     // R41: a session with private numbers exports once it has ended, never before.
     const state = fold(events);
     if (state.status !== "empty" && truthSealed(state)) {

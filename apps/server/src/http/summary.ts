@@ -7,14 +7,13 @@ import type { ServerResponse } from "node:http";
 import type { Database } from "@contend/db";
 import { fold, summarizeSession, truthSealed } from "@contend/session";
 import { publicEvents } from "../live/export";
-import { toSessionEvent } from "../live/hub";
 import { sendError, sendJson } from "./io";
 
 /** The REST layer has checked the key (operator, or this session's facilitator). */
 export async function summaryRoute(db: Database, res: ServerResponse, id: string) {
   const session = await db.sessions.get(id);
   if (!session) return sendError(res, 404, "not-found", "no such session");
-  const events = publicEvents((await db.events.list(id)).map(toSessionEvent));
+  const events = publicEvents(await db.events.list(id));
   // R41: a session with private numbers is summarised once it has ended, never before.
   const state = fold(events);
   if (state.status !== "empty" && truthSealed(state)) {

@@ -6,7 +6,8 @@
  *   authority) -> apply -> arm the clock -> notify (views are pushed by the caller's listener).
  * Nothing is acknowledged before the database has committed it.
  */
-import type { AppendEffects, Database, KeyInput, NewEvent, StoredEvent } from "@contend/db";
+import { eventFromRow } from "@contend/db";
+import type { AppendEffects, Database, KeyInput, NewEvent } from "@contend/db";
 import type { ErrorCode, EventBody, SessionEvent } from "@contend/protocol";
 import { allSealed, apply, deadline, decide, initialState } from "@contend/session";
 import type { Actor, DecideData, EngineCommand, SessionState } from "@contend/session";
@@ -81,18 +82,14 @@ export interface SessionHub {
 const SYSTEM: Actor = { role: "system" };
 const ALL_SEALED: EngineCommand = { type: "closeRound", reason: "all-sealed" };
 
-/** Stored rows -> protocol events. The log is written only by this hub, so it is trusted. */
-export function toSessionEvent(row: StoredEvent): SessionEvent {
-  return { ...(row.payload as object), type: row.type, seq: row.seq, at: row.at } as SessionEvent;
-}
-
 /**
  * An appended event as a read of its row returns it: the payload through JSON (the column
- * keeps exactly the digits JSON.stringify writes; undefined fields vanish), `at` as whole ms.
+ * keeps exactly the digits JSON.stringify writes; undefined fields vanish), `at` as whole ms,
+ * parsed by the protocol's schema as `events.list` parses it.
  */
 function asStored(event: SessionEvent, seq: number): SessionEvent {
   const row = toNewEvent(event);
-  return toSessionEvent({
+  return eventFromRow({
     seq,
     type: row.type,
     at: new Date(row.at).getTime(),
@@ -136,7 +133,7 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
       moveSeqs: new Map(),
       timer: null,
     };
-    applyAll(live, rows.map(toSessionEvent));
+    applyAll(live, rows);
     return live;
   }
 
@@ -166,7 +163,7 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
   /** Another process (sharing PostgreSQL) moved the log on: catch up from our seq. */
   async function catchUp(live: LiveSession) {
     const rows = await db.events.list(live.id, live.state.seq);
-    applyAll(live, rows.map(toSessionEvent));
+    applyAll(live, rows);
   }
 
   function armClock(live: LiveSession) {

@@ -1,9 +1,10 @@
 import type { SqlRunner } from "../sqlRunner";
-import type { AppendResult, Db, KeyInput, NewEvent, StoredEvent } from "../types";
+import type { SessionEvent } from "@contend/protocol";
+import type { AppendResult, Db, KeyInput, NewEvent } from "../types";
 import { createGroupCommit, groupMember } from "./groupCommit";
 import { keyRows } from "./keys";
 import { Prisma } from "../generated/prisma/client";
-import { isUniqueViolation, jsonb, storedEvent } from "./rows";
+import { eventFromRow, isUniqueViolation, jsonb } from "./rows";
 
 /** Writes that must commit together with the events they belong to, or not at all. */
 export interface AppendEffects {
@@ -134,13 +135,13 @@ export function eventsRepository(db: Db, runner: SqlRunner) {
       return group.append(member, () => appendAlone(sessionId, expectedLastSeq, events, effects));
     },
 
-    /** Events with seq > afterSeq, in order. */
-    async list(sessionId: string, afterSeq = 0): Promise<StoredEvent[]> {
+    /** Events with seq > afterSeq, in order, parsed by the protocol's event schema. */
+    async list(sessionId: string, afterSeq = 0): Promise<SessionEvent[]> {
       const rows = await db.event.findMany({
         where: { sessionId, seq: { gt: afterSeq } },
         orderBy: { seq: "asc" },
       });
-      return rows.map(storedEvent);
+      return rows.map((row) => eventFromRow({ ...row, at: row.at.getTime() }));
     },
 
     /** How many events of one type each session has (e.g. resolved rounds for a replay list). */

@@ -1,5 +1,6 @@
+import { parseEvent, type SessionEvent } from "@contend/protocol";
 import { Prisma } from "../generated/prisma/client";
-import type { SeatKind, SeatRecord, StoredEvent } from "../types";
+import type { SeatKind, SeatRecord } from "../types";
 
 /**
  * JSON text of plain data, for a `${text}::jsonb` raw parameter. Prisma's own Json input
@@ -39,13 +40,30 @@ export function seatRecord(row: {
   };
 }
 
-export function storedEvent(row: {
+/** An Event row as read: `at` in epoch ms, the payload as parsed JSON. */
+export interface EventRow {
   seq: number;
   type: string;
-  at: Date;
+  at: number;
   payload: unknown;
-}): StoredEvent {
-  return { seq: row.seq, type: row.type, at: row.at.getTime(), payload: row.payload };
+}
+
+/**
+ * An Event row -> the protocol's event, checked by its schema: every reader gets a typed event
+ * or an exception. The log is written only by the server, so a row that does not parse is a bug
+ * (or a log from a version this one cannot read), never an expected failure.
+ */
+export function eventFromRow(row: EventRow): SessionEvent {
+  const parsed = parseEvent({
+    ...(row.payload as object),
+    type: row.type,
+    seq: row.seq,
+    at: row.at,
+  });
+  if (!parsed.ok) {
+    throw new Error(`stored event ${row.seq} (${row.type}) does not parse: ${parsed.message}`);
+  }
+  return parsed.value;
 }
 
 /**
