@@ -30,6 +30,8 @@ export * from "./matrixGame";
 export * from "./discreteMixed";
 export * from "./twoRivalMixed";
 export * from "./manyRivalMixed";
+export * from "./mixedCertificate";
+export * from "./othersTotal";
 export * from "./symmetricActiveSets";
 export * from "./fronts";
 export * from "./reliability";

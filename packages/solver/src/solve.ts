@@ -186,30 +186,51 @@ export function solveBySearch(contest: Contest, opts: SolveOptions = {}): SolveR
 const MIXED_ACCEPT = 1e-3;
 
 /**
- * The same for three or more rivals: fictitious play converges slowly (about 1 % of the prize
- * after 200 rounds in asymmetric cases), so its approximate answer, flagged and with its
- * certified gap, is shown up to 2 % of the prize.
+ * The same for three or more rivals: fictitious play converges slowly (about 0.5 % of the
+ * prize after 1000 rounds in asymmetric cases), so its approximate answer, flagged and with its
+ * certified gap, is shown up to 2 % of the prize, and only while the rivals' possible gains
+ * together (n times the gap) stay within a tenth of the prize: beyond that expected totals
+ * such as the dissipation mean little.
  */
 const MIXED_ACCEPT_MANY = 2e-2;
+const MIXED_ACCEPT_MANY_TOTAL = 0.1;
+
+/** Default wall-clock budget of the mixed search with three or more rivals (ms). */
+export const MIXED_TIME_BUDGET_MS = 10_000;
 
 /** A mixed equilibrium where one is computed (two rivals exactly, more approximately), else null. */
 function noPureFallback(contest: Contest, opts: SolveOptions): Equilibrium | null {
   const n = contest.rivals.length;
   if (n < 2 || opts.mixed === false) return null;
+  const clock = opts.now === undefined ? {} : { now: opts.now };
   const eq =
     n === 2
       ? twoRivalMixedEquilibrium(contest, {
           ...(opts.tolerance === undefined ? {} : { tolerance: opts.tolerance }),
-          ...(opts.now === undefined ? {} : { now: opts.now }),
+          ...clock,
         })
-      : manyRivalMixedEquilibrium(contest);
+      : manyRivalMixedEquilibrium(contest, {
+          ...clock,
+          timeBudgetMs: opts.mixedTimeBudgetMs ?? MIXED_TIME_BUDGET_MS,
+        });
+  if (!eq || eq.kind === "none-pure") return eq;
   const accept = n === 2 ? MIXED_ACCEPT : MIXED_ACCEPT_MANY;
-  if (!eq || eq.kind === "none-pure" || eq.nashGap <= accept * contest.prize) return eq;
-  return noPureEquilibrium(
-    contest,
-    eq.method,
-    `The mixed-strategy search did not get within ${accept * 100}% of the prize (certified Nash gap ${eq.nashGap.toPrecision(3)}), so no answer is given.`,
-  );
+  const gap = eq.nashGap.toPrecision(3);
+  if (!(eq.nashGap <= accept * contest.prize)) {
+    return noPureEquilibrium(
+      contest,
+      eq.method,
+      `The mixed-strategy search did not get within ${accept * 100}% of the prize (certified Nash gap ${gap}), so no answer is given.`,
+    );
+  }
+  if (n > 2 && !(n * eq.nashGap <= MIXED_ACCEPT_MANY_TOTAL * contest.prize)) {
+    return noPureEquilibrium(
+      contest,
+      eq.method,
+      `The mixed-strategy search got a certified Nash gap of ${gap} per rival, but with ${n} rivals their possible gains together exceed ${MIXED_ACCEPT_MANY_TOTAL * 100}% of the prize, so no answer is given.`,
+    );
+  }
+  return eq;
 }
 
 /** Ratio form with every r_i <= 1: the pure equilibrium exists and is unique. */

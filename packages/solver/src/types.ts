@@ -163,6 +163,8 @@ export interface SolveOptions {
   now?: () => number;
   /** false: stop at "none-pure" instead of searching for a mixed equilibrium (default true) */
   mixed?: boolean;
+  /** wall-clock budget (ms) of the mixed search with three or more rivals (default 10,000) */
+  mixedTimeBudgetMs?: number;
 }
 
 /** Best response of one rival to the others' efforts. */
