@@ -32,6 +32,20 @@ function rawEmit(socket: Client, event: string, payload: unknown) {
   (socket as unknown as { emit(event: string, payload: unknown): void }).emit(event, payload);
 }
 
+/**
+ * Resolves once the server has dealt with everything sent before on this connection: it answers
+ * a probe sent after it (a connection's packets are handled in order), or it closes the
+ * connection. Event-driven: no waiting for time.
+ */
+function handled(socket: Client): Promise<void> {
+  const closed = new Promise<void>((resolve) => socket.once("disconnect", () => resolve()));
+  const answered = request(socket, "command", { type: "pause" }).then(
+    () => undefined,
+    () => undefined,
+  );
+  return Promise.race([closed, answered]);
+}
+
 function pick<T>(rng: Rng, items: readonly T[]): T {
   return items[Math.floor(rng() * items.length)]!;
 }
@@ -259,7 +273,7 @@ describe("bad input", () => {
       const raw = await client();
       const engine = (raw.io as unknown as { engine: { send(data: string): void } }).engine;
       engine.send(frame);
-      await new Promise((r) => setTimeout(r, 20));
+      await handled(raw);
       raw.disconnect();
     }
 

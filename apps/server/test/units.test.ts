@@ -30,30 +30,39 @@ describe("createTokenBucket(rate, burst)", () => {
 
 describe("createSerialQueue()", () => {
   it("run(key, task) runs tasks of one key in arrival order, one at a time", async () => {
-    vi.useFakeTimers();
     const queue = createSerialQueue();
     const log: string[] = [];
     let running = 0;
     let maxRunning = 0;
-    const task = (name: string, ms: number) => async () => {
+    // each task waits until the test opens its gate: no timers, the test decides the order
+    const gates = new Map<string, () => void>();
+    const opened = new Map<string, Promise<void>>(
+      ["1", "2", "3"].map((name) => [name, new Promise<void>((r) => gates.set(name, r))]),
+    );
+    const task = (name: string) => async () => {
       running++;
       maxRunning = Math.max(maxRunning, running);
       log.push(`start ${name}`);
-      await new Promise((r) => setTimeout(r, ms));
+      await opened.get(name);
       log.push(`end ${name}`);
       running--;
       return name;
     };
+    const nextTurn = () => new Promise<void>((r) => setImmediate(r)); // pending callbacks run
     const all = Promise.all([
-      queue.run("a", task("1", 20)),
-      queue.run("a", task("2", 1)),
-      queue.run("a", task("3", 5)),
+      queue.run("a", task("1")),
+      queue.run("a", task("2")),
+      queue.run("a", task("3")),
     ]);
-    // the tasks wait on timers: run them on the fake clock (task 1 is the slowest, yet first)
-    await vi.runAllTimersAsync();
-    const results = await all;
-    vi.useRealTimers();
-    expect(results).toEqual(["1", "2", "3"]);
+    await nextTurn();
+    expect(log).toEqual(["start 1"]);
+    // the later tasks may go, task 1 may not: a queue that let them start would end them first
+    gates.get("3")!();
+    gates.get("2")!();
+    await nextTurn();
+    expect(log).toEqual(["start 1"]);
+    gates.get("1")!();
+    expect(await all).toEqual(["1", "2", "3"]);
     expect(maxRunning).toBe(1);
     expect(log).toEqual(["start 1", "end 1", "start 2", "end 2", "start 3", "end 3"]);
   });

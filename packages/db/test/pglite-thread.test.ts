@@ -101,8 +101,12 @@ describe("the channel to a database thread", () => {
       if (++n === 1) parentPort.postMessage({ id: m.id, ok: true, value: "first" });
       else process.exit(3);
     });`;
-  const pendingAfter = (p: Promise<unknown>, ms: number) =>
-    Promise.race([p.then(() => "settled"), new Promise((r) => setTimeout(() => r("pending"), ms))]);
+  // Settled or not once every callback already due has run (a turn of the event loop, no timer).
+  const stateNow = (p: Promise<unknown>) =>
+    Promise.race([
+      p.then(() => "settled"),
+      new Promise((r) => setImmediate(r)).then(() => "pending"),
+    ]);
 
   it("a thread that dies fails the waiting call and every later one, and reports itself lost", async () => {
     const channel = openChannel(new Worker(DIES_ON_SECOND, { eval: true }));
@@ -114,9 +118,13 @@ describe("the channel to a database thread", () => {
   });
 
   it("a thread ended by close is not reported lost", async () => {
-    const channel = openChannel(new Worker(DIES_ON_SECOND, { eval: true }));
+    const worker = new Worker(DIES_ON_SECOND, { eval: true });
+    const channel = openChannel(worker);
+    // registered after the channel's own exit listener, so that one has run when this resolves
+    const exited = new Promise((r) => worker.once("exit", r));
     await channel.close({ op: "close" });
-    expect(await pendingAfter(channel.lost, 300)).toBe("pending");
+    await exited;
+    expect(await stateNow(channel.lost)).toBe("pending");
     await expect(channel.call({ op: "runner.begin" })).rejects.toThrow(/exited/);
   });
 });
