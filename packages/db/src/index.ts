@@ -26,3 +26,5 @@ export type { AppendEffects } from "./repos/events";
 export { eventFromRow, type EventRow } from "./repos/rows";
 export type { CreateSessionInput, CreateSessionResult } from "./repos/sessions";
 export type * from "./types";
+export { leaseKey, EVENTS_CHANNEL, SIGNALS_CHANNEL } from "./feed";
+export type { ChangeFeed, FeedHandlers } from "./feed";

@@ -11,6 +11,7 @@ import {
   readMigrations,
   type MigrationStatus,
 } from "./migrate";
+import { openFeed, type ChangeFeed } from "./feed";
 import { eventsRepository } from "./repos/events";
 import { keysRepository } from "./repos/keys";
 import { sessionsRepository } from "./repos/sessions";
@@ -42,6 +43,11 @@ export interface Database {
    * connections itself, so there it never resolves.
    */
   lost: Promise<Error>;
+  /**
+   * PostgreSQL only (null on the embedded database, which serves one process): committed
+   * events, messages between processes and per-session leases (feed.ts).
+   */
+  feed: ChangeFeed | null;
   close(): Promise<void>;
 }
 
@@ -119,6 +125,15 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<Database> {
     await connection.close();
     throw error;
   }
+  let feed: ChangeFeed | null = null;
+  if (target.kind === "postgres") {
+    try {
+      feed = await openFeed(target.url);
+    } catch (error) {
+      await connection.close();
+      throw error;
+    }
+  }
   const { prisma } = connection;
   return {
     kind: connection.kind,
@@ -129,6 +144,10 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<Database> {
     migrationsApplied,
     readiness: () => migrationStatus(connection.runner, migrations),
     lost: connection.lost,
-    close: connection.close,
+    feed,
+    async close() {
+      await feed?.close();
+      await connection.close();
+    },
   };
 }

@@ -33,6 +33,7 @@ describe.each(backends)("repositories on $name", (backend) => {
     expect(db.migrationsApplied).toEqual([
       "20261202033000_init",
       "20261204212024_drop_unused_scenario_table",
+      "20261205000000_notify_committed_events",
     ]);
   });
 

@@ -1,0 +1,89 @@
+/**
+ * The feed several processes share on PostgreSQL (src/feed.ts): every committed append is
+ * announced with its session and last seq, messages reach every listener, and a session's
+ * lease is held by one connection at a time and freed when that connection closes.
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { openDatabase, type Database } from "../src/index";
+import { backends, TEST_DATABASE_URL } from "./backends";
+import { sessionInput } from "./fixtures";
+
+const postgres = backends.find((b) => b.name === "postgresql");
+
+/** Waits for `check` to pass, polling: notifications travel over a real connection. */
+async function eventually(check: () => void, timeoutMs = 5_000) {
+  const start = Date.now();
+  for (;;) {
+    try {
+      return check();
+    } catch (error) {
+      if (Date.now() - start > timeoutMs) throw error;
+      await new Promise((r) => setTimeout(r, 20));
+    }
+  }
+}
+
+function recorder(db: Database) {
+  const heard = { committed: [] as string[], signals: [] as unknown[], lost: 0 };
+  db.feed!.listen({
+    committed: (id, seq) => heard.committed.push(`${id}:${seq}`),
+    signal: (m) => heard.signals.push(m),
+    reconnected: () => undefined,
+    leasesLost: () => heard.lost++,
+  });
+  return heard;
+}
+
+describe.skipIf(!TEST_DATABASE_URL)("the PostgreSQL feed", () => {
+  let one: Database;
+  let two: Database;
+  let dispose: (() => Promise<void>) | undefined;
+  let oneClosed = false;
+
+  beforeAll(async () => {
+    const fresh = await postgres!.fresh();
+    dispose = fresh.dispose;
+    one = await openDatabase({ url: fresh.url });
+    two = await openDatabase({ url: fresh.url });
+  });
+  afterAll(async () => {
+    if (!oneClosed) await one?.close();
+    await two?.close();
+    await dispose?.();
+  });
+
+  it("announces each committed append (grouped or alone) to every process; a refused one is not announced", async () => {
+    const heardTwo = recorder(two);
+    const { input } = sessionInput();
+    expect((await one.sessions.create(input)).ok).toBe(true);
+    const ev = { type: "note", at: 1_700_000_001_000, payload: {} };
+    expect(await one.events.append(input.id, 1, [ev, ev])).toEqual({ ok: true, seqs: [2, 3] });
+    expect((await one.events.append(input.id, 1, [ev])).ok).toBe(false);
+    await eventually(() => expect(heardTwo.committed).toEqual([`${input.id}:3`]));
+    // an append that stores keys goes alone (an interactive transaction): announced too
+    const keyed = await one.events.append(input.id, 3, [ev], {
+      addKeys: [{ role: "spectator", seatIndex: null, plaintext: "k".repeat(43) }],
+    });
+    expect(keyed.ok).toBe(true);
+    await eventually(() => expect(heardTwo.committed).toEqual([`${input.id}:3`, `${input.id}:4`]));
+  });
+
+  it("carries messages to every process, the sender's included", async () => {
+    const heardOne = recorder(one);
+    const heardTwo = recorder(two);
+    await one.feed!.publish({ kind: "hello", n: 1 });
+    await eventually(() => expect(heardTwo.signals).toEqual([{ kind: "hello", n: 1 }]));
+    await eventually(() => expect(heardOne.signals).toEqual([{ kind: "hello", n: 1 }]));
+  });
+
+  it("gives a lease to one process at a time, and frees it on release or when its holder closes", async () => {
+    expect(await one.feed!.tryLeases(["s-1", "s-2"])).toEqual(["s-1", "s-2"]);
+    expect(await two.feed!.tryLeases(["s-1", "s-2", "s-3"])).toEqual(["s-3"]);
+    await one.feed!.releaseLease("s-1");
+    expect(await two.feed!.tryLeases(["s-1", "s-2"])).toEqual(["s-1"]);
+    // the holder goes away (its connection closes): its leases are free at once
+    await one.close();
+    oneClosed = true;
+    expect(await two.feed!.tryLeases(["s-2"])).toEqual(["s-2"]);
+  });
+});
