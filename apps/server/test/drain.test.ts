@@ -160,8 +160,8 @@ describe("drain", () => {
     const sealed = expectOk(await ack);
     expect(await late).toEqual({
       ok: false,
-      code: "internal",
-      message: "the server is shutting down",
+      code: "unavailable",
+      message: "the server is shutting down; try again",
     });
     await closing;
     expect(closed).toBe(true);

@@ -12,6 +12,7 @@ export const ERROR_CODES = [
   "too-large",
   "conflict",
   "version-mismatch",
+  "unavailable",
   "internal",
 ] as const;
 

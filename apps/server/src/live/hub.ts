@@ -4,59 +4,30 @@
  * one session that arrived while its previous batch was committing) is
  *   decide each in turn (pure engine) -> one append to the database (the seq check is the
  *   authority) -> apply -> arm the clock -> notify (views are pushed by the caller's listener).
- * Nothing is acknowledged before the database has committed it.
+ * Nothing is acknowledged before the database has committed it (batch.ts).
+ *
+ * Several processes on one PostgreSQL: every commit is announced on the database's feed;
+ * a process holding the session reads the new events by seq, folds them (through the
+ * session's queue, so never in the middle of its own commit) and notifies its listeners like
+ * after its own commits. The round clock runs in one process per session, the lease holder
+ * (duties.ts); a command reaching any other process is still decided and committed there.
  */
-import { eventFromRow } from "@contend/db";
-import type { AppendEffects, Database, KeyInput, NewEvent } from "@contend/db";
-import type { ErrorCode, EventBody, SessionEvent } from "@contend/protocol";
-import { allSealed, apply, deadline, decide, initialState } from "@contend/session";
-import type { Actor, DecideData, EngineCommand, SessionState } from "@contend/session";
-import type { Clock, TimerHandle } from "../clock";
+import type { Database } from "@contend/db";
+import type { ErrorCode, SessionEvent } from "@contend/protocol";
+import { allSealed, deadline, initialState } from "@contend/session";
+import type { Actor, EngineCommand } from "@contend/session";
+import type { Clock } from "../clock";
 import type { Logger } from "../logger";
 import { createSerialQueue } from "../serialQueue";
+import { applyAll, commitBatch, SYSTEM, takeBatch } from "./batch";
+import type { ExecuteOptions, ExecuteResult, LiveSession, Request } from "./batch";
+import { createDuties } from "./duties";
 
-export interface LiveSession {
-  readonly id: string;
-  state: SessionState;
-  /** seq of every sealed move of the open round, by "seat:clientMoveId" (for repeated acks) */
-  moveSeqs: Map<string, number>;
-  timer: TimerHandle | null;
-}
-
-export type ExecuteResult =
-  | { ok: true; seq: number; data: DecideData; events: SessionEvent[] }
-  | { ok: false; code: ErrorCode; message: string; path?: string };
-
-export interface ExecuteOptions {
-  /** keys stored in the same transaction as the events (e.g. the key of a claimed seat) */
-  addKeys?: KeyInput[];
-}
-
-interface Request {
-  command: EngineCommand;
-  actor: Actor;
-  options: ExecuteOptions;
-}
+export type { ExecuteOptions, ExecuteResult, LiveSession } from "./batch";
 
 interface Pending extends Request {
   resolve: (result: ExecuteResult) => void;
   reject: (error: unknown) => void;
-}
-
-/** Most commands one append carries. */
-const MAX_BATCH = 64;
-
-function batchable(r: Request): boolean {
-  return !r.options.addKeys?.length && r.command.type !== "claimSeat";
-}
-
-/** The first waiting command and, if it is plain, the plain ones right behind it. */
-function takeBatch(waiting: Pending[]): Pending[] {
-  let n = 1;
-  if (batchable(waiting[0]!)) {
-    while (n < waiting.length && n < MAX_BATCH && batchable(waiting[n]!)) n++;
-  }
-  return waiting.splice(0, n);
 }
 
 export type CommitListener = (live: LiveSession, events: SessionEvent[]) => void;
@@ -75,31 +46,16 @@ export interface SessionHub {
   onCommit(listener: CommitListener): void;
   /** a session was deleted: drop it from memory and stop its clock */
   forget(sessionId: string): void;
+  /**
+   * Tells every other process sharing the database (and this one) something that is not an
+   * event, e.g. that a seat's old links stopped working; no-op on the embedded database.
+   */
+  publish(message: unknown): Promise<void>;
+  onSignal(listener: (message: unknown) => void): void;
+  /** whether this process runs the session's clock (always, on the embedded database) */
+  owns(sessionId: string): boolean;
   /** stop all timers and wait for queued commands to finish */
   close(): Promise<void>;
-}
-
-const SYSTEM: Actor = { role: "system" };
-const ALL_SEALED: EngineCommand = { type: "closeRound", reason: "all-sealed" };
-
-/**
- * An appended event as a read of its row returns it: the payload through JSON (the column
- * keeps exactly the digits JSON.stringify writes; undefined fields vanish), `at` as whole ms,
- * parsed by the protocol's schema as `events.list` parses it.
- */
-function asStored(event: SessionEvent, seq: number): SessionEvent {
-  const row = toNewEvent(event);
-  return eventFromRow({
-    seq,
-    type: row.type,
-    at: new Date(row.at).getTime(),
-    payload: JSON.parse(JSON.stringify(row.payload)) as unknown,
-  });
-}
-
-function toNewEvent(event: SessionEvent): NewEvent {
-  const { seq: _seq, at, ...body } = event;
-  return { type: event.type, at, payload: body };
 }
 
 export function createSessionHub(deps: { db: Database; clock: Clock; logger: Logger }): SessionHub {
@@ -108,21 +64,26 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
   const loading = new Map<string, Promise<LiveSession | null>>();
   const queue = createSerialQueue();
   const listeners: CommitListener[] = [];
+  const signalListeners: ((message: unknown) => void)[] = [];
   let closed = false;
 
-  function applyAll(live: LiveSession, events: readonly SessionEvent[]) {
-    for (const event of events) live.state = apply(live.state, event);
-    trackMoves(live, events);
-  }
-
-  function trackMoves(live: LiveSession, events: readonly SessionEvent[]) {
-    for (const event of events) {
-      if (event.type === "round-opened") live.moveSeqs.clear();
-      if (event.type === "move-sealed") {
-        live.moveSeqs.set(`${event.seatIndex}:${event.clientMoveId}`, event.seq);
-      }
-    }
-  }
+  const duties = createDuties({
+    feed: db.feed,
+    clock,
+    logger,
+    current: (id) => sessions.get(id),
+    live: () => sessions.values(),
+    // Newly owned: catch up (the last owner may have committed since our last read), then
+    // arm the clock; a deadline already past closes the round at once.
+    acquired: (live) =>
+      queue.run(live.id, async () => {
+        if (sessions.get(live.id) !== live) return;
+        await catchUp(live);
+        armClock(live);
+        if (allSealed(live.state)) void closeBy(live, "all-sealed");
+      }),
+    lost: (live) => disarm(live),
+  });
 
   async function load(sessionId: string): Promise<LiveSession | null> {
     const rows = await db.events.list(sessionId);
@@ -149,6 +110,7 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
       if (live) {
         sessions.set(sessionId, live);
         armClock(live);
+        if (live.state.status !== "ended") duties.claim(live);
       }
       return live;
     });
@@ -160,106 +122,58 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
     }
   }
 
-  /** Another process (sharing PostgreSQL) moved the log on: catch up from our seq. */
+  /** Another process (sharing PostgreSQL) moved the log on: fold what it wrote, then tell. */
   async function catchUp(live: LiveSession) {
     const rows = await db.events.list(live.id, live.state.seq);
+    if (rows.length === 0) return;
     applyAll(live, rows);
+    notify(live, rows);
+  }
+
+  /** Heard on the feed: events up to lastSeq are committed. */
+  function committed(sessionId: string, lastSeq: number) {
+    const live = sessions.get(sessionId);
+    if (!live || live.state.seq >= lastSeq || closed) return;
+    void queue
+      .run(sessionId, async () => {
+        if (sessions.get(sessionId) !== live || live.state.seq >= lastSeq) return;
+        await catchUp(live);
+        armClock(live);
+        settle(live);
+      })
+      .catch((error: unknown) => logger.error("catch-up failed", { sessionId, error }));
+  }
+
+  function disarm(live: LiveSession) {
+    if (live.timer) clock.clearTimer(live.timer);
+    live.timer = null;
   }
 
   function armClock(live: LiveSession) {
-    if (live.timer) clock.clearTimer(live.timer);
-    live.timer = null;
-    if (closed) return;
+    disarm(live);
+    if (closed || !duties.owns(live.id)) return;
     const at = deadline(live.state);
     if (at === null) return;
-    const round = live.state.status === "open" ? live.state.open.round : 0;
     live.timer = clock.setTimer(() => {
       live.timer = null;
-      void execute(live.id, { type: "closeRound", reason: "clock" }, SYSTEM).then((r) => {
-        // wrong-state: the round was closed (or paused) in the meantime, which is fine.
-        if (!r.ok && r.code !== "wrong-state") {
-          logger.warn("clock close failed", { sessionId: live.id, round, code: r.code });
-        }
-      });
+      void closeBy(live, "clock");
     }, at - clock.now());
   }
 
-  /**
-   * Decides the requests one after another, each on the state the ones before it left, and
-   * commits all their events in one append (with an all-sealed close right behind the seal
-   * that caused it). Each request gets the result it would have got alone; a conflict with
-   * another writer reloads the log and decides the whole batch again, once.
-   */
-  async function commit(live: LiveSession, requests: Request[]): Promise<ExecuteResult[]> {
-    for (let attempt = 0; ; attempt++) {
-      const now = clock.now();
-      const base = live.state.seq;
-      const at = Math.max(now, live.state.status === "empty" ? 0 : live.state.at);
-      // Each event in the form a read of its row gives back (see asStored), so the state
-      // folded here is exactly what a restart or a replay folds from the same rows, and it
-      // becomes the live state as it is once the append has committed.
-      const stamped: SessionEvent[] = [];
-      let trial = live.state;
-      const add = (events: readonly EventBody[]) => {
-        for (const e of events) {
-          const seq = base + stamped.length + 1;
-          const event = asStored({ ...e, seq, at } as SessionEvent, seq);
-          stamped.push(event);
-          trial = apply(trial, event);
-        }
-      };
-      const outcomes = requests.map((req) => {
-        const decision = decide(trial, req.command, { now, actor: req.actor });
-        if (!decision.ok) return decision;
-        const from = stamped.length;
-        add(decision.events);
-        // When the last active seat has sealed, the round closes in the same append: one
-        // commit, one push, and no command can slip in between the last seal and the close.
-        if (decision.events.length > 0 && allSealed(trial)) {
-          const closing = decide(trial, ALL_SEALED, { now, actor: SYSTEM });
-          if (closing.ok) add(closing.events);
-          else logger.warn("all-sealed close failed", { sessionId: live.id, code: closing.code });
-        }
-        return { data: decision.data, from, to: stamped.length };
-      });
-      const settle = (events: SessionEvent[]): ExecuteResult[] =>
-        outcomes.map((o) =>
-          "ok" in o
-            ? o
-            : {
-                ok: true,
-                seq: base + o.to,
-                data: o.data,
-                events: events.slice(o.from, o.to),
-              },
-        );
-      if (stamped.length === 0) return settle([]);
-      const effects = effectsOf(
-        stamped,
-        requests.flatMap((r) => r.options.addKeys ?? []),
-      );
-      if (trial.status !== live.state.status && trial.status !== "empty")
-        effects.status = trial.status;
-      const result = await db.events.append(live.id, base, stamped.map(toNewEvent), effects);
-      if (result.ok) {
-        if (result.seqs.some((seq, i) => seq !== stamped[i]?.seq)) {
-          throw new Error("the database stored these events under other seqs than asked");
-        }
-        live.state = trial;
-        trackMoves(live, stamped);
-        return settle(stamped);
-      }
-      const failed = (code: ErrorCode, message: string): ExecuteResult[] =>
-        requests.map(() => ({ ok: false, code, message }));
-      if (result.code === "not-found") return failed("not-found", "no such session");
-      if (result.code === "seat-claimed") {
-        await catchUp(live);
-        return failed("conflict", `seat ${result.seatIndex} is already taken`);
-      }
-      // conflict: someone else appended first; reload and decide again, once.
-      await catchUp(live);
-      if (attempt >= 1) return failed("conflict", "the session changed meanwhile; try again");
+  async function closeBy(live: LiveSession, reason: "clock" | "all-sealed") {
+    const round = live.state.status === "open" ? live.state.open.round : 0;
+    const r = await execute(live.id, { type: "closeRound", reason }, SYSTEM);
+    // wrong-state: the round was closed (or paused) in the meantime, which is fine.
+    if (!r.ok && r.code !== "wrong-state") {
+      logger.warn(`${reason} close failed`, { sessionId: live.id, round, code: r.code });
     }
+  }
+
+  /** An ended session never changes again: drop it (a later hello reloads it from the log). */
+  function settle(live: LiveSession) {
+    if (live.state.status !== "ended") return;
+    sessions.delete(live.id);
+    duties.release(live.id);
   }
 
   /** commands waiting for their session's turn, in arrival order */
@@ -307,15 +221,15 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
   async function runBatch(sessionId: string, batch: Request[]): Promise<ExecuteResult[]> {
     const refuse = (code: ErrorCode, message: string): ExecuteResult[] =>
       batch.map(() => ({ ok: false, code, message }));
-    if (closed) return refuse("internal", "the server is shutting down");
+    // Retryable: the client reconnects (to another process behind the proxy) and sends again.
+    if (closed) return refuse("unavailable", "the server is shutting down; try again");
     const live = await get(sessionId);
     if (!live) return refuse("not-found", "no such session");
-    const results = await commit(live, batch);
+    const results = await commitBatch({ db, clock, logger, catchUp }, live, batch);
     armClock(live);
     const events = results.flatMap((r) => (r.ok ? r.events : []));
     if (events.length > 0) notify(live, events);
-    // An ended session never changes again; a later hello reloads it from the log.
-    if (live.state.status === "ended") sessions.delete(sessionId);
+    settle(live);
     return results;
   }
 
@@ -329,6 +243,24 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
     }
   }
 
+  db.feed?.listen({
+    committed,
+    signal(message) {
+      for (const listener of signalListeners) {
+        try {
+          listener(message);
+        } catch (error) {
+          logger.error("signal listener failed", { error });
+        }
+      }
+    },
+    reconnected() {
+      for (const live of sessions.values()) committed(live.id, Number.MAX_SAFE_INTEGER);
+      duties.reconnected();
+    },
+    leasesLost: () => duties.lostAll(),
+  });
+
   return {
     get,
     execute,
@@ -341,13 +273,12 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
         if (!live) continue;
         restored++;
         // A round whose clock ran out while the server was down, or whose seats had all
-        // sealed just before a crash, closes now, before any client can act on it.
+        // sealed just before a crash, closes now, before any client can act on it (by the
+        // session's owner: see duties.ts; another process leaves it to that one).
+        if (!duties.owns(s.id)) continue;
         const due = deadline(live.state);
-        if (due !== null && due <= clock.now()) {
-          await execute(s.id, { type: "closeRound", reason: "clock" }, SYSTEM);
-        } else if (allSealed(live.state)) {
-          await execute(s.id, { type: "closeRound", reason: "all-sealed" }, SYSTEM);
-        }
+        if (due !== null && due <= clock.now()) await closeBy(live, "clock");
+        else if (allSealed(live.state)) await closeBy(live, "all-sealed");
       }
       return restored;
     },
@@ -356,27 +287,24 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
     },
     forget(sessionId) {
       const live = sessions.get(sessionId);
-      if (live?.timer) clock.clearTimer(live.timer);
+      if (live) disarm(live);
       sessions.delete(sessionId);
+      duties.release(sessionId);
     },
+    async publish(message) {
+      await db.feed?.publish(message).catch((error: unknown) => {
+        logger.warn("could not tell the other processes", { error });
+      });
+    },
+    onSignal(listener) {
+      signalListeners.push(listener);
+    },
+    owns: (sessionId) => duties.owns(sessionId),
     async close() {
       closed = true;
-      for (const live of sessions.values()) {
-        if (live.timer) clock.clearTimer(live.timer);
-        live.timer = null;
-      }
+      duties.stop();
+      for (const live of sessions.values()) disarm(live);
       await queue.idle();
     },
   };
-}
-
-/** Seat rows and keys that must change in the same transaction as the events. */
-function effectsOf(events: readonly EventBody[], addKeys: KeyInput[]): AppendEffects {
-  const effects: AppendEffects = {};
-  const claims = events.flatMap((e) =>
-    e.type === "seat-claimed" ? [{ seatIndex: e.seatIndex, displayName: e.displayName }] : [],
-  );
-  if (claims.length > 0) effects.claimSeats = claims;
-  if (addKeys.length > 0) effects.addKeys = addKeys;
-  return effects;
 }

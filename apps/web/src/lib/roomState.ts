@@ -171,6 +171,8 @@ export function plainAckError(ack: { code: string; message: string; path?: strin
       return `Not possible right now: ${ack.message}.`;
     case "rate-limited":
       return "Too many clicks in a row; wait a second and try again.";
+    case "unavailable":
+      return "The server is restarting; this page reconnects by itself. Try again in a moment.";
     case "internal":
       return ack.message.charAt(0).toUpperCase() + ack.message.slice(1) + ".";
     default:

@@ -1,0 +1,181 @@
+/**
+ * The sockets of each session in this process, and what reaches them: pushed views (each
+ * socket its own role's view, as a patch from the one it holds, so a sealed move reaches only
+ * its owner), presence for the facilitator, and revocation. Commits made by another process
+ * arrive here the same way as this process's own (the hub's commit listener).
+ */
+import { diffJson } from "@contend/protocol";
+import type { PatchOp, RevokedMessage, RoleView } from "@contend/protocol";
+import { viewFor } from "@contend/session";
+import type { Clock, TimerHandle } from "../clock";
+import type { Limits } from "../env";
+import type { LiveSession, SessionHub } from "../live/hub";
+import { progressWindowMs } from "../loadGauge";
+import type { LoadGauge } from "../loadGauge";
+import { viewerOf } from "./types";
+import type { AppSocket, Identity } from "./types";
+
+/** A patch with more operations than this goes as a full view (e.g. a round closing with many seats). */
+const MAX_PATCH_OPS = 200;
+
+export interface RoomsDeps {
+  hub: SessionHub;
+  clock: Clock;
+  limits: Limits;
+  load: LoadGauge;
+}
+
+export type Rooms = ReturnType<typeof createRooms>;
+
+export function createRooms(deps: RoomsDeps) {
+  const { hub, clock, limits, load } = deps;
+  /** sockets that said hello, by session */
+  const rooms = new Map<string, Set<AppSocket>>();
+  /** per session: seat index -> how many seat sockets of that seat are connected */
+  const present = new Map<string, Map<number, number>>();
+
+  function join(socket: AppSocket, identity: Identity) {
+    leave(socket);
+    socket.data.identity = identity;
+    let room = rooms.get(identity.sessionId);
+    if (!room) rooms.set(identity.sessionId, (room = new Set()));
+    room.add(socket);
+    if (identity.role === "seat") countPresence(identity.sessionId, identity.seatIndex, +1);
+  }
+
+  function leave(socket: AppSocket) {
+    const identity = socket.data.identity;
+    if (!identity) return;
+    const room = rooms.get(identity.sessionId);
+    room?.delete(socket);
+    if (room && room.size === 0) rooms.delete(identity.sessionId);
+    socket.data.identity = null;
+    socket.data.shown = null;
+    if (identity.role === "seat") countPresence(identity.sessionId, identity.seatIndex, -1);
+  }
+
+  /**
+   * Presence (facilitator only, not part of the event log): which seats have a connected seat
+   * page in this process. The facilitator's sockets get the list when a seat goes from no page
+   * to one or back.
+   */
+  function countPresence(sessionId: string, seatIndex: number | undefined, delta: 1 | -1) {
+    if (seatIndex === undefined) return;
+    let counts = present.get(sessionId);
+    if (!counts) present.set(sessionId, (counts = new Map()));
+    const before = counts.get(seatIndex) ?? 0;
+    const after = Math.max(0, before + delta);
+    if (after === 0) counts.delete(seatIndex);
+    else counts.set(seatIndex, after);
+    if (counts.size === 0) present.delete(sessionId);
+    if ((before === 0) === (after === 0)) return;
+    for (const s of rooms.get(sessionId) ?? []) {
+      if (s.data.identity?.role === "facilitator") sendPresence(s, sessionId);
+    }
+  }
+
+  function sendPresence(socket: AppSocket, sessionId: string) {
+    const seats = [...(present.get(sessionId)?.keys() ?? [])].sort((a, b) => a - b);
+    socket.emit("presence", { seats });
+  }
+
+  /**
+   * Brings the given sockets of a session up to its current state: each gets the patch from
+   * the view it holds to its role's new view. Sockets of one role that hold the same view
+   * object share one view build and one diff; a patch that would rewrite most of the view goes
+   * as a full view; a socket already at this seq gets nothing.
+   */
+  function push(live: LiveSession, sockets: Iterable<AppSocket>) {
+    if (live.state.status === "empty") return;
+    const seq = live.state.seq;
+    const views = new Map<string, RoleView>();
+    const patches = new Map<RoleView, { next: RoleView; ops: PatchOp[] | null }>();
+    for (const socket of sockets) {
+      const identity = socket.data.identity;
+      if (!identity || identity.sessionId !== live.id) continue;
+      const shown = socket.data.shown;
+      if (shown && shown.seq >= seq) continue;
+      const viewer = viewerOf(identity);
+      const key = `${viewer.role}:${viewer.seatIndex ?? ""}`;
+      let view = views.get(key);
+      if (!view) views.set(key, (view = viewFor(live.state, viewer)));
+      let patch = shown ? patches.get(shown.view) : undefined;
+      if (shown && (!patch || patch.next !== view)) {
+        const ops = diffJson(shown.view, view);
+        patch = { next: view, ops: ops.length > MAX_PATCH_OPS ? null : ops };
+        patches.set(shown.view, patch);
+      }
+      if (shown && patch?.ops) socket.emit("viewPatch", { seq, base: shown.seq, ops: patch.ops });
+      else socket.emit("view", { seq, view });
+      socket.data.shown = { seq, view };
+    }
+  }
+
+  /** sessions whose progress push to the other sockets is waiting, with its timer */
+  const pendingProgress = new Map<string, TimerHandle>();
+
+  /**
+   * After every commit (this process's or, on PostgreSQL, another's). A commit that only
+   * seals moves changes, for everyone but the sealers, one `sealed` flag: the sealers' own
+   * sockets get it at once, everyone else within `limits.progressPushMs` as one frame for all
+   * the seals of that window (short enough to read as live on a progress display, long enough
+   * to merge the seals of a busy round), and up to `limits.progressPushBusyMs` while the event
+   * loop is near full. Any other commit (a round opening or resolving, a pause, a shock) goes
+   * to every socket at once and takes the waiting progress with it.
+   */
+  hub.onCommit((live, events) => {
+    const room = rooms.get(live.id);
+    if (!room) return;
+    if (limits.progressPushMs === 0 || !events.every((e) => e.type === "move-sealed")) {
+      const waiting = pendingProgress.get(live.id);
+      if (waiting) clock.clearTimer(waiting);
+      pendingProgress.delete(live.id);
+      push(live, room);
+      return;
+    }
+    const sealers = new Set(events.map((e) => e.seatIndex));
+    push(
+      live,
+      [...room].filter(
+        (s) => s.data.identity?.role === "seat" && sealers.has(s.data.identity.seatIndex ?? -1),
+      ),
+    );
+    if (pendingProgress.has(live.id)) return;
+    const timer = clock.setTimer(
+      () => {
+        pendingProgress.delete(live.id);
+        const current = rooms.get(live.id);
+        if (current) push(live, current);
+      },
+      progressWindowMs(limits.progressPushMs, limits.progressPushBusyMs, load.busy()),
+      { unref: true },
+    );
+    pendingProgress.set(live.id, timer);
+  });
+
+  /** Tells the sockets whose key no longer works why, then closes them. */
+  function revoke(which: (identity: Identity) => boolean, msg: RevokedMessage) {
+    for (const room of rooms.values()) {
+      for (const socket of [...room]) {
+        const identity = socket.data.identity;
+        if (!identity || !which(identity)) continue;
+        leave(socket);
+        socket.emit("revoked", msg);
+        socket.disconnect(true);
+      }
+    }
+  }
+
+  return {
+    join,
+    leave,
+    sendPresence,
+    revoke,
+    /** drops the progress pushes still waiting (the server is closing) */
+    stop() {
+      for (const timer of pendingProgress.values()) clock.clearTimer(timer);
+      pendingProgress.clear();
+    },
+    connectedTo: (sessionId: string) => rooms.get(sessionId)?.size ?? 0,
+  };
+}
