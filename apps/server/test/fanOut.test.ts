@@ -136,6 +136,10 @@ describe.skipIf(!TEST_DATABASE_URL)("two processes on one PostgreSQL", () => {
     expect(other.app.hub.owns(id)).toBe(false);
     clock.advance(LEASE_RETRY_MS);
     await eventually(() => expect(other.app.hub.owns(id)).toBe(true));
+    // A seal on the new owner is the barrier: it queues behind the takeover (catch up, arm
+    // the clock), so the clock is armed before time moves on.
+    const seatOnOther = other === a ? seat0 : seat1;
+    expectOk(await command(seatOnOther, { type: "sealMove", clientMoveId: "r3", effort: 9 }));
     clock.advance(30_000);
     await eventually(() => expect(lastView(watcher).status).toBe("ended"));
 
