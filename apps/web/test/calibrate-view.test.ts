@@ -11,7 +11,8 @@ import {
   runCalibration,
   shareRows,
 } from "../src/lib/calibrateView";
-import { formToScenario, parseScenarioValue } from "../src/lib/editorForm";
+import { formToScenario } from "../src/lib/editorForm";
+import { parseScenarioValue } from "../src/lib/editorImport";
 import { decodeState } from "../src/lib/urlState";
 
 const demoInput = {

@@ -3,14 +3,17 @@ import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import {
   bindField,
+  blankRival,
   defaultForm,
   formToScenario,
   keptPolicyFields,
   parseNumberField,
-  parseScenarioText,
   rivalFieldError,
-  scenarioToForm,
 } from "../src/lib/editorForm";
+import { parseScenarioText, scenarioToForm } from "../src/lib/editorImport";
+import { privateFieldError, privateKey, privatePoint } from "../src/lib/privateForm";
+import { plainErrors } from "../src/lib/plainErrors";
+import { parseSessionScenario } from "@contend/protocol";
 import type { EditorForm } from "../src/lib/editorForm";
 import type { SessionScenarioInput } from "../src/lib/sessionTypes";
 import { TEMPLATES } from "../src/lib/templates";
@@ -235,7 +238,156 @@ describe("private numbers from a loaded file (docs/protocol.md R40)", () => {
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.scenario.session?.hidden).toEqual(file.session.hidden);
-    const cleared = formToScenario({ ...loaded.form, hidden: null });
+    const cleared = formToScenario({ ...loaded.form, privateRanges: {} });
     expect(cleared.ok && cleared.scenario.session?.hidden).toBeUndefined();
+  });
+});
+
+describe("private numbers set in the editor (docs/protocol.md R40)", () => {
+  function twoRivals(): EditorForm {
+    const f = defaultForm();
+    f.rivals[0]!.name = "North Bakery";
+    f.rivals[1]!.name = "Corner Ovens";
+    f.rivals[1]!.cost = "2";
+    return f;
+  }
+  const range = (low: string, high: string, mode = "") => ({
+    on: true,
+    dist: mode === "" ? ("uniform" as const) : ("triangular" as const),
+    low,
+    mode,
+    high,
+  });
+
+  it("a switched-on cost range becomes session.hidden, which the protocol's schema accepts", () => {
+    const f = twoRivals();
+    const key = privateKey(f.rivals[1]!.key, "cost");
+    const r = formToScenario({ ...f, privateRanges: { [key]: range("1.5", "3") } });
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.scenario.session?.hidden).toEqual({
+      truth: "draw",
+      rivals: { "Corner Ovens": { cost: { dist: "uniform", low: 1.5, high: 3 } } },
+    });
+    // the server's own parser reads the same scenario
+    expect(parseSessionScenario(r.scenario).ok).toBe(true);
+  });
+
+  it("a switched-off range and an empty map leave every number public", () => {
+    const f = twoRivals();
+    const key = privateKey(f.rivals[1]!.key, "cost");
+    const r = formToScenario({ ...f, privateRanges: { [key]: { ...range("1", "3"), on: false } } });
+    expect(r.ok && r.scenario.session?.hidden).toBeUndefined();
+  });
+
+  it("each bad range is named at its own field, all at once, in plain words", () => {
+    const f = twoRivals();
+    const r = formToScenario({
+      ...f,
+      privateRanges: {
+        [privateKey(f.rivals[1]!.key, "cost")]: range("3", "1"),
+        [privateKey(f.rivals[0]!.key, "value")]: range("80", "120", "200"),
+      },
+    });
+    expect(r.ok).toBe(false);
+    const plain = plainErrors(r.errors);
+    expect(privateFieldError(r.errors, "Corner Ovens", "cost")).toMatch(/must be >= low/);
+    expect(privateFieldError(r.errors, "North Bakery", "value")).toMatch(/must be >= mode/);
+    expect(plain["session.hidden.rivals.Corner Ovens.cost.high"]).toMatch(
+      /^Private cost range of Corner Ovens, high: /,
+    );
+    // positive control: the other field of the same rival has no error
+    expect(privateFieldError(r.errors, "Corner Ovens", "value")).toBeUndefined();
+  });
+
+  it('truth "table": a true number outside its range is reported at that number', () => {
+    const f = twoRivals();
+    const key = privateKey(f.rivals[1]!.key, "cost");
+    const outside = formToScenario({
+      ...f,
+      truth: "scenario",
+      privateRanges: { [key]: range("3", "4") },
+    });
+    expect(outside.ok).toBe(false);
+    if (outside.ok) return;
+    expect(rivalFieldError(outside.errors, f, 1, "cost")).toMatch(/outside its private range/);
+    const inside = formToScenario({
+      ...f,
+      truth: "scenario",
+      privateRanges: { [key]: range("1", "4") },
+    });
+    expect(inside.ok).toBe(true);
+  });
+
+  it("a range stays with its rival when the rival is renamed or another is removed", () => {
+    const f = twoRivals();
+    const key = privateKey(f.rivals[1]!.key, "cost");
+    const renamed = {
+      ...f,
+      privateRanges: { [key]: range("1", "3") },
+      rivals: [f.rivals[0]!, { ...f.rivals[1]!, name: "Oven Row" }, blankRival(2)],
+    };
+    const r = formToScenario(renamed);
+    expect(r.ok && Object.keys(r.scenario.session?.hidden?.rivals ?? {})).toEqual(["Oven Row"]);
+    const removed = formToScenario({
+      ...renamed,
+      rivals: renamed.rivals.filter((_, i) => i !== 0),
+    });
+    expect(removed.ok && Object.keys(removed.scenario.session?.hidden?.rivals ?? {})).toEqual([
+      "Oven Row",
+    ]);
+  });
+
+  it("a file's private numbers load into the switches and come back unchanged (triangular too)", () => {
+    const hidden = {
+      truth: "scenario" as const,
+      rivals: {
+        "Corner Ovens": {
+          cost: { dist: "triangular" as const, low: 1.5, mode: 2, high: 3 },
+          value: { dist: "uniform" as const, low: 80, high: 120 },
+        },
+      },
+    };
+    const s = scenarioToForm({
+      title: "Kiosk",
+      prize: 100,
+      csf: { kind: "ratio", decisiveness: 1 },
+      rivals: [
+        { name: "North Bakery", cost: 1 },
+        { name: "Corner Ovens", cost: 2, value: 100 },
+      ],
+      session: { hidden },
+    } as SessionScenarioInput);
+    expect(s.truth).toBe("scenario");
+    expect(s.privateRanges[privateKey(s.rivals[1]!.key, "cost")]).toMatchObject({
+      on: true,
+      dist: "triangular",
+      mode: "2",
+    });
+    const r = formToScenario(s);
+    expect(r.ok && r.scenario.session?.hidden).toEqual(hidden);
+  });
+
+  it("an imported file whose private numbers name no rival is refused with that name", () => {
+    const r = parseScenarioText(
+      JSON.stringify({
+        title: "Kiosk",
+        prize: 100,
+        csf: { kind: "ratio", decisiveness: 1 },
+        rivals: [
+          { name: "North Bakery", cost: 1 },
+          { name: "Corner Ovens", cost: 2 },
+        ],
+        session: { hidden: { rivals: { Nobody: { cost: { dist: "uniform", low: 1, high: 2 } } } } },
+      }),
+    );
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.message).toMatch(/Nobody/);
+  });
+
+  it("privatePoint: a range starts around the field's number, a blank value around the prize", () => {
+    expect(privatePoint("2.5", "cost", 100)).toBe(2.5);
+    expect(privatePoint("", "value", 100)).toBe(100);
+    expect(privatePoint("abc", "cost", 100)).toBe(1);
   });
 });

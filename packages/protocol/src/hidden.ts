@@ -80,36 +80,61 @@ export function beliefContest(
   return { ...scenario, rivals };
 }
 
-/** Cross-field rules of `session.hidden`; the first problem with its path, or null. */
-export function hiddenIssue(
-  scenario: Scenario,
+export interface HiddenIssue {
+  path: (string | number)[];
+  message: string;
+}
+
+/**
+ * Every problem of `session.hidden` that needs only the rivals' names: a name that is no rival,
+ * a range the solver's `validateDist` refuses (one problem per private field). For a form that
+ * shows each field's own message.
+ */
+export function hiddenRangeIssues(
+  rivalNames: readonly string[],
   hidden: HiddenSettings,
-): { path: (string | number)[]; message: string } | null {
-  const names = new Set(scenario.rivals.map((r) => r.name));
+): HiddenIssue[] {
+  const names = new Set(rivalNames);
+  const out: HiddenIssue[] = [];
   for (const [name, spec] of Object.entries(hidden.rivals)) {
     const base = ["session", "hidden", "rivals", name];
     if (!names.has(name)) {
-      return { path: base, message: `names no rival of this scenario (${JSON.stringify(name)})` };
+      out.push({
+        path: base,
+        message: `names no rival of this scenario (${JSON.stringify(name)})`,
+      });
+      continue;
     }
     for (const field of HIDDEN_FIELDS) {
       const raw = spec[field];
       if (!raw) continue;
       const checked = validateDist(raw as unknown as Record<string, unknown>, field, POSITIVE);
       if (!checked.ok) {
-        return { path: [...base, ...checked.path.split(".")], message: checked.message };
+        out.push({ path: [...base, ...checked.path.split(".")], message: checked.message });
       }
     }
   }
-  if (hidden.truth === "scenario") {
-    for (const e of hiddenEntries(scenario.rivals, hidden)) {
-      const x = fieldOf(scenario, e.seatIndex, e.field);
-      if (x < e.range.low || x > e.range.high) {
-        return {
-          path: ["rivals", e.seatIndex, e.field],
-          message: `the true ${e.field} ${x} lies outside its private range [${e.range.low}, ${e.range.high}] (session.hidden.truth is "scenario")`,
-        };
-      }
+  return out;
+}
+
+/** With `truth: "scenario"`, each true number must lie in its range (reported at the number). */
+export function hiddenTruthIssues(scenario: Scenario, hidden: HiddenSettings): HiddenIssue[] {
+  if (hidden.truth !== "scenario") return [];
+  const out: HiddenIssue[] = [];
+  for (const e of hiddenEntries(scenario.rivals, hidden)) {
+    const x = fieldOf(scenario, e.seatIndex, e.field);
+    if (x < e.range.low || x > e.range.high) {
+      out.push({
+        path: ["rivals", e.seatIndex, e.field],
+        message: `the true ${e.field} ${x} lies outside its private range [${e.range.low}, ${e.range.high}] (session.hidden.truth is "scenario")`,
+      });
     }
   }
-  return null;
+  return out;
+}
+
+/** Cross-field rules of `session.hidden`; the first problem with its path, or null. */
+export function hiddenIssue(scenario: Scenario, hidden: HiddenSettings): HiddenIssue | null {
+  const names = scenario.rivals.map((r) => r.name);
+  return hiddenRangeIssues(names, hidden)[0] ?? hiddenTruthIssues(scenario, hidden)[0] ?? null;
 }

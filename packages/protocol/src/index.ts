@@ -162,9 +162,11 @@ export {
   HIDDEN_FIELDS,
   hiddenEntries,
   hiddenIssue,
+  hiddenRangeIssues,
   hiddenSettingsSchema,
+  hiddenTruthIssues,
 } from "./hidden";
-export type { HiddenEntry, HiddenField, HiddenSettings } from "./hidden";
+export type { HiddenEntry, HiddenField, HiddenIssue, HiddenSettings } from "./hidden";
 export { hiddenRoundViewSchema, hiddenViewSchema } from "./hiddenView";
 export type { HiddenRoundView, HiddenView } from "./hiddenView";
 export { robustPlanRecordSchema } from "./events";

@@ -1,6 +1,6 @@
 /** session.hidden (docs/protocol.md R40): each problem names its field. */
 import { describe, expect, it } from "vitest";
-import { parseSessionScenario } from "../src/index";
+import { hiddenRangeIssues, hiddenSettingsSchema, parseSessionScenario } from "../src/index";
 import { kiosk } from "./fixtures";
 
 const uniform = (low: number, high: number) => ({ dist: "uniform", low, high });
@@ -74,5 +74,42 @@ describe("session.hidden", () => {
     if (bad.ok) return;
     expect(bad.path).toBe(`rivals.${corner}.cost`);
     expect(bad.message).toMatch(/outside its private range/);
+  });
+});
+
+describe("hiddenRangeIssues: every problem at once, for a form", () => {
+  it("lists one problem per private field, each at its own path, in the order the schema gives the first", () => {
+    const hidden = hiddenSettingsSchema.parse({
+      rivals: {
+        "Corner Ovens": { cost: uniform(3, 1), value: uniform(-5, 10) },
+        "North Bakery": { value: uniform(80, 120) },
+        Nobody: { cost: uniform(1, 2) },
+      },
+    });
+    const issues = hiddenRangeIssues(
+      kiosk.rivals.map((r) => r.name),
+      hidden,
+    );
+    expect(issues.map((i) => i.path.join("."))).toEqual([
+      "session.hidden.rivals.Corner Ovens.cost.high",
+      "session.hidden.rivals.Corner Ovens.value.low",
+      "session.hidden.rivals.Nobody",
+    ]);
+    // the first is what the session schema reports (one rule, one place)
+    const whole = parseSessionScenario({ ...kiosk, session: { hidden } });
+    expect(whole.ok).toBe(false);
+    if (!whole.ok) expect(whole.path).toBe(issues[0]!.path.join("."));
+  });
+
+  it("is empty for valid ranges (positive control for the list above)", () => {
+    const hidden = hiddenSettingsSchema.parse({
+      rivals: { "Corner Ovens": { cost: uniform(1, 3), value: uniform(80, 120) } },
+    });
+    expect(
+      hiddenRangeIssues(
+        kiosk.rivals.map((r) => r.name),
+        hidden,
+      ),
+    ).toEqual([]);
   });
 });

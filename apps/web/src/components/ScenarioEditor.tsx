@@ -1,17 +1,9 @@
 "use client";
 
-import { useDeferredValue, useMemo, useRef, useState } from "react";
+import { useDeferredValue, useMemo, useState } from "react";
 import { useSearchParams } from "next/navigation";
-import { downloadFileName } from "@contend/protocol";
-import {
-  bindField,
-  defaultForm,
-  formToContestRaw,
-  formToScenario,
-  parseScenarioText,
-  parseScenarioValue,
-  scenarioToForm,
-} from "../lib/editorForm";
+import { defaultForm, formToContestRaw, formToScenario } from "../lib/editorForm";
+import { parseScenarioValue, scenarioToForm } from "../lib/editorImport";
 import type { EditorForm } from "../lib/editorForm";
 import { plainErrors } from "../lib/plainErrors";
 import { templateById } from "../lib/templates";
@@ -23,27 +15,9 @@ import { CreatedSession } from "./CreatedSession";
 import { ProvenanceNote } from "./ProvenanceNote";
 import { SolvedEquilibrium } from "./EquilibriumTable";
 import { ContestFields, RivalsTable } from "./ContestFields";
-import { RadioGroup, SelectField, TextField } from "./Field";
-
-const OUTCOME_OPTIONS = [
-  { value: "shares", label: "Prize shared by winning chance" },
-  { value: "winner", label: "One winner drawn" },
-] as const;
-
-const MISSING_OPTIONS = [
-  { value: "zero", label: "Counts as spending nothing" },
-  { value: "repeat", label: "Repeats the seat's previous spend" },
-] as const;
-
-function download(filename: string, text: string) {
-  const blob = new Blob([text], { type: "application/json" });
-  const url = URL.createObjectURL(blob);
-  const a = document.createElement("a");
-  a.href = url;
-  a.download = filename;
-  a.click();
-  URL.revokeObjectURL(url);
-}
+import { ImportExport } from "./ImportExport";
+import { PrivateSettings, PrivateToggle } from "./PrivateFields";
+import { SessionFields } from "./SessionFields";
 
 export function ScenarioEditor() {
   const params = useSearchParams();
@@ -57,15 +31,8 @@ export function ScenarioEditor() {
     const t = templateById(params.get("template") ?? "");
     return t ? scenarioToForm(t.scenario) : defaultForm();
   });
-  const [importText, setImportText] = useState("");
-  const [importMsg, setImportMsg] = useState<{
-    ok: boolean;
-    text: string;
-    problems?: string[];
-  } | null>(null);
   const { create, busy: submitting, created, error: serverError } = useCreateSession();
   const [showErrors, setShowErrors] = useState(false);
-  const fileRef = useRef<HTMLInputElement>(null);
 
   const result = useMemo(() => formToScenario(form), [form]);
   const errors = useMemo(() => plainErrors(result.errors), [result.errors]);
@@ -75,25 +42,6 @@ export function ScenarioEditor() {
     const contest = r.ok ? r.scenario : r.contest;
     return contest ? solveForView(contest) : null;
   }, [deferredForm]);
-
-  const bind = <K extends keyof EditorForm>(key: K) => bindField(form, setForm, key);
-
-  function importJson(text: string) {
-    const r = parseScenarioText(text);
-    if (r.ok) {
-      setForm(r.form);
-      setImportMsg({ ok: true, text: "Scenario imported." });
-    } else {
-      setImportMsg({ ok: false, text: "Nothing was imported.", problems: r.problems });
-    }
-  }
-
-  async function onFile(e: React.ChangeEvent<HTMLInputElement>) {
-    const file = e.target.files?.[0];
-    if (!file) return;
-    importJson(await file.text());
-    e.target.value = "";
-  }
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
@@ -124,144 +72,23 @@ export function ScenarioEditor() {
               testId="editor-provenance"
             />
           )}
-          {form.hidden && (
-            <p className="notice small" data-testid="editor-hidden">
-              Private numbers (from the loaded file):{" "}
-              {Object.entries(form.hidden.rivals)
-                .map(([name, f]) => `${name} ${Object.keys(f).join(" and ")}`)
-                .join("; ")}
-              . Each seat sees its own numbers and only the ranges of the others until the session
-              ends; the truth is{" "}
-              {form.hidden.truth === "draw"
-                ? "drawn from the ranges when the session starts"
-                : "the numbers in the table"}
-              .{" "}
-              <button type="button" onClick={() => setForm((f) => ({ ...f, hidden: null }))}>
-                Make every number public
-              </button>
-            </p>
-          )}
           <ContestFields form={form} setForm={setForm} errors={errors} />
-          <RivalsTable form={form} setForm={setForm} errors={errors} withPolicy />
+          <RivalsTable
+            form={form}
+            setForm={setForm}
+            errors={errors}
+            withPolicy
+            extra={(i, f) =>
+              f === "cost" || f === "value" ? (
+                <PrivateToggle form={form} setForm={setForm} errors={errors} index={i} field={f} />
+              ) : null
+            }
+          />
+          <PrivateSettings form={form} setForm={setForm} errors={errors} />
 
-          <fieldset>
-            <legend>Live session</legend>
-            <div className="row" style={{ alignItems: "flex-start" }}>
-              <RadioGroup
-                legend="Outcome"
-                name="outcome"
-                options={OUTCOME_OPTIONS}
-                {...bind("outcome")}
-                testId="field-outcome"
-              />
-            </div>
-            <div className="grid-3">
-              <TextField
-                label="Spend step"
-                numeric
-                {...bind("spendStep")}
-                error={shown("session.spendStep")}
-                testId="field-spend-step"
-                hint="(money; spends are multiples)"
-              />
-              <TextField
-                label="Rounds"
-                numeric
-                {...bind("rounds")}
-                error={shown("session.rounds")}
-                testId="field-rounds"
-              />
-              <TextField
-                label="Round clock (seconds)"
-                numeric
-                {...bind("clockSeconds")}
-                error={shown("session.clockSeconds")}
-                testId="field-clock"
-                placeholder="no clock"
-              />
-              <SelectField
-                label="Missing move"
-                options={MISSING_OPTIONS}
-                {...bind("missingMove")}
-                testId="field-missing-move"
-              />
-            </div>
-          </fieldset>
+          <SessionFields form={form} setForm={setForm} shown={shown} />
 
-          <fieldset>
-            <legend>Import and export</legend>
-            <div className="row">
-              <input
-                ref={fileRef}
-                type="file"
-                accept="application/json,.json"
-                onChange={onFile}
-                aria-label="Import scenario file"
-                data-testid="import-file"
-              />
-              <button
-                type="button"
-                onClick={() =>
-                  download(
-                    downloadFileName(form.title || "scenario", "session.json"),
-                    JSON.stringify(
-                      result.ok ? result.scenario : { ...formToContestRaw(form) },
-                      null,
-                      2,
-                    ),
-                  )
-                }
-                data-testid="export-session"
-              >
-                Download session JSON
-              </button>
-              <button
-                type="button"
-                onClick={() =>
-                  download(
-                    downloadFileName(form.title || "scenario", "json"),
-                    JSON.stringify(formToContestRaw(form), null, 2),
-                  )
-                }
-                data-testid="export-cli"
-              >
-                Download CLI scenario
-              </button>
-            </div>
-            <div className="field" style={{ marginTop: "0.6rem" }}>
-              <label htmlFor="import-text">Or paste scenario JSON</label>
-              <textarea
-                id="import-text"
-                rows={4}
-                value={importText}
-                onChange={(e) => setImportText(e.target.value)}
-                data-testid="import-text"
-              />
-            </div>
-            <div className="row" style={{ marginTop: "0.4rem" }}>
-              <button
-                type="button"
-                onClick={() => importJson(importText)}
-                data-testid="import-apply"
-              >
-                Import pasted JSON
-              </button>
-              <span
-                aria-live="polite"
-                className={importMsg?.ok ? "small" : "small field-error"}
-                data-testid="import-message"
-              >
-                {importMsg?.text ?? ""}
-              </span>
-            </div>
-            {importMsg?.problems && importMsg.problems.length > 0 && (
-              <ul className="field-error small" data-testid="import-problems">
-                {importMsg.problems.map((p) => (
-                  <li key={p}>{p}</li>
-                ))}
-              </ul>
-            )}
-          </fieldset>
+          <ImportExport form={form} setForm={setForm} result={result} />
 
           <div className="row">
             <button

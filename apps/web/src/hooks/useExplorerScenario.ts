@@ -3,7 +3,9 @@
 import { useMemo, useState } from "react";
 import { validateScenario } from "@contend/solver";
 import type { Scenario } from "@contend/solver";
-import { contestErrors, formToContestRaw, scenarioToForm } from "../lib/editorForm";
+import { formToContestRaw } from "../lib/editorForm";
+import { scenarioToForm } from "../lib/editorImport";
+import { contestErrors } from "../lib/formErrors";
 import type { EditorForm } from "../lib/editorForm";
 
 function formOf(s: Scenario): EditorForm {

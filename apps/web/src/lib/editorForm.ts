@@ -1,14 +1,15 @@
 /**
  * The scenario editor's form model: text fields as typed, converted to the session scenario the
  * server and the CLI read. Every rule comes from the solver's validateScenario and the protocol's
- * schemas; this module only collects all of their messages instead of the first one, so each
- * field can show its own.
+ * schemas; formErrors and privateForm collect all of their messages instead of the first one, so
+ * each field can show its own. Files into the form: editorImport.
  */
-import { plainError } from "./plainErrors";
 import { POLICY_LABELS, validateScenario } from "@contend/solver";
-import type { CsfSpec, PolicyKind, Provenance, RivalSpec, Scenario } from "@contend/solver";
-import { sessionScenarioSchema, sessionSettingsSchema, spendStepOf } from "@contend/protocol";
-import type { HiddenSettings } from "@contend/protocol";
+import type { CsfSpec, PolicyKind, Provenance, Scenario } from "@contend/solver";
+import { sessionScenarioSchema, sessionSettingsSchema } from "@contend/protocol";
+import { contestErrors, zodPath } from "./formErrors";
+import { hiddenRaw, privateErrors } from "./privateForm";
+import type { PrivateRanges, TruthChoice } from "./privateForm";
 import type { SessionScenarioInput } from "./sessionTypes";
 
 export type PolicyChoice = "human" | PolicyKind;
@@ -68,8 +69,10 @@ export interface EditorForm {
   missingMove: "zero" | "repeat";
   /** where the numbers came from (a calibration), kept unchanged into the session */
   provenance: Provenance | null;
-  /** private costs and values (docs/protocol.md R40), kept unchanged from a loaded file */
-  hidden: HiddenSettings | null;
+  /** private costs and values (docs/protocol.md R40): the ranges the other seats see, by row */
+  privateRanges: PrivateRanges;
+  /** with private numbers: drawn from the ranges at the start, or the numbers in the table */
+  truth: TruthChoice;
 }
 
 /** value + onChange of one form field, for spreading into a field component. */
@@ -89,6 +92,7 @@ export type FormResult =
   | { ok: false; errors: FieldErrors; contest: Scenario | null };
 
 let keyCounter = 0;
+/** A stable React key for a rival row (also the key of its private ranges). */
 export function newRowKey(): string {
   keyCounter += 1;
   return `row-${keyCounter}`;
@@ -124,7 +128,8 @@ export function defaultForm(): EditorForm {
     clockSeconds: "",
     missingMove: "zero",
     provenance: null,
-    hidden: null,
+    privateRanges: {},
+    truth: "draw",
   };
 }
 
@@ -137,10 +142,6 @@ export function parseNumberField(text: string): number | string | undefined {
   if (t === "") return undefined;
   const n = Number(t);
   return Number.isFinite(n) ? n : text;
-}
-
-function numberText(x: number | null | undefined): string {
-  return x === null || x === undefined ? "" : String(x);
 }
 
 function csfOf(form: EditorForm): Record<string, unknown> {
@@ -198,6 +199,7 @@ export function formToSessionRaw(form: EditorForm): Record<string, unknown> {
     if (p !== null) computer[row.name.trim()] = p;
   }
   const clock = parseNumberField(form.clockSeconds);
+  const hidden = hiddenRaw(form.rivals, form.privateRanges, form.truth);
   return {
     outcome: form.outcome,
     spendStep: parseNumberField(form.spendStep),
@@ -205,64 +207,8 @@ export function formToSessionRaw(form: EditorForm): Record<string, unknown> {
     clockSeconds: clock === undefined ? null : clock,
     missingMove: form.missingMove,
     computer,
-    ...(form.hidden === null ? {} : { hidden: form.hidden }),
+    ...(hidden === null ? {} : { hidden }),
   };
-}
-
-/** A value that passes the validator at this path, used to look past one problem to the next. */
-function placeholderFor(path: string): unknown {
-  const last = path.split(".").pop() ?? "";
-  if (last === "title") return "untitled";
-  if (last === "name") return `placeholder-${path}`;
-  if (last === "budget") return null;
-  if (last === "currency" || last === "leader") return null;
-  if (last === "csf" || last === "kind") return { kind: "ratio", decisiveness: 1 };
-  return 1;
-}
-
-function setAtPath(root: Record<string, unknown>, path: string, value: unknown): boolean {
-  const parts = path.split(".");
-  let node: unknown = root;
-  for (let i = 0; i < parts.length - 1; i++) {
-    const part = parts[i] as string;
-    if (typeof node !== "object" || node === null) return false;
-    node = (node as Record<string, unknown>)[part];
-  }
-  if (typeof node !== "object" || node === null) return false;
-  const lastKey = parts[parts.length - 1] as string;
-  if (lastKey === "kind" && parts.length === 2) {
-    root.csf = value;
-    return true;
-  }
-  (node as Record<string, unknown>)[lastKey] = value;
-  return true;
-}
-
-/**
- * Every contest problem, one per field: validate, note the first problem, patch that field with
- * a valid placeholder, repeat. The validator stays the only place the rules live.
- */
-export function contestErrors(raw: Record<string, unknown>, limit = 64): FieldErrors {
-  const errors: FieldErrors = {};
-  const work = structuredClone(raw);
-  for (let i = 0; i < limit; i++) {
-    const r = validateScenario(work);
-    if (r.ok) break;
-    const path = r.path === "" ? "scenario" : r.path;
-    if (errors[path] !== undefined) break;
-    errors[path] = r.message;
-    if (
-      path === "scenario" ||
-      path === "rivals" ||
-      !setAtPath(work, r.path, placeholderFor(r.path))
-    )
-      break;
-  }
-  return errors;
-}
-
-function zodPath(path: readonly PropertyKey[]): string {
-  return path.map((p) => String(p)).join(".");
 }
 
 /** Form -> session scenario, with every field problem mapped to its path. */
@@ -279,6 +225,12 @@ export function formToScenario(form: EditorForm): FormResult {
     }
   }
   const contest = validateScenario(contestRaw);
+  const names = form.rivals.map((r) => r.name.trim());
+  const hidden = (sessionRaw.hidden as Record<string, unknown> | undefined) ?? null;
+  for (const [path, message] of Object.entries(
+    privateErrors(hidden, names, contest.ok ? contest.value : null),
+  ))
+    errors[path] ??= message;
   if (Object.keys(errors).length > 0) {
     return { ok: false, errors, contest: contest.ok ? contest.value : null };
   }
@@ -310,96 +262,4 @@ export function rivalFieldError(
     return hit === undefined ? undefined : errors[hit];
   }
   return errors[`rivals.${index}.${field}`];
-}
-
-/**
- * A session scenario (template, import, CLI file) -> form text. Policy settings without a field
- * are kept on the row (policyKept); other unknown extras are dropped.
- */
-export function scenarioToForm(s: SessionScenarioInput): EditorForm {
-  const session = s.session ?? {};
-  const computer = (session.computer ?? {}) as Record<string, Record<string, unknown>>;
-  const rivals: RivalRow[] = s.rivals.map((r: RivalSpec) => {
-    const policy = Object.hasOwn(computer, r.name) ? computer[r.name] : undefined;
-    const kind = (policy?.kind as PolicyKind | undefined) ?? null;
-    const argField = kind === null ? undefined : POLICY_ARGUMENT[kind]?.field;
-    const arg = argField === undefined ? undefined : policy?.[argField];
-    const fields = Object.fromEntries(
-      Object.entries(policy ?? {}).filter(([k]) => k !== "kind" && k !== argField),
-    );
-    return {
-      key: newRowKey(),
-      name: r.name,
-      cost: numberText(r.cost),
-      value: numberText(r.value),
-      weight: numberText(r.weight),
-      budget: numberText(r.budget),
-      decisiveness: numberText(r.decisiveness),
-      policy: kind ?? "human",
-      policyArg: typeof arg === "number" ? String(arg) : "",
-      policyKept: kind !== null && Object.keys(fields).length > 0 ? { kind, fields } : null,
-    };
-  });
-  return {
-    title: s.title,
-    prize: numberText(s.prize),
-    currency: s.currency ?? "",
-    csfKind: s.csf.kind,
-    decisiveness: s.csf.kind === "ratio" ? numberText(s.csf.decisiveness) : "1",
-    scale: s.csf.kind === "logit" ? numberText(s.csf.scale) : "0.1",
-    rivals,
-    outcome: session.outcome ?? "shares",
-    spendStep: numberText(spendStepOf(session)),
-    rounds: numberText(session.rounds ?? 5),
-    clockSeconds: numberText(session.clockSeconds ?? null),
-    missingMove: session.missingMove ?? "zero",
-    provenance: s.provenance ?? null,
-    hidden: (session.hidden as HiddenSettings | undefined) ?? null,
-  };
-}
-
-/** Parses an imported JSON text (CLI scenario file, with or without `session`). */
-export function parseScenarioText(
-  text: string,
-): { ok: true; form: EditorForm } | { ok: false; message: string; problems: string[] } {
-  let raw: unknown;
-  try {
-    raw = JSON.parse(text);
-  } catch (e) {
-    const message = `This is not valid JSON (${(e as Error).message}).`;
-    return { ok: false, message, problems: [message] };
-  }
-  return parseScenarioValue(raw);
-}
-
-/** A parsed scenario value (an import, or one handed over in the address) -> form. */
-export function parseScenarioValue(
-  raw: unknown,
-): { ok: true; form: EditorForm } | { ok: false; message: string; problems: string[] } {
-  if (typeof raw !== "object" || raw === null || Array.isArray(raw)) {
-    const message = "The file must hold one JSON object, { ... }.";
-    return { ok: false, message, problems: [message] };
-  }
-  const { session, ...contestPart } = raw as Record<string, unknown>;
-  // Every problem at once: the contest's fields one by one, then the session settings.
-  const errors = contestErrors(contestPart);
-  const settings = sessionSettingsSchema.safeParse(session ?? {});
-  if (!settings.success) {
-    for (const issue of settings.error.issues) {
-      errors[`session.${zodPath(issue.path)}`] ??= issue.message;
-    }
-  }
-  const contest = validateScenario(contestPart);
-  if (Object.keys(errors).length > 0 || !contest.ok || !settings.success) {
-    const problems = Object.entries(errors).map(([path, message]) => plainError(path, message));
-    if (problems.length === 0 && !contest.ok)
-      problems.push(plainError(contest.path, contest.message));
-    const n = problems.length;
-    return {
-      ok: false,
-      message: `The scenario has ${n} problem${n === 1 ? "" : "s"}: ${problems.join(" ")}`,
-      problems,
-    };
-  }
-  return { ok: true, form: scenarioToForm({ ...contest.value, session: settings.data }) };
 }

@@ -39,6 +39,14 @@ export function fieldName(path: string): string {
     const n = Number(rival[1]) + 1;
     return rival[2] ? `Rival ${n} ${RIVAL_FIELDS[rival[2]] ?? rival[2]}` : `Rival ${n}`;
   }
+  const hidden = /^session\.hidden\.rivals\.(.+?)\.(cost|value)(?:\.(low|mode|high|dist))?$/.exec(
+    path,
+  );
+  if (hidden) {
+    const end = hidden[3] ? `, ${hidden[3] === "mode" ? "most likely" : hidden[3]}` : "";
+    return `Private ${hidden[2]} range of ${hidden[1]}${end}`;
+  }
+  if (path === "session.hidden.truth") return "Truth of the private numbers";
   const computer = /^session\.computer\.(.+?)(?:\.(\w+))?$/.exec(path);
   if (computer) return `Computer player for ${computer[1]}`;
   return FIELD_NAMES[path] ?? path;

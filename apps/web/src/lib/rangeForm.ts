@@ -85,6 +85,18 @@ function numberOrText(t: string): number | string {
   return t.trim() !== "" && Number.isFinite(x) ? x : t;
 }
 
+/** The typed range as the raw object the validators read (text that is no number stays text). */
+export function rangeTextToRaw(r: RangeText): Record<string, unknown> {
+  return r.dist === "uniform"
+    ? { dist: "uniform", low: numberOrText(r.low), high: numberOrText(r.high) }
+    : {
+        dist: "triangular",
+        low: numberOrText(r.low),
+        mode: numberOrText(r.mode),
+        high: numberOrText(r.high),
+      };
+}
+
 export type BuiltUncertain =
   | { ok: true; scenario: UncertainScenario; count: number }
   | { ok: false; field: string; message: string };
@@ -99,15 +111,7 @@ export function buildUncertain(s: Scenario, ranges: RangeForm): BuiltUncertain {
     const r = ranges[field.path];
     if (!r?.on) continue;
     count++;
-    const dist =
-      r.dist === "uniform"
-        ? { dist: "uniform", low: numberOrText(r.low), high: numberOrText(r.high) }
-        : {
-            dist: "triangular",
-            low: numberOrText(r.low),
-            mode: numberOrText(r.mode),
-            high: numberOrText(r.high),
-          };
+    const dist = rangeTextToRaw(r);
     const parts = field.path.split(".");
     if (parts[0] === "prize") raw.prize = dist;
     else raw.rivals[Number(parts[1])]![parts[2]!] = dist;

@@ -7,6 +7,7 @@ import styles from "./UncertainCharts.module.css";
 /**
  * The range switch under one number field of the explorer: off, the field's number is used;
  * on, the uncertainty panel draws it from a uniform or triangular range (low, most likely, high).
+ * The session editor uses the same switch for private numbers (`word` "private", its own ids).
  */
 export function RangeToggle({
   field,
@@ -14,12 +15,21 @@ export function RangeToggle({
   onChange,
   prize,
   error,
+  word = "range",
+  unit,
+  ids = { toggle: `range-toggle-${field.path}`, error: "range-error" },
 }: {
   field: RangeField;
   value: RangeText | undefined;
   onChange: (r: RangeText) => void;
   prize: number;
   error: string | undefined;
+  /** the switch's word ("range"; the editor: "private") */
+  word?: string;
+  /** what the ends are counted in ("$ per unit of effort"), shown above them */
+  unit?: string;
+  /** test ids of the switch and the error (defaults: range-toggle-<path>, range-error) */
+  ids?: { toggle: string; error: string };
 }) {
   const id = useId();
   const on = value?.on ?? false;
@@ -34,8 +44,8 @@ export function RangeToggle({
         <input
           type="checkbox"
           checked={on}
-          aria-label={`${field.label} is a range`}
-          data-testid={`range-toggle-${field.path}`}
+          aria-label={`${field.label} is ${word === "range" ? "a range" : word}`}
+          data-testid={ids.toggle}
           onChange={(e) =>
             onChange(
               e.target.checked
@@ -46,7 +56,7 @@ export function RangeToggle({
             )
           }
         />
-        range
+        {word}
       </label>
       {on && value && (
         <div className={styles.rangeBox}>
@@ -58,6 +68,7 @@ export function RangeToggle({
             <option value="uniform">Uniform</option>
             <option value="triangular">Triangular</option>
           </select>
+          {unit && <span style={{ gridColumn: "1 / -1" }}>in {unit}</span>}
           {ends.map(([key, short, label]) => (
             <label key={key} style={{ display: "contents" }}>
               <span>{short}</span>
@@ -76,7 +87,7 @@ export function RangeToggle({
         </div>
       )}
       {error && (
-        <p className="field-error" role="alert" id={`${id}-err`} data-testid="range-error">
+        <p className="field-error" role="alert" id={`${id}-err`} data-testid={ids.error}>
           {error}
         </p>
       )}
