@@ -19,6 +19,7 @@ import { LiveAnnouncer } from "./LiveAnnouncer";
 import { ShockBanner } from "./ShockBanner";
 import { RoundClock } from "./RoundClock";
 import { ExportDownload } from "../ExportDownload";
+import { PrivateReview } from "./PrivateReview";
 
 /**
  * The facilitator's console, ordered by the flow of a workshop: the next step and the latest
@@ -104,6 +105,8 @@ function ConsoleBody({
         <SeatsPanel view={view} presence={session.presence} busy={busy} run={run} />
         <ComingRound view={view} />
       </div>
+
+      <PrivateReview view={view} testId="console-private" />
 
       <ShockPanel view={view} busy={busy} run={run} />
 

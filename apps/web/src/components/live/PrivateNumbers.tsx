@@ -1,22 +1,8 @@
-import type { HiddenView, RoleView } from "@contend/protocol";
+import type { RoleView } from "@contend/protocol";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { seatNames } from "../../lib/live";
-
-type Range = HiddenView["entries"][number]["range"];
-
-function rangeText(r: Range, money: (v: number) => string): string {
-  return r.dist === "uniform"
-    ? `from ${money(r.low)} to ${money(r.high)}, any value equally likely`
-    : `from ${money(r.low)} to ${money(r.high)}, most likely ${money(r.mode)}`;
-}
-
-function truthOf(view: RoleView, seat: number, field: "cost" | "value"): number {
-  const r = view.scenario.rivals[seat];
-  if (!r) return NaN;
-  return field === "cost" ? r.cost : (r.value ?? view.scenario.prize);
-}
-
-const FIELD_LABEL = { cost: "cost per unit of effort", value: "worth of the prize" } as const;
+import { PRIVATE_FIELD_LABEL, rangeText, truthOf } from "../../lib/privateText";
+import { PrivateDebrief } from "./PrivateDebrief";
 
 /**
  * Sessions with private numbers (docs/protocol.md R40-R44): the ranges this seat plays
@@ -66,7 +52,7 @@ export function PrivateNumbers({
         <ul className={screen ? undefined : "small"} data-testid="private-ranges">
           {others.map((e) => (
             <li key={`${e.seatIndex}-${e.field}`}>
-              {names[e.seatIndex]}: {FIELD_LABEL[e.field]} {rangeText(e.range, money)}
+              {names[e.seatIndex]}: {PRIVATE_FIELD_LABEL[e.field]} {rangeText(e.range, money)}
               {hidden.withheld ? "" : `; the truth: ${money(truthOf(view, e.seatIndex, e.field))}`}
             </li>
           ))}
@@ -117,7 +103,7 @@ export function PrivateNumbers({
           is maximised.
         </p>
       )}
-      {hidden.robustPlans.length > 0 && <Debrief view={view} money={money} />}
+      {hidden.robustPlans.length > 0 && <PrivateDebrief view={view} money={money} />}
     </section>
   );
 }
@@ -156,47 +142,6 @@ function PublicRound({
               </tr>
             ) : null,
           )}
-        </tbody>
-      </table>
-    </div>
-  );
-}
-
-/** After the end: the robust plan of each seat beside its average spend and the equilibrium. */
-function Debrief({ view, money }: { view: RoleView; money: (v: number | null) => string }) {
-  const names = seatNames(view);
-  const plans = view.hidden!.robustPlans;
-  const last = view.rounds.at(-1);
-  const played = (i: number) => view.rounds.filter((r) => r.seatIndices.includes(i));
-  const avg = (i: number) => {
-    const rs = played(i);
-    return rs.length ? rs.reduce((s, r) => s + (r.spends[i] ?? 0), 0) / rs.length : null;
-  };
-  return (
-    <div className="table-wrap">
-      <table className="small" data-testid="private-debrief">
-        <caption className="muted">Debrief: play, equilibrium under the truth, robust plan</caption>
-        <thead>
-          <tr>
-            <th scope="col">Rival</th>
-            <th scope="col">Average spend</th>
-            <th scope="col">Equilibrium spend (truth, last round)</th>
-            <th scope="col">Robust plan spend</th>
-            <th scope="col">Plan&apos;s expected payoff</th>
-            <th scope="col">Plan&apos;s P10 payoff</th>
-          </tr>
-        </thead>
-        <tbody>
-          {plans.map((p) => (
-            <tr key={p.seatIndex}>
-              <th scope="row">{names[p.seatIndex]}</th>
-              <td className="num">{money(avg(p.seatIndex))}</td>
-              <td className="num">{money(last?.equilibriumSpends[p.seatIndex] ?? null)}</td>
-              <td className="num">{money(p.spend)}</td>
-              <td className="num">{money(p.expectedPayoff)}</td>
-              <td className="num">{money(p.p10Payoff)}</td>
-            </tr>
-          ))}
         </tbody>
       </table>
     </div>

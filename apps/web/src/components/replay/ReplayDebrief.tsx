@@ -10,6 +10,7 @@ import { FigureTable, numCol, textCol } from "../FigureTable";
 import { ProvenanceNote } from "../ProvenanceNote";
 import { AboutTheMaths } from "../AboutTheMaths";
 import { Term } from "../Glossary";
+import { PrivateReview } from "../live/PrivateReview";
 
 /**
  * The printable debrief: the contest, rounds and seats (the seat figures are the session
@@ -115,6 +116,7 @@ export function ReplayDebrief({
           </div>
         </>
       )}
+      {finalView && <PrivateReview view={finalView} testId="debrief-private" />}
       <AboutTheMaths />
       <div className="caution" style={{ marginTop: "1rem" }}>
         <strong>Cautions</strong>
