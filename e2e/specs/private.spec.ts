@@ -121,7 +121,7 @@ test("a private cost set in the editor: the other seat sees the range, never the
   await seatA.goto(seatALink);
   await expect(seatA.getByRole("heading", { level: 1, name: "Harbor Kilns" })).toBeVisible();
   await expect(seatA.getByTestId("private-ranges")).toContainText(
-    "Ridge Pottery: cost per unit of effort from $1.50 to $3.50, any value equally likely",
+    "Ridge Pottery: cost per unit of effort from $1.5 to $3.5, any value equally likely",
   );
 
   // Seat B sees its own cost exactly (positive control: the number is on a page).
@@ -135,7 +135,7 @@ test("a private cost set in the editor: the other seat sees the range, never the
   fac.on("dialog", (d) => void d.accept());
   await fac.goto(consoleLink);
   await expect(fac.getByTestId("console-private-truth")).toContainText(
-    `Ridge Pottery: cost per unit of effort from $1.50 to $3.50, any value equally likely; the truth: $${TRUE_COST}`,
+    `Ridge Pottery: cost per unit of effort from $1.5 to $3.5, any value equally likely; the truth: $${TRUE_COST}`,
   );
   await fac.getByTestId("open-no-clock").check();
   await fac.getByTestId("open-round").click();

@@ -139,6 +139,14 @@ export function ScenarioEditor() {
                       {ok.result.alternatives.length > 1 ? "a" : "um"} found; see the explorer.
                     </p>
                   )}
+                  {Object.values(form.privateRanges).some((r) => r.on) && (
+                    <p className="small muted" data-testid="preview-private-note">
+                      The preview uses the numbers in the table.
+                      {form.truth === "draw"
+                        ? " The session draws its private numbers from their ranges, so its equilibrium will differ."
+                        : ""}
+                    </p>
+                  )}
                   <a
                     className="small"
                     href={`/explore?s=${encodeState({ sc: formToContestRaw(form) })}`}

@@ -43,6 +43,7 @@ export function RangeToggle({
       <label className={styles.toggle}>
         <input
           type="checkbox"
+          style={{ width: "auto", minWidth: 0 }}
           checked={on}
           aria-label={`${field.label} is ${word === "range" ? "a range" : word}`}
           data-testid={ids.toggle}

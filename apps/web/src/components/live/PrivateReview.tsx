@@ -19,7 +19,12 @@ export function PrivateReview({ view, testId }: { view: RoleView; testId: string
   const last = view.rounds.at(-1);
   const ended = view.status === "ended";
   return (
-    <section className="card" aria-labelledby={`${testId}-title`} data-testid={testId}>
+    <section
+      className="card"
+      style={{ marginTop: "1rem" }}
+      aria-labelledby={`${testId}-title`}
+      data-testid={testId}
+    >
       <h2 id={`${testId}-title`}>Private numbers</h2>
       <p className="small muted">
         {ended
