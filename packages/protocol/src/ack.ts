@@ -48,6 +48,8 @@ export const sealMoveAckDataSchema = z.object({
   effort: z.number(),
   /** the money sealed; effort = spend / cost */
   spend: z.number(),
+  /** sessions with fronts: the money on each front (spend is their total) */
+  frontSpends: z.array(z.number()).optional(),
 });
 export type SealMoveAckData = z.output<typeof sealMoveAckDataSchema>;
 

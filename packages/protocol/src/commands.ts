@@ -55,8 +55,9 @@ export const setSeatPolicySchema = z.strictObject({
 });
 /**
  * A seat's move is money: `spend` (cost x effort; the engine derives effort = spend / cost).
- * `effort` is the older form, still accepted: it is read as the spend cost x effort. Exactly
- * one of the two.
+ * `effort` is the older form, still accepted: it is read as the spend cost x effort. In a
+ * session with fronts the move is `frontSpends`, the money on each front in file order (R46).
+ * Exactly one of the three.
  */
 export const sealMoveSchema = z
   .strictObject({
@@ -64,13 +65,18 @@ export const sealMoveSchema = z
     clientMoveId: clientMoveIdSchema,
     spend: effortSchema.optional(),
     effort: effortSchema.optional(),
+    frontSpends: z
+      .array(effortSchema)
+      .min(1, { error: "must give one amount per front" })
+      .max(LIMITS.frontsMax, { error: `must have at most ${LIMITS.frontsMax} entries` })
+      .optional(),
     /** optional guard: refused with wrong-state unless this round is the open one */
     round: roundNumberSchema.optional(),
     /** optional one-line reason, private to the seat until the round resolves */
     reason: moveReasonSchema.optional(),
   })
-  .refine((c) => (c.spend === undefined) !== (c.effort === undefined), {
-    error: "give spend (money), or the older effort, not both and not neither",
+  .refine((c) => [c.spend, c.effort, c.frontSpends].filter((x) => x !== undefined).length === 1, {
+    error: "give spend (money), frontSpends (money per front) or the older effort: exactly one",
     path: ["spend"],
   });
 export const claimSeatSchema = z.strictObject({

@@ -7,7 +7,8 @@ import { z } from "zod";
 import { validateScenario, validateUncertainScenario } from "@contend/solver";
 import type { CsfSpec, RivalSpec, Scenario, UncertainScenario } from "@contend/solver";
 
-function toPath(dotted: string): (string | number)[] {
+/** "rivals.1.cost" -> ["rivals", 1, "cost"] (a validator's dotted path as a zod path). */
+export function toPath(dotted: string): (string | number)[] {
   if (dotted === "") return [];
   return dotted.split(".").map((seg) => (/^\d+$/.test(seg) ? Number(seg) : seg));
 }

@@ -17,6 +17,7 @@ import { policySpecSchema } from "./policy";
 import { sessionScenarioSchema } from "./sessionScenario";
 import { shockSchema } from "./shock";
 import { clientMoveIdSchema, displayNameSchema } from "./commands";
+import { frontsRoundSchema } from "./frontsRound";
 import { sessionIdSchema } from "./hello";
 import { parseWith } from "./result";
 import type { ParseResult } from "./result";
@@ -72,6 +73,8 @@ export const moveSealedSchema = z.object({
   effort: effortSchema,
   /** the money sealed (effort = spend / cost); absent in logs written before spends */
   spend: effortSchema.optional(),
+  /** sessions with fronts (R46): money on each front; `spend` and `effort` are its total */
+  frontSpends: z.array(effortSchema).optional(),
   clientMoveId: clientMoveIdSchema,
   by: z.enum(["seat", "computer"]),
   /** the seat's one-line reason; absent when none was given */
@@ -113,6 +116,11 @@ export const roundResolvedSchema = z.object({
   beliefReplySpends: perSeat.optional(),
   /** per seat: the reason sealed with the move (null: none); absent when no seat gave one */
   moveReasons: z.array(z.string().nullable()).optional(),
+  /**
+   * sessions with fronts (R48): every number per front; the fields above then hold the totals
+   * over fronts (money; shares: the share of all prizes won)
+   */
+  fronts: frontsRoundSchema.optional(),
 });
 export const shockAppliedSchema = z.object({
   type: z.literal("shock-applied"),

@@ -21,8 +21,12 @@ export {
 export { policySpecSchema } from "./policy";
 export { sessionSettingsSchema, spendStepOf } from "./settings";
 export type { SessionSettings, SessionSettingsInput } from "./settings";
-export { sessionScenarioSchema } from "./sessionScenario";
-export type { SessionScenario } from "./sessionScenario";
+export { isFrontsSession, sessionScenarioSchema } from "./sessionScenario";
+export type { AnySessionScenario, SessionScenario } from "./sessionScenario";
+export { FRONTS_POLICIES, frontsRoster } from "./frontsSession";
+export type { FrontsSessionScenario } from "./frontsSession";
+export { frontsRoundSchema, frontsScenarioSchema } from "./frontsRound";
+export type { FrontsRound } from "./frontsRound";
 export { RIVAL_SHOCK_FIELDS, shockListSchema, shockSchema } from "./shock";
 export type { RivalShockField, Shock } from "./shock";
 export {

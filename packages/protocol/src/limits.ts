@@ -23,6 +23,8 @@ export const LIMITS = {
   reasonMax: 140,
   /** the facilitator's note on a round */
   noteMax: 500,
+  /** fronts in a live session (one money input per front on every seat's screen) */
+  frontsMax: 12,
   /** moves one seat may seal in one round (its first and every replacement) */
   movesPerSeatPerRound: 30,
 } as const;

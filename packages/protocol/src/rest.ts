@@ -6,9 +6,10 @@ import { roundResultSchema, SESSION_STATUSES, shockRecordSchema } from "./view";
 import { sessionScenarioSchema } from "./sessionScenario";
 import { parseInput } from "./result";
 import type { ParseResult } from "./result";
-import type { SessionScenario } from "./sessionScenario";
+import type { AnySessionScenario } from "./sessionScenario";
 
-export function parseSessionScenario(raw: unknown): ParseResult<SessionScenario> {
+/** A single-contest or a fronts session scenario (R45). */
+export function parseSessionScenario(raw: unknown): ParseResult<AnySessionScenario> {
   return parseInput(sessionScenarioSchema, raw);
 }
 

@@ -7,25 +7,26 @@ import { z } from "zod";
 import type { Scenario } from "@contend/solver";
 import { contestScenarioSchema } from "./contest";
 import { LIMITS } from "./limits";
-import { sessionSettingsSchema } from "./settings";
+import { parseSettings } from "./settings";
 import type { SessionSettings } from "./settings";
 import { findTextIssue } from "./text";
-import { HIDDEN_FIELDS, hiddenIssue } from "./hidden";
+import { hiddenIssue } from "./hidden";
+import { frontsSessionScenario } from "./frontsSession";
+import type { FrontsSessionScenario } from "./frontsSession";
 
 export type SessionScenario = Scenario & { session: SessionSettings };
+/** What POST /api/sessions and session-created carry: one contest, or several fronts. */
+export type AnySessionScenario = SessionScenario | FrontsSessionScenario;
+
+export function isFrontsSession(s: AnySessionScenario): s is FrontsSessionScenario {
+  return "fronts" in s;
+}
 
 function isRecord(x: unknown): x is Record<string, unknown> {
   return typeof x === "object" && x !== null && !Array.isArray(x);
 }
 
-/** The keys an object at `path` inside `session` may have (for "unknown field" messages). */
-function allowedKeys(path: readonly PropertyKey[]): readonly string[] {
-  if (path.length === 0) return Object.keys(sessionSettingsSchema.shape);
-  if (path[0] === "hidden") return path.length === 1 ? ["truth", "rivals"] : HIDDEN_FIELDS;
-  return [];
-}
-
-export const sessionScenarioSchema = z.unknown().transform((raw, ctx): SessionScenario => {
+export const sessionScenarioSchema = z.unknown().transform((raw, ctx): AnySessionScenario => {
   if (!isRecord(raw)) {
     ctx.addIssue({ code: "custom", message: "session scenario must be a JSON object", path: [] });
     return z.NEVER;
@@ -35,6 +36,7 @@ export const sessionScenarioSchema = z.unknown().transform((raw, ctx): SessionSc
     ctx.addIssue({ code: "custom", message: text.message, path: text.path });
     return z.NEVER;
   }
+  if ("fronts" in raw) return frontsSessionScenario(raw, ctx);
   const { session: rawSession, ...contestPart } = raw;
   const contest = contestScenarioSchema.safeParse(contestPart);
   if (!contest.success) {
@@ -43,21 +45,8 @@ export const sessionScenarioSchema = z.unknown().transform((raw, ctx): SessionSc
     }
     return z.NEVER;
   }
-  const settings = sessionSettingsSchema.safeParse(rawSession ?? {});
-  if (!settings.success) {
-    for (const issue of settings.error.issues) {
-      const unknown = issue.code === "unrecognized_keys" ? issue.keys : [];
-      ctx.addIssue({
-        code: "custom",
-        message:
-          unknown.length > 0
-            ? `unknown field ${JSON.stringify(unknown[0])}; allowed: ${allowedKeys(issue.path).join(", ")}`
-            : issue.message,
-        path: ["session", ...issue.path, ...unknown.slice(0, 1)],
-      });
-    }
-    return z.NEVER;
-  }
+  const settings = parseSettings(rawSession, ctx);
+  if (!settings) return z.NEVER;
   const scenario = contest.data;
   const n = scenario.rivals.length;
   if (n < LIMITS.seatsMin || n > LIMITS.seatsMax) {
@@ -78,7 +67,7 @@ export const sessionScenarioSchema = z.unknown().transform((raw, ctx): SessionSc
     return z.NEVER;
   }
   const names = new Set(scenario.rivals.map((r) => r.name));
-  for (const name of Object.keys(settings.data.computer)) {
+  for (const name of Object.keys(settings.computer)) {
     if (!names.has(name)) {
       ctx.addIssue({
         code: "custom",
@@ -88,10 +77,10 @@ export const sessionScenarioSchema = z.unknown().transform((raw, ctx): SessionSc
       return z.NEVER;
     }
   }
-  const hidden = settings.data.hidden ? hiddenIssue(scenario, settings.data.hidden) : null;
+  const hidden = settings.hidden ? hiddenIssue(scenario, settings.hidden) : null;
   if (hidden) {
     ctx.addIssue({ code: "custom", message: hidden.message, path: hidden.path });
     return z.NEVER;
   }
-  return { ...scenario, session: settings.data };
+  return { ...scenario, session: settings };
 });

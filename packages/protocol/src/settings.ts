@@ -2,7 +2,7 @@ import { z } from "zod";
 import { LIMITS } from "./limits";
 import { positiveNumberSchema } from "./numbers";
 import { policySpecSchema } from "./policy";
-import { hiddenSettingsSchema } from "./hidden";
+import { HIDDEN_FIELDS, hiddenSettingsSchema } from "./hidden";
 
 /** The `session` object of a session scenario; every field has a default. */
 export const sessionSettingsSchema = z.strictObject({
@@ -49,4 +49,31 @@ export type SessionSettingsInput = z.input<typeof sessionSettingsSchema>;
  */
 export function spendStepOf(settings: Pick<SessionSettings, "spendStep" | "effortStep">): number {
   return settings.spendStep ?? settings.effortStep ?? 1;
+}
+
+/** The keys an object at `path` inside `session` may have (for "unknown field" messages). */
+function allowedKeys(path: readonly PropertyKey[]): readonly string[] {
+  if (path.length === 0) return Object.keys(sessionSettingsSchema.shape);
+  if (path[0] === "hidden") return path.length === 1 ? ["truth", "rivals"] : HIDDEN_FIELDS;
+  return [];
+}
+
+/** The `session` object through zod, its issues re-pathed under `session` (null: refused). */
+export function parseSettings(rawSession: unknown, ctx: z.RefinementCtx): SessionSettings | null {
+  const settings = sessionSettingsSchema.safeParse(rawSession ?? {});
+  if (!settings.success) {
+    for (const issue of settings.error.issues) {
+      const unknown = issue.code === "unrecognized_keys" ? issue.keys : [];
+      ctx.addIssue({
+        code: "custom",
+        message:
+          unknown.length > 0
+            ? `unknown field ${JSON.stringify(unknown[0])}; allowed: ${allowedKeys(issue.path).join(", ")}`
+            : issue.message,
+        path: ["session", ...issue.path, ...unknown.slice(0, 1)],
+      });
+    }
+    return null;
+  }
+  return settings.data;
 }

@@ -11,6 +11,7 @@ import { policySpecSchema } from "./policy";
 import { sessionSettingsSchema } from "./settings";
 import { shockSchema } from "./shock";
 import { hiddenViewSchema } from "./hiddenView";
+import { frontsScenarioSchema } from "./frontsRound";
 
 export const SESSION_STATUSES = ["lobby", "open", "review", "ended"] as const;
 export type SessionStatus = (typeof SESSION_STATUSES)[number];
@@ -77,6 +78,11 @@ export const roleViewSchema = z.object({
   shocks: z.array(shockRecordSchema),
   /** facilitator only: the session's join code (it lives in the database, not in the log) */
   joinCode: z.string().optional(),
+  /**
+   * sessions with fronts only (R45): the fronts scenario (public like the scenario, which is
+   * then its single-contest summary, frontsRoster)
+   */
+  fronts: frontsScenarioSchema.optional(),
   /** sessions with private numbers only (R41) */
   hidden: hiddenViewSchema.optional(),
   /** seat role only */
@@ -86,6 +92,8 @@ export const roleViewSchema = z.object({
       sealedEffort: effortSchema.nullable(),
       /** the money sealed this round (null: nothing sealed) */
       sealedSpend: effortSchema.nullable(),
+      /** sessions with fronts: the money sealed on each front this round (absent: none) */
+      sealedFrontSpends: z.array(effortSchema).optional(),
       clientMoveId: z.string().nullable(),
       /** the reason sealed with this round's move; absent when none */
       sealedReason: z.string().optional(),

@@ -2,7 +2,9 @@
  * apply(state, event): the only way state changes. It trusts the event (decide() produced it)
  * and throws on an event that cannot follow the state: that is a corrupt log, i.e. a bug.
  */
+import { frontsRoster, isFrontsSession } from "@contend/protocol";
 import type { EventOf, SessionEvent } from "@contend/protocol";
+import type { FrontsScenario, Scenario } from "@contend/solver";
 import type { LiveState, OpenRound, SeatState, SessionCore, SessionState } from "./state";
 import { initialState } from "./state";
 import { roundWithMoney } from "./money";
@@ -26,7 +28,18 @@ function core(state: LiveState): SessionCore {
 
 function created(event: EventOf<"session-created"> & { seq: number; at: number }): SessionState {
   const { scenario } = event;
-  const { session: settings, ...contest } = scenario;
+  // R45: a fronts session reads names, budgets and money totals from its single-contest summary
+  const settings = scenario.session;
+  let fronts: FrontsScenario | null = null;
+  let contest: Scenario;
+  if (isFrontsSession(scenario)) {
+    const { session: _s, ...f } = scenario;
+    fronts = f;
+    contest = frontsRoster(f);
+  } else {
+    const { session: _s, ...c } = scenario;
+    contest = c;
+  }
   const seats: SeatState[] = event.seats.map((s) => ({
     index: s.index,
     name: s.name,
@@ -44,6 +57,7 @@ function created(event: EventOf<"session-created"> & { seq: number; at: number }
     initial: scenario,
     settings,
     scenario: contest,
+    fronts,
     seats,
     rounds: [],
     totals: seats.map(() => 0),
@@ -147,6 +161,7 @@ export function apply(state: SessionState, event: SessionEvent): SessionState {
         by: event.by,
         replacedIds: prev ? [...prev.replacedIds, prev.clientMoveId] : [],
         reason: event.reason ?? null,
+        frontSpends: event.frontSpends ?? null,
       };
       return { ...s, ...stamp, open: { ...s.open, moves } };
     }

@@ -1,4 +1,5 @@
-import type { EventOf, SessionScenario } from "@contend/protocol";
+import { isFrontsSession } from "@contend/protocol";
+import type { AnySessionScenario, EventOf } from "@contend/protocol";
 import { drawTruth } from "./hidden";
 
 /**
@@ -7,11 +8,14 @@ import { drawTruth } from "./hidden";
  */
 export function createSession(input: {
   sessionId: string;
-  scenario: SessionScenario;
+  scenario: AnySessionScenario;
   seed: number;
 }): EventOf<"session-created"> {
   const seed = Math.trunc(input.seed) >>> 0;
-  const scenario = drawTruth(input.scenario, seed);
+  // private numbers are for single contests only (R45)
+  const scenario = isFrontsSession(input.scenario)
+    ? input.scenario
+    : drawTruth(input.scenario, seed);
   return {
     type: "session-created",
     sessionId: input.sessionId,

@@ -5,7 +5,7 @@
  * protocol document and the tests.
  */
 import { validateScenario } from "@contend/solver";
-import { LIMITS, roleMaySend, spendStepOf } from "@contend/protocol";
+import { FRONTS_POLICIES, roleMaySend, spendStepOf } from "@contend/protocol";
 import type {
   CloseReason,
   Command,
@@ -15,11 +15,12 @@ import type {
   Role,
 } from "@contend/protocol";
 import { computerMoves } from "./computer";
-import { checkMove, spendProblemText } from "./effort";
+import { frontsComputerMoves } from "./frontsPlay";
+import { sealMove } from "./seal";
 import { resolveRound } from "./resolve";
 import { robustPlans, roundBeliefs } from "./hidden";
 import type { Decision } from "./result";
-import { accept, reject } from "./result";
+import { accept, notPaused, reject } from "./result";
 import { applyChanges } from "./shocks";
 import type { LiveState, SessionState } from "./state";
 import { activeContest } from "./state";
@@ -122,12 +123,6 @@ function noteRound(state: LiveState, command: CommandOf<"noteRound">): Decision 
   return accept([{ type: "round-noted", round: command.round, text: command.text }]);
 }
 
-function notPaused(state: LiveState, what: string): Decision | null {
-  return state.paused
-    ? reject("wrong-state", `R5: the session is paused; resume before ${what}`)
-    : null;
-}
-
 function claimSeat(state: LiveState, command: CommandOf<"claimSeat">, actor: Actor): Decision {
   const seat = state.seats[command.seatIndex];
   if (!seat)
@@ -179,6 +174,13 @@ function setSeatPolicy(state: LiveState, command: CommandOf<"setSeatPolicy">): D
   }
   if (!seat.active)
     return reject("wrong-state", `R15: seat ${seat.index} (${seat.name}) is retired`);
+  if (state.fronts && command.policy && !FRONTS_POLICIES.includes(command.policy.kind)) {
+    return reject(
+      "bad-request",
+      `policy: R49: with fronts the computer plays ${FRONTS_POLICIES.join(" or ")}`,
+      "policy",
+    );
+  }
   return accept([{ type: "seat-policy-set", seatIndex: seat.index, policy: command.policy }]);
 }
 
@@ -225,18 +227,26 @@ function openRound(state: LiveState, command: CommandOf<"openRound">, now: numbe
   const seconds =
     command.durationSeconds === undefined ? state.settings.clockSeconds : command.durationSeconds;
   const deadline = seconds === null ? null : now + Math.round(seconds * 1000);
-  const moves = computerMoves({
-    seed: state.seed,
-    round,
-    scenario: valid.value,
-    seatIndices,
-    seats: state.seats,
-    history: state.rounds,
-    step: spendStepOf(state.settings),
-    beliefsOf: state.settings.hidden
-      ? (seat) => roundBeliefs(state, valid.value, seatIndices, seat)
-      : undefined,
-  });
+  const moves = state.fronts
+    ? frontsComputerMoves({
+        fronts: state.fronts,
+        round,
+        seatIndices,
+        seats: state.seats,
+        history: state.rounds,
+      })
+    : computerMoves({
+        seed: state.seed,
+        round,
+        scenario: valid.value,
+        seatIndices,
+        seats: state.seats,
+        history: state.rounds,
+        step: spendStepOf(state.settings),
+        beliefsOf: state.settings.hidden
+          ? (seat) => roundBeliefs(state, valid.value, seatIndices, seat)
+          : undefined,
+      });
   return accept([
     { type: "round-opened", round, scenario: valid.value, seatIndices, deadline },
     ...moves,
@@ -255,75 +265,15 @@ function closeRound(state: LiveState, reason: CloseReason): Decision {
   return accept(events);
 }
 
-type SealedMoveData = { effort: number; spend: number; clientMoveId: string };
-
-function sealMove(state: LiveState, command: CommandOf<"sealMove">, seatIndex: number): Decision {
-  if (state.status !== "open") return reject("wrong-state", "R10: no round is open");
-  const open = state.open;
-  if (command.round !== undefined && command.round !== open.round) {
-    return reject(
-      "wrong-state",
-      `round: the move is for round ${command.round} but round ${open.round} is open`,
-      "round",
-    );
-  }
-  const paused = notPaused(state, "sealing a move");
-  if (paused) return paused;
-  const seat = state.seats[seatIndex];
-  const k = open.seatIndices.indexOf(seatIndex);
-  if (!seat || k < 0) return reject("forbidden", `R11: seat ${seatIndex} does not play this round`);
-  if (seat.policy) return reject("forbidden", `R11: seat ${seatIndex} is played by the computer`);
-
-  const current = open.moves[seatIndex] ?? null;
-  const data = ({ effort, spend, clientMoveId }: SealedMoveData) =>
-    ({ kind: "sealMove", round: open.round, seatIndex, clientMoveId, effort, spend }) as const;
-  if (current && current.clientMoveId === command.clientMoveId) {
-    // R13: a repeated clientMoveId is the same move: same ack, nothing new in the log.
-    return accept([], data(current));
-  }
-  if (current?.replacedIds.includes(command.clientMoveId)) {
-    return reject(
-      "conflict",
-      `clientMoveId: ${JSON.stringify(command.clientMoveId)} was used for a move that has since been replaced`,
-      "clientMoveId",
-    );
-  }
-  if (current && current.replacedIds.length + 1 >= LIMITS.movesPerSeatPerRound) {
-    return reject(
-      "rate-limited",
-      `R13: at most ${LIMITS.movesPerSeatPerRound} moves per seat in a round; the last one stands`,
-    );
-  }
-  const rival = open.scenario.rivals[k]!;
-  // R12: the move is money; the older form (effort) costs cost x effort.
-  const field = command.spend !== undefined ? "spend" : "effort";
-  const check = checkMove(
-    command.spend !== undefined ? { spend: command.spend } : { effort: command.effort! },
-    rival,
-    spendStepOf(state.settings),
-  );
-  if (!check.ok) {
-    return reject(
-      "bad-request",
-      `${field}: R12: ${spendProblemText(check)} (got ${check.spend})`,
-      field,
-    );
-  }
-  const move = { effort: check.effort, spend: check.spend, clientMoveId: command.clientMoveId };
-  // R26: an optional one-line reason travels with the move, private until the round resolves.
-  const reason = command.reason ? { reason: command.reason } : {};
-  return accept(
-    [{ type: "move-sealed", round: open.round, seatIndex, ...move, by: "seat", ...reason }],
-    data(move),
-  );
-}
-
 function applyShock(state: LiveState, command: CommandOf<"applyShock">): Decision {
   if (state.status === "open") {
     return reject(
       "wrong-state",
       `R14: shocks apply between rounds; close round ${state.open.round} first`,
     );
+  }
+  if (state.fronts) {
+    return reject("wrong-state", "R50: shocks are not available in a session with fronts");
   }
   const paused = notPaused(state, "applying a shock");
   if (paused) return paused;

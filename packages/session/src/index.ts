@@ -35,3 +35,6 @@ export { NEAR_BEST_REPLY, summarizeSession } from "./summary";
 export type { SummaryOptions } from "./summary";
 export { truthSealed, truthWithheld, withHidden } from "./hiddenView";
 export { BELIEF_DRAWS, PLAN_DRAWS, drawTruth } from "./hidden";
+export { allocationProblemText, checkAllocation } from "./allocation";
+export type { AllocationCheck, AllocationTerms } from "./allocation";
+export { fitAllocation, roundFronts } from "./frontsPlay";

@@ -23,6 +23,7 @@ import type { CloseReason, EventOf } from "@contend/protocol";
 import type { OpenRound, SessionCore } from "./state";
 import { drawSeedFor } from "./seeds";
 import { beliefReplies } from "./hidden";
+import { resolveFrontsRound } from "./frontsResolve";
 
 /**
  * Spends and efforts of the round's seats in round order, and which were filled in by the
@@ -68,6 +69,7 @@ export function resolveRound(
   open: OpenRound,
   reason: CloseReason,
 ): EventOf<"round-resolved"> {
+  if (core.fronts) return resolveFrontsRound({ ...core, fronts: core.fronts }, open, reason);
   const { contest, efforts, spends, defaulted } = playedEfforts(core, open);
   const n = core.seats.length;
   const seats = open.seatIndices;

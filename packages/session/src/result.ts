@@ -17,6 +17,8 @@ export type DecideData =
       clientMoveId: string;
       effort: number;
       spend: number;
+      /** sessions with fronts: money on each front */
+      frontSpends?: number[];
     }
   | { kind: "claimSeat"; seatIndex: number }
   /** seatIndex null: a spectator key */
@@ -27,6 +29,13 @@ export type Decision = { ok: true; events: EventBody[]; data: DecideData } | Rej
 
 export function reject(code: ErrorCode, message: string, path?: string): Rejection {
   return path === undefined ? { ok: false, code, message } : { ok: false, code, message, path };
+}
+
+/** R5: while paused, `what` waits. */
+export function notPaused(state: { paused: boolean }, what: string): Decision | null {
+  return state.paused
+    ? reject("wrong-state", `R5: the session is paused; resume before ${what}`)
+    : null;
 }
 
 export function accept(events: EventBody[], data: DecideData = { kind: "none" }): Decision {

@@ -3,12 +3,12 @@
  * flag on top of it. Arrays indexed by seat grow when a shock adds a rival; seats are never
  * removed (a retired rival's seat stays with active = false).
  */
-import type { PolicySpec, Scenario } from "@contend/solver";
+import type { FrontsScenario, PolicySpec, Scenario } from "@contend/solver";
 import type {
+  AnySessionScenario,
   EndReason,
   RobustPlanRecord,
   RoundResult,
-  SessionScenario,
   SessionSettings,
   ShockRecord,
 } from "@contend/protocol";
@@ -33,6 +33,8 @@ export interface SealedMove {
   replacedIds: string[];
   /** the seat's one-line reason (private until the round resolves); null: none */
   reason: string | null;
+  /** sessions with fronts: money on each front (effort and spend are then the total money) */
+  frontSpends: number[] | null;
 }
 
 export interface OpenRound {
@@ -54,10 +56,15 @@ export interface SessionCore {
   at: number;
   seed: number;
   /** the scenario the session was created with */
-  initial: SessionScenario;
+  initial: AnySessionScenario;
   settings: SessionSettings;
-  /** current contest; rivals[k] belongs to seat k, retired ones included */
+  /**
+   * current contest; rivals[k] belongs to seat k, retired ones included. A session with fronts
+   * holds its single-contest summary here (frontsRoster, R45) and the fronts in `fronts`.
+   */
   scenario: Scenario;
+  /** sessions with fronts: the fronts scenario (it does not change: no shocks, R50) */
+  fronts: FrontsScenario | null;
   seats: SeatState[];
   rounds: RoundResult[];
   /** running totals of realised payoffs, indexed by seat */

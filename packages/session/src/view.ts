@@ -68,6 +68,7 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
     totals: state.totals,
     shocks: revealed ? state.shocks : state.shocks.map(withoutShockPolicy),
   };
+  if (state.fronts) view.fronts = state.fronts;
   if (viewer.role === "facilitator" && viewer.joinCode !== undefined) {
     view.joinCode = viewer.joinCode;
   }
@@ -80,6 +81,8 @@ export function viewFor(state: SessionState, viewer: Viewer): RoleView {
       clientMoveId: mine ? mine.clientMoveId : null,
     };
     if (mine?.reason) view.you.sealedReason = mine.reason;
+    // R47: an allocation is private to its seat until the round resolves, like a single move
+    if (mine?.frontSpends) view.you.sealedFrontSpends = mine.frontSpends;
   }
   // R41: private numbers stay with their owner (and the facilitator) until the end.
   const own = viewer.role === "seat" ? (viewer.seatIndex ?? null) : null;

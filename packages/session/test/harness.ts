@@ -3,8 +3,13 @@
  * the log so tests can replay it. Demo data are invented (bakeries bidding for a kiosk lease).
  */
 import { expect } from "vitest";
-import { parseSessionScenario, sessionEventSchema } from "@contend/protocol";
-import type { EventBody, SessionEvent, SessionScenario } from "@contend/protocol";
+import { isFrontsSession, parseSessionScenario, sessionEventSchema } from "@contend/protocol";
+import type {
+  AnySessionScenario,
+  EventBody,
+  SessionEvent,
+  SessionScenario,
+} from "@contend/protocol";
 import { apply, createSession, decide, fold } from "../src/index";
 import type { Actor, Decision, EngineCommand, SessionState } from "../src/index";
 
@@ -32,7 +37,8 @@ export function scenarioWith(
 ) {
   const r = parseSessionScenario({ ...structuredClone(kiosk), ...patch, session });
   if (!r.ok) throw new Error(`fixture invalid: ${r.message}`);
-  return r.value;
+  if (isFrontsSession(r.value)) throw new Error("fixture is a fronts session");
+  return r.value as SessionScenario;
 }
 
 export class Room {
@@ -40,7 +46,7 @@ export class Room {
   log: SessionEvent[] = [];
   now = 1_000_000;
 
-  constructor(scenario: SessionScenario, seed = 7) {
+  constructor(scenario: AnySessionScenario, seed = 7) {
     this.state = fold([]);
     this.commit([createSession({ sessionId: "sess-1", scenario, seed })]);
   }

@@ -6,7 +6,7 @@
 import { randomBytes } from "node:crypto";
 import type { Database, KeyInput } from "@contend/db";
 import { newJoinCode, newKey } from "@contend/db";
-import type { CreateSessionResponse, SessionScenario } from "@contend/protocol";
+import type { AnySessionScenario, CreateSessionResponse } from "@contend/protocol";
 import { createSession } from "@contend/session";
 import { sessionLinks } from "./links";
 
@@ -19,7 +19,7 @@ const ATTEMPTS = 5;
 
 export async function createLiveSession(
   db: Database,
-  scenario: SessionScenario,
+  scenario: AnySessionScenario,
   opts: { now: number; baseUrl: string },
 ): Promise<CreateSessionResponse> {
   for (let attempt = 0; attempt < ATTEMPTS; attempt++) {

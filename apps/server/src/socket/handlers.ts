@@ -231,6 +231,7 @@ export function createHandlers(deps: HandlerDeps) {
           clientMoveId: d.clientMoveId,
           effort: d.effort,
           spend: d.spend,
+          ...(d.frontSpends ? { frontSpends: d.frontSpends } : {}),
         },
       };
     }
