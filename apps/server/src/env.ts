@@ -60,7 +60,7 @@ const EnvSchema = z.object({
   /** "off" skips creating the demo session on an empty database */
   DEMO: z.enum(["on", "off"]).default("on"),
   LOG_LEVEL: z.enum(["debug", "info", "warn", "error"]).default("info"),
-  /** worker processes behind one port; only 1 exists today (docs/deploy.md, "Not built yet") */
+  /** worker processes behind one port (node:cluster, sticky by socket.io session); >1 needs PostgreSQL */
   WORKERS: positiveInt(1),
   /** comma-separated extra origins allowed to open sockets (e.g. a separate dev server) */
   ALLOWED_ORIGINS: z.string().optional(),
@@ -81,6 +81,8 @@ export interface ServerEnv {
   demo: boolean;
   logLevel: "debug" | "info" | "warn" | "error";
   allowedOrigins: string[];
+  /** worker processes behind one port (1: this process serves alone) */
+  workers: number;
 }
 
 export interface Limits extends AbuseLimits {
@@ -153,6 +155,7 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
     },
     demo: e.DEMO === "on",
     logLevel: e.LOG_LEVEL,
+    workers: e.WORKERS,
     allowedOrigins: (e.ALLOWED_ORIGINS ?? "")
       .split(",")
       .map((o) => o.trim())
@@ -162,8 +165,7 @@ export function parseEnv(source: Record<string, string | undefined> = process.en
 
 /**
  * Several workers share one database, which the embedded one cannot be (one process holds its
- * directory); and the workers themselves are not built yet, so any N > 1 is refused plainly
- * rather than ignored.
+ * directory), so any N > 1 without PostgreSQL is refused plainly rather than ignored.
  */
 function workersProblem(workers: number, databaseUrl: string | undefined): string | null {
   if (workers === 1) return null;
@@ -173,8 +175,5 @@ function workersProblem(workers: number, databaseUrl: string | undefined): strin
       "the embedded database serves one process only"
     );
   }
-  return (
-    `WORKERS=${workers} is not built yet; run one process per PORT behind a proxy ` +
-    "(docs/deploy.md)"
-  );
+  return null;
 }

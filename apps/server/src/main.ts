@@ -1,11 +1,18 @@
-/** Starts the server: environment, database, web app, sessions restored, then listen. */
+/**
+ * Starts the server: environment, database, web app, sessions restored, then listen. With
+ * WORKERS=N the first process becomes the primary (cluster.ts) and each worker runs this
+ * same start, taking its connections from the primary instead of listening.
+ */
+import cluster from "node:cluster";
 import path from "node:path";
+import { setupWorker } from "@socket.io/sticky";
 import { ensureOperatorKey, openDatabase } from "@contend/db";
 import type { Database } from "@contend/db";
 import { createApplication } from "./app";
 import type { Application } from "./app";
 import type { Logger } from "./logger";
 import { systemClock } from "./clock";
+import { runPrimary, WORKER_INDEX_VAR, WORKER_READY } from "./cluster";
 import { describeLinks, ensureDemoSession } from "./demo";
 import { parseEnv, WEB_DIR } from "./env";
 import { createConsoleLogger } from "./logger";
@@ -15,6 +22,11 @@ import { loadWebApp } from "./web";
 async function main() {
   const env = parseEnv();
   const logger = createConsoleLogger(env.logLevel);
+  if (env.workers > 1 && cluster.isPrimary) return runPrimary(env, logger);
+  /** this worker's index (WORKERS > 1); null when this process serves alone */
+  const worker = cluster.isWorker ? Number(process.env[WORKER_INDEX_VAR] ?? 0) : null;
+  /** one process runs the once-per-deployment chores: the demo session and retention */
+  const chores = worker === null || worker === 0;
   const operator = ensureOperatorKey(env.dataDir, env.operatorKey);
   const db = await openDatabase({ url: env.databaseUrl });
   logger.info("database open", {
@@ -51,10 +63,18 @@ async function main() {
     allowedOrigins: env.allowedOrigins,
   });
   const restored = await app.restore();
-  const { port } = await app.listen(env.port, env.host);
   const shownHost = env.host === "0.0.0.0" || env.host === "::" ? "localhost" : env.host;
-  const baseUrl = env.publicUrl ?? `http://${shownHost}:${port}`;
-  logger.info(`listening on ${baseUrl}`, { restoredSessions: restored });
+  let baseUrl = env.publicUrl ?? `http://${shownHost}:${env.port}`;
+  if (worker === null) {
+    const { port } = await app.listen(env.port, env.host);
+    baseUrl = env.publicUrl ?? `http://${shownHost}:${port}`;
+    logger.info(`listening on ${baseUrl}`, { restoredSessions: restored });
+  } else {
+    // The primary owns the port and hands this worker its connections.
+    setupWorker(app.io);
+    process.send?.({ type: WORKER_READY });
+    logger.info("worker taking connections", { worker, restoredSessions: restored });
+  }
   if (operator.created) {
     // Printed this once; only its digest is kept (docs/security.md).
     console.log(
@@ -63,8 +83,8 @@ async function main() {
     );
   }
   const stopRetention =
-    env.retainDays === null ? () => {} : startRetention(db, env.retainDays, app, logger);
-  if (env.demo) {
+    env.retainDays === null || !chores ? () => {} : startRetention(db, env.retainDays, app, logger);
+  if (env.demo && chores) {
     const demo = await ensureDemoSession(db, { now: systemClock.now(), baseUrl });
     if (demo) console.log(`\n${describeLinks(demo)}\n`);
     else logger.info(`sessions are in the database; start a new one at ${baseUrl}/new`);

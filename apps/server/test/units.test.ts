@@ -137,7 +137,7 @@ describe("parseEnv(source)", () => {
     );
   });
 
-  it("WORKERS=N refuses with a clear line: without PostgreSQL, and (not built yet) with it", () => {
+  it("WORKERS=N refuses with a clear line without PostgreSQL, and is taken with it", () => {
     expect(parseEnv({ WORKERS: "1", WEB: "off" }).port).toBe(3000);
     expect(() => parseEnv({ WORKERS: "4" })).toThrow(
       /WORKERS=4 needs DATABASE_URL=postgres:\/\/\.\.\.: the embedded database serves one process only/,
@@ -147,7 +147,11 @@ describe("parseEnv(source)", () => {
     );
     expect(() =>
       parseEnv({ WORKERS: "2", DATABASE_URL: "postgres://contend@db.internal/contend" }),
-    ).toThrow(/WORKERS=2 is not built yet/);
+    ).not.toThrow();
+    expect(
+      parseEnv({ WORKERS: "2", DATABASE_URL: "postgres://contend@db.internal/contend", WEB: "off" })
+        .workers,
+    ).toBe(2);
     expect(() => parseEnv({ WORKERS: "0" })).toThrow(/WORKERS/);
   });
 

@@ -62,7 +62,12 @@ export async function openFeed(url: string): Promise<ChangeFeed> {
   let reconnectTimer: ReturnType<typeof setTimeout> | null = null;
 
   async function connect(): Promise<pg.Client> {
-    const c = new pg.Client({ connectionString: url, keepAlive: true });
+    // Named, so an operator (or a test) can see in pg_stat_activity which process holds a lease.
+    const c = new pg.Client({
+      connectionString: url,
+      keepAlive: true,
+      application_name: `contend-feed-${process.pid}`,
+    });
     c.on("notification", (n) => {
       if (!handlers || n.payload === undefined) return;
       if (n.channel === EVENTS_CHANNEL) {
