@@ -3,10 +3,9 @@
  * where they are typed, with a visible message, and nothing reaches the server.
  */
 import type { Page, Request } from "@playwright/test";
-import { createSession } from "../support/api";
-import { connectAs } from "../support/client";
 import { expect, test } from "../support/fixtures";
 import { pathOf } from "../support/live";
+import { connectSession } from "../support/session";
 
 /** Every request the page makes to the session API from now on. */
 function watchApi(page: Page): Request[] {
@@ -110,7 +109,7 @@ test("seat effort(negative, off-step, empty) is refused on the page and no move 
   saveScreen,
 }) => {
   const origin = baseURL!;
-  const created = await createSession(origin, {
+  const session = await connectSession(origin, {
     title: "Two florists bid for the market-hall corner",
     prize: 100,
     currency: "$",
@@ -122,11 +121,8 @@ test("seat effort(negative, off-step, empty) is refused on the page and no move 
     leader: null,
     session: { outcome: "shares", effortStep: 0.5, rounds: 1, clockSeconds: null },
   });
-  const fac = await connectAs(origin, {
-    role: "facilitator",
-    sessionId: created.id,
-    key: created.facilitatorKey,
-  });
+  const { created } = session;
+  const fac = session.facilitator;
   const sent: string[] = [];
   page.on("websocket", (ws) => ws.on("framesent", ({ payload }) => sent.push(String(payload))));
   try {
@@ -163,6 +159,6 @@ test("seat effort(negative, off-step, empty) is refused on the page and no move 
     await expect(page.getByTestId("seat-sealed-amount")).toHaveText(/7\.5$/);
     expect(sent.filter((f) => f.includes("sealMove"))).toHaveLength(1);
   } finally {
-    fac.close();
+    session.close();
   }
 });

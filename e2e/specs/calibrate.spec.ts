@@ -4,9 +4,9 @@
  * provenance in the debrief. Bad data shows one message naming the row and column.
  */
 import { readFile } from "node:fs/promises";
-import { createSession, exportJson } from "../support/api";
-import { connectAs } from "../support/client";
+import { exportJson } from "../support/api";
 import { expect, test } from "../support/fixtures";
+import { connectSession } from "../support/session";
 
 const NAMES = ["Larkspur Bakehouse", "Millstone Loaves", "Hearth & Crumb", "Copperpan Patisserie"];
 
@@ -77,15 +77,12 @@ test("a session from a calibrated scenario shows its calibration in the debrief"
 
   const origin = baseURL!;
   const computer = Object.fromEntries(NAMES.map((n) => [n, { kind: "equilibrium" }]));
-  const created = await createSession(origin, {
+  const session = await connectSession(origin, {
     ...scenario,
     session: { rounds: 1, spendStep: 1, computer },
   });
-  const fac = await connectAs(origin, {
-    role: "facilitator",
-    sessionId: created.id,
-    key: created.facilitatorKey,
-  });
+  const { created } = session;
+  const fac = session.facilitator;
   try {
     await fac.command({ type: "openRound" });
     await expect
@@ -99,7 +96,7 @@ test("a session from a calibrated scenario shows its calibration in the debrief"
       )
       .toBe("ended");
   } finally {
-    fac.close();
+    session.close();
   }
   await page.goto(`/replays/${created.id}#key=${created.facilitatorKey}`);
   const note = page.getByTestId("debrief-provenance");

@@ -5,11 +5,12 @@
  * Screens of the seat at 1366x768 and 390x844 are saved as artifacts.
  */
 import type { Browser, Page } from "@playwright/test";
-import { createSession, exportJson } from "../support/api";
-import { connectAs } from "../support/client";
+import { exportJson } from "../support/api";
 import { expect, test } from "../support/fixtures";
-import { PHONE, pathOf, phoneContext } from "../support/live";
+import { PHONE } from "../support/live";
 import { expectShown } from "../support/numbers";
+import { SIZES } from "../support/room";
+import { connectSession, openPage } from "../support/session";
 
 const COST = 1.2;
 const SCENARIO = {
@@ -41,11 +42,7 @@ interface ExportRound {
 }
 
 async function openSeat(browser: Browser, origin: string, link: string, phone: boolean) {
-  const context = phone
-    ? await phoneContext(browser, origin)
-    : await browser.newContext({ baseURL: origin, viewport: { width: 1366, height: 768 } });
-  const page = await context.newPage();
-  await page.goto(pathOf(link));
+  const page = await openPage(browser, origin, link, phone ? "phone" : SIZES.laptop);
   await expect(page.getByRole("heading", { level: 1, name: "Quayside Couriers" })).toBeVisible();
   return page;
 }
@@ -64,12 +61,8 @@ test("seat(cost 1.2, budget €k200) seals €k180 as money and reads 'You spent
   saveScreen,
 }) => {
   const origin = baseURL!;
-  const created = await createSession(origin, SCENARIO);
-  const fac = await connectAs(origin, {
-    role: "facilitator",
-    sessionId: created.id,
-    key: created.facilitatorKey,
-  });
+  const session = await connectSession(origin, SCENARIO);
+  const { created, facilitator: fac } = session;
   try {
     const link = created.seats[0]!.link!;
     const seat = await openSeat(browser, origin, link, false);
@@ -130,7 +123,7 @@ test("seat(cost 1.2, budget €k200) seals €k180 as money and reads 'You spent
     await noSideScroll(phone, "seat at 390");
     await saveScreen(phone, "money-seat-result-390");
   } finally {
-    fac.close();
+    session.close();
   }
 });
 
@@ -140,27 +133,14 @@ test("shock(prize and cost) is announced on the seat, the big screen and the con
   saveScreen,
 }) => {
   const origin = baseURL!;
-  const created = await createSession(origin, SCENARIO);
-  const fac = await connectAs(origin, {
-    role: "facilitator",
-    sessionId: created.id,
-    key: created.facilitatorKey,
-  });
-  const seatClient = await connectAs(origin, {
-    role: "seat",
-    sessionId: created.id,
-    key: created.seats[0]!.key!,
-  });
+  // seat 0 seals over the socket; its page, the big screen and the console show the results
+  const session = await connectSession(origin, SCENARIO, [0]);
+  const { created, facilitator: fac } = session;
+  const seatClient = session.seats[0]!;
   try {
-    const open = async (link: string, width: number, height: number) => {
-      const ctx = await browser.newContext({ baseURL: origin, viewport: { width, height } });
-      const page = await ctx.newPage();
-      await page.goto(pathOf(link));
-      return page;
-    };
-    const seat = await open(created.seats[0]!.link!, 1366, 768);
-    const screen = await open(created.links.spectator, 1920, 1080);
-    const console_ = await open(created.links.facilitator, 1366, 768);
+    const seat = await openPage(browser, origin, created.seats[0]!.link!, SIZES.laptop);
+    const screen = await openPage(browser, origin, created.links.spectator, SIZES.projector);
+    const console_ = await openPage(browser, origin, created.links.facilitator, SIZES.laptop);
     await expect(seat.getByRole("heading", { level: 1, name: "Quayside Couriers" })).toBeVisible();
     await expect(screen.getByTestId("big-screen")).toBeVisible();
     await expect(console_.getByTestId("session-status")).toBeVisible();
@@ -207,8 +187,7 @@ test("shock(prize and cost) is announced on the seat, the big screen and the con
     await expect(seat.getByTestId("shock-banner")).toContainText("(this round)");
     await expect(seat.getByTestId("live-announcement")).toHaveText("Round 2 is open.");
     // the same seat on a phone, with the banner and the amount box in the open round
-    const phone = await (await phoneContext(browser, origin)).newPage();
-    await phone.goto(pathOf(created.seats[0]!.link!));
+    const phone = await openPage(browser, origin, created.seats[0]!.link!, "phone");
     await expect(phone.getByTestId("shock-banner")).toContainText("(this round)");
     await expect(phone.getByTestId("spend-input")).toBeEnabled();
     await noSideScroll(phone, "seat at 390 with a shock");
@@ -236,7 +215,6 @@ test("shock(prize and cost) is announced on the seat, the big screen and the con
     expect(exported.shocks).toHaveLength(1);
     expect(exported.shocks[0]!.afterRound).toBe(1);
   } finally {
-    fac.close();
-    seatClient.close();
+    session.close();
   }
 });

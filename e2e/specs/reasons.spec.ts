@@ -3,10 +3,10 @@
  * sealed amount, and after the reveal the round's table lists it. Screens at 1366x768 and
  * 390x844 are saved as artifacts.
  */
-import { createSession } from "../support/api";
-import { connectAs } from "../support/client";
 import { expect, test } from "../support/fixtures";
-import { pathOf, phoneContext } from "../support/live";
+import { pathOf } from "../support/live";
+import { SIZES } from "../support/room";
+import { connectSession, openPage } from "../support/session";
 
 const SCENARIO = {
   title: "Two ferry operators bid for the island mail contract",
@@ -36,25 +36,13 @@ test("a seat's reason is sealed with its spend and shown in the revealed round",
   saveScreen,
 }) => {
   const origin = baseURL!;
-  const created = await createSession(origin, SCENARIO);
-  const fac = await connectAs(origin, {
-    role: "facilitator",
-    sessionId: created.id,
-    key: created.facilitatorKey,
-  });
-  const other = await connectAs(origin, {
-    role: "seat",
-    sessionId: created.id,
-    key: created.seats[1]!.key!,
-  });
+  // the facilitator and the other seat play over the socket; seat 0 is the page under test
+  const session = await connectSession(origin, SCENARIO, [1]);
+  const { created, facilitator: fac } = session;
+  const other = session.seats[0]!;
   try {
-    const ctx = await browser.newContext({
-      baseURL: origin,
-      viewport: { width: 1366, height: 768 },
-    });
-    const seat = await ctx.newPage();
     const link = pathOf(created.seats[0]!.link!);
-    await seat.goto(link);
+    const seat = await openPage(browser, origin, link, SIZES.laptop);
     await expect(seat.getByRole("heading", { level: 1, name: "Gullwing Ferries" })).toBeVisible();
     await fac.command({ type: "openRound" });
     await expect(seat.getByTestId("spend-input")).toBeEnabled();
@@ -73,12 +61,7 @@ test("a seat's reason is sealed with its spend and shown in the revealed round",
     await saveScreen(seat, "reasons-seat-result-1366");
 
     // The facilitator notes the round in the console; the seat reads the note with the round.
-    const consoleCtx = await browser.newContext({
-      baseURL: origin,
-      viewport: { width: 1366, height: 768 },
-    });
-    const console_ = await consoleCtx.newPage();
-    await console_.goto(pathOf(created.links.facilitator));
+    const console_ = await openPage(browser, origin, created.links.facilitator, SIZES.laptop);
     await console_.getByTestId("round-note-input").fill(NOTE);
     await console_.getByTestId("round-note-save").click();
     await expect(console_.getByTestId("round-note-status")).toHaveText("Note saved.");
@@ -87,13 +70,11 @@ test("a seat's reason is sealed with its spend and shown in the revealed round",
     await console_.getByTestId("round-note-input").scrollIntoViewIfNeeded();
     await saveScreen(console_, "reasons-console-note-1366");
 
-    const phone = await (await phoneContext(browser, origin)).newPage();
-    await phone.goto(link);
+    const phone = await openPage(browser, origin, link, "phone");
     await expect(phone.getByTestId("seat-round-reasons")).toContainText(REASON);
     await expect(phone.getByTestId("seat-round-note")).toContainText(NOTE);
     await saveScreen(phone, "reasons-seat-result-390");
   } finally {
-    fac.close();
-    other.close();
+    session.close();
   }
 });

@@ -6,32 +6,13 @@
  */
 import { readFile } from "node:fs/promises";
 import type { Page } from "@playwright/test";
-import { createSession, exportCsv, exportJson } from "../support/api";
-import { connectAs } from "../support/client";
+import { exportCsv, exportJson } from "../support/api";
 import { expect, test } from "../support/fixtures";
+import { ROOM_NAMES, roomScenario } from "../support/room";
+import { connectSession, playRound } from "../support/session";
 import { expectShown } from "../support/numbers";
 
-const NAMES = ["Quarry Road Print", "Inkwell Press", "Foxglove Copy Shop"];
-const SCENARIO = {
-  title: "Three print shops compete for a library reprint order",
-  prize: 100,
-  currency: "$",
-  csf: { kind: "ratio", decisiveness: 1 },
-  rivals: [
-    { name: NAMES[0], cost: 1 },
-    { name: NAMES[1], cost: 1.5 },
-    { name: NAMES[2], cost: 1.2 },
-  ],
-  leader: null,
-  session: {
-    outcome: "shares",
-    effortStep: 0.01,
-    rounds: 3,
-    clockSeconds: null,
-    missingMove: "zero",
-    computer: { [NAMES[2]!]: { kind: "equilibrium" } },
-  },
-};
+const SCENARIO = roomScenario(3, { clockSeconds: null });
 const PLAYED = [
   [12.34, 7.89],
   [15.02, 9.41],
@@ -71,34 +52,19 @@ test("replay(finished 3-round session) steps round by round and its downloads eq
   saveScreen,
 }) => {
   const origin = baseURL!;
-  const created = await createSession(origin, SCENARIO);
-  const fac = await connectAs(origin, {
-    role: "facilitator",
-    sessionId: created.id,
-    key: created.facilitatorKey,
-  });
-  const seats = await Promise.all(
-    [0, 1].map((i) =>
-      connectAs(origin, { role: "seat", sessionId: created.id, key: created.seats[i]!.key! }),
-    ),
-  );
+  const session = await connectSession(origin, SCENARIO, [0, 1]);
+  const { created } = session;
   try {
     for (const [k, efforts] of PLAYED.entries()) {
-      await fac.command({ type: "openRound" });
-      for (const [i, seat] of seats.entries()) {
-        await seat.command({
-          type: "sealMove",
-          clientMoveId: `r${k + 1}-s${i}`,
-          effort: efforts[i],
-        });
-      }
-      await expect
-        .poll(async () => ((await exportJson(origin, created.id)) as Exported).rounds.length)
-        .toBe(k + 1);
+      await playRound(
+        origin,
+        session,
+        k + 1,
+        efforts.map((effort) => ({ effort })),
+      );
     }
   } finally {
-    fac.close();
-    for (const s of seats) s.close();
+    session.close();
   }
   await expect
     .poll(async () => ((await exportJson(origin, created.id)) as Exported).session.status)
@@ -141,26 +107,26 @@ test("replay(finished 3-round session) steps round by round and its downloads eq
     const table = page.getByTestId("replay-round-table");
     for (const [row, seat] of r.seatIndices.entries()) {
       const cells = table.locator("tbody tr").nth(row);
-      await expect(cells.locator('[data-col="name"]')).toHaveText(NAMES[seat]!);
+      await expect(cells.locator('[data-col="name"]')).toHaveText(ROOM_NAMES[seat]!);
       await expectShown(
         cells.locator('[data-col="spend"]'),
         r.spends[row]!,
-        `round ${r.round} ${NAMES[seat]} spend`,
+        `round ${r.round} ${ROOM_NAMES[seat]} spend`,
       );
       await expectShown(
         cells.locator('[data-col="payoff"]'),
         r.payoffs[row]!,
-        `round ${r.round} ${NAMES[seat]} payoff`,
+        `round ${r.round} ${ROOM_NAMES[seat]} payoff`,
       );
       await expectShown(
         cells.locator('[data-col="bestResponse"]'),
         r.bestResponseSpends[row]!,
-        `round ${r.round} ${NAMES[seat]} best reply`,
+        `round ${r.round} ${ROOM_NAMES[seat]} best reply`,
       );
       await expectShown(
         cells.locator('[data-col="total"]'),
         r.totals[row]!,
-        `round ${r.round} ${NAMES[seat]} total`,
+        `round ${r.round} ${ROOM_NAMES[seat]} total`,
       );
     }
     // The human efforts shown are the ones played.

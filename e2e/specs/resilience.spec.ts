@@ -13,6 +13,7 @@ import { expect, test } from "../support/fixtures";
 import { pathOf, sealSpend } from "../support/live";
 import { expectShown } from "../support/numbers";
 import { ServerProcess } from "../support/server";
+import { openPage } from "../support/session";
 
 const SCENARIO: Scenario & { session: Record<string, unknown> } = {
   title: "Three bakeries bid for the station kiosk lease",
@@ -52,11 +53,7 @@ test("seat page closed and reopened, then server killed and restarted mid-round:
     const origin = server.baseURL;
     const created = await createSession(origin, SCENARIO);
     const seatLink = (i: number) => pathOf(created.seats[i]!.link!);
-    const open = async (path: string): Promise<Page> => {
-      const page = await (await browser.newContext({ baseURL: origin })).newPage();
-      await page.goto(path);
-      return page;
-    };
+    const open = (path: string): Promise<Page> => openPage(browser, origin, path);
 
     const fac = await open(pathOf(created.links.facilitator));
     await expect(fac.getByTestId("session-status")).toHaveText("Waiting to start");

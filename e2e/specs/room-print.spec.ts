@@ -13,7 +13,8 @@ import path from "node:path";
 import type { Page } from "@playwright/test";
 import { expect, test } from "../support/fixtures";
 import { RESULTS_DIR } from "../support/server";
-import { expectAccessible, pathOf, SIZES, startRoom } from "../support/room";
+import { pathOf } from "../support/live";
+import { expectAccessible, SIZES, startRoom } from "../support/room";
 
 /** Printable width in CSS px (96 per inch) with 15 mm margins, as the stylesheet's @page sets. */
 const PAPER = {

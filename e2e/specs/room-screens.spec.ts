@@ -12,11 +12,11 @@ import type { Page } from "@playwright/test";
 import type { CreatedSession } from "../support/api";
 import { connectAs } from "../support/client";
 import { expect, test } from "../support/fixtures";
+import { pathOf } from "../support/live";
 import {
   expectAccessible,
   expectAllInside,
   expectNoScroll,
-  pathOf,
   SIZES,
   startRoom,
   xTicks,

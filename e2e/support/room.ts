@@ -7,10 +7,8 @@
 import AxeBuilder from "@axe-core/playwright";
 import type { Page } from "@playwright/test";
 import { expect } from "@playwright/test";
-import { createSession, exportJson } from "./api";
-import type { CreatedSession } from "./api";
-import { connectAs } from "./client";
-import type { Participant } from "./client";
+import { connectSession, playRound } from "./session";
+import type { ConnectedSession } from "./session";
 
 export const SIZES = {
   laptop: { width: 1366, height: 768 },
@@ -21,7 +19,7 @@ export const SIZES = {
 export const ROOM_NAMES = ["Quarry Road Print", "Inkwell Press", "Foxglove Copy Shop"];
 
 /** Three invented print shops; the third is a computer seat playing the equilibrium. */
-export function roomScenario(rounds = 3) {
+export function roomScenario(rounds = 3, session: Record<string, unknown> = {}) {
   return {
     title: "Library reprint order: three print shops",
     prize: 100,
@@ -40,62 +38,28 @@ export function roomScenario(rounds = 3) {
       clockSeconds: 90,
       missingMove: "zero",
       computer: { [ROOM_NAMES[2]!]: { kind: "equilibrium" } },
+      ...session,
     },
   };
 }
 
-export interface PlayedRoom {
-  created: CreatedSession;
-  facilitator: Participant;
-  seats: Participant[];
+export interface PlayedRoom extends ConnectedSession {
   /** plays one round: opens it, seals both people's spends, waits for the reveal */
   playRound(round: number, spends: readonly [number, number]): Promise<void>;
-  close(): void;
 }
 
 export async function startRoom(origin: string, rounds = 3): Promise<PlayedRoom> {
-  const created = await createSession(origin, roomScenario(rounds));
-  const facilitator = await connectAs(origin, {
-    role: "facilitator",
-    sessionId: created.id,
-    key: created.facilitatorKey,
-  });
-  const seats = await Promise.all(
-    [0, 1].map((i) =>
-      connectAs(origin, { role: "seat", sessionId: created.id, key: created.seats[i]!.key! }),
-    ),
-  );
+  const session = await connectSession(origin, roomScenario(rounds), [0, 1]);
   return {
-    created,
-    facilitator,
-    seats,
-    async playRound(round, spends) {
-      await facilitator.command({ type: "openRound" });
-      for (const [i, seat] of seats.entries()) {
-        await seat.command({
-          type: "sealMove",
-          clientMoveId: `r${round}-s${i}`,
-          spend: spends[i],
-        });
-      }
-      await expect
-        .poll(
-          async () =>
-            ((await exportJson(origin, created.id)) as { rounds: unknown[] }).rounds.length,
-        )
-        .toBe(round);
-    },
-    close() {
-      facilitator.close();
-      for (const s of seats) s.close();
-    },
+    ...session,
+    playRound: (round, spends) =>
+      playRound(
+        origin,
+        session,
+        round,
+        spends.map((spend) => ({ spend })),
+      ),
   };
-}
-
-/** Path and query of a link the server gave (links may name another host). */
-export function pathOf(link: string): string {
-  const u = new URL(link, "http://placeholder");
-  return `${u.pathname}${u.search}${u.hash}`;
 }
 
 /** The page needs no scrolling in either direction at its current viewport. */
