@@ -9,6 +9,7 @@ import {
   createSessionOverHttp,
   eventLog,
   expectOk,
+  FLOOD_LIMITS,
   hello,
   request,
   serverForFile,
@@ -16,15 +17,8 @@ import {
 import type { Client } from "./helpers";
 import { printShops } from "./fixtures";
 
-// generous limits here (per connection and per address), so that the flood reaches validation
-const file = serverForFile({
-  limits: {
-    ratePerSecond: 1e6,
-    rateBurst: 1e6,
-    messagesPerIpPerSecond: 1e6,
-    authFailuresPerIpPerMinute: 1e6,
-  },
-});
+// generous limits, so that the flood reaches validation
+const file = serverForFile({ limits: FLOOD_LIMITS });
 const client = file.client;
 
 /** emit without the typed event map, as a hostile client would */

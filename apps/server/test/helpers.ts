@@ -210,6 +210,14 @@ export function lastView(socket: Client) {
   return msg.view;
 }
 
+/** Limits per connection and per address so high that a flood of messages reaches validation. */
+export const FLOOD_LIMITS = {
+  ratePerSecond: 1e6,
+  rateBurst: 1e6,
+  messagesPerIpPerSecond: 1e6,
+  authFailuresPerIpPerMinute: 1e6,
+};
+
 /**
  * One server for a whole test file (started before its tests, stopped and its data removed
  * after) and a `client()` whose sockets are all closed at the end.

@@ -10,21 +10,15 @@ import {
   createSessionOverHttp,
   eventLog,
   expectOk,
+  FLOOD_LIMITS,
   hello,
   request,
   serverForFile,
 } from "./helpers";
 import { printShops } from "./fixtures";
 
-// generous limits here (per connection and per address), so that the flood reaches validation
-const file = serverForFile({
-  limits: {
-    ratePerSecond: 1e6,
-    rateBurst: 1e6,
-    messagesPerIpPerSecond: 1e6,
-    authFailuresPerIpPerMinute: 1e6,
-  },
-});
+// generous limits, so that the flood reaches validation
+const file = serverForFile({ limits: FLOOD_LIMITS });
 
 const BAD_PIECES = [
   "\u0000",

@@ -6,7 +6,7 @@
 import { readFile } from "node:fs/promises";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
-import { main, type CliIo } from "../src/cli/cli";
+import { cliRunner } from "./cli-run";
 import { validateScenario } from "../src/index";
 
 const pkg = fileURLToPath(new URL("..", import.meta.url));
@@ -19,17 +19,7 @@ const files: Record<string, string> = {
     "period,rival,spend,share\nA,X,1,50%\nA,Y,2,45%\nB,X,2,50%\nB,Y,1,50%\nC,X,1,50%\nC,Y,1,50%\n",
 };
 
-async function run(...argv: string[]) {
-  let stdout = "";
-  let stderr = "";
-  const io: CliIo = {
-    stdout: { write: (s: string) => (stdout += s) },
-    stderr: { write: (s: string) => (stderr += s) },
-    readFile: async (path: string) => (path in files ? files[path]! : readFile(path, "utf8")),
-  };
-  const code = await main(argv, io);
-  return { code, stdout, stderr };
-}
+const run = cliRunner(files);
 
 describe("contend fit", () => {
   it("--json prints exactly the documented fields, rivals in first-appearance order", async () => {

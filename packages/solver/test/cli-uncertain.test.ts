@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { main, type CliIo } from "../src/cli/cli";
+import { cliRunner } from "./cli-run";
 
 const good = {
   title: "Ranges",
@@ -28,20 +28,7 @@ const files: Record<string, string> = {
   "extra.json": withRival(0, { value: { dist: "uniform", low: 1, high: 2, mode: 1.5 } }),
 };
 
-async function run(...argv: string[]) {
-  let stdout = "";
-  let stderr = "";
-  const io: CliIo = {
-    stdout: { write: (s: string) => (stdout += s) },
-    stderr: { write: (s: string) => (stderr += s) },
-    readFile: async (path: string) => {
-      if (path in files) return files[path]!;
-      throw Object.assign(new Error("nope"), { code: "ENOENT" });
-    },
-  };
-  const code = await main(argv, io);
-  return { code, stdout, stderr };
-}
+const run = cliRunner(files, { disk: false });
 
 describe("contend uncertain", () => {
   it("main(uncertain FILE --json) prints the documented shape, arrays in rival order", async () => {

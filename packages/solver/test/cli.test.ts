@@ -1,8 +1,7 @@
 import { execFileSync, spawnSync } from "node:child_process";
-import { readFile } from "node:fs/promises";
 import { fileURLToPath } from "node:url";
 import { beforeAll, describe, expect, it } from "vitest";
-import { main, type CliIo } from "../src/cli/cli";
+import { cliRunner } from "./cli-run";
 
 const pkg = fileURLToPath(new URL("..", import.meta.url));
 const kioskPath = `${pkg}scenarios/kiosk-lease.json`;
@@ -41,20 +40,7 @@ const files: Record<string, string> = {
   }),
 };
 
-async function run(...argv: string[]) {
-  let stdout = "";
-  let stderr = "";
-  const io: CliIo = {
-    stdout: { write: (s: string) => (stdout += s) },
-    stderr: { write: (s: string) => (stderr += s) },
-    readFile: async (path: string) => {
-      if (path in files) return files[path]!;
-      return readFile(path, "utf8");
-    },
-  };
-  const code = await main(argv, io);
-  return { code, stdout, stderr };
-}
+const run = cliRunner(files);
 
 describe("contend solve", () => {
   it("main(solve FILE --json) prints the equilibrium in the documented shape", async () => {

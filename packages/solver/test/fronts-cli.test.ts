@@ -2,10 +2,9 @@
 // and `contend respond` print the documented JSON shapes, bad input exits 2 with one line.
 // Reference values: the Friedman split (see fronts-theory.test.ts for its derivation) and the
 // solver's own respond, which the property tests check against an independent optimiser.
-import { readFile } from "node:fs/promises";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
-import { main, type CliIo } from "../src/cli/cli";
+import { cliRunner } from "./cli-run";
 import { normalizeFronts, validateFrontsScenario } from "../src/fronts";
 
 const pkg = fileURLToPath(new URL("..", import.meta.url));
@@ -41,17 +40,7 @@ const files: Record<string, string> = {
   }),
 };
 
-async function run(...argv: string[]) {
-  let stdout = "";
-  let stderr = "";
-  const io: CliIo = {
-    stdout: { write: (s: string) => (stdout += s) },
-    stderr: { write: (s: string) => (stderr += s) },
-    readFile: async (path: string) => (path in files ? files[path]! : readFile(path, "utf8")),
-  };
-  const code = await main(argv, io);
-  return { code, stdout, stderr };
-}
+const run = cliRunner(files);
 
 describe("validateFrontsScenario names the offending field", () => {
   const cases: [string, object, string, RegExp][] = [
