@@ -2,7 +2,6 @@ import { performance } from "node:perf_hooks";
 import { describe, expect, it, vi } from "vitest";
 import { createManualClock } from "../src/clock";
 import { parseEnv } from "../src/env";
-import { toCsv } from "../src/http/csv";
 import { BUSY_FROM, BUSY_FULL, eventLoopGauge, progressWindowMs } from "../src/loadGauge";
 import { createTokenBucket } from "../src/rateLimit";
 import { createSerialQueue } from "../src/serialQueue";
@@ -165,19 +164,6 @@ describe("parseEnv(source)", () => {
       parseEnv({ DATABASE_URL: "postgres://u@h/db", CONTEND_DATA_DIR: "/tmp/x", WEB: "off" })
         .databaseUrl,
     ).toBe("postgres://u@h/db");
-  });
-});
-
-describe("toCsv(header, rows)", () => {
-  it("toCsv quotes commas and quotes, defuses formulas and ends lines with CRLF (RFC 4180)", () => {
-    const text = toCsv(
-      ["a", "b", "c"],
-      [
-        ["x,y", 'say "hi"', 1.5],
-        ["=SUM(A1)", null, true],
-      ],
-    );
-    expect(text).toBe('a,b,c\r\n"x,y","say ""hi""",1.5\r\n\'=SUM(A1),,true\r\n');
   });
 });
 

@@ -175,3 +175,5 @@ export { hiddenRoundViewSchema, hiddenViewSchema } from "./hiddenView";
 export type { HiddenRoundView, HiddenView } from "./hiddenView";
 export { robustPlanRecordSchema } from "./events";
 export type { RobustPlanRecord } from "./events";
+export { toCsv } from "./csv";
+export type { CsvCell } from "./csv";

@@ -11,9 +11,9 @@ import type {
   SessionListItem,
   ShockRecord,
 } from "@contend/protocol";
+import { toCsv } from "@contend/protocol";
+import type { CsvCell } from "@contend/protocol";
 import { fold, shockText, WITHHELD_UNTIL_END, withholdSecrets } from "@contend/session";
-import { toCsv } from "../http/csv";
-import type { CsvCell } from "../http/csv";
 
 /** The log without the open round: cut at the last round-opened that has no round-resolved. */
 export function publicEvents(events: readonly SessionEvent[]): SessionEvent[] {

@@ -2,7 +2,8 @@
  * RFC 4180 CSV: comma separated, CRLF line ends, fields quoted when they hold a comma, quote
  * or line break. Numbers are written with full precision so a spreadsheet gets the stored
  * value; a text field starting with = + - @ is prefixed with ' so spreadsheets do not run it
- * as a formula (common practice, no source).
+ * as a formula (common practice, no source). One writer for every CSV the app makes: the
+ * server's session export and the web's cohort file of compared sessions.
  */
 export type CsvCell = string | number | boolean | null;
 
