@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { exportFile } from "../lib/api";
+import { saveBlob } from "../lib/saveFile";
 
 /**
  * Saves a session's export. The key goes in the request's Authorization header, so the file is
@@ -28,14 +29,7 @@ export function ExportDownload({
     setError(null);
     const r = await exportFile(sessionId, accessKey, format);
     if (!r.ok) return setError(r.message);
-    const url = URL.createObjectURL(r.data.blob);
-    const a = document.createElement("a");
-    a.href = url;
-    a.download = r.data.fileName;
-    document.body.append(a);
-    a.click();
-    a.remove();
-    setTimeout(() => URL.revokeObjectURL(url), 10_000);
+    saveBlob(r.data.blob, r.data.fileName);
   }
   return (
     <>

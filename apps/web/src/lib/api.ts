@@ -89,6 +89,11 @@ export function exportSession(id: string, key?: string): Promise<ApiResult<unkno
   return request<unknown>(`/api/sessions/${encodeURIComponent(id)}/export`, withKey(key));
 }
 
+/** GET /api/sessions/:id/summary (facilitator or operator key); the caller validates the body. */
+export function sessionSummary(id: string, key: string): Promise<ApiResult<unknown>> {
+  return request<unknown>(`/api/sessions/${encodeURIComponent(id)}/summary`, withKey(key));
+}
+
 /** The export as a file to save (JSON or CSV), fetched with the key in its header. */
 export async function exportFile(
   id: string,

@@ -69,6 +69,14 @@ export function ReplayList() {
           ? " Listed with the operator key: every session on this server."
           : " Listed: the sessions this browser has facilitated. Nobody else can list them."}
       </p>
+      <p className="no-print">
+        <Link
+          href={`/replays/compare${asOperator ? `#operator=${encodeURIComponent(operatorKey)}` : ""}`}
+          data-testid="replays-compare-link"
+        >
+          Compare sessions side by side
+        </Link>
+      </p>
       {error && (
         <p className="notice error" data-testid="replays-error">
           Could not load the list: {error}

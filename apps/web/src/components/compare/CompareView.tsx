@@ -1,0 +1,160 @@
+"use client";
+
+import {
+  changedRounds,
+  cohortCsv,
+  compareEvents,
+  compareMarks,
+  roundRows,
+  sessionKey,
+  sessionLabel,
+} from "../../lib/compare";
+import type { Compared } from "../../lib/compare";
+import { formatDateTime, formatPercent, formatPlain } from "../../lib/format";
+import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
+import { saveBlob } from "../../lib/saveFile";
+import { CAUTION_LINES } from "../Cautions";
+import { FigureTable, numCol, textCol } from "../FigureTable";
+import { Term } from "../Glossary";
+import { LineSeriesChart } from "../LineSeriesChart";
+import { CompareSeats } from "./CompareSeats";
+
+const times = (v: number) => `${formatPlain(v, 2)}\u00d7`;
+
+/** Two or more sessions side by side: by-round charts, seats, shocks and notes, the cohort file. */
+export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
+  const label = (k: number) => sessionLabel(k, sessions[k]!.summary.session.title);
+  const series = sessions.map((_, k) => ({
+    key: sessionKey(k),
+    name: label(k),
+    colour: seriesColour(k),
+  }));
+  const overspend = roundRows(sessions, (r) => r.overspend).map((row) => ({ ...row, eq: 1 }));
+  const gap = roundRows(sessions, (r) => r.nashGapShare);
+  const marks = compareMarks(sessions);
+  const changed = changedRounds(sessions);
+  const roundTick = (v: number) => `${formatPlain(v, 0)}${changed.has(v) ? " \u26a1" : ""}`;
+  const events = compareEvents(sessions);
+  const currencies = new Set(sessions.map((s) => s.summary.session.currency ?? ""));
+
+  function downloadCohort() {
+    const blob = new Blob([cohortCsv(sessions)], { type: "text/csv;charset=utf-8" });
+    saveBlob(
+      blob,
+      `cohort-${sessions.length}-sessions-${new Date().toISOString().slice(0, 10)}.csv`,
+    );
+  }
+
+  return (
+    <section className="card debrief" aria-labelledby="compare-title" data-testid="compare-view">
+      <div className="row" style={{ justifyContent: "space-between" }}>
+        <h2 id="compare-title">Side by side</h2>
+        <div className="row no-print">
+          <button type="button" onClick={downloadCohort} data-testid="compare-csv">
+            Download cohort CSV
+          </button>
+          <button type="button" onClick={() => window.print()} data-testid="compare-print">
+            Print
+          </button>
+        </div>
+      </div>
+      <div className="caution" data-testid="compare-caution">
+        <strong>Read with care.</strong> A model, not advice: equilibrium is the benchmark of rivals
+        who all reason perfectly, not a target. Sessions of different scenarios differ in prize,
+        rivals and rules, so compare the shape of play (ratios and shares), not the amounts.
+        {currencies.size > 1 &&
+          " These sessions use different currencies: money is not comparable across them."}
+      </div>
+      <FigureTable
+        head={[textCol("No."), textCol("Session"), numCol("Rounds"), textCol("Created")]}
+        caption="Sessions compared (the number names each line in the charts)"
+        testId="compare-sessions"
+        wrapStyle={{ marginTop: "1rem" }}
+      >
+        {sessions.map((s, k) => (
+          <tr key={s.id}>
+            <td>
+              <span
+                aria-hidden="true"
+                style={{
+                  display: "inline-block",
+                  width: "0.9em",
+                  height: "0.9em",
+                  borderRadius: 2,
+                  background: seriesColour(k),
+                }}
+              />{" "}
+              {k + 1}
+            </td>
+            <td>{s.summary.session.title}</td>
+            <td className="num">{s.summary.rounds.length}</td>
+            <td>{formatDateTime(s.summary.session.createdAt)}</td>
+          </tr>
+        ))}
+      </FigureTable>
+      <div className="grid-2" style={{ marginTop: "1rem" }}>
+        <div>
+          <h3>Overspend index by round</h3>
+          <p className="small muted">
+            Money all rivals spent divided by the money they would spend at{" "}
+            <Term id="equilibrium">equilibrium</Term>. Above 1: the room overspent.
+          </p>
+          <LineSeriesChart
+            rows={overspend}
+            xKey="round"
+            xLabel="Round"
+            yLabel="Spend ÷ equilibrium spend (×)"
+            formatY={times}
+            formatX={roundTick}
+            marks={marks}
+            testId="compare-overspend-chart"
+            series={[
+              ...series,
+              { key: "eq", name: "Equilibrium (1×)", colour: EQUILIBRIUM_COLOUR, dashed: true },
+            ]}
+          />
+        </div>
+        <div>
+          <h3>Distance from equilibrium by round</h3>
+          <p className="small muted">
+            The round&apos;s largest <Term id="regret">regret</Term> as a share of its prize (the
+            Nash gap). A line falling towards 0 means play converged on equilibrium.
+          </p>
+          <LineSeriesChart
+            rows={gap}
+            xKey="round"
+            xLabel="Round"
+            yLabel="Largest regret (% of the prize)"
+            formatY={formatPercent}
+            formatX={roundTick}
+            marks={marks}
+            testId="compare-gap-chart"
+            series={series}
+          />
+        </div>
+      </div>
+      {events.length > 0 && (
+        <div data-testid="compare-marks">
+          <h3>Shocks and notes (marked on the round axis)</h3>
+          <ul>
+            {events.map((e) => (
+              <li key={`${e.session}-${e.round}-${e.kind}`}>
+                Session {e.session + 1}, round {e.round}:{" "}
+                {e.kind === "changed" ? `contest changed (${e.text})` : `note: ${e.text}`}
+              </li>
+            ))}
+          </ul>
+        </div>
+      )}
+      <CompareSeats sessions={sessions} />
+      <div className="caution" style={{ marginTop: "1rem" }}>
+        <strong>Cautions</strong>
+        <ul>
+          {CAUTION_LINES.map((l) => (
+            <li key={l}>{l}</li>
+          ))}
+        </ul>
+      </div>
+    </section>
+  );
+}
