@@ -11,7 +11,10 @@ import {
   XAxis,
   YAxis,
 } from "recharts";
+import { useRef } from "react";
 import { wholeNumberTicks } from "../lib/chartData";
+import { ChartSlideDownload } from "./ChartSlideDownload";
+import type { SlideText } from "./ChartSlideDownload";
 import type { AxisMark, Row } from "../lib/chartData";
 
 export interface Series {
@@ -34,6 +37,7 @@ export function LineSeriesChart({
   testId,
   dark,
   height = 300,
+  slide,
 }: {
   rows: readonly Row[];
   xKey: string;
@@ -47,13 +51,17 @@ export function LineSeriesChart({
   testId?: string;
   dark?: boolean;
   height?: number;
+  /** when given: buttons that save the chart as a 1920 x 1080 slide (SVG, PNG) */
+  slide?: SlideText;
 }) {
+  const ref = useRef<HTMLDivElement>(null);
   const axis = dark ? "#c9d4e0" : "#4a5565";
   // Rounds (every x a whole number) get one tick per round, never "1, 2, 2, 3".
   const ticks = wholeNumberTicks(rows, xKey);
   const grid = dark ? "#2a3848" : "#e3e7ec";
-  return (
+  const chart = (
     <div
+      ref={ref}
       className="chart"
       style={{ height }}
       data-testid={testId}
@@ -127,5 +135,18 @@ export function LineSeriesChart({
         </LineChart>
       </ResponsiveContainer>
     </div>
+  );
+  if (!slide) return chart;
+  return (
+    <>
+      {chart}
+      <ChartSlideDownload
+        chartRef={ref}
+        slide={slide}
+        units={`Vertical: ${yLabel} · across: ${xLabel}`}
+        legend={series}
+        testId={testId}
+      />
+    </>
   );
 }

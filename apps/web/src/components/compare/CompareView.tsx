@@ -1,5 +1,6 @@
 "use client";
 
+import { downloadFileName } from "@contend/protocol";
 import {
   changedRounds,
   cohortCsv,
@@ -18,6 +19,10 @@ import { FigureTable, numCol, textCol } from "../FigureTable";
 import { Term } from "../Glossary";
 import { LineSeriesChart } from "../LineSeriesChart";
 import { CompareSeats } from "./CompareSeats";
+
+/** What the marks on the round axis mean (the number before each label names the session). */
+const MARKS_CAPTION =
+  "Dashed vertical lines mark shocks (changed, \u26a1) and facilitator's notes, each led by its session's number.";
 
 const times = (v: number) => `${formatPlain(v, 2)}\u00d7`;
 
@@ -39,10 +44,7 @@ export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
 
   function downloadCohort() {
     const blob = new Blob([cohortCsv(sessions)], { type: "text/csv;charset=utf-8" });
-    saveBlob(
-      blob,
-      `cohort-${sessions.length}-sessions-${new Date().toISOString().slice(0, 10)}.csv`,
-    );
+    saveBlob(blob, downloadFileName(`cohort of ${sessions.length} sessions`, "csv", new Date()));
   }
 
   return (
@@ -108,6 +110,10 @@ export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
             formatX={roundTick}
             marks={marks}
             testId="compare-overspend-chart"
+            slide={{
+              title: "Overspend index by round",
+              caption: `Money all rivals spent divided by the money they would spend at equilibrium; above 1\u00d7 the room overspent. ${MARKS_CAPTION}`,
+            }}
             series={[
               ...series,
               { key: "eq", name: "Equilibrium (1×)", colour: EQUILIBRIUM_COLOUR, dashed: true },
@@ -129,6 +135,10 @@ export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
             formatX={roundTick}
             marks={marks}
             testId="compare-gap-chart"
+            slide={{
+              title: "Distance from equilibrium by round",
+              caption: `The round's largest regret as a share of its prize (the Nash gap); a line falling towards 0 means play converged. ${MARKS_CAPTION}`,
+            }}
             series={series}
           />
         </div>

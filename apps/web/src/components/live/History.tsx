@@ -9,6 +9,11 @@ import { DataTable } from "../DataTable";
 import { LineSeriesChart } from "../LineSeriesChart";
 import type { Series } from "../LineSeriesChart";
 import type { Row } from "../../lib/chartData";
+import type { SlideText } from "../ChartSlideDownload";
+
+/** How a round axis reads on a slide: what the marks and the sign on a round number mean. */
+const MARKS_CAPTION =
+  "A dashed vertical line marks a round whose contest changed (\u26a1) or that the facilitator noted.";
 
 /** A chart of money per round (rounds on x, whole numbers; y in the session's currency). */
 function RoundsChart({
@@ -21,6 +26,7 @@ function RoundsChart({
   notes = [],
   dark,
   height,
+  slide,
 }: {
   rows: readonly Row[];
   yLabel: string;
@@ -33,9 +39,11 @@ function RoundsChart({
   notes?: readonly RoundResult[];
   dark?: boolean;
   height?: number;
+  slide?: SlideText;
 }) {
   return (
     <LineSeriesChart
+      slide={slide}
       rows={rows}
       xKey="round"
       xLabel="Round"
@@ -110,12 +118,15 @@ export function RoomHistory({
   currency,
   dark,
   testPrefix = "history",
+  slideTitle,
 }: {
   rounds: readonly RoundResult[];
   names: readonly string[];
   currency: string | null | undefined;
   dark?: boolean;
   testPrefix?: string;
+  /** when given (the session's title): each chart can be saved as a slide */
+  slideTitle?: string;
 }) {
   const seats = names.map((_, i) => i).filter((s) => rounds.some((r) => r.seatIndices.includes(s)));
   const effort = perSeatOverRounds(rounds, seats, (r, s) => r.spends[s] ?? null);
@@ -142,6 +153,14 @@ export function RoomHistory({
           notes={rounds}
           testId={`${testPrefix}-effort-chart`}
           dark={dark}
+          slide={
+            slideTitle === undefined
+              ? undefined
+              : {
+                  title: `${slideTitle}: spends against equilibrium`,
+                  caption: `Each rival's spend per round (solid) and its equilibrium spend (dashed), in ${currency ?? "money"}. ${MARKS_CAPTION}`,
+                }
+          }
           series={seats.flatMap((s) => [
             { key: `s${s}`, name: nameOf(s), colour: seriesColour(s) },
             {
@@ -183,6 +202,14 @@ export function RoomHistory({
           notes={rounds}
           testId={`${testPrefix}-regret-chart`}
           dark={dark}
+          slide={
+            slideTitle === undefined
+              ? undefined
+              : {
+                  title: `${slideTitle}: regret per seat`,
+                  caption: `Money each rival left on the table per round, given what the others spent (${currency ?? "money"}); 0 means it played its best reply. ${MARKS_CAPTION}`,
+                }
+          }
           series={seats.map((s) => ({ key: `s${s}`, name: nameOf(s), colour: seriesColour(s) }))}
         />
         <DataTable

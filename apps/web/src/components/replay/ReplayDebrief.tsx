@@ -112,6 +112,7 @@ export function ReplayDebrief({
               names={names}
               currency={currency}
               testPrefix="replay-history"
+              slideTitle={data.session.title}
             />
           </div>
         </>
