@@ -13,6 +13,7 @@ import {
   compareMarks,
   roundRows,
   sessionKey,
+  sessionLabels,
 } from "../src/lib/compare";
 import type { Compared } from "../src/lib/compare";
 import { playSession } from "./session-log";
@@ -48,6 +49,18 @@ describe("roundRows(sessions, pick)", () => {
     expect(rows[1]![sessionKey(1)]).toBe(autumn.summary.rounds[1]!.overspend);
     expect(rows[2]![sessionKey(1)]).toBeNull();
     expect(rows[2]![sessionKey(0)]).not.toBeNull();
+  });
+});
+
+describe("sessionLabels(sessions)", () => {
+  it("sessionLabels numbers each session and adds the start time only where titles repeat", () => {
+    const rerun = compared(
+      playSession({ id: "s-rerun", title: "=Kiosk lease autumn", spends: [9] }),
+    );
+    const labels = sessionLabels([spring, autumn, rerun]);
+    expect(labels[0]).toBe('1. Kiosk lease, "spring", with a comma');
+    expect(labels[1]).toMatch(/^2\. =Kiosk lease autumn \(\d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC\)$/);
+    expect(labels[2]).toMatch(/^3\. =Kiosk lease autumn \(/);
   });
 });
 

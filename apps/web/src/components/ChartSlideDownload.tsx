@@ -19,7 +19,7 @@ const SCREEN_ONLY = ".recharts-tooltip-cursor, .recharts-active-dot";
 
 /** The chart's drawing as markup with its size and font size, read from the page. */
 function readChart(container: HTMLElement | null) {
-  const svg = container?.querySelector<SVGSVGElement>("svg.recharts-surface");
+  const svg = container?.querySelector<SVGSVGElement>(".recharts-wrapper > svg.recharts-surface");
   if (!svg) return null;
   const box = svg.getBoundingClientRect();
   const width = Number(svg.getAttribute("width")) || box.width;

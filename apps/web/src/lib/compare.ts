@@ -8,6 +8,7 @@ import type { SessionSummaryBody, SummaryRound } from "@contend/protocol";
 import { toCsv } from "@contend/protocol";
 import type { CsvCell } from "@contend/protocol";
 import type { AxisMark, Row } from "./chartData";
+import { formatDateTime } from "./format";
 
 export interface Compared {
   id: string;
@@ -17,9 +18,17 @@ export interface Compared {
 /** The key of session k's series in the by-round rows. */
 export const sessionKey = (k: number) => `c${k}`;
 
-/** "1. Title": numbered so two runs of the same drill stay apart in a legend. */
-export function sessionLabel(k: number, title: string): string {
-  return `${k + 1}. ${title}`;
+/**
+ * Each session's name in legends: "1. Title", numbered so two runs of the same drill stay apart;
+ * a title that more than one compared session shares also carries its start time.
+ */
+export function sessionLabels(sessions: readonly Compared[]): string[] {
+  const titles = sessions.map((s) => s.summary.session.title);
+  return sessions.map((s, k) => {
+    const t = titles[k]!;
+    const shared = titles.filter((x) => x === t).length > 1;
+    return `${k + 1}. ${t}${shared ? ` (${formatDateTime(s.summary.session.createdAt)})` : ""}`;
+  });
 }
 
 /**

@@ -1,10 +1,10 @@
 "use client";
 
-import { sessionLabel } from "../../lib/compare";
 import type { Compared } from "../../lib/compare";
 import { formatMoney, formatPercent, formatPlain } from "../../lib/format";
 import { FigureTable, numCol, textCol } from "../FigureTable";
 import { Term } from "../Glossary";
+import { SessionNumber } from "./SessionNumber";
 
 const DASH = "\u2013";
 
@@ -13,7 +13,7 @@ export function CompareSeats({ sessions }: { sessions: readonly Compared[] }) {
   return (
     <FigureTable
       head={[
-        textCol("Session"),
+        textCol("Session no."),
         textCol("Rival"),
         textCol("Played by"),
         numCol("Rounds"),
@@ -35,7 +35,9 @@ export function CompareSeats({ sessions }: { sessions: readonly Compared[] }) {
           .filter((seat) => seat.rounds > 0)
           .map((seat) => (
             <tr key={`${s.id}-${seat.seat}`} data-session={k + 1}>
-              <td>{sessionLabel(k, s.summary.session.title)}</td>
+              <td>
+                <SessionNumber index={k} />
+              </td>
               <td>{seat.rival}</td>
               <td>{seat.kind}</td>
               <td className="num">{seat.rounds}</td>

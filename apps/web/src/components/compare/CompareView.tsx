@@ -8,7 +8,7 @@ import {
   compareMarks,
   roundRows,
   sessionKey,
-  sessionLabel,
+  sessionLabels,
 } from "../../lib/compare";
 import type { Compared } from "../../lib/compare";
 import { formatDateTime, formatPercent, formatPlain } from "../../lib/format";
@@ -17,8 +17,10 @@ import { saveBlob } from "../../lib/saveFile";
 import { CAUTION_LINES } from "../Cautions";
 import { FigureTable, numCol, textCol } from "../FigureTable";
 import { Term } from "../Glossary";
+import { DataTable } from "../DataTable";
 import { LineSeriesChart } from "../LineSeriesChart";
 import { CompareSeats } from "./CompareSeats";
+import { SessionNumber } from "./SessionNumber";
 
 /** What the marks on the round axis mean (the number before each label names the session). */
 const MARKS_CAPTION =
@@ -28,15 +30,19 @@ const times = (v: number) => `${formatPlain(v, 2)}\u00d7`;
 
 /** Two or more sessions side by side: by-round charts, seats, shocks and notes, the cohort file. */
 export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
-  const label = (k: number) => sessionLabel(k, sessions[k]!.summary.session.title);
+  const labels = sessionLabels(sessions);
   const series = sessions.map((_, k) => ({
     key: sessionKey(k),
-    name: label(k),
+    name: labels[k]!,
     colour: seriesColour(k),
   }));
   const overspend = roundRows(sessions, (r) => r.overspend).map((row) => ({ ...row, eq: 1 }));
   const gap = roundRows(sessions, (r) => r.nashGapShare);
   const marks = compareMarks(sessions);
+  const columns = (format: (v: number) => string) => [
+    { key: "round", label: "Round" },
+    ...series.map((s, k) => ({ key: s.key, label: `Session ${k + 1}`, format })),
+  ];
   const changed = changedRounds(sessions);
   const roundTick = (v: number) => `${formatPlain(v, 0)}${changed.has(v) ? " \u26a1" : ""}`;
   const events = compareEvents(sessions);
@@ -76,17 +82,7 @@ export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
         {sessions.map((s, k) => (
           <tr key={s.id}>
             <td>
-              <span
-                aria-hidden="true"
-                style={{
-                  display: "inline-block",
-                  width: "0.9em",
-                  height: "0.9em",
-                  borderRadius: 2,
-                  background: seriesColour(k),
-                }}
-              />{" "}
-              {k + 1}
+              <SessionNumber index={k} />
             </td>
             <td>{s.summary.session.title}</td>
             <td className="num">{s.summary.rounds.length}</td>
@@ -119,6 +115,12 @@ export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
               { key: "eq", name: "Equilibrium (1×)", colour: EQUILIBRIUM_COLOUR, dashed: true },
             ]}
           />
+          <DataTable
+            rows={overspend}
+            columns={columns(times)}
+            caption="Overspend index by round (spend ÷ equilibrium spend)"
+            testId="compare-overspend-table"
+          />
         </div>
         <div>
           <h3>Distance from equilibrium by round</h3>
@@ -140,6 +142,12 @@ export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
               caption: `The round's largest regret as a share of its prize (the Nash gap); a line falling towards 0 means play converged. ${MARKS_CAPTION}`,
             }}
             series={series}
+          />
+          <DataTable
+            rows={gap}
+            columns={columns(formatPercent)}
+            caption="Largest regret by round, as a share of the prize"
+            testId="compare-gap-table"
           />
         </div>
       </div>
