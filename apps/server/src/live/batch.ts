@@ -121,7 +121,7 @@ export async function commitBatch(
     const add = (events: readonly EventBody[]) => {
       for (const e of events) {
         const seq = base + stamped.length + 1;
-        const event = asStored({ ...e, seq, at } as SessionEvent, seq);
+        const event = asStored({ ...e, seq, at }, seq);
         stamped.push(event);
         trial = apply(trial, event);
       }
