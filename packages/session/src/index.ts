@@ -30,6 +30,8 @@ export {
 } from "./effort";
 export type { SpendCheck } from "./effort";
 export { roundWithMoney } from "./money";
+export { placementText, spendPlacement } from "./placement";
+export type { SpendPlacement } from "./placement";
 export { shockText } from "./shockText";
 export { NEAR_BEST_REPLY, summarizeSession } from "./summary";
 export type { SummaryOptions } from "./summary";

@@ -12,6 +12,10 @@ export const GLOSSARY = {
     term: "Equilibrium",
     text: "The spends at which no rival could do better by changing only its own spend, given what the others spend. The benchmark for everyone reasoning perfectly (a Nash equilibrium).",
   },
+  "mixed-equilibrium": {
+    term: "Mixed equilibrium",
+    text: "An equilibrium in which a rival draws its spend at random from a set of amounts, so no one can predict it and exploit it. Its equilibrium spend is the expected (average) spend; a single round's spend is compared with the whole spread: the chance that the equilibrium would have spent less.",
+  },
   "best-reply": {
     term: "Best reply",
     text: "The spend that would have paid a rival most, given what the others actually spent.",

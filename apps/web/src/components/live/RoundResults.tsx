@@ -11,7 +11,8 @@ import {
   YAxis,
 } from "recharts";
 import type { RoundResult } from "@contend/protocol";
-import { roundSeatRows } from "../../lib/chartData";
+import { spendPlacement } from "@contend/session";
+import { roundSeatRows, type Row } from "../../lib/chartData";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";
@@ -34,7 +35,11 @@ export function RoundResults({
   highlightSeat?: number;
   testPrefix?: string;
 }) {
-  const rows = roundSeatRows(round, names);
+  const mixed = round.equilibrium.kind === "mixed";
+  const rows: Row[] = roundSeatRows(round, names).map((r) => ({
+    ...r,
+    below: mixed ? (spendPlacement(round, Number(r.seat))?.probabilityLess ?? null) : null,
+  }));
   const money = (v: number) => formatMoney(v, currency);
   const axis = dark ? "#c9d4e0" : "#4a5565";
   const eqKind = round.equilibrium.kind;
@@ -99,6 +104,13 @@ export function RoundResults({
           </BarChart>
         </ResponsiveContainer>
       </div>
+      {mixed ? (
+        <p className="small muted" data-testid={`${testPrefix}-mixed-note`}>
+          The <Term id="mixed-equilibrium">equilibrium is mixed</Term>: each rival draws its spend
+          at random. &ldquo;Equilibrium spend&rdquo; is the expected spend; the chance column says
+          how often the equilibrium would have spent less than the spend played.
+        </p>
+      ) : null}
       <DataTable
         caption={`Round ${round.round}: per seat`}
         testId={`${testPrefix}-table`}
@@ -110,7 +122,20 @@ export function RoundResults({
         columns={[
           { key: "name", label: "Rival" },
           { key: "spend", label: "Spend", format: money },
-          { key: "equilibrium", label: "Equilibrium spend", format: money },
+          {
+            key: "equilibrium",
+            label: mixed ? "Equilibrium spend (expected)" : "Equilibrium spend",
+            format: money,
+          },
+          ...(mixed
+            ? [
+                {
+                  key: "below",
+                  label: "Chance equilibrium spends less",
+                  format: (v: number) => formatPercent(v),
+                },
+              ]
+            : []),
           { key: "share", label: "Share", format: (v) => formatPercent(v) },
           { key: "payoff", label: "Payoff", format: money },
           { key: "bestResponse", label: "Best reply (spend)", format: money },

@@ -1,4 +1,5 @@
 import type { RoleView } from "@contend/protocol";
+import { placementText, spendPlacement } from "@contend/session";
 import { equilibriumPayoffOf } from "../../lib/chartData";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { seatNames } from "../../lib/live";
@@ -15,6 +16,7 @@ export function SeatRoundResult({ view }: { view: RoleView }) {
   const last = view.rounds.length > 0 ? view.rounds[view.rounds.length - 1] : undefined;
   const show = last !== undefined && view.status !== "open";
   const eqPay = last ? equilibriumPayoffOf(last, seat) : null;
+  const placed = last ? spendPlacement(last, seat) : null;
   return (
     <section className="card" aria-labelledby="result-title" style={{ minHeight: "12rem" }}>
       <h2 id="result-title">{show ? `Round ${last.round} result` : "Results"}</h2>
@@ -30,9 +32,23 @@ export function SeatRoundResult({ view }: { view: RoleView }) {
             <Kpi label="You spent" testId="seat-spend">
               {money(last.spends[seat])}
             </Kpi>
-            <Kpi label={<Term id="equilibrium">Equilibrium spend</Term>} testId="seat-eq-spend">
+            <Kpi
+              label={
+                placed ? (
+                  <Term id="mixed-equilibrium">Equilibrium spend (expected)</Term>
+                ) : (
+                  <Term id="equilibrium">Equilibrium spend</Term>
+                )
+              }
+              testId="seat-eq-spend"
+            >
               {money(last.equilibriumSpends[seat])}
             </Kpi>
+            {placed ? (
+              <Kpi label="Chance equilibrium spends less" testId="seat-eq-below">
+                {formatPercent(placed.probabilityLess)}
+              </Kpi>
+            ) : null}
             <Kpi
               label={<Term id="best-reply">Best reply to the others (spend)</Term>}
               testId="seat-best-reply"
@@ -54,6 +70,11 @@ export function SeatRoundResult({ view }: { view: RoleView }) {
             {last.winner !== null ? `Winner drawn: ${names[last.winner] ?? "?"}. ` : ""}
             {eqPay !== null ? `At equilibrium your expected payoff would be ${money(eqPay)}.` : ""}
           </p>
+          {placed ? (
+            <p className="small" data-testid="seat-placement" style={{ marginTop: "0.25rem" }}>
+              {placementText(placed, (v) => money(v), formatPercent, "your strategy")}
+            </p>
+          ) : null}
           <h3 style={{ marginTop: "1rem" }}>Everyone, round {last.round}</h3>
           <RoundResults
             round={last}

@@ -2,6 +2,7 @@
 
 import { Bar, BarChart, CartesianGrid, ResponsiveContainer, XAxis, YAxis } from "recharts";
 import type { RoleView, RoundResult } from "@contend/protocol";
+import { spendPlacement } from "@contend/session";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { SCREEN } from "../../lib/palette";
 import { sealProgress, sessionSummary, standings } from "../../lib/roomState";
@@ -72,8 +73,10 @@ function TickIcon() {
 export function RevealPanel({ round, view }: { round: RoundResult; view: RoleView }) {
   const currency = view.scenario.currency ?? null;
   const money = (v: number | null) => (v === null ? "\u2013" : formatMoney(v, currency));
+  const mixed = round.equilibrium.kind === "mixed";
   const rows = round.seatIndices.map((seat) => {
     return {
+      below: mixed ? (spendPlacement(round, seat)?.probabilityLess ?? null) : null,
       seat,
       name: view.seats[seat]?.name ?? `Seat ${seat + 1}`,
       spent: round.spends[seat] ?? null,
@@ -126,7 +129,7 @@ export function RevealPanel({ round, view }: { round: RoundResult; view: RoleVie
             <Bar dataKey="spent" name="Spent" fill={SCREEN.series[0]} isAnimationActive={false} />
             <Bar
               dataKey="equilibrium"
-              name="Equilibrium spend"
+              name={mixed ? "Expected equilibrium spend" : "Equilibrium spend"}
               fill={SCREEN.equilibrium}
               isAnimationActive={false}
             />
@@ -135,7 +138,8 @@ export function RevealPanel({ round, view }: { round: RoundResult; view: RoleVie
       </div>
       <p className="screen-legend" aria-hidden="true">
         <span className="swatch" style={{ background: SCREEN.series[0] }} /> Spent
-        <span className="swatch" style={{ background: SCREEN.equilibrium }} /> Equilibrium spend
+        <span className="swatch" style={{ background: SCREEN.equilibrium }} />{" "}
+        {mixed ? "Expected equilibrium spend" : "Equilibrium spend"}
       </p>
       <table className="screen-table" data-testid="screen-round-table">
         <thead>
@@ -145,8 +149,13 @@ export function RevealPanel({ round, view }: { round: RoundResult; view: RoleVie
               Spent
             </th>
             <th scope="col" className="num">
-              Equilibrium
+              {mixed ? "Equilibrium (expected)" : "Equilibrium"}
             </th>
+            {mixed ? (
+              <th scope="col" className="num">
+                Equilibrium spends less
+              </th>
+            ) : null}
             <th scope="col" className="num">
               Winning chance
             </th>
@@ -161,6 +170,11 @@ export function RevealPanel({ round, view }: { round: RoundResult; view: RoleVie
               <th scope="row">{r.name}</th>
               <td className="num">{money(r.spent)}</td>
               <td className="num">{money(r.equilibrium)}</td>
+              {mixed ? (
+                <td className="num" data-testid={`screen-below-${r.seat}`}>
+                  {r.below === null ? "\u2013" : formatPercent(r.below)}
+                </td>
+              ) : null}
               <td className="num">{r.share === null ? "\u2013" : formatPercent(r.share)}</td>
               <td className="num">{money(r.payoff)}</td>
             </tr>
