@@ -3,19 +3,22 @@
 // finite mix, the points summed directly and the computer seats' own draws from them.
 import { describe, expect, it } from "vitest";
 import { drawPoint, mulberry32 } from "@contend/solver";
-import { placementText, spendPlacement, viewFor } from "../src/index";
+import { placementText, spendPlacement, summarizeSession, viewFor } from "../src/index";
 import { Room, facilitator, scenarioWith, seat } from "./harness";
 
 const spend = (room: Room, s: number, amount: number) =>
   room.ok({ type: "sealMove", clientMoveId: `m-${s}-${amount}`, spend: amount }, seat(s));
 
-function playedRound(patch: Record<string, unknown>, spends: number[]) {
+function playedRoom(patch: Record<string, unknown>, spends: number[]) {
   const room = new Room(scenarioWith({}, patch));
   room.ok({ type: "openRound" }, facilitator);
   spends.forEach((x, s) => spend(room, s, x));
   room.ok({ type: "closeRound" }, facilitator);
-  return viewFor(room.state, { role: "spectator" }).rounds[0]!;
+  return room;
 }
+
+const playedRound = (patch: Record<string, unknown>, spends: number[]) =>
+  viewFor(playedRoom(patch, spends).state, { role: "spectator" }).rounds[0]!;
 
 describe("a played spend placed in the mixed equilibrium", () => {
   it("three identical all-pay rivals: P(less) = (spend / prize)^(1/2) (Baye, Kovenock & de Vries 1996)", () => {
@@ -67,6 +70,27 @@ describe("a played spend placed in the mixed equilibrium", () => {
     // spending nothing: the chance of the same is the mix's weight at zero
     const zero = points.filter((q) => q.effort === 0).reduce((s, q) => s + q.probability, 0);
     expect(spendPlacement(round, 1)!.probabilitySame).toBeCloseTo(zero, 12);
+  });
+
+  it("the session summary's overspend in a mixed round divides by the expected equilibrium spends", () => {
+    const room = playedRoom(
+      {
+        csf: { kind: "ratio", decisiveness: 3 },
+        rivals: [
+          { name: "A", cost: 2 },
+          { name: "B", cost: 2 },
+        ],
+      },
+      [30, 10],
+    );
+    const round = viewFor(room.state, { role: "spectator" }).rounds[0]!;
+    const expected = round.equilibrium.strategies!.map(
+      (st) => 2 * st.points!.reduce((s, p) => s + p.effort * p.probability, 0),
+    );
+    const summary = summarizeSession(room.log)!;
+    expect(summary.rounds[0]!.equilibriumTotalSpend).toBeCloseTo(expected[0]! + expected[1]!, 9);
+    expect(summary.rounds[0]!.overspend).toBeCloseTo(40 / (expected[0]! + expected[1]!), 9);
+    expect(summary.seats[0]!.overspend).toBeCloseTo(30 / expected[0]!, 9);
   });
 
   it("pure rounds have no placement; the sentence names money and chances", () => {
