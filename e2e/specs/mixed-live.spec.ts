@@ -8,10 +8,11 @@
  * Screens saved at 1366x768, 1920x1080 and 390x844 (the big screen at the first two).
  */
 import type { Page } from "@playwright/test";
-import { createSession, exportJson } from "../support/api";
-import { connectAs } from "../support/client";
+import { exportJson } from "../support/api";
 import { expect, test } from "../support/fixtures";
-import { expectAllInside, pathOf, SIZES } from "../support/room";
+import { pathOf, sealSpend } from "../support/live";
+import { expectAllInside, SIZES } from "../support/room";
+import { connectSession } from "../support/session";
 
 const NAMES = ["Harbour Lights Catering", "Millstone Kitchens"];
 
@@ -63,12 +64,8 @@ test("a mixed round: seat, console and big screen place the spend in the equilib
   saveScreen,
 }) => {
   const origin = baseURL!;
-  const created = await createSession(origin, scenario);
-  const other = await connectAs(origin, {
-    role: "seat",
-    sessionId: created.id,
-    key: created.seats[1]!.key!,
-  });
+  const session = await connectSession(origin, scenario, [1]);
+  const { created } = session;
   const ctx = await browser.newContext({ baseURL: origin, viewport: SIZES.laptop });
   const seatPage = await ctx.newPage();
   const fac = await ctx.newPage();
@@ -78,11 +75,8 @@ test("a mixed round: seat, console and big screen place the spend in the equilib
     await screen.goto(pathOf(created.links.spectator));
     await seatPage.goto(pathOf(created.seats[0]!.link!));
     await fac.getByTestId("open-round").click();
-    await seatPage.getByTestId("spend-input").fill("30");
-    await seatPage.getByTestId("seal-button").click();
-    await seatPage.getByTestId("seal-confirm-button").click();
-    await expect(seatPage.getByTestId("seat-sealed-amount")).toContainText("30");
-    await other.command({ type: "sealMove", clientMoveId: "r1-s1", spend: 0 });
+    await sealSpend(seatPage, 30);
+    await session.seats[0]!.command({ type: "sealMove", clientMoveId: "r1-s1", spend: 0 });
     // the last seal reveals the round
     await expect(screen.getByTestId("screen-headline")).toHaveText("Round 1 revealed");
 
@@ -119,7 +113,7 @@ test("a mixed round: seat, console and big screen place the spend in the equilib
     }
     await shoot(screen, saveScreen, "mixed-live-big-screen", ["laptop", "projector"]);
   } finally {
-    other.close();
+    session.close();
     await ctx.close();
   }
 });
