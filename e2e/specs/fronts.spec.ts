@@ -3,10 +3,14 @@
  * re-derived in packages/solver/test/fronts-theory.test.ts: rivals with sunk budgets, unit
  * costs and weights, r = 1 on every front, split each budget in proportion to the prizes,
  * x_ik = B_i V_k / sum V. The page must show those spends, keep them when a front is added and
- * removed again, follow them along a budget sweep, and never scroll sideways.
+ * removed again, follow them along a budget sweep, and never scroll sideways. The second journey
+ * opens a link holding a scenario and sweep settings, turns a front into an all-pay auction
+ * (no pure equilibrium: Baye, Kovenock & de Vries 1996; from memory), and cancels a long sweep
+ * that runs in a Web Worker while the page keeps taking input.
  */
 import type { Page } from "@playwright/test";
 import { expect, test } from "../support/fixtures";
+import { readLongTasks, resetLongTasks, watchLongTasks } from "../support/longTasks";
 import { expectShown } from "../support/numbers";
 
 const PRIZES = [100, 300, 600];
@@ -101,4 +105,82 @@ test("fronts explorer(Friedman case: sunk budgets 3,000 and 7,000, prizes 100/30
   await phone.getByTestId("fronts-eq").scrollIntoViewIfNeeded();
   await saveScreen(phone, "fronts-explorer-390");
   await phone.close();
+});
+
+const FRIEDMAN_LINK = {
+  sc: {
+    title: "Friedman's case",
+    currency: "EUR",
+    fronts: PRIZES.map((p, k) => ({
+      name: `F${k}`,
+      prize: p,
+      csf: { kind: "ratio", decisiveness: 1 },
+    })),
+    rivals: BUDGETS.map((b, i) => ({ name: `R${i}`, cost: 1, budget: b, sunkBudget: true })),
+  },
+  sw: { param: "rivals.0.budget", from: "1000", to: "5000", steps: "5", metric: "front:2" },
+};
+
+function linkState(url: string): string {
+  return Buffer.from(new URL(url).searchParams.get("s") ?? "", "base64url").toString();
+}
+
+test("fronts explorer(link with Friedman's case and a sweep) restores both; an all-pay front says none-pure; a long sweep runs in a worker and cancels", async ({
+  page,
+  saveScreen,
+}) => {
+  await watchLongTasks(page);
+  await page.setViewportSize({ width: 1920, height: 1080 });
+  const s = Buffer.from(JSON.stringify(FRIEDMAN_LINK)).toString("base64url");
+  await page.goto(`/explore/fronts?s=${s}`);
+  await expectFriedman(page);
+  await expect(page.getByTestId("fronts-sweep-param")).toHaveValue("rivals.0.budget");
+  await expect(page.getByTestId("fronts-sweep-from")).toHaveValue("1000");
+  await expect(page.getByTestId("fronts-sweep-steps")).toHaveValue("5");
+  await expect(page.getByTestId("fronts-sweep-metric")).toHaveValue("front:2");
+  await page.getByTestId("fronts-sweep-run").click();
+  const rows = page.getByTestId("fronts-sweep-table").locator("tbody tr");
+  await expect(rows).toHaveCount(5);
+  await expectShown(rows.nth(4).locator('td[data-col="r0"]'), (5000 * 600) / SUM, "sweep end");
+
+  // front 0 becomes an all-pay auction: no pure equilibrium, and the note names the front
+  await page.getByTestId("front-0-kind").selectOption("allpay");
+  await expect(page.getByTestId("front-0-param")).toBeDisabled();
+  // the earlier sweep stays on screen, marked as run on the scenario before the edit
+  await expect(page.getByTestId("fronts-sweep-stale")).toBeVisible();
+  await expect(page.getByTestId("fronts-eq-none")).toContainText(
+    'front "F0" is an all-pay auction',
+  );
+  await expect(page.getByTestId("fronts-eq-none")).toContainText("Baye, Kovenock & de Vries 1996");
+  await noSideScroll(page, "fronts explorer at 1920");
+  await saveScreen(page, "fronts-explorer-allpay-1920");
+
+  // a long sweep (every point a none-pure search over two all-pay fronts) shows progress and
+  // Cancel stops it; while the next one runs the page still takes input
+  await page.getByTestId("front-1-kind").selectOption("allpay");
+  await expect(page.getByTestId("fronts-eq-none")).toContainText('fronts "F0", "F1" are');
+  await page.getByTestId("fronts-sweep-steps").fill("101");
+  await resetLongTasks(page);
+  await page.getByTestId("fronts-sweep-run").click();
+  await expect(page.getByTestId("fronts-sweep-progress")).toBeVisible();
+  await page.getByTestId("fronts-sweep-cancel").click();
+  await expect(page.getByTestId("fronts-sweep-cancelled")).toBeVisible();
+  await expect(page.getByTestId("fronts-sweep-progress")).toHaveCount(0);
+  await page.getByTestId("fronts-sweep-run").click();
+  await expect(page.getByTestId("fronts-sweep-progress")).toBeVisible();
+  await page.getByTestId("fronts-title").fill("Typed while the sweep runs");
+  await expect(page.getByTestId("fronts-title")).toHaveValue("Typed while the sweep runs");
+  await expect(page.getByTestId("fronts-sweep-table").locator("tbody tr")).toHaveCount(101, {
+    timeout: 60_000,
+  });
+  // A figure for the report, not a timed assertion (speed targets live in benchmarks).
+  console.log(
+    `fronts sweep: long tasks on the page (ms): ${JSON.stringify(await readLongTasks(page))}`,
+  );
+
+  // the address bar holds the edits: the all-pay front, the new title and 101 points
+  await expect.poll(() => linkState(page.url())).toContain('"kind":"allpay"');
+  const state = JSON.parse(linkState(page.url())) as typeof FRIEDMAN_LINK;
+  expect(state.sc.title).toBe("Typed while the sweep runs");
+  expect(state.sw.steps).toBe("101");
 });

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import {
+  formatCompact,
   currencyPrefix,
   formatClock,
   formatMoney,
@@ -73,6 +74,16 @@ describe("one number format", () => {
     expect(formatSigned(0.25)).toBe("+0.25");
     expect(formatSigned(-1.3, 2)).toBe("-1.30");
     expect(formatSigned(0, 1)).toBe("0.0");
+  });
+});
+
+describe("compact axis numbers", () => {
+  it("formatCompact abbreviates thousands and millions with at most four significant digits (en-US Intl compact notation)", () => {
+    expect(formatCompact(45000)).toBe("45K");
+    expect(formatCompact(51750)).toBe("51.75K");
+    expect(formatCompact(1234567)).toBe("1.235M");
+    expect(formatCompact(12.5)).toBe("12.5");
+    expect(formatCompact(Number.NaN)).toBe(formatNumber(Number.NaN));
   });
 });
 

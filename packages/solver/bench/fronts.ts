@@ -19,14 +19,20 @@ type Timer = (
   opts: { warmup: number; runs: number },
 ) => { median: number; p95: number };
 
-/** n rivals x K fronts, r in {1, 0.8, 0.6} by front; 3 in 4 rivals with budgets, a third of those sunk. */
-export function frontsScenario(n: number, K: number): FrontsContest {
+/**
+ * n rivals x K fronts, r in {1, 0.8, 0.6} by front (the first `allPay` fronts all-pay instead);
+ * 3 in 4 rivals with budgets, a third of those sunk.
+ */
+export function frontsScenario(n: number, K: number, allPay = 0): FrontsContest {
   const s: FrontsScenario = {
     title: `${n} rivals x ${K} fronts`,
     fronts: Array.from({ length: K }, (_, k) => ({
       name: `F${k}`,
       prize: 100 + 37 * ((k * 7) % 11),
-      csf: { kind: "ratio", decisiveness: [1, 0.8, 0.6][k % 3]! },
+      csf:
+        k < allPay
+          ? { kind: "allpay" as const }
+          : { kind: "ratio" as const, decisiveness: [1, 0.8, 0.6][k % 3]! },
     })),
     rivals: Array.from({ length: n }, (_, i) => ({
       name: `R${i}`,
@@ -43,11 +49,12 @@ export function frontsScenario(n: number, K: number): FrontsContest {
 
 export function frontsRows(time: Timer): FrontsRow[] {
   const rows: FrontsRow[] = [];
-  for (const [n, K, target] of [
-    [10, 20, "< 100 ms"],
-    [3, 4, "-"],
+  for (const [n, K, allPay, target] of [
+    [10, 20, 0, "< 100 ms"],
+    [3, 4, 0, "-"],
+    [3, 4, 2, "-"],
   ] as const) {
-    const c = frontsScenario(n, K);
+    const c = frontsScenario(n, K, allPay);
     const eq = solveFronts(c).equilibrium;
     const binding = (eq.shadowPrices ?? []).filter((x) => x !== null && x > 0).length;
     const t = time(() => solveFronts(c), { warmup: 3, runs: 15 });
@@ -57,12 +64,12 @@ export function frontsRows(time: Timer): FrontsRow[] {
     const cpu = process.cpuUsage(cpu0);
     const cpuMs = (cpu.user + cpu.system) / 1000 / 15;
     rows.push({
-      case: `solveFronts, ${n} rivals x ${K} fronts, budgets (incl. the global check)`,
+      case: `solveFronts, ${n} rivals x ${K} fronts${allPay ? ` (${allPay} all-pay)` : ""}, budgets (incl. the global check)`,
       target,
       runs: 15,
       medianMs: t.median,
       p95Ms: t.p95,
-      note: `mean CPU ${cpuMs.toFixed(1)} ms per solve; ${eq.kind}, ${eq.method}, Nash gap ${eq.nashGap.toExponential(2)}, ${binding} budgets bind`,
+      note: `mean CPU ${cpuMs.toFixed(1)} ms per solve; ${eq.kind}, ${eq.method}${eq.kind === "pure" ? `, Nash gap ${eq.nashGap.toExponential(2)}, ${binding} budgets bind` : ""}`,
     });
   }
   return rows;

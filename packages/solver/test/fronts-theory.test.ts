@@ -252,9 +252,15 @@ describe("sweepFronts", () => {
         { name: "B", cost: 1, budget: 40, sunkBudget: true },
       ],
     };
-    const res = sweepFronts(s, { param: "rivals.0.budget", from: 10, to: 50, steps: 5 });
+    const progress: string[] = [];
+    const res = sweepFronts(
+      s,
+      { param: "rivals.0.budget", from: 10, to: 50, steps: 5 },
+      { onProgress: (done, total) => progress.push(`${done}/${total}`) },
+    );
     expect(res.ok).toBe(true);
     if (!res.ok) return;
+    expect(progress).toEqual(["1/5", "2/5", "3/5", "4/5", "5/5"]);
     expect(res.value.map((p) => p.value)).toEqual([10, 20, 30, 40, 50]);
     for (const p of res.value) {
       expect(p.equilibrium.allocations![0]![0]).toBeCloseTo((p.value * 100) / 400, 6);

@@ -71,6 +71,17 @@ export function formatNumber(value: number, decimals?: number): string {
   }).format(value);
 }
 
+/**
+ * A short number for crowded chart axes: thousands and millions abbreviated ("45K", "1.2M"),
+ * at most four significant digits.
+ */
+export function formatCompact(value: number): string {
+  if (!Number.isFinite(value)) return DASH;
+  return numberFormat({ notation: "compact", maximumSignificantDigits: SIGNIFICANT_DIGITS }).format(
+    value,
+  );
+}
+
 /** Money in the session's currency: about four significant digits, at most to the cent. */
 export function formatMoney(value: number, currency?: string | null, decimals?: number): string {
   if (!Number.isFinite(value)) return DASH;

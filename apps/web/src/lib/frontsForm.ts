@@ -8,8 +8,8 @@ import type { FrontsScenario } from "@contend/solver";
 export interface FrontRow {
   name: string;
   prize: string;
-  kind: "ratio" | "logit";
-  /** decisiveness r (ratio) or scale k (logit) */
+  kind: "ratio" | "logit" | "allpay";
+  /** decisiveness r (ratio) or scale k (logit); unused for all-pay */
   param: string;
 }
 
@@ -90,7 +90,9 @@ export function frontsFormToRaw(form: FrontsForm): Record<string, unknown> {
       csf:
         f.kind === "ratio"
           ? { kind: "ratio", decisiveness: num(f.param) }
-          : { kind: "logit", scale: num(f.param) },
+          : f.kind === "logit"
+            ? { kind: "logit", scale: num(f.param) }
+            : { kind: "allpay" },
     })),
     rivals: form.rivals.map((r) => {
       const per = (cells: string[], blank: (k: number) => number) =>
@@ -183,7 +185,7 @@ export function scenarioToFrontsForm(s: FrontsScenario): FrontsForm {
     fronts: s.fronts.map((f) => ({
       name: f.name,
       prize: String(f.prize),
-      kind: f.csf.kind === "logit" ? "logit" : "ratio",
+      kind: f.csf.kind,
       param: String(
         f.csf.kind === "logit" ? f.csf.scale : f.csf.kind === "ratio" ? f.csf.decisiveness : 1,
       ),

@@ -62,7 +62,7 @@ export function solveFronts(fc: FrontsContest, opts: FrontsSolveOptions = {}): F
     equilibrium: nonePure(
       fc,
       "fronts:best-response-iteration",
-      `No pure-strategy equilibrium found: ${why}. Smallest Nash gap reached ${eq.nashGap.toPrecision(3)} (tolerance ${tol.toPrecision(3)}).`,
+      `No pure-strategy equilibrium found: ${why}. In the closest profile found some rival could still gain ${eq.nashGap.toPrecision(3)} (money) by re-splitting its budget (tolerance ${tol.toPrecision(3)}).`,
     ),
     alternatives: [],
   };

@@ -99,8 +99,17 @@ export function withFrontsParam(
   return v.ok ? v : fail(path, `value ${value} is not allowed: ${v.path}: ${v.message}`);
 }
 
+export interface FrontsSweepOptions {
+  /** called after each point with the points done and the total */
+  onProgress?: (done: number, total: number) => void;
+}
+
 /** The equilibrium at `steps` evenly spaced values of one parameter. */
-export function sweepFronts(s: FrontsScenario, spec: FrontsSweepSpec): Parsed<FrontsSweepPoint[]> {
+export function sweepFronts(
+  s: FrontsScenario,
+  spec: FrontsSweepSpec,
+  opts: FrontsSweepOptions = {},
+): Parsed<FrontsSweepPoint[]> {
   if (!Number.isInteger(spec.steps) || spec.steps < 2 || spec.steps > FRONTS_SWEEP_MAX_STEPS) {
     return fail(
       "steps",
@@ -115,6 +124,7 @@ export function sweepFronts(s: FrontsScenario, spec: FrontsSweepSpec): Parsed<Fr
     const at = withFrontsParam(s, spec.param, value);
     if (!at.ok) return at;
     points.push({ value, equilibrium: solveFronts(normalizeFronts(at.value)).equilibrium });
+    opts.onProgress?.(j + 1, spec.steps);
   }
   return { ok: true, value: points };
 }

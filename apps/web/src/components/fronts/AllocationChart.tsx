@@ -1,6 +1,5 @@
 "use client";
 
-import type { FrontsContest, FrontsEquilibrium } from "@contend/solver";
 import {
   Bar,
   BarChart,
@@ -13,17 +12,10 @@ import {
 } from "recharts";
 import { formatMoney, formatNumber } from "../../lib/format";
 import { seriesColour } from "../../lib/palette";
+import type { FrontsView } from "./FrontsResults";
 
 /** Each rival's money as one bar, stacked by front. */
-export function AllocationChart({
-  fc,
-  eq,
-  currency,
-}: {
-  fc: FrontsContest;
-  eq: FrontsEquilibrium;
-  currency: string | null;
-}) {
+export function AllocationChart({ fc, eq, currency }: FrontsView) {
   if (!eq.spends) return null;
   const rows = fc.rivals.map((r, i) => {
     const row: Record<string, string | number> = { name: r.name };

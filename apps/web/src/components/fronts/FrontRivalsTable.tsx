@@ -3,7 +3,8 @@
 import { useState } from "react";
 import type { FrontsForm, FrontsRivalRow, PerFrontField } from "../../lib/frontsForm";
 import { addRival, removeRival } from "../../lib/frontsForm";
-import { SelectField, TextField } from "../Field";
+import { SelectField } from "../Field";
+import { CellField, EditableRows } from "./EditableRows";
 
 type Setter = (update: (f: FrontsForm) => FrontsForm) => void;
 
@@ -27,102 +28,77 @@ export function FrontRivalsTable({ form, setForm }: { form: FrontsForm; setForm:
     }));
   const cur = form.currency.trim();
   return (
-    <fieldset>
-      <legend>Rivals and their budgets</legend>
-      <p className="small muted">
-        A budget is money over all fronts together (cost x effort summed); blank for no cap. Mark a
-        budget sunk when the money is committed either way: the rival then only cares about what it
-        wins. Pick which per-front figure the grid shows.
-      </p>
-      <div style={{ maxWidth: "22rem" }}>
-        <SelectField
-          label="Per-front figures"
-          value={field}
-          options={FIELDS}
-          onChange={setField}
-          testId="fronts-field"
-        />
-      </div>
-      <div className="table-wrap">
-        <table className="editor-table" data-testid="fronts-rivals-table">
-          <thead>
-            <tr>
-              <th scope="col">Rival</th>
-              <th scope="col">Budget{cur ? ` (${cur})` : ""}</th>
-              <th scope="col">Sunk</th>
-              {form.fronts.map((f, k) => (
-                <th key={k} scope="col">
-                  {f.name || `Front ${k + 1}`}
-                </th>
-              ))}
-              <th scope="col">
-                <span className="sr-only">Remove</span>
-              </th>
-            </tr>
-          </thead>
-          <tbody>
-            {form.rivals.map((r, i) => (
-              <tr key={i}>
-                <td>
-                  <TextField
-                    compact
-                    label={`Rival ${i + 1} name`}
-                    value={r.name}
-                    onChange={(v) => patch(i, { name: v })}
-                    testId={`frival-${i}-name`}
-                  />
-                </td>
-                <td>
-                  <TextField
-                    compact
-                    numeric
-                    label={`Rival ${i + 1} budget`}
-                    value={r.budget}
-                    placeholder="no cap"
-                    onChange={(v) => patch(i, { budget: v })}
-                    testId={`frival-${i}-budget`}
-                  />
-                </td>
-                <td>
-                  <input
-                    type="checkbox"
-                    checked={r.sunk}
-                    aria-label={`Rival ${i + 1} budget is sunk`}
-                    onChange={(e) => patch(i, { sunk: e.target.checked })}
-                    data-testid={`frival-${i}-sunk`}
-                  />
-                </td>
-                {form.fronts.map((f, k) => (
-                  <td key={k}>
-                    <TextField
-                      compact
-                      numeric
-                      label={`Rival ${i + 1} ${field} on ${f.name || `front ${k + 1}`}`}
-                      value={r[field][k] ?? ""}
-                      placeholder={field === "cost" ? "" : "default"}
-                      onChange={(v) => setCell(i, k, v)}
-                      testId={`frival-${i}-${field}-${k}`}
-                    />
-                  </td>
-                ))}
-                <td>
-                  <button
-                    type="button"
-                    onClick={() => setForm((x) => removeRival(x, i))}
-                    disabled={form.rivals.length <= 1}
-                    aria-label={`Remove rival ${r.name || i + 1}`}
-                  >
-                    Remove
-                  </button>
-                </td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
-      <button type="button" onClick={() => setForm(addRival)} data-testid="frival-add">
-        Add rival
-      </button>
-    </fieldset>
+    <EditableRows
+      legend="Rivals and their budgets"
+      intro={
+        <>
+          <p className="small muted">
+            A budget is money over all fronts together (cost x effort summed); blank for no cap.
+            Mark a budget sunk when the money is committed either way: the rival then only cares
+            about what it wins. Pick which per-front figure the grid shows.
+          </p>
+          <div style={{ maxWidth: "22rem" }}>
+            <SelectField
+              label="Per-front figures"
+              value={field}
+              options={FIELDS}
+              onChange={setField}
+              testId="fronts-field"
+            />
+          </div>
+        </>
+      }
+      headers={[
+        "Rival",
+        `Budget${cur ? ` (${cur})` : ""}`,
+        "Sunk",
+        ...form.fronts.map((f, k) => f.name || `Front ${k + 1}`),
+      ]}
+      items={form.rivals}
+      name={(r, i) => `rival ${r.name || i + 1}`}
+      onRemove={(i) => setForm((x) => removeRival(x, i))}
+      onAdd={() => setForm(addRival)}
+      addLabel="Add rival"
+      testId="fronts-rivals-table"
+      idPrefix="frival"
+      cells={(r, i) => (
+        <>
+          <CellField
+            label={`Rival ${i + 1} name`}
+            value={r.name}
+            onChange={(v) => patch(i, { name: v })}
+            testId={`frival-${i}-name`}
+          />
+          <CellField
+            numeric
+            label={`Rival ${i + 1} budget`}
+            value={r.budget}
+            placeholder="no cap"
+            onChange={(v) => patch(i, { budget: v })}
+            testId={`frival-${i}-budget`}
+          />
+          <td>
+            <input
+              type="checkbox"
+              checked={r.sunk}
+              aria-label={`Rival ${i + 1} budget is sunk`}
+              onChange={(e) => patch(i, { sunk: e.target.checked })}
+              data-testid={`frival-${i}-sunk`}
+            />
+          </td>
+          {form.fronts.map((f, k) => (
+            <CellField
+              key={k}
+              numeric
+              label={`Rival ${i + 1} ${field} on ${f.name || `front ${k + 1}`}`}
+              value={r[field][k] ?? ""}
+              placeholder={field === "cost" ? "" : "default"}
+              onChange={(v) => setCell(i, k, v)}
+              testId={`frival-${i}-${field}-${k}`}
+            />
+          ))}
+        </>
+      )}
+    />
   );
 }

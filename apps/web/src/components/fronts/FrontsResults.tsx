@@ -5,23 +5,22 @@ import { readAllocation } from "@contend/solver";
 import { formatMoney, formatNumber, formatPercent } from "../../lib/format";
 import { FigureTable, RowHeader, numCol, textCol } from "../FigureTable";
 
-/** The equilibrium split: money per front, budgets and shadow prices, shares, and the reading. */
-export function FrontsResults({
-  fc,
-  eq,
-  currency,
-}: {
+/** What the result views of the fronts explorer draw from. */
+export interface FrontsView {
   fc: FrontsContest;
   eq: FrontsEquilibrium;
   currency: string | null;
-}) {
+}
+
+/** The equilibrium split: money per front, budgets and shadow prices, shares, and the reading. */
+export function FrontsResults({ fc, eq, currency }: FrontsView) {
   const money = (v: number) => formatMoney(v, currency);
   const per = currency ? `per 1 ${currency}` : "per unit of money";
   if (eq.kind === "none-pure" || !eq.spends) {
     return (
       <section className="card" aria-labelledby="fronts-eq-title" data-testid="fronts-eq">
         <h2 id="fronts-eq-title">Equilibrium</h2>
-        <p data-testid="fronts-eq-none">No pure-strategy equilibrium found. {eq.note}</p>
+        <p data-testid="fronts-eq-none">{eq.note ?? "No pure-strategy equilibrium found."}</p>
       </section>
     );
   }

@@ -1,32 +1,43 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { memo, useMemo } from "react";
 import type { FrontsScenario, FrontsSweepPoint } from "@contend/solver";
-import { frontsParamPaths, sweepFronts } from "@contend/solver";
+import { frontsParamPaths } from "@contend/solver";
 import { frontsParamValue } from "../../lib/frontsForm";
-import { formatMoney, formatNumber } from "../../lib/format";
+import type { FrontsSweepSettings } from "../../lib/frontsState";
+import { formatCompact, formatMoney, formatNumber } from "../../lib/format";
 import { seriesColour } from "../../lib/palette";
 import type { Row } from "../../lib/chartData";
+import { useFrontsSweepRun } from "../../hooks/useFrontsWorker";
 import { DataTable } from "../DataTable";
 import { SelectField, TextField } from "../Field";
 import { LineSeriesChart } from "../LineSeriesChart";
+import { ProgressBar } from "../ProgressBar";
 
-const STEPS_MAX = 41;
+const STEPS_MAX = 101;
 
-/** One front or rival parameter swept over a range; each rival's spend, shadow price or payoff along it. */
-export function FrontsSweep({ scenario }: { scenario: FrontsScenario }) {
+/**
+ * One front or rival parameter swept over a range; each rival's spend, shadow price or payoff
+ * along it. The sweep runs in a Web Worker with progress and a cancel button; the settings
+ * live in the page address (see frontsState.ts).
+ */
+export function FrontsSweep({
+  scenario,
+  settings,
+  onSettings,
+}: {
+  scenario: FrontsScenario;
+  settings: FrontsSweepSettings;
+  onSettings: (s: FrontsSweepSettings) => void;
+}) {
   const options = useMemo(
     () => frontsParamPaths(scenario).map((p) => ({ value: p.path, label: p.label })),
     [scenario],
   );
-  const [param, setParam] = useState(options[0]?.value ?? "");
-  const [from, setFrom] = useState("");
-  const [to, setTo] = useState("");
-  const [steps, setSteps] = useState("21");
-  const [metric, setMetric] = useState("front:0");
-  const [result, setResult] = useState<
-    { points: FrontsSweepPoint[]; label: string } | { error: string } | null
-  >(null);
+  const { param, from, to, steps, metric } = settings;
+  const set = (p: Partial<FrontsSweepSettings>) => onSettings({ ...settings, ...p });
+  const sweep = useFrontsSweepRun();
+  const state = sweep.state;
   const cur = frontsParamValue(scenario, param);
   const fromText = from !== "" ? from : cur !== null ? String(cur / 2) : "";
   const toText = to !== "" ? to : cur !== null ? String(cur * 2) : "";
@@ -36,40 +47,15 @@ export function FrontsSweep({ scenario }: { scenario: FrontsScenario }) {
     { value: "shadow", label: "Shadow price of the budget" },
     { value: "payoff", label: "Payoff" },
   ];
-  const money = (v: number) => formatMoney(v, scenario.currency ?? null);
-  const run = () => {
-    const res = sweepFronts(scenario, {
+  const run = () =>
+    sweep.run(scenario, {
       param,
       from: Number(fromText),
       to: Number(toText),
       steps: Math.min(STEPS_MAX, Math.max(2, Math.round(Number(steps)) || 2)),
     });
-    const label = options.find((o) => o.value === param)?.label ?? param;
-    setResult(res.ok ? { points: res.value, label } : { error: `${res.path}: ${res.message}` });
-  };
-  const pick = (eq: FrontsSweepPoint["equilibrium"], i: number): number | null => {
-    if (eq.kind !== "pure") return null;
-    if (metric === "total") return eq.budgetUsed![i]!;
-    if (metric === "shadow") return eq.shadowPrices![i] ?? null;
-    if (metric === "payoff") return eq.payoffs![i]!;
-    const k = Number(metric.split(":")[1]);
-    return eq.spends![i]![k] ?? null;
-  };
-  const rows: Row[] =
-    result && "points" in result
-      ? result.points.map((p) => {
-          const row: Row = { x: p.value };
-          scenario.rivals.forEach((_, i) => (row[`r${i}`] = pick(p.equilibrium, i)));
-          return row;
-        })
-      : [];
-  const series = scenario.rivals.map((r, i) => ({
-    key: `r${i}`,
-    name: r.name,
-    colour: seriesColour(i),
-  }));
-  const isMoney = metric !== "shadow";
-  const yLabel = metrics.find((m) => m.value === metric)?.label ?? metric;
+  const done = state.status === "done" ? state : null;
+  const stale = done !== null && JSON.stringify(done.scenario) !== JSON.stringify(scenario);
   return (
     <section className="card" aria-labelledby="fronts-sweep-title">
       <h2 id="fronts-sweep-title">Sweep a front or rival parameter</h2>
@@ -78,18 +64,14 @@ export function FrontsSweep({ scenario }: { scenario: FrontsScenario }) {
           label="Parameter"
           value={param}
           options={options}
-          onChange={(v) => {
-            setParam(v);
-            setFrom("");
-            setTo("");
-          }}
+          onChange={(v) => set({ param: v, from: "", to: "" })}
           testId="fronts-sweep-param"
         />
         <TextField
           label="From"
           numeric
           value={fromText}
-          onChange={setFrom}
+          onChange={(v) => set({ from: v })}
           width="8rem"
           testId="fronts-sweep-from"
         />
@@ -97,7 +79,7 @@ export function FrontsSweep({ scenario }: { scenario: FrontsScenario }) {
           label="To"
           numeric
           value={toText}
-          onChange={setTo}
+          onChange={(v) => set({ to: v })}
           width="8rem"
           testId="fronts-sweep-to"
         />
@@ -105,7 +87,7 @@ export function FrontsSweep({ scenario }: { scenario: FrontsScenario }) {
           label={`Points (2-${STEPS_MAX})`}
           numeric
           value={steps}
-          onChange={setSteps}
+          onChange={(v) => set({ steps: v })}
           width="8rem"
           testId="fronts-sweep-steps"
         />
@@ -113,51 +95,120 @@ export function FrontsSweep({ scenario }: { scenario: FrontsScenario }) {
           label="Show"
           value={metric}
           options={metrics}
-          onChange={setMetric}
+          onChange={(v) => set({ metric: v })}
           testId="fronts-sweep-metric"
         />
         <div className="field">
-          <button type="button" onClick={run} data-testid="fronts-sweep-run">
-            Run sweep
-          </button>
+          {state.status === "running" ? (
+            // distinct keys: a click meant for Cancel never lands on Run after a sweep ends
+            <button
+              key="cancel"
+              type="button"
+              onClick={sweep.cancel}
+              data-testid="fronts-sweep-cancel"
+            >
+              Cancel sweep
+            </button>
+          ) : (
+            <button key="run" type="button" onClick={run} data-testid="fronts-sweep-run">
+              Run sweep
+            </button>
+          )}
         </div>
       </div>
-      {result && "error" in result && (
-        <p className="field-error" role="alert">
-          {result.error}
+      <div aria-live="polite">
+        {state.status === "running" && (
+          <ProgressBar
+            done={state.done}
+            total={state.total}
+            label="Sweep points solved"
+            unit="points"
+            testId="fronts-sweep-progress"
+          />
+        )}
+        {state.status === "idle" && state.cancelled && (
+          <p className="small muted" data-testid="fronts-sweep-cancelled">
+            Sweep cancelled.
+          </p>
+        )}
+        {state.status === "error" && (
+          <p className="field-error" role="alert">
+            {state.message}
+          </p>
+        )}
+      </div>
+      {done && stale && (
+        <p className="small muted" data-testid="fronts-sweep-stale">
+          This sweep ran on the scenario before your last edits; run it again to update.
         </p>
       )}
-      {rows.length > 0 && result && "label" in result && (
-        <>
-          <LineSeriesChart
-            rows={rows}
-            xKey="x"
-            series={series}
-            xLabel={result.label}
-            yLabel={
-              isMoney
-                ? `${yLabel} (${scenario.currency ?? "money"})`
-                : `${yLabel} (per unit of money)`
-            }
-            formatY={(v) => formatNumber(v)}
-            formatX={(v) => formatNumber(v)}
-            testId="fronts-sweep-chart"
-          />
-          <DataTable
-            rows={rows}
-            caption={`${yLabel} along ${result.label}; blank where no pure equilibrium was found`}
-            testId="fronts-sweep-table"
-            columns={[
-              { key: "x", label: result.label, format: (v) => formatNumber(v) },
-              ...scenario.rivals.map((r, i) => ({
-                key: `r${i}`,
-                label: r.name,
-                format: isMoney ? money : (v: number) => formatNumber(v, 3),
-              })),
-            ]}
-          />
-        </>
-      )}
+      {done && <SweepResults done={done} metric={metric} />}
     </section>
   );
 }
+
+type Done = Extract<ReturnType<typeof useFrontsSweepRun>["state"], { status: "done" }>;
+
+/**
+ * The finished sweep's chart and table, labelled from the scenario it ran on. Memoised: edits
+ * elsewhere on the page do not redraw a long sweep.
+ */
+const SweepResults = memo(function SweepResults({ done, metric }: { done: Done; metric: string }) {
+  const sc = done.scenario;
+  const currency = sc.currency ?? null;
+  const pick = (eq: FrontsSweepPoint["equilibrium"], i: number): number | null => {
+    if (eq.kind !== "pure") return null;
+    if (metric === "total") return eq.budgetUsed![i]!;
+    if (metric === "shadow") return eq.shadowPrices![i] ?? null;
+    if (metric === "payoff") return eq.payoffs![i]!;
+    const k = Number(metric.split(":")[1]);
+    return eq.spends![i]![k] ?? null;
+  };
+  const label =
+    frontsParamPaths(sc).find((o) => o.path === done.spec.param)?.label ?? done.spec.param;
+  const rows: Row[] = done.points.map((p) => {
+    const row: Row = { x: p.value };
+    sc.rivals.forEach((_, i) => (row[`r${i}`] = pick(p.equilibrium, i)));
+    return row;
+  });
+  const series = sc.rivals.map((r, i) => ({ key: `r${i}`, name: r.name, colour: seriesColour(i) }));
+  const isMoney = metric !== "shadow";
+  const k = metric.startsWith("front:") ? Number(metric.split(":")[1]) : -1;
+  const yLabel =
+    metric === "total"
+      ? "Total spend"
+      : metric === "shadow"
+        ? "Shadow price of the budget"
+        : metric === "payoff"
+          ? "Payoff"
+          : `Spend on ${sc.fronts[k]?.name ?? `front ${k + 1}`}`;
+  return (
+    <>
+      <LineSeriesChart
+        rows={rows}
+        xKey="x"
+        series={series}
+        xLabel={label}
+        yLabel={isMoney ? `${yLabel} (${currency ?? "money"})` : `${yLabel} (per unit of money)`}
+        formatY={(v) => formatNumber(v)}
+        formatX={formatCompact}
+        testId="fronts-sweep-chart"
+      />
+      <DataTable
+        rows={rows}
+        caption={`${yLabel} along ${label}; blank where no pure equilibrium was found`}
+        testId="fronts-sweep-table"
+        columns={[
+          { key: "x", label, format: (v) => formatNumber(v) },
+          ...sc.rivals.map((r, i) => ({
+            key: `r${i}`,
+            label: r.name,
+            format: isMoney
+              ? (v: number) => formatMoney(v, currency)
+              : (v: number) => formatNumber(v, 3),
+          })),
+        ]}
+      />
+    </>
+  );
+});

@@ -1,8 +1,13 @@
 import type { Metadata } from "next";
+import { Suspense } from "react";
 import { FrontsExplorer } from "../../../components/fronts/FrontsExplorer";
 
 export const metadata: Metadata = { title: "Several fronts, one budget" };
 
 export default function FrontsPage() {
-  return <FrontsExplorer />;
+  return (
+    <Suspense fallback={<p className="muted">Loading the fronts explorer…</p>}>
+      <FrontsExplorer />
+    </Suspense>
+  );
 }
