@@ -15,7 +15,7 @@ import { anderson } from "./anderson";
 import { shareFunctionEquilibrium } from "../shareFunction";
 import { solve } from "../solve";
 import type { Contest } from "../types";
-import { bestAllocationAgainst } from "./bestAllocation";
+import { waterFill } from "./waterFilling";
 import { frontOppositions, frontsAreConcave, spendOf } from "./frontPayoff";
 import type { FrontsContest } from "./types";
 
@@ -81,12 +81,16 @@ export function multiplierEquilibrium(fc: FrontsContest): number[][] | null {
       if (Math.abs(ratio - 1) <= BUDGET_TOL) continue;
       done = false;
       // the multiplier at which i's best allocation against the others' efforts fits its budget
-      const br = bestAllocationAgainst(
+      // only the multiplier is needed here, and only as closely as the budget is missed
+      const rootTol = Math.min(1e-4, Math.max(1e-13, 1e-3 * Math.abs(ratio - 1)));
+      const br = waterFill(
         fc,
         i,
         opp.map((o) => o[i]!),
+        rv.budget,
         undefined,
         mu[i],
+        rootTol,
       );
       const target = Math.max(floor[i]!, (br.shadowPrice ?? 0) + floor[i]!);
       next[i] = target;

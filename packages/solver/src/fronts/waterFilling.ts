@@ -47,7 +47,9 @@ export interface WaterFilled {
 
 /**
  * Rival i's best allocation of `budget` money (Infinity: no cap) over the fronts not in
- * `skip`, against each front's opposition `opp[k]`; `hint` is a guess of the multiplier mu.
+ * `skip`, against each front's opposition `opp[k]`; `hint` is a guess of the multiplier mu;
+ * the root search on ln mu stops within `rootTol` (relative; the default is what a best
+ * response needs, a looser one serves a search that only needs the multiplier roughly).
  */
 export function waterFill(
   fc: FrontsContest,
@@ -56,6 +58,7 @@ export function waterFill(
   budget: number,
   skip?: readonly boolean[],
   hint?: number,
+  rootTol = 1e-13,
 ): WaterFilled {
   const rv = fc.rivals[i]!;
   const K = fc.fronts.length;
@@ -139,7 +142,7 @@ export function waterFill(
     let ga = g(rowLo);
     let gb = g(rowHi);
     let side = 0;
-    for (let s = 0; s < ROOT_STEPS && b - a > 1e-13 * Math.max(1, Math.abs(a)); s++) {
+    for (let s = 0; s < ROOT_STEPS && b - a > rootTol * Math.max(1, Math.abs(a)); s++) {
       let t = ga > 0 && gb <= 0 && ga - gb > 0 ? b - (gb * (b - a)) / (gb - ga) : 0.5 * (a + b);
       if (!(t > a && t < b)) t = 0.5 * (a + b);
       const gt = Math.log(Math.max(probe(Math.exp(t)), 1e-300)) - lnB;
@@ -157,7 +160,8 @@ export function waterFill(
     }
   }
   // rounding noise in the spend can stall the interpolation next to the root: finish by bisection
-  for (let s = 0; s < ROOT_STEPS && hi / lo > 1 + 1e-11; s++) probe(Math.sqrt(lo * hi));
+  for (let s = 0; s < ROOT_STEPS && hi / lo > 1 + Math.max(1e-11, rootTol); s++)
+    probe(Math.sqrt(lo * hi));
   const shadowPrice = Math.max(0, hi - floor);
   // candidates around the multiplier (exact in the concave case, see the header)
   let bestRow = rowHi;
