@@ -8,6 +8,7 @@ import { POLICY_LABELS, validateScenario } from "@contend/solver";
 import type { CsfSpec, PolicyKind, Provenance, Scenario } from "@contend/solver";
 import { sessionScenarioSchema, sessionSettingsSchema } from "@contend/protocol";
 import { contestErrors, zodPath } from "./formErrors";
+import type { FieldErrors } from "./formErrors";
 import { hiddenRaw, privateErrors } from "./privateForm";
 import type { PrivateRanges, TruthChoice } from "./privateForm";
 import type { SessionScenarioInput } from "./sessionTypes";
@@ -84,8 +85,7 @@ export function bindField<K extends keyof EditorForm>(
   return { value: form[key], onChange: (v) => setForm((f) => ({ ...f, [key]: v })) };
 }
 
-/** Field path (as the validators report it, e.g. "rivals.2.cost") -> message. */
-export type FieldErrors = Record<string, string>;
+export type { FieldErrors };
 
 export type FormResult =
   | { ok: true; scenario: SessionScenarioInput; errors: FieldErrors }

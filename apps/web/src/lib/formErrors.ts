@@ -4,7 +4,9 @@
  * first one, so each field can show its own.
  */
 import { validateScenario } from "@contend/solver";
-import type { FieldErrors } from "./editorForm";
+
+/** Field path (as the validators report it, e.g. "rivals.2.cost") -> message. */
+export type FieldErrors = Record<string, string>;
 
 /** A value that passes the validator at this path, used to look past one problem to the next. */
 function placeholderFor(path: string): unknown {
