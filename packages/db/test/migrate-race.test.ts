@@ -10,9 +10,9 @@ import { describe, expect, it } from "vitest";
 import { MIGRATIONS_TABLE, openDatabase, readMigrations } from "../src/index";
 import { backends, TEST_DATABASE_URL } from "./backends";
 
-const CHILD = fileURLToPath(new URL("./open-child.ts", import.meta.url));
+const CHILD = fileURLToPath(new URL("./openChild.ts", import.meta.url));
 
-/** Runs open-child.ts on url; resolves with the migration names that child applied. */
+/** Runs openChild.ts on url; resolves with the migration names that child applied. */
 function openInChild(url: string): Promise<string[]> {
   return new Promise((resolve, reject) => {
     const child = spawn(process.execPath, ["--import", "tsx", CHILD, url], {

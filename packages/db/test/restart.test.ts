@@ -63,7 +63,7 @@ describe("PGlite in a directory", () => {
     const dir = dataDir();
     const child = spawnSync(
       process.execPath,
-      ["--import", "tsx", fileURLToPath(new URL("./kill-child.ts", import.meta.url)), dir],
+      ["--import", "tsx", fileURLToPath(new URL("./killChild.ts", import.meta.url)), dir],
       { encoding: "utf8", timeout: 120_000 },
     );
     expect(child.signal).toBe("SIGKILL");

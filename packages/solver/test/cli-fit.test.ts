@@ -6,7 +6,7 @@
 import { readFile } from "node:fs/promises";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
-import { cliRunner } from "./cli-run";
+import { cliRunner } from "./cliRun";
 import { validateScenario } from "../src/index";
 
 const pkg = fileURLToPath(new URL("..", import.meta.url));

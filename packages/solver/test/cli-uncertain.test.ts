@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { cliRunner } from "./cli-run";
+import { cliRunner } from "./cliRun";
 
 const good = {
   title: "Ranges",

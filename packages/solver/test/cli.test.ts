@@ -1,7 +1,7 @@
 import { execFileSync, spawnSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
 import { beforeAll, describe, expect, it } from "vitest";
-import { cliRunner } from "./cli-run";
+import { cliRunner } from "./cliRun";
 
 const pkg = fileURLToPath(new URL("..", import.meta.url));
 const kioskPath = `${pkg}scenarios/kiosk-lease.json`;

@@ -4,7 +4,7 @@
 // solver's own respond, which the property tests check against an independent optimiser.
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
-import { cliRunner } from "./cli-run";
+import { cliRunner } from "./cliRun";
 import { normalizeFronts, validateFrontsScenario } from "../src/fronts";
 
 const pkg = fileURLToPath(new URL("..", import.meta.url));
