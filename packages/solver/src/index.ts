@@ -30,6 +30,7 @@ export * from "./matrixGame";
 export * from "./discreteMixed";
 export * from "./twoRivalMixed";
 export * from "./manyRivalMixed";
+export * from "./fictitiousPlay";
 export * from "./mixedCertificate";
 export * from "./othersTotal";
 export * from "./symmetricActiveSets";

@@ -27,9 +27,9 @@ import type { DiscreteMix } from "./discreteMixed";
 import type { Contest } from "./types";
 
 /** ln(y t) below which nodes are left out (their total is bounded in `error`). */
-const LOW = 36;
+export const LOW = 36;
 /** ln(y t) above which nodes are left out. */
-const HIGH = 5;
+export const HIGH = 5;
 
 /** Default lattice step in s = ln t: error about 1e-12 of a winning chance. */
 export const FINE_STEP = 0.25;

@@ -15,7 +15,13 @@
 // 1989), a dense uniform and log grid, golden-section refinement of the best cells.
 import fc from "fast-check";
 import { describe, expect, test } from "vitest";
-import { manyRivalMixedEquilibrium, normalize, solve } from "../src/index";
+import {
+  fictitiousPlay,
+  manyRivalMixedEquilibrium,
+  normalize,
+  othersTotal,
+  solve,
+} from "../src/index";
 import type { Contest, Equilibrium } from "../src/types";
 
 const ratio = (costs: number[], r: number, prize = 100): Contest =>
@@ -152,6 +158,21 @@ describe("three or more rivals without a pure equilibrium", () => {
       expect(Math.abs(independentGap(c, eq) - eq.nashGap)).toBeLessThan(1e-4 * c.prize);
     },
   );
+
+  test("fictitious play's incremental transform gives the grid gap the plain one recomputes", () => {
+    for (const c of [ratio([1, 1.2, 1.5, 1.5], 3), ratio([1, 2, 2, 2, 3], 2.5)]) {
+      const fp = fictitiousPlay(c, { rounds: 60 });
+      const total = othersTotal(c, fp.mixes);
+      let gap = 0;
+      fp.mixes.forEach((m, i) => {
+        const us = m.efforts.map((x) => total.payoff(i, x));
+        const own = us.reduce((s, u, k) => s + m.probabilities[k]! * u, 0);
+        gap = Math.max(gap, Math.max(...us) - own);
+      });
+      expect(Math.abs(gap - fp.gridGap)).toBeLessThan(1e-5 * c.prize);
+      expect(fp.rounds).toBe(60);
+    }
+  });
 
   test("mixed: false stops at none-pure", () => {
     const eq = solve(ratio([1, 1, 1], 3), { mixed: false }).equilibrium;
