@@ -83,7 +83,11 @@ export function Explorer() {
         />
       )}
 
-      <SweepSection scenario={deferred} sweepAxis={sweepAxis} />
+      <SweepSection
+        scenario={deferred}
+        sweepAxis={sweepAxis}
+        uncertain={ranges.built?.ok && ranges.built.count > 0 ? ranges.built.scenario : null}
+      />
       <StaticsSection scenario={deferred} />
       <UncertaintySection
         scenario={deferred}

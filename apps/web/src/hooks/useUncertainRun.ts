@@ -1,9 +1,9 @@
 "use client";
 
-import { useCallback, useEffect, useRef, useState } from "react";
-import { proxy, wrap, type Remote } from "comlink";
+import { useCallback } from "react";
 import type { UncertainResult, UncertainScenario } from "@contend/solver";
-import type { UncertainRequest, UncertainWorkerApi } from "../workers/uncertain.worker";
+import type { UncertainRequest } from "../workers/uncertain.worker";
+import { useUncertainWorker } from "./useUncertainWorker";
 
 export type UncertainRunState =
   | { status: "idle"; cancelled?: boolean }
@@ -16,60 +16,21 @@ export type UncertainRunState =
     }
   | { status: "error"; message: string };
 
-interface Live {
-  worker: Worker;
-  api: Remote<UncertainWorkerApi>;
-}
-
-/**
- * Monte Carlo runs in a Web Worker: the page only receives progress messages and the summary,
- * so it stays responsive. Starting a run while one is going, cancelling, or leaving the page
- * terminates the worker in flight.
- */
+/** The explorer's Monte Carlo of the equilibrium, run in the uncertainty worker. */
 export function useUncertainRun() {
-  const [state, setState] = useState<UncertainRunState>({ status: "idle" });
-  const live = useRef<Live | null>(null);
-
-  const stop = useCallback(() => {
-    live.current?.worker.terminate();
-    live.current = null;
-  }, []);
-
-  useEffect(() => stop, [stop]);
-
+  const task = useUncertainWorker<{ result: UncertainResult; scenario: UncertainScenario }>();
+  const { start } = task;
   const run = useCallback(
-    (scenario: UncertainScenario, req: UncertainRequest) => {
-      stop();
-      const worker = new Worker(new URL("../workers/uncertain.worker.ts", import.meta.url), {
-        type: "module",
-      });
-      const mine: Live = { worker, api: wrap<UncertainWorkerApi>(worker) };
-      live.current = mine;
-      const started = performance.now();
-      setState({ status: "running", done: 0, total: req.draws });
-      const onProgress = proxy((done: number, total: number) => {
-        if (live.current === mine) setState({ status: "running", done, total });
-      });
-      mine.api
-        .run(scenario, req, onProgress)
-        .then((result) => {
-          if (live.current !== mine) return;
-          stop();
-          setState({ status: "done", result, scenario, ms: performance.now() - started });
-        })
-        .catch((e: unknown) => {
-          if (live.current !== mine) return;
-          stop();
-          setState({ status: "error", message: `solver failed: ${(e as Error).message}` });
-        });
-    },
-    [stop],
+    (scenario: UncertainScenario, req: UncertainRequest) =>
+      start(req.draws, async (api, onProgress) => ({
+        result: await api.run(scenario, req, onProgress),
+        scenario,
+      })),
+    [start],
   );
-
-  const cancel = useCallback(() => {
-    stop();
-    setState({ status: "idle", cancelled: true });
-  }, [stop]);
-
-  return { state, run, cancel };
+  const state: UncertainRunState =
+    task.state.status === "done"
+      ? { status: "done", ...task.state.value, ms: task.state.ms }
+      : task.state;
+  return { state, run, cancel: task.cancel };
 }

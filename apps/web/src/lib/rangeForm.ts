@@ -150,3 +150,9 @@ export function rangesByPath(
   }
   return out;
 }
+
+/** A typed whole number from min to max, or null (draw counts and seeds). */
+export function whole(text: string, min: number, max: number): number | null {
+  const x = Number(text.trim());
+  return text.trim() !== "" && Number.isInteger(x) && x >= min && x <= max ? x : null;
+}

@@ -5,8 +5,8 @@
  * (the page starts a new one for the next run).
  */
 import { expose } from "comlink";
-import { runUncertain } from "@contend/solver";
-import type { UncertainResult, UncertainScenario } from "@contend/solver";
+import { runUncertain, sweepBands } from "@contend/solver";
+import type { BandSweep, Parsed, UncertainResult, UncertainScenario } from "@contend/solver";
 
 const PROGRESS_EVERY = 250;
 const PROGRESS_MS = 100;
@@ -17,20 +17,42 @@ export interface UncertainRequest {
   planRival: number | null;
 }
 
+/** A sweep with bands: the swept parameter's path and values, draws per value. */
+export interface BandSweepRequest {
+  param: string;
+  values: number[];
+  draws: number;
+  seed: number;
+}
+
+type OnProgress = (done: number, total: number) => void;
+
+/** Passes on the final call and at most one call per PROGRESS_MS before it. */
+function throttle(onProgress: OnProgress): OnProgress {
+  let last = 0;
+  return (done, total) => {
+    const now = performance.now();
+    if (done < total && now - last < PROGRESS_MS) return;
+    last = now;
+    onProgress(done, total);
+  };
+}
+
 const api = {
-  run(
+  run(scenario: UncertainScenario, req: UncertainRequest, onProgress: OnProgress): UncertainResult {
+    return runUncertain(scenario, {
+      ...req,
+      onProgress: throttle(onProgress),
+      progressEvery: PROGRESS_EVERY,
+    });
+  },
+  sweep(
     scenario: UncertainScenario,
-    req: UncertainRequest,
-    onProgress: (done: number, total: number) => void,
-  ): UncertainResult {
-    let last = 0;
-    const throttled = (done: number, total: number) => {
-      const now = performance.now();
-      if (done < total && now - last < PROGRESS_MS) return;
-      last = now;
-      onProgress(done, total);
-    };
-    return runUncertain(scenario, { ...req, onProgress: throttled, progressEvery: PROGRESS_EVERY });
+    req: BandSweepRequest,
+    onProgress: OnProgress,
+  ): Parsed<BandSweep> {
+    const { param, values, ...opts } = req;
+    return sweepBands(scenario, param, values, { ...opts, onProgress: throttle(onProgress) });
   },
 };
 

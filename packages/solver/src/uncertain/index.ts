@@ -6,3 +6,4 @@ export * from "./draws";
 export * from "./tornado";
 export * from "./robustPlan";
 export * from "./monteCarlo";
+export * from "./sweepBands";

@@ -23,6 +23,8 @@ export interface UncertainOptions {
   /** called after every `progressEvery` draws (default 500) and once at the end */
   onProgress?: (done: number, total: number) => void;
   progressEvery?: number;
+  /** compute the tornado (default true; a sweep of bands leaves it out) */
+  sensitivity?: boolean;
 }
 
 /** Largest number of draws accepted (memory grows as draws x rivals). */
@@ -70,7 +72,7 @@ export function runUncertain(s: UncertainScenario, opts: UncertainOptions): Unce
     shares: band(shares, pure, n),
     payoffs: band(payoffs, pure, n),
     activeProbability: activeCount.map((c) => (pure === 0 ? null : c / pure)),
-    sensitivity: tornado(s, params),
+    sensitivity: opts.sensitivity === false ? [] : tornado(s, params),
     plan: plan === null ? null : robustPlan(s, plan, planDraws),
   };
 }

@@ -1,11 +1,12 @@
 "use client";
 
-import type { Scenario } from "@contend/solver";
+import type { Scenario, UncertainScenario } from "@contend/solver";
 import { useChunkedSweep } from "../../hooks/useChunkedSweep";
 import type { useSweepAxis } from "../../hooks/useSweepAxis";
 import { sweepRows } from "../../lib/chartData";
 import { SweepControls } from "./SweepControls";
 import { SweepResults } from "./SweepResults";
+import { SweepBands } from "./SweepBands";
 
 /**
  * Sweeps one parameter over a range (run in time slices, re-run as the scenario changes) and
@@ -14,9 +15,12 @@ import { SweepResults } from "./SweepResults";
 export function SweepSection({
   scenario,
   sweepAxis,
+  uncertain = null,
 }: {
   scenario: Scenario | null;
   sweepAxis: ReturnType<typeof useSweepAxis>;
+  /** the scenario with its switched-on ranges, when it has any: the sweep can show bands */
+  uncertain?: UncertainScenario | null;
 }) {
   const { axis, setAxis, spec, paramOptions, paramLabel, pickParam } = sweepAxis;
   const sweep = useChunkedSweep(scenario, spec, true);
@@ -35,6 +39,9 @@ export function SweepSection({
         cancel={sweep.cancel}
       />
       <SweepResults rows={rows} names={names} paramLabel={paramLabel} />
+      {scenario && uncertain && (
+        <SweepBands scenario={scenario} uncertain={uncertain} spec={spec} paramLabel={paramLabel} />
+      )}
     </section>
   );
 }

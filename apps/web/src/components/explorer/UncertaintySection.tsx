@@ -8,13 +8,9 @@ import type { BuiltUncertain, RangeField, RangeForm } from "../../lib/rangeForm"
 import { SelectField, TextField } from "../Field";
 import { ProgressBar } from "../ProgressBar";
 import { UncertainResults } from "./UncertainResults";
+import { whole } from "../../lib/rangeForm";
 
 const MAX_DRAWS_UI = 100_000;
-
-function whole(text: string, min: number, max: number): number | null {
-  const x = Number(text.trim());
-  return text.trim() !== "" && Number.isInteger(x) && x >= min && x <= max ? x : null;
-}
 
 /**
  * Uncertainty: switch any of the scenario's numbers to a range, run a seeded Monte Carlo of the

@@ -1,0 +1,111 @@
+"use client";
+
+import {
+  Area,
+  CartesianGrid,
+  ComposedChart,
+  Legend,
+  Line,
+  ResponsiveContainer,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from "recharts";
+import { bandMidKey, bandPairKey } from "../../lib/bandRows";
+import type { BandRows } from "../../lib/bandRows";
+import { seriesColour } from "../../lib/palette";
+
+/**
+ * A sweep with bands: per rival, a shaded area from P10 to P90 over the draws and a line at the
+ * median (P50), against the swept value. Fixed height, no animation.
+ */
+export function BandSweepChart({
+  rows,
+  names,
+  xLabel,
+  yLabel,
+  formatX,
+  formatY,
+  testId,
+}: {
+  rows: BandRows["chart"];
+  names: readonly string[];
+  xLabel: string;
+  yLabel: string;
+  formatX: (v: number) => string;
+  formatY: (v: number) => string;
+  testId: string;
+}) {
+  const axis = "#4a5565";
+  return (
+    <div
+      className="chart"
+      style={{ height: 300 }}
+      data-testid={testId}
+      role="img"
+      aria-label={`Chart: ${yLabel} against ${xLabel}, for ${names.join(", ")}: a band from the 10th to the 90th percentile over the draws and a line at the median. The table below lists the same numbers.`}
+    >
+      <ResponsiveContainer width="100%" height="100%">
+        <ComposedChart data={rows} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
+          <CartesianGrid stroke="#e3e7ec" />
+          <XAxis
+            dataKey="x"
+            type="number"
+            domain={["dataMin", "dataMax"]}
+            tickFormatter={formatX}
+            stroke={axis}
+            label={{ value: xLabel, position: "insideBottom", offset: -12, fill: axis }}
+          />
+          <YAxis
+            tickFormatter={formatY}
+            stroke={axis}
+            width={72}
+            label={{
+              value: yLabel,
+              angle: -90,
+              position: "insideLeft",
+              fill: axis,
+              style: { textAnchor: "middle" },
+            }}
+          />
+          <Tooltip
+            formatter={(v) =>
+              Array.isArray(v)
+                ? `${formatY(Number(v[0]))} to ${formatY(Number(v[1]))}`
+                : typeof v === "number"
+                  ? formatY(v)
+                  : String(v)
+            }
+            labelFormatter={(v) => `${xLabel}: ${typeof v === "number" ? formatX(v) : String(v)}`}
+          />
+          <Legend verticalAlign="top" wrapperStyle={{ paddingBottom: 6 }} />
+          {names.map((n, i) => (
+            <Area
+              key={`band-${i}`}
+              dataKey={bandPairKey(i)}
+              name={`${n} P10-P90`}
+              stroke="none"
+              fill={seriesColour(i)}
+              fillOpacity={0.2}
+              isAnimationActive={false}
+              type="linear"
+            />
+          ))}
+          {names.map((n, i) => (
+            <Line
+              key={`mid-${i}`}
+              dataKey={bandMidKey(i)}
+              name={`${n} median`}
+              stroke={seriesColour(i)}
+              strokeWidth={2}
+              dot={rows.length <= 20}
+              connectNulls={false}
+              isAnimationActive={false}
+              type="linear"
+            />
+          ))}
+        </ComposedChart>
+      </ResponsiveContainer>
+    </div>
+  );
+}

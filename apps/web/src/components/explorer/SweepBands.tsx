@@ -1,0 +1,177 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import { MAX_STEPS_1D, planAxis } from "@contend/solver";
+import type { AxisSpec, BandSweep, Parsed, Scenario, UncertainScenario } from "@contend/solver";
+import { useUncertainWorker } from "../../hooks/useUncertainWorker";
+import { bandHighKey, bandLowKey, bandMidKey, bandRows, worstNoPure } from "../../lib/bandRows";
+import { formatMoney, formatNumber, formatPercent, formatPlain } from "../../lib/format";
+import { whole } from "../../lib/rangeForm";
+import { DataTable } from "../DataTable";
+import { TextField } from "../Field";
+import { ProgressBar } from "../ProgressBar";
+import { BandSweepChart } from "./BandSweepChart";
+
+/** Most draws x points one run may ask for (about 20 s for ten rivals on a laptop). */
+const MAX_SOLVES = 1_000_000;
+const exact = (v: number) => String(Number(v.toPrecision(6)));
+
+/**
+ * Bands along the sweep, for a scenario with ranges: at each swept value the Monte Carlo of the
+ * equilibrium (the same seed at every value), P10-P90 of each rival's spend and payoff with the
+ * median. Runs in the uncertainty worker with progress and cancel.
+ */
+export function SweepBands({
+  scenario,
+  uncertain,
+  spec,
+  paramLabel,
+}: {
+  scenario: Scenario;
+  uncertain: UncertainScenario;
+  spec: AxisSpec;
+  paramLabel: string;
+}) {
+  const [drawsText, setDrawsText] = useState("400");
+  const [seedText, setSeedText] = useState("1");
+  const { state, start, cancel } = useUncertainWorker<Parsed<BandSweep>>();
+  const axis = useMemo(() => planAxis(scenario, spec, "sweep", MAX_STEPS_1D), [scenario, spec]);
+  const draws = whole(drawsText, 10, 100_000);
+  const seed = whole(seedText, 0, 2 ** 32 - 1);
+  const points = axis.ok ? axis.value.values.length : 0;
+  const tooMany = draws !== null && points * draws > MAX_SOLVES;
+  const canRun = axis.ok && draws !== null && seed !== null && !tooMany;
+  const names = scenario.rivals.map((r) => r.name);
+  const currency = scenario.currency ?? null;
+  const money = (v: number) => formatMoney(v, currency);
+
+  function run() {
+    if (!axis.ok || draws === null || seed === null) return;
+    const req = { param: axis.value.param, values: axis.value.values, draws, seed };
+    start(points, (api, onProgress) => api.sweep(uncertain, req, onProgress));
+  }
+
+  const done = state.status === "done" && state.value.ok ? state.value.value : null;
+  const spends = useMemo(() => (done ? bandRows(done, "spends") : null), [done]);
+  const payoffs = useMemo(() => (done ? bandRows(done, "payoffs") : null), [done]);
+  return (
+    <div data-testid="sweep-bands">
+      <h3>Bands over the ranges</h3>
+      <p className="small muted">
+        The scenario has ranges: at each value of {paramLabel} the equilibrium is solved for every
+        draw (the same draws at every value), and each rival&apos;s spend and payoff is shown as a
+        band from the 10th to the 90th percentile with a line at the median.
+      </p>
+      <div className="row" style={{ alignItems: "flex-start" }}>
+        <TextField
+          label="Draws per value"
+          numeric
+          width="9rem"
+          value={drawsText}
+          onChange={setDrawsText}
+          testId="bands-draws"
+          error={
+            draws === null
+              ? "a whole number from 10 to 100,000"
+              : tooMany
+                ? `${formatNumber(points * draws, 0)} solves; at most ${formatNumber(MAX_SOLVES, 0)}: fewer points or draws`
+                : undefined
+          }
+        />
+        <TextField
+          label="Seed"
+          numeric
+          width="8rem"
+          value={seedText}
+          onChange={setSeedText}
+          testId="bands-seed"
+          error={seed === null ? "a whole number from 0 to 4294967295" : undefined}
+        />
+        <div className="field">
+          <span aria-hidden="true">&nbsp;</span>
+          {state.status === "running" ? (
+            <button type="button" onClick={cancel} data-testid="bands-cancel">
+              Cancel
+            </button>
+          ) : (
+            <button type="button" onClick={run} disabled={!canRun} data-testid="bands-run">
+              Run bands
+            </button>
+          )}
+        </div>
+      </div>
+      <div style={{ minHeight: "2.2rem" }} aria-live="polite">
+        {state.status === "running" && (
+          <ProgressBar
+            done={state.done}
+            total={state.total}
+            label="Sweep values done"
+            unit="values"
+            testId="bands-progress"
+          />
+        )}
+        {state.status === "idle" && state.cancelled && (
+          <p className="small muted" data-testid="bands-cancelled">
+            Cancelled.
+          </p>
+        )}
+        {state.status === "error" && <p className="field-error">{state.message}</p>}
+        {state.status === "done" && !state.value.ok && (
+          <p className="field-error">
+            {state.value.path}: {state.value.message}
+          </p>
+        )}
+        {done && state.status === "done" && (
+          <p className="small muted" data-testid="bands-summary">
+            {done.points.length} values x {formatNumber(done.draws, 0)} draws (seed {done.seed}) in{" "}
+            {formatNumber(state.ms, 0)} ms. Draws without a pure equilibrium are left out of the
+            bands: at most {formatPercent(worstNoPure(done))} at any value.
+          </p>
+        )}
+      </div>
+      {done && spends && payoffs && (
+        <>
+          <div className="grid-2">
+            <div>
+              <h4>Spend (money)</h4>
+              <BandSweepChart
+                rows={spends.chart}
+                names={names}
+                xLabel={paramLabel}
+                yLabel={`Spend${currency ? ` (${currency})` : ""}`}
+                formatX={(v) => formatPlain(v, 3)}
+                formatY={money}
+                testId="bands-spend-chart"
+              />
+            </div>
+            <div>
+              <h4>Payoff (money)</h4>
+              <BandSweepChart
+                rows={payoffs.chart}
+                names={names}
+                xLabel={paramLabel}
+                yLabel={`Payoff${currency ? ` (${currency})` : ""}`}
+                formatX={(v) => formatPlain(v, 3)}
+                formatY={money}
+                testId="bands-payoff-chart"
+              />
+            </div>
+          </div>
+          <DataTable
+            caption={`Spend (money) against ${paramLabel}: 10th, 50th and 90th percentile over the draws`}
+            testId="bands-table"
+            rows={spends.table}
+            columns={[
+              { key: "x", label: paramLabel, format: exact },
+              ...names.flatMap((n, i) => [
+                { key: bandLowKey(i), label: `${n} P10`, format: exact },
+                { key: bandMidKey(i), label: `${n} P50`, format: exact },
+                { key: bandHighKey(i), label: `${n} P90`, format: exact },
+              ]),
+            ]}
+          />
+        </>
+      )}
+    </div>
+  );
+}
