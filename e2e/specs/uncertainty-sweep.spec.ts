@@ -5,8 +5,12 @@
  * its median at each swept c1 is the value at the median cost c2 = 2. The bands run in the Web
  * Worker with progress and cancel; the page's long tasks during the run are printed.
  */
+import { mkdirSync } from "node:fs";
+import path from "node:path";
 import { expect, test } from "../support/fixtures";
 import { parseShown } from "../support/numbers";
+import { SIZES } from "../support/room";
+import { RESULTS_DIR } from "../support/server";
 
 const spendA = (c1: number, c2: number) => (100 * c1 * c2) / (c1 + c2) ** 2;
 
@@ -26,7 +30,7 @@ test("explorer sweep of a scenario with a range shows P10-P90 bands whose median
       for (const e of l.getEntries()) g.__long.push(e.duration);
     }).observe({ type: "longtask", buffered: true });
   });
-  await page.setViewportSize({ width: 1366, height: 768 });
+  await page.setViewportSize(SIZES.laptop);
   await page.goto("/explore");
   await page.getByRole("textbox", { name: /^Prize/ }).fill("100");
   await page.getByLabel("Decisiveness r").fill("1");
@@ -77,6 +81,14 @@ test("explorer sweep of a scenario with a range shows P10-P90 bands whose median
   console.log(
     `sweep bands: long tasks on the page (ms): ${JSON.stringify(longTasks.map(Math.round))}`,
   );
-  await bands.scrollIntoViewIfNeeded();
   await saveScreen(page, "explorer-sweep-bands");
+  // The bands alone at each screen size, for looking at.
+  const dir = path.join(RESULTS_DIR, "screens");
+  mkdirSync(dir, { recursive: true });
+  for (const size of [SIZES.laptop, SIZES.projector, SIZES.phone]) {
+    await page.setViewportSize(size);
+    await bands.screenshot({
+      path: path.join(dir, `explorer-sweep-bands-${size.width}x${size.height}.png`),
+    });
+  }
 });

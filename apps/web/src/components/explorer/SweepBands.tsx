@@ -44,6 +44,7 @@ export function SweepBands({
   const names = scenario.rivals.map((r) => r.name);
   const currency = scenario.currency ?? null;
   const money = (v: number) => formatMoney(v, currency);
+  const unit = currency ? ` (${currency})` : "";
 
   function run() {
     if (!axis.ok || draws === null || seed === null) return;
@@ -164,9 +165,9 @@ export function SweepBands({
             columns={[
               { key: "x", label: paramLabel, format: exact },
               ...names.flatMap((n, i) => [
-                { key: bandLowKey(i), label: `${n} P10`, format: exact },
-                { key: bandMidKey(i), label: `${n} P50`, format: exact },
-                { key: bandHighKey(i), label: `${n} P90`, format: exact },
+                { key: bandLowKey(i), label: `${n} P10${unit}`, format: exact },
+                { key: bandMidKey(i), label: `${n} P50${unit}`, format: exact },
+                { key: bandHighKey(i), label: `${n} P90${unit}`, format: exact },
               ]),
             ]}
           />
