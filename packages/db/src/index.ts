@@ -25,6 +25,14 @@ export {
 export type { AppendEffects } from "./repos/events";
 export { eventFromRow, type EventRow } from "./repos/rows";
 export type { CreateSessionInput, CreateSessionResult } from "./repos/sessions";
+export type { UpdateEntryResult } from "./repos/library";
+export type {
+  AddVersionResult,
+  CreateSavedResult,
+  SavedScenarioRecord,
+  SavedVersionBody,
+  SavedVersionRecord,
+} from "./repos/savedScenarios";
 export type * from "./types";
 export { leaseKey, EVENTS_CHANNEL, SIGNALS_CHANNEL } from "./feed";
 export type { ChangeFeed, FeedHandlers } from "./feed";

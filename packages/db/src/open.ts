@@ -15,6 +15,8 @@ import { openFeed, type ChangeFeed } from "./feed";
 import { eventsRepository } from "./repos/events";
 import { keysRepository } from "./repos/keys";
 import { sessionsRepository } from "./repos/sessions";
+import { libraryRepository } from "./repos/library";
+import { savedScenariosRepository } from "./repos/savedScenarios";
 import { startPgliteThread } from "./pglite-thread/proxy";
 import { poolRunner, type SqlRunner } from "./sqlRunner";
 import { resolveTarget } from "./target";
@@ -33,6 +35,10 @@ export interface Database {
   sessions: ReturnType<typeof sessionsRepository>;
   events: ReturnType<typeof eventsRepository>;
   keys: ReturnType<typeof keysRepository>;
+  /** search and edit the library of sessions (title, tags, archive) */
+  library: ReturnType<typeof libraryRepository>;
+  /** saved scenarios and their versions */
+  scenarios: ReturnType<typeof savedScenariosRepository>;
   /** migrations applied by this open (empty when the database was up to date) */
   migrationsApplied: string[];
   /** the readiness check: the database answers now and holds every migration this code knows */
@@ -141,6 +147,8 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<Database> {
     sessions: sessionsRepository(prisma),
     events: eventsRepository(prisma, connection.runner),
     keys: keysRepository(prisma, connection.runner),
+    library: libraryRepository(prisma),
+    scenarios: savedScenariosRepository(prisma),
     migrationsApplied,
     readiness: () => migrationStatus(connection.runner, migrations),
     lost: connection.lost,

@@ -53,7 +53,17 @@ export interface SessionSummary {
   status: string;
   lastSeq: number;
   createdAt: Date;
+  /** last play activity (events); library edits leave it alone */
   updatedAt: Date;
+  /** library labels, in the protocol's normal form */
+  tags: string[];
+  archivedAt: Date | null;
+}
+
+/** A session as the library lists it: its summary, when it ended and how many rounds resolved. */
+export interface LibraryEntry extends SessionSummary {
+  endedAt: Date | null;
+  rounds: number;
 }
 
 export interface SessionRecord extends SessionSummary {

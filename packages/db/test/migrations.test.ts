@@ -44,6 +44,8 @@ describe("migration history", () => {
       expect(a.tables.map((t) => (t as unknown as { table: string }).table)).toEqual([
         "AccessKey",
         "Event",
+        "SavedScenario",
+        "SavedScenarioVersion",
         "Seat",
         "Session",
       ]);

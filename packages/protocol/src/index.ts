@@ -177,3 +177,33 @@ export { robustPlanRecordSchema } from "./events";
 export type { RobustPlanRecord } from "./events";
 export { toCsv } from "./csv";
 export type { CsvCell } from "./csv";
+export {
+  ARCHIVE_FILTERS,
+  filterFromQuery,
+  libraryNameSchema,
+  normaliseTag,
+  sessionFilterSchema,
+  sessionPatchSchema,
+  tagProblem,
+  tagSchema,
+} from "./library";
+export type { SessionFilter, SessionFilterInput, SessionPatch } from "./library";
+export {
+  MINE_SCENARIOS_MAX,
+  mineScenariosBodySchema,
+  parseScenarioSave,
+  saveScenarioBodySchema,
+  savedScenarioCreatedSchema,
+  savedScenarioListSchema,
+  savedScenarioSchema,
+  savedVersionInfoSchema,
+  savedVersionSchema,
+  saveVersionBodySchema,
+} from "./savedScenario";
+export type {
+  SavedScenario,
+  SavedScenarioCreated,
+  SavedVersion,
+  SavedVersionInfo,
+  SaveScenarioInput,
+} from "./savedScenario";

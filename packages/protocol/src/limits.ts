@@ -25,6 +25,14 @@ export const LIMITS = {
   noteMax: 500,
   /** fronts in a live session (one money input per front on every seat's screen) */
   frontsMax: 12,
+  /** one library tag (after trimming) */
+  tagMax: 32,
+  /** tags on one session */
+  tagsMax: 20,
+  /** the text of a library search */
+  searchMax: 80,
+  /** a saved scenario version's note ("Q3 numbers") */
+  versionNoteMax: 140,
   /** moves one seat may seal in one round (its first and every replacement) */
   movesPerSeatPerRound: 30,
 } as const;

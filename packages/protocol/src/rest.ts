@@ -48,6 +48,13 @@ export const sessionListItemSchema = z.object({
   updatedAt: z.string(),
   /** rounds resolved so far */
   rounds: z.int().min(0),
+  /** library labels (the tag rule: packages/protocol/src/library.ts); defaults keep exports
+   * written before the library readable */
+  tags: z.array(z.string()).default([]),
+  /** when the session was archived; null when it is not */
+  archivedAt: z.string().nullable().default(null),
+  /** when the session ended (its session-ended event); null while it runs */
+  endedAt: z.string().nullable().default(null),
 });
 export type SessionListItem = z.output<typeof sessionListItemSchema>;
 export const sessionListSchema = z.array(sessionListItemSchema);

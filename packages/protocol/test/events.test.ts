@@ -201,6 +201,9 @@ describe("view and REST schemas", () => {
         createdAt: "2026-01-01T00:00:00.000Z",
         updatedAt: "2026-01-01T00:00:00.000Z",
         rounds: 0,
+        tags: ["q3"],
+        archivedAt: null,
+        endedAt: "2026-01-01T01:00:00.000Z",
       }).success,
     ).toBe(true);
   });

@@ -12,20 +12,20 @@ import {
   attachmentHeader,
   downloadFileName,
   nameProblem,
-  parseInput,
   parseSessionScenario,
 } from "@contend/protocol";
 import type { Health } from "@contend/protocol";
 import { fold, truthSealed } from "@contend/session";
-import { z } from "zod";
 import { clientAddress } from "../abuse";
 import type { AbuseBudgets } from "../abuse";
 import type { Clock } from "../clock";
 import type { Limits } from "../env";
-import { buildExport, listItem, roundsCsv } from "../live/export";
+import { buildExport, roundsCsv } from "../live/export";
 import { createLiveSession } from "../live/create";
 import { baseUrlOf } from "../live/links";
 import { summaryRoute } from "./summary";
+import { libraryRoutes } from "./library";
+import { savedScenarioRoutes } from "./savedScenarios";
 import type { Logger } from "../logger";
 import { credentialFrom, readJsonBody, sendError, sendJson, sendText } from "./io";
 import { sendReady } from "./ready";
@@ -51,19 +51,17 @@ const EXPORT_PATH = /^\/api\/sessions\/([^/]+)\/export\/?$/;
 const SUMMARY_PATH = /^\/api\/sessions\/([^/]+)\/summary\/?$/;
 const MINE_PATH = /^\/api\/sessions\/mine\/?$/;
 
-/** Sessions a browser asks about at once (POST /api/sessions/mine). */
-export const MINE_MAX = 200;
-
-const mineBodySchema = z.strictObject({
-  sessions: z
-    .array(z.strictObject({ id: z.string().min(1).max(64), key: z.string().min(1).max(128) }))
-    .max(MINE_MAX, { error: `must list at most ${MINE_MAX} sessions` }),
-});
-
 type Access = "operator" | "facilitator" | "none";
 
 export function createRestHandler(deps: RestDeps) {
   const { db } = deps;
+  const library = libraryRoutes({ ...deps, maxBodyBytes: deps.limits.maxBodyBytes });
+  const scenarios = savedScenarioRoutes({
+    ...deps,
+    maxBodyBytes: deps.limits.maxBodyBytes,
+    trustProxy: deps.limits.trustProxy,
+    sessionsPerIpPerHour: deps.limits.sessionsPerIpPerHour,
+  });
 
   /** What the request's key opens: every session (operator), this one (facilitator), or nothing. */
   async function access(presented: string, sessionId: string | null): Promise<Access> {
@@ -105,7 +103,7 @@ export function createRestHandler(deps: RestDeps) {
     sendJson(res, 201, created);
   }
 
-  async function listRoute(req: IncomingMessage, res: ServerResponse) {
+  async function listRoute(req: IncomingMessage, res: ServerResponse, url: URL) {
     const presented = credentialFrom(req);
     if (presented === null) return noKey(res, "listing sessions");
     if ((await access(presented, null)) !== "operator") {
@@ -116,34 +114,16 @@ export function createRestHandler(deps: RestDeps) {
         "listing every session needs the operator key; a browser lists its own with POST /api/sessions/mine",
       );
     }
-    const [summaries, counts] = await Promise.all([
-      db.sessions.list(),
-      db.events.countOfType("round-resolved"),
-    ]);
-    sendJson(
-      res,
-      200,
-      summaries.map((s) => listItem(s, counts[s.id] ?? 0)),
-    );
+    await library.listAll(res, url);
   }
 
-  /** The sessions among those listed whose facilitator key is right; the others are left out. */
-  async function mineRoute(req: IncomingMessage, res: ServerResponse) {
-    const body = await readJsonBody(req, deps.limits.maxBodyBytes);
-    if (!body.ok) return sendError(res, body.status, body.code, body.message);
-    const parsed = parseInput(mineBodySchema, body.value);
-    if (!parsed.ok) return sendError(res, 400, parsed.code, parsed.message, parsed.path);
-    const open: string[] = [];
-    for (const { id, key } of parsed.value.sessions) {
-      const grant = await db.keys.resolve(id, key);
-      if (grant?.role === "facilitator") open.push(id);
-    }
-    const [summaries, counts] = await Promise.all([
-      Promise.all(open.map((id) => db.sessions.get(id))),
-      db.events.countOfType("round-resolved"),
-    ]);
-    const items = summaries.flatMap((s) => (s ? [listItem(s, counts[s.id] ?? 0)] : []));
-    sendJson(res, 200, items);
+  /** PATCH /api/sessions/<id>: rename, tag, archive; facilitator of this session or operator. */
+  async function editRoute(req: IncomingMessage, res: ServerResponse, id: string) {
+    const presented = credentialFrom(req);
+    if (presented === null) return noKey(res, "editing a session");
+    const who = await access(presented, id);
+    if (who === "none") return noSession(res);
+    await library.edit(req, res, id, who);
   }
 
   async function exportRoute(req: IncomingMessage, res: ServerResponse, url: URL, id: string) {
@@ -228,9 +208,11 @@ export function createRestHandler(deps: RestDeps) {
       return exportRoute(req, res, url, id);
     }
     if (single) {
-      if (method !== "DELETE") return void methodNotAllowed(res, "DELETE");
+      if (method !== "DELETE" && method !== "PATCH") {
+        return void methodNotAllowed(res, "PATCH, DELETE");
+      }
       if (id === null) return noSession(res);
-      return deleteRoute(req, res, id);
+      return method === "PATCH" ? editRoute(req, res, id) : deleteRoute(req, res, id);
     }
     sendError(res, 404, "not-found", `no API route ${method} ${path}`);
   }
@@ -250,12 +232,12 @@ export function createRestHandler(deps: RestDeps) {
         await sendReady(res, deps);
       } else if (path === "/api/sessions" || path === "/api/sessions/") {
         if (method === "POST") await createSessionRoute(req, res);
-        else if (method === "GET") await listRoute(req, res);
+        else if (method === "GET") await listRoute(req, res, url);
         else methodNotAllowed(res, "GET, POST");
       } else if (MINE_PATH.test(path)) {
-        if (method === "POST") await mineRoute(req, res);
+        if (method === "POST") await library.listMine(req, res);
         else methodNotAllowed(res, "POST");
-      } else {
+      } else if (!(await scenarios(req, res, method, path))) {
         await sessionRoute(req, res, url, method, path);
       }
     } catch (error) {

@@ -24,7 +24,8 @@ export async function summaryRoute(db: Database, res: ServerResponse, id: string
       "this session has private costs or values: its summary is available once it has ended",
     );
   }
-  const summary = summarizeSession(events);
+  const summary = summarizeSession(events, { tags: session.tags });
   if (!summary) return sendError(res, 404, "not-found", "no such session");
-  sendJson(res, 200, summary);
+  // The library's title (a rename after the session was played) wins over the scenario's.
+  sendJson(res, 200, { ...summary, session: { ...summary.session, title: session.title } });
 }

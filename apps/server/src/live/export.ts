@@ -29,7 +29,11 @@ export function publicEvents(events: readonly SessionEvent[]): SessionEvent[] {
   return events.slice(0, cut);
 }
 
-export function listItem(summary: SessionSummary, rounds: number): SessionListItem {
+export function listItem(
+  summary: SessionSummary,
+  rounds: number,
+  endedAt: number | null,
+): SessionListItem {
   return {
     id: summary.id,
     title: summary.title,
@@ -37,6 +41,9 @@ export function listItem(summary: SessionSummary, rounds: number): SessionListIt
     createdAt: summary.createdAt.toISOString(),
     updatedAt: summary.updatedAt.toISOString(),
     rounds,
+    tags: summary.tags,
+    archivedAt: summary.archivedAt?.toISOString() ?? null,
+    endedAt: endedAt === null ? null : new Date(endedAt).toISOString(),
   };
 }
 
@@ -55,7 +62,11 @@ export function buildExport(
   const rounds: RoundResult[] = state.status === "empty" ? [] : state.rounds;
   const shocks = state.status === "empty" ? [] : state.shocks;
   const record: SessionExport = {
-    session: listItem(summary, rounds.length),
+    session: listItem(
+      summary,
+      rounds.length,
+      allEvents.find((e) => e.type === "session-ended")?.at ?? null,
+    ),
     events,
     rounds,
     shocks,

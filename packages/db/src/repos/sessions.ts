@@ -29,6 +29,8 @@ const summarySelect = {
   lastSeq: true,
   createdAt: true,
   updatedAt: true,
+  tags: true,
+  archivedAt: true,
 } as const;
 
 const withSeats = { seats: { orderBy: { index: "asc" } } } as const;
@@ -39,7 +41,7 @@ type SessionRow = SessionSummary & {
 };
 
 function sessionRecord(row: SessionRow): SessionRecord {
-  return { ...row, seats: row.seats.map(seatRecord) };
+  return { ...row, tags: row.tags ?? [], seats: row.seats.map(seatRecord) };
 }
 
 export function sessionsRepository(db: Db) {
