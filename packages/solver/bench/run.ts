@@ -11,14 +11,13 @@ import {
   shareFunctionEquilibrium,
   solve,
   sweep2d,
-  runUncertain,
   type Contest,
   type Scenario,
-  type UncertainScenario,
 } from "../src/index";
 import { calibrationBench } from "./calibrate";
 import { mixedBench } from "./mixed";
 import { frontsRows } from "./fronts";
+import { uncertainRows } from "./uncertain";
 
 interface Row {
   case: string;
@@ -183,34 +182,7 @@ function main() {
     });
   }
 
-  // Monte Carlo under ranges: every rival's cost uniform on +-30% of its point value.
-  const ranged: UncertainScenario = {
-    ...ratioScenario(10),
-    rivals: ratioScenario(10).rivals.map((r) => ({
-      ...r,
-      cost: { dist: "uniform", low: 0.7 * r.cost, high: 1.3 * r.cost },
-    })),
-  };
-  const t5 = time(() => runUncertain(ranged, { draws: 10_000, seed: 1 }), { warmup: 2, runs: 7 });
-  rows.push({
-    case: "runUncertain 10,000 draws, 10 rivals, r = 1, 10 cost ranges (incl. tornado)",
-    target: "< 200 ms",
-    runs: 7,
-    medianMs: t5.median,
-    p95Ms: t5.p95,
-  });
-  const t6 = time(() => runUncertain(ranged, { draws: 10_000, seed: 1, planRival: 0 }), {
-    warmup: 1,
-    runs: 5,
-  });
-  rows.push({
-    case: "same with a robust plan for one rival",
-    target: "-",
-    runs: 5,
-    medianMs: t6.median,
-    p95Ms: t6.p95,
-  });
-
+  rows.push(...uncertainRows(time));
   rows.push(...calibrationBench(time));
   rows.push(...mixedBench(time));
   rows.push(...frontsRows(time));
