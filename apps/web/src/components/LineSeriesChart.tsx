@@ -38,6 +38,7 @@ export function LineSeriesChart({
   dark,
   height = 300,
   slide,
+  maxXTicks,
 }: {
   rows: readonly Row[];
   xKey: string;
@@ -53,11 +54,13 @@ export function LineSeriesChart({
   height?: number;
   /** when given: buttons that save the chart as a 1920 x 1080 slide (SVG, PNG) */
   slide?: SlideText;
+  /** at most this many ticks on a whole-number x axis (default MAX_WHOLE_TICKS) */
+  maxXTicks?: number;
 }) {
   const ref = useRef<HTMLDivElement>(null);
   const axis = dark ? "#c9d4e0" : "#4a5565";
   // Rounds (every x a whole number) get one tick per round, never "1, 2, 2, 3".
-  const ticks = wholeNumberTicks(rows, xKey);
+  const ticks = wholeNumberTicks(rows, xKey, maxXTicks);
   const grid = dark ? "#2a3848" : "#e3e7ec";
   const chart = (
     <div

@@ -192,6 +192,8 @@ const SweepResults = memo(function SweepResults({ done, metric }: { done: Done; 
         yLabel={isMoney ? `${yLabel} (${currency ?? "money"})` : `${yLabel} (per unit of money)`}
         formatY={(v) => formatNumber(v)}
         formatX={formatCompact}
+        // sweep values (prizes, budgets) are long numbers: few ticks so a phone's axis reads
+        maxXTicks={5}
         testId="fronts-sweep-chart"
       />
       <DataTable
