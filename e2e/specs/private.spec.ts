@@ -7,7 +7,7 @@
  * seat's own page, the facilitator console, and the same seat and frames after the end). After
  * the reveal the seat reads its best reply under the truth and under its beliefs, each checked
  * against an independent computation; after the end the replay's debrief shows the truth.
- * Screens of the editor and the seat at 1366x768, 1920x1080 and 390x844 are saved as artifacts.
+ * Screens of the editor, the seat, the console and the replay at 1366x768, 1920x1080 and 390x844 are saved as artifacts.
  */
 import { mkdirSync } from "node:fs";
 import path from "node:path";
@@ -168,6 +168,7 @@ test("a private cost set in the editor: the other seat sees the range, never the
 
   // The facilitator compares the round and ends the session.
   await expect(fac.getByTestId("console-private-compare")).toContainText("Harbor Kilns");
+  await shots(fac, "console", "console-private");
   const endedAt = Date.now();
   await fac.getByTestId("end-session").click();
   await expect(seatA.getByTestId("seat-ended")).toBeVisible();
