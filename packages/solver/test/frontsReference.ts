@@ -1,5 +1,5 @@
 // Independent reference computations for the fronts tests: payoffs written out from the
-// success-function definitions (Tullock 1980; Hirshleifer 1989) and a rival's best allocation
+// success-function definitions (Tullock 1980; Hirshleifer 1989; the all-pay auction) and a rival's best allocation
 // over its budget set found by Nelder-Mead (fmin), a general-purpose optimiser that shares no
 // code with the solver. The budget set {s >= 0, sum s <= B} is parametrised by
 // s_k = B sigma(t) softmax(z)_k (spends in money), so the search is unconstrained.
@@ -22,7 +22,9 @@ export function refShare(fcx: FrontsContest, k: number, i: number, col: readonly
     col.forEach((x, j) => (tot += (w[j]! / w[i]!) * Math.exp(kk * (x - col[i]!))));
     return 1 / tot;
   }
-  throw new Error("no all-pay fronts");
+  // all-pay auction: the highest effort wins, rivals tied at the top split the prize
+  const top = Math.max(...col);
+  return col[i] === top ? 1 / col.filter((x) => x === top).length : 0;
 }
 
 /** Rival i's payoff when it plays `row` and the others play `alloc`. */
