@@ -15,7 +15,6 @@ import {
   parseSessionScenario,
 } from "@contend/protocol";
 import type { Health } from "@contend/protocol";
-import { fold, truthSealed } from "@contend/session";
 import { clientAddress } from "../abuse";
 import type { AbuseBudgets } from "../abuse";
 import type { Clock } from "../clock";
@@ -29,6 +28,7 @@ import { savedScenarioRoutes } from "./savedScenarios";
 import type { Logger } from "../logger";
 import { credentialFrom, readJsonBody, sendError, sendJson, sendText } from "./io";
 import { sendReady } from "./ready";
+import { refusedWhileSealed } from "./sealed";
 
 export interface RestDeps {
   db: Database;
@@ -137,16 +137,7 @@ export function createRestHandler(deps: RestDeps) {
     const summary = await db.sessions.get(id);
     if (!summary) return noSession(res);
     const events = await db.events.list(id);
-    // R41: a session with private numbers exports once it has ended, never before.
-    const state = fold(events);
-    if (state.status !== "empty" && truthSealed(state)) {
-      return sendError(
-        res,
-        409,
-        "wrong-state",
-        "this session has private costs or values: its export is available once it has ended",
-      );
-    }
+    if (refusedWhileSealed(res, events, "export")) return;
     const record = buildExport(summary, events);
     // Always an attachment: a link to it downloads a file instead of replacing the page.
     const disposition = {

@@ -5,25 +5,17 @@
  */
 import type { ServerResponse } from "node:http";
 import type { Database } from "@contend/db";
-import { fold, summarizeSession, truthSealed } from "@contend/session";
+import { summarizeSession } from "@contend/session";
 import { publicEvents } from "../live/export";
 import { sendError, sendJson } from "./io";
+import { refusedWhileSealed } from "./sealed";
 
 /** The REST layer has checked the key (operator, or this session's facilitator). */
 export async function summaryRoute(db: Database, res: ServerResponse, id: string) {
   const session = await db.sessions.get(id);
   if (!session) return sendError(res, 404, "not-found", "no such session");
   const events = publicEvents(await db.events.list(id));
-  // R41: a session with private numbers is summarised once it has ended, never before.
-  const state = fold(events);
-  if (state.status !== "empty" && truthSealed(state)) {
-    return sendError(
-      res,
-      409,
-      "wrong-state",
-      "this session has private costs or values: its summary is available once it has ended",
-    );
-  }
+  if (refusedWhileSealed(res, events, "summary")) return;
   const summary = summarizeSession(events, { tags: session.tags });
   if (!summary) return sendError(res, 404, "not-found", "no such session");
   // The library's title (a rename after the session was played) wins over the scenario's.
