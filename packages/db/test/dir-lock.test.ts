@@ -1,10 +1,9 @@
 // The data-directory lock: who counts as its owner. Pure cases inject the clock-free inputs
 // (the lock's age, the pid table); the file cases run against a real temp directory.
 import { existsSync, readFileSync, utimesSync, writeFileSync } from "node:fs";
-import path from "node:path";
-import { afterEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { LOCK_WRITE_GRACE_MS, lockDataDir, lockState, processStart } from "../src/dirLock";
-import { tempDir } from "./fixtures";
+import { dataDirs } from "./dataDirs";
 
 describe("lockState", () => {
   const running = (pids: number[]) => (pid: number) => pids.includes(pid);
@@ -40,15 +39,7 @@ describe("lockState", () => {
 });
 
 describe("lockDataDir", () => {
-  const cleanups: (() => void)[] = [];
-  afterEach(() => {
-    while (cleanups.length) cleanups.pop()!();
-  });
-  function dataDir() {
-    const tmp = tempDir();
-    cleanups.push(tmp.dispose);
-    return path.join(tmp.dir, "pglite");
-  }
+  const dataDir = dataDirs("pglite");
 
   it("writes this process's pid and start time, and release removes it", () => {
     const dir = dataDir();

@@ -1,21 +1,13 @@
 import { spawnSync } from "node:child_process";
 import { existsSync, writeFileSync } from "node:fs";
-import path from "node:path";
 import { fileURLToPath } from "node:url";
-import { afterEach, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { openDatabase } from "../src/index";
-import { label, note, sessionInput, takeSeat, tempDir } from "./fixtures";
+import { dataDirs } from "./dataDirs";
+import { label, note, sessionInput, takeSeat } from "./fixtures";
 
 describe("PGlite in a directory", () => {
-  const cleanups: (() => void)[] = [];
-  afterEach(() => {
-    while (cleanups.length) cleanups.pop()!();
-  });
-  function dataDir() {
-    const tmp = tempDir();
-    cleanups.push(tmp.dispose);
-    return path.join(tmp.dir, "nested", "pglite");
-  }
+  const dataDir = dataDirs("nested", "pglite");
 
   it("close then reopen: sessions, seats, keys and events are all there; no migration re-applied", async () => {
     const dir = dataDir();
