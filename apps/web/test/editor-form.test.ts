@@ -5,13 +5,21 @@ import {
   bindField,
   blankRival,
   defaultForm,
+  formToContestRaw,
   formToScenario,
   keptPolicyFields,
   parseNumberField,
   rivalFieldError,
 } from "../src/lib/editorForm";
 import { parseScenarioText, scenarioToForm } from "../src/lib/editorImport";
-import { privateFieldError, privateKey, privatePoint } from "../src/lib/privateForm";
+import {
+  privateFieldError,
+  privateKey,
+  privatePoint,
+  privateRangesByPath,
+} from "../src/lib/privateForm";
+import { decodeExplorer } from "../src/lib/explorerState";
+import { encodeState } from "../src/lib/urlState";
 import { plainErrors } from "../src/lib/plainErrors";
 import { parseSessionScenario } from "@contend/protocol";
 import type { EditorForm } from "../src/lib/editorForm";
@@ -389,5 +397,18 @@ describe("private numbers set in the editor (docs/protocol.md R40)", () => {
     expect(privatePoint("2.5", "cost", 100)).toBe(2.5);
     expect(privatePoint("", "value", 100)).toBe(100);
     expect(privatePoint("abc", "cost", 100)).toBe(1);
+  });
+
+  it("the explorer link from the editor carries the private ranges, and the explorer reads them back", () => {
+    const f = twoRivals();
+    const on = range("1.5", "3");
+    const privateRanges = {
+      [privateKey(f.rivals[1]!.key, "cost")]: on,
+      [privateKey(f.rivals[0]!.key, "value")]: { ...range("80", "120"), on: false },
+    };
+    const rg = privateRangesByPath(f.rivals, privateRanges);
+    expect(rg).toEqual({ "rivals.1.cost": on });
+    const back = decodeExplorer(encodeState({ sc: formToContestRaw(f), rg }));
+    expect(back?.rg).toEqual({ "rivals.1.cost": on });
   });
 });

@@ -17,6 +17,7 @@ import { SolvedEquilibrium } from "./EquilibriumTable";
 import { ContestFields, RivalsTable } from "./ContestFields";
 import { ImportExport } from "./ImportExport";
 import { PrivateSettings, PrivateToggle } from "./PrivateFields";
+import { privateRangesByPath } from "../lib/privateForm";
 import { SessionFields } from "./SessionFields";
 
 export function ScenarioEditor() {
@@ -149,7 +150,10 @@ export function ScenarioEditor() {
                   )}
                   <a
                     className="small"
-                    href={`/explore?s=${encodeState({ sc: formToContestRaw(form) })}`}
+                    href={`/explore?s=${encodeState({
+                      sc: formToContestRaw(form),
+                      rg: privateRangesByPath(form.rivals, form.privateRanges),
+                    })}`}
                   >
                     Open this scenario in the explorer
                   </a>

@@ -15,7 +15,7 @@ import {
 import type { HiddenField, HiddenSettings } from "@contend/protocol";
 import type { Scenario } from "@contend/solver";
 import { rangeTextToRaw } from "./rangeForm";
-import type { RangeText } from "./rangeForm";
+import type { RangeForm, RangeText } from "./rangeForm";
 
 /** Keyed by "<row key>.<field>": "row-3.cost". */
 export type PrivateRanges = Record<string, RangeText>;
@@ -45,6 +45,16 @@ export function privateOn(
     }
   });
   return out;
+}
+
+/**
+ * The switched-on private ranges keyed by field path ("rivals.1.cost"), the form the explorer's
+ * uncertainty panel reads from its link (`rg`): the facilitator can see the bands they imply.
+ */
+export function privateRangesByPath(rows: readonly Row[], ranges: PrivateRanges): RangeForm {
+  return Object.fromEntries(
+    privateOn(rows, ranges).map((e) => [`rivals.${e.index}.${e.field}`, e.range]),
+  );
 }
 
 /** The raw `session.hidden` the form describes, or null when every number is public. */
