@@ -9,9 +9,14 @@
  * server stretches its window while its event loop is near full; this one's loop never is
  * (40-43% of a core in the full run, below where the window starts to stretch), so the same
  * rule would keep PROGRESS_MS here.
- *   PORT=... HOST=127.0.0.1 SEATS=8 VIEW_BYTES=4000 PROGRESS_MS=200 node --import tsx src/bareServer.ts
+ * With DURABLE_URL (a PostgreSQL URL) it is the durable baseline: every command is first
+ * stored with one INSERT into the same database the real server uses, and only after that
+ * commit is it pushed and acknowledged, as the real server acknowledges after its commit.
+ *   PORT=... HOST=127.0.0.1 SEATS=8 VIEW_BYTES=4000 PROGRESS_MS=200 [DURABLE_URL=postgres://...] \
+ *     node --import tsx src/bareServer.ts
  */
 import { createServer } from "node:http";
+import pg from "pg";
 import { Server } from "socket.io";
 
 const port = Number(process.env.PORT ?? 0);
@@ -19,6 +24,24 @@ const host = process.env.HOST ?? "127.0.0.1";
 const seats = Number(process.env.SEATS ?? 8);
 const viewBytes = Number(process.env.VIEW_BYTES ?? 2000);
 const progressMs = Number(process.env.PROGRESS_MS ?? 200);
+const durableUrl = process.env.DURABLE_URL || null;
+// One pool of node-postgres's default size, as the real server's.
+const pool = durableUrl ? new pg.Pool({ connectionString: durableUrl }) : null;
+if (pool) {
+  await pool.query(
+    `CREATE TABLE IF NOT EXISTS "BareMove" ("id" bigserial PRIMARY KEY, "sessionId" text NOT NULL,
+     "seatIndex" int, "type" text NOT NULL, "payload" jsonb NOT NULL, "at" timestamptz NOT NULL DEFAULT now())`,
+  );
+}
+
+/** The durable baseline's one INSERT per command, committed before anything is sent. */
+async function store(sessionId: string, seatIndex: number | null, cmd: { type: string }) {
+  if (!pool) return;
+  await pool.query(
+    `INSERT INTO "BareMove" ("sessionId", "seatIndex", "type", "payload") VALUES ($1, $2, $3, $4)`,
+    [sessionId, seatIndex, cmd.type, JSON.stringify(cmd)],
+  );
+}
 
 interface Room {
   seq: number;
@@ -100,9 +123,14 @@ io.on("connection", (socket) => {
 
   socket.on(
     "command",
-    (cmd: { type: string; clientMoveId?: string; effort?: number }, ack: Ack) => {
+    async (cmd: { type: string; clientMoveId?: string; effort?: number }, ack: Ack) => {
       const room = sessionId ? rooms.get(sessionId) : undefined;
       if (!room) return ack({ ok: false, code: "unauthorized" });
+      try {
+        await store(sessionId!, seatIndex, cmd);
+      } catch {
+        return ack({ ok: false, code: "internal" });
+      }
       if (cmd.type === "openRound") {
         room.status = "open";
         room.round++;

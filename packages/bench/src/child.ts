@@ -160,9 +160,10 @@ export async function startServer(opts: ServerOptions): Promise<Child> {
 
 export async function startBareServer(
   port: number,
-  opts: { seats: number; viewBytes: number; progressMs: number },
+  opts: { seats: number; viewBytes: number; progressMs: number; durableUrl?: string },
 ): Promise<Child> {
   const env = {
+    DURABLE_URL: opts.durableUrl ?? "",
     PORT: String(port),
     HOST,
     SEATS: String(opts.seats),

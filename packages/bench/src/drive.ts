@@ -7,7 +7,8 @@ import { monitorEventLoopDelay } from "node:perf_hooks";
 import { mulberry32 } from "@contend/solver";
 import { inBatches, SessionClient, sleep } from "./client";
 import type { AckedMove } from "./api";
-import { cpuSeconds, mainThreadCpuSeconds, rssMiB, selfCpuSeconds } from "./proc";
+// The server's CPU and memory count its worker processes too (WORKERS=N); alone, the same.
+import { mainThreadCpuSeconds, selfCpuSeconds, treeCpuSeconds, treeRssMiB } from "./proc";
 import { summarize } from "./stats";
 import type { Summary } from "./stats";
 
@@ -123,9 +124,9 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     for (const c of [lives[0].facilitator, ...lives[0].seats]) c.sampleViewSizes();
   }
 
-  let serverRssPeakMiB = rssMiB(opts.serverPid) ?? Number.NaN;
+  let serverRssPeakMiB = treeRssMiB(opts.serverPid) ?? Number.NaN;
   const rssSampler = setInterval(() => {
-    const now = rssMiB(opts.serverPid);
+    const now = treeRssMiB(opts.serverPid);
     if (now !== null && !(now <= serverRssPeakMiB)) serverRssPeakMiB = now;
   }, 250);
   const t0 = performance.now();
@@ -146,7 +147,7 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     0,
   );
   const facilitatorsConnected = lives.filter((l) => helloOk.has(l.facilitator)).length;
-  const serverRssAfterConnectMiB = rssMiB(opts.serverPid) ?? Number.NaN;
+  const serverRssAfterConnectMiB = treeRssMiB(opts.serverPid) ?? Number.NaN;
 
   const warmupRounds = opts.warmupRounds ?? 0;
   const ackMs: number[] = [];
@@ -163,7 +164,7 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     moveErrors[k] = (moveErrors[k] ?? 0) + 1;
   };
 
-  const warmServer0 = cpuSeconds(opts.serverPid) ?? Number.NaN;
+  const warmServer0 = treeCpuSeconds(opts.serverPid) ?? Number.NaN;
   const warmClient0 = selfCpuSeconds();
   let cpuServer0 = warmServer0;
   let cpuMain0 = mainThreadCpuSeconds(opts.serverPid) ?? Number.NaN;
@@ -176,7 +177,7 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     const measured = round > warmupRounds;
     if (round === warmupRounds + 1) {
       // The measured rounds start here: everything below counts from this point.
-      cpuServer0 = cpuSeconds(opts.serverPid) ?? Number.NaN;
+      cpuServer0 = treeCpuSeconds(opts.serverPid) ?? Number.NaN;
       cpuMain0 = mainThreadCpuSeconds(opts.serverPid) ?? Number.NaN;
       cpuClient0 = selfCpuSeconds();
       viewsBefore = seatClients.reduce((n, c) => n + c.viewsReceived, 0);
@@ -244,7 +245,7 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     serverCpuSeconds: cpuServer0 - warmServer0,
     clientCpuSeconds: cpuClient0 - warmClient0,
   };
-  const serverCpuSeconds = (cpuSeconds(opts.serverPid) ?? Number.NaN) - cpuServer0;
+  const serverCpuSeconds = (treeCpuSeconds(opts.serverPid) ?? Number.NaN) - cpuServer0;
   const mainCpuSeconds = (mainThreadCpuSeconds(opts.serverPid) ?? Number.NaN) - cpuMain0;
   const clientCpuSeconds = selfCpuSeconds() - cpuClient0;
   loopDelay.disable();
@@ -253,7 +254,7 @@ export async function drive(opts: DriveOptions): Promise<DriveResult> {
     p99: loopDelay.percentile(99) / 1e6,
     max: loopDelay.max / 1e6,
   };
-  const serverRssEndMiB = rssMiB(opts.serverPid) ?? Number.NaN;
+  const serverRssEndMiB = treeRssMiB(opts.serverPid) ?? Number.NaN;
   clearInterval(rssSampler);
 
   const sampled = lives[0] ? [lives[0].facilitator, ...lives[0].seats] : [];

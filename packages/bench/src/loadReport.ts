@@ -10,6 +10,8 @@ import type { Cell } from "./table";
 
 /** The issue's latency target for close -> reveal at the 99th percentile. */
 export const REVEAL_P99_TARGET_MS = 100;
+/** ours at most this many times the durable baseline (reveal p99, server CPU per move) */
+export const DURABLE_RATIO_TARGET = 1.5;
 
 export interface LoadConfig {
   sessions: number;
@@ -32,6 +34,8 @@ export interface LoadConfig {
    */
   progressBusyMs: number;
   bare: boolean;
+  /** the real server's WORKERS (>1 needs BENCH_DATABASE_URL) */
+  workers: number;
 }
 
 export interface LoadReport {
@@ -42,7 +46,10 @@ export interface LoadReport {
   speedCheckMs: { before: number; after: number };
   serverStartRssMiB: number;
   ours: Omit<DriveResult, "acked">;
+  /** the bare socket.io echo: no engine, no database */
   bare: Omit<DriveResult, "acked"> | null;
+  /** the bare server storing each command with one INSERT before acking (PostgreSQL only) */
+  durable: Omit<DriveResult, "acked"> | null;
   createSeconds: number;
   lostMoves: number;
   checkedMoves: number;
@@ -96,13 +103,17 @@ export function formatLoad(r: LoadReport): string {
     ["warm-up: server CPU (s)", (d) => (d.warmup.rounds > 0 ? d.warmup.serverCpuSeconds : "-")],
     ["warm-up: client CPU (s)", (d) => (d.warmup.rounds > 0 ? d.warmup.clientCpuSeconds : "-")],
   ];
+  const q = (a: Cell, b: Cell | null) => {
+    const v = typeof a === "number" && typeof b === "number" ? ratio(a, b) : null;
+    return v === null ? "" : Number.isNaN(v) ? "n/a" : v.toFixed(2);
+  };
   const table = markdownTable(
-    ["figure", "contend server", "bare socket.io", "ours / bare"],
+    ["figure", "contend server", "durable baseline", "ours / durable", "bare echo", "ours / echo"],
     rows.map(([name, get]) => {
       const a = get(r.ours);
+      const d = r.durable ? get(r.durable) : null;
       const b = r.bare ? get(r.bare) : null;
-      const q = typeof a === "number" && typeof b === "number" ? ratio(a, b) : null;
-      return [name, a, b, q === null ? "" : Number.isNaN(q) ? "n/a" : q.toFixed(2)];
+      return [name, a, d, q(a, d), b, q(a, b)];
     }),
   );
   const perSession = (r.ours.serverRssPeakMiB - r.serverStartRssMiB) / c.sessions;
@@ -115,7 +126,8 @@ export function formatLoad(r: LoadReport): string {
     ]),
   );
   return [
-    `Load: ${c.sessions} sessions x ${c.seats} human seats (+1 facilitator each), ${c.rounds} measured rounds`,
+    `Load: ${c.sessions} sessions x ${c.seats} human seats (+1 facilitator each), ${c.rounds} measured rounds,`,
+    `the server with ${c.workers} process${c.workers > 1 ? "es (WORKERS; CPU and RSS summed over them)" : ""},`,
     `after ${c.warmupRounds} warm-up round(s) (played the same way, figures in the "warm-up" rows only),`,
     `seals spread over ${c.spreadMs} ms after each opening, close mode ${c.closeMode}`,
     `(even rounds closed by the facilitator with one seat missing), progress window ${c.progressMs} ms,`,
@@ -127,7 +139,7 @@ export function formatLoad(r: LoadReport): string {
     `peak RSS growth per session ${perSession.toFixed(2)} MiB. ${r.checkedMoves} acked moves checked against the exported logs`,
     `after a drain (${r.drainFailures} drain failures): ${r.lostMoves} lost.`,
     `Server log: ${r.serverProblems.count} warn/error lines${r.serverProblems.count ? `; last: ${r.serverProblems.last.join(" | ")}` : ""}.`,
-    `Close -> reveal p99 by round (ms, warm-up in brackets): ours ${byRound(r.ours)}${r.bare ? `; bare ${byRound(r.bare)}` : ""}.`,
+    `Close -> reveal p99 by round (ms, warm-up in brackets): ours ${byRound(r.ours)}${r.durable ? `; durable ${byRound(r.durable)}` : ""}${r.bare ? `; echo ${byRound(r.bare)}` : ""}.`,
     "",
     table,
     "",

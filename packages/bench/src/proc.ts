@@ -78,3 +78,33 @@ export function loadAverage(): string {
     return "n/a";
   }
 }
+
+/** pid and every process it started, recursively (a WORKERS=N primary and its workers). */
+export function processTree(pid: number): number[] {
+  const out = [pid];
+  try {
+    const children = readFileSync(`/proc/${pid}/task/${pid}/children`, "utf8").trim();
+    for (const c of children ? children.split(/\s+/) : []) out.push(...processTree(Number(c)));
+  } catch {
+    // gone, or no children file: the process alone
+  }
+  return out;
+}
+
+/** CPU seconds of pid and its descendants (children that exited are not counted) */
+export function treeCpuSeconds(pid: number): number | null {
+  const own = cpuSeconds(pid);
+  if (own === null) return null;
+  return processTree(pid)
+    .slice(1)
+    .reduce((sum, p) => sum + (cpuSeconds(p) ?? 0), own);
+}
+
+/** resident set size of pid and its descendants in MiB */
+export function treeRssMiB(pid: number): number | null {
+  const own = rssMiB(pid);
+  if (own === null) return null;
+  return processTree(pid)
+    .slice(1)
+    .reduce((sum, p) => sum + (rssMiB(p) ?? 0), own);
+}
