@@ -35,6 +35,13 @@ export interface Request {
   options: ExecuteOptions;
 }
 
+/**
+ * Appends tried per batch before a conflict is reported (each after reading what the other
+ * writer committed). One process alone never conflicts; two or more sealing into one session
+ * at once do, and a seal refused for that would leave its round waiting.
+ */
+const MAX_ATTEMPTS = 8;
+
 /** Most commands one append carries. */
 const MAX_BATCH = 64;
 
@@ -174,9 +181,12 @@ export async function commitBatch(
       await deps.catchUp(live);
       return failed("conflict", `seat ${result.seatIndex} is already taken`);
     }
-    // conflict: someone else appended first; reload and decide again, once.
+    // conflict: someone else appended first; reload and decide again. Every conflict means
+    // another writer committed, so the log moves on each time; several processes sealing into
+    // one session can beat the same writer a few times in a row.
     await deps.catchUp(live);
-    if (attempt >= 1) return failed("conflict", "the session changed meanwhile; try again");
+    if (attempt >= MAX_ATTEMPTS - 1)
+      return failed("conflict", "the session changed meanwhile; try again");
   }
 }
 
