@@ -89,39 +89,11 @@ describe("contend uncertain", () => {
   });
 
   it("main(uncertain) with the same seed is byte-identical; another seed differs", async () => {
-    const a = await run(
-      "uncertain",
-      "good.json",
-      "--draws",
-      "300",
-      "--seed",
-      "11",
-      "--plan",
-      "B",
-      "--json",
-    );
-    const b = await run(
-      "uncertain",
-      "good.json",
-      "--draws",
-      "300",
-      "--seed",
-      "11",
-      "--plan",
-      "B",
-      "--json",
-    );
-    const c = await run(
-      "uncertain",
-      "good.json",
-      "--draws",
-      "300",
-      "--seed",
-      "12",
-      "--plan",
-      "B",
-      "--json",
-    );
+    const withSeed = (seed: string) =>
+      run("uncertain", "good.json", "--draws", "300", "--seed", seed, "--plan", "B", "--json");
+    const a = await withSeed("11");
+    const b = await withSeed("11");
+    const c = await withSeed("12");
     expect(a.code).toBe(0);
     expect(b.stdout).toBe(a.stdout);
     expect(c.stdout).not.toBe(a.stdout);
