@@ -38,6 +38,7 @@ export default function RootLayout({ children }: { children: ReactNode }) {
               <Link href="/explore">Explorer</Link>
               <Link href="/calibrate">Calibrate</Link>
               <Link href="/replays">Replays</Link>
+              <Link href="/scenarios">Scenarios</Link>
             </nav>
           </div>
         </header>

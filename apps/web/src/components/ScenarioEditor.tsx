@@ -9,6 +9,7 @@ import { plainErrors } from "../lib/plainErrors";
 import { templateById } from "../lib/templates";
 import { solveForView } from "../lib/solveView";
 import { decodeState, encodeState } from "../lib/urlState";
+import { handedScenario } from "../lib/libraryHandoff";
 import { useCreateSession } from "../hooks/useCreateSession";
 import { AboutTheMaths } from "./AboutTheMaths";
 import { CreatedSession } from "./CreatedSession";
@@ -19,10 +20,16 @@ import { ImportExport } from "./ImportExport";
 import { PrivateSettings, PrivateToggle } from "./PrivateFields";
 import { privateRangesByPath } from "../lib/privateForm";
 import { SessionFields } from "./SessionFields";
+import { SaveToLibrary } from "./SaveToLibrary";
 
 export function ScenarioEditor() {
   const params = useSearchParams();
   const [form, setForm] = useState<EditorForm>(() => {
+    // A saved version opened from the scenario library (kept in this tab, never in the URL).
+    if (params.get("from") === "library") {
+      const r = parseScenarioValue(handedScenario());
+      if (r.ok) return r.form;
+    }
     // A scenario handed over in the address (?s=, as the Calibrate page links), then a template.
     const handed = decodeState(params.get("s"));
     if (handed !== null && typeof handed === "object" && "sc" in handed) {
@@ -90,6 +97,7 @@ export function ScenarioEditor() {
           <SessionFields form={form} setForm={setForm} shown={shown} />
 
           <ImportExport form={form} setForm={setForm} result={result} />
+          <SaveToLibrary scenario={result.ok ? result.scenario : null} title={form.title} />
 
           <div className="row">
             <button

@@ -11,7 +11,9 @@ export function apiUrl(path: string): string {
   return path;
 }
 
-async function readError(res: Response): Promise<{ code: string; path: string; message: string }> {
+export async function readError(
+  res: Response,
+): Promise<{ code: string; path: string; message: string }> {
   try {
     const body = (await res.json()) as {
       error?: { code?: string; path?: string; message?: string };
@@ -33,7 +35,7 @@ async function readError(res: Response): Promise<{ code: string; path: string; m
   };
 }
 
-async function request<T>(path: string, init?: RequestInit): Promise<ApiResult<T>> {
+export async function request<T>(path: string, init?: RequestInit): Promise<ApiResult<T>> {
   let res: Response;
   try {
     res = await fetch(apiUrl(path), {

@@ -1,9 +1,12 @@
 /**
  * Keys this browser holds. A page's key arrives in the URL fragment (`#key=`), which browsers
  * never send to a server; facilitator keys are also kept in localStorage so that the replays
- * page can list this browser's own sessions. Nothing else is stored.
+ * page can list this browser's own sessions, and library keys of saved scenarios so that the
+ * scenario library lists this browser's own. Nothing else is stored.
  */
 const FACILITATOR_KEYS = "contend.facilitatorKeys";
+/** Library keys of saved scenarios this browser saved (each opens one saved scenario). */
+const SCENARIO_KEYS = "contend.scenarioKeys";
 /** At most this many sessions are remembered (the server answers at most 200 at once). */
 const MAX_REMEMBERED = 200;
 
@@ -18,10 +21,10 @@ export interface HeldKey {
   key: string;
 }
 
-function read(storage: Storage | null): HeldKey[] {
+function read(storage: Storage | null, item = FACILITATOR_KEYS): HeldKey[] {
   if (!storage) return [];
   try {
-    const raw = JSON.parse(storage.getItem(FACILITATOR_KEYS) ?? "[]") as unknown;
+    const raw = JSON.parse(storage.getItem(item) ?? "[]") as unknown;
     if (!Array.isArray(raw)) return [];
     return raw.filter(
       (x): x is HeldKey =>
@@ -60,4 +63,25 @@ export function forgetFacilitatorKey(id: string): void {
   const store = storage();
   if (!store) return;
   store.setItem(FACILITATOR_KEYS, JSON.stringify(read(store).filter((k) => k.id !== id)));
+}
+
+export function scenarioKeys(): HeldKey[] {
+  return read(storage(), SCENARIO_KEYS);
+}
+
+/** Remembers the library key of a saved scenario (shown once by the server), newest first. */
+export function rememberScenarioKey(id: string, key: string): void {
+  const store = storage();
+  if (!store || id === "" || key === "") return;
+  const rest = read(store, SCENARIO_KEYS).filter((k) => k.id !== id);
+  store.setItem(SCENARIO_KEYS, JSON.stringify([{ id, key }, ...rest].slice(0, MAX_REMEMBERED)));
+}
+
+export function forgetScenarioKey(id: string): void {
+  const store = storage();
+  if (!store) return;
+  store.setItem(
+    SCENARIO_KEYS,
+    JSON.stringify(read(store, SCENARIO_KEYS).filter((k) => k.id !== id)),
+  );
 }

@@ -1,18 +1,19 @@
 "use client";
 
 import Link from "next/link";
-import { useCallback, useEffect, useState } from "react";
+import { useCallback, useEffect, useRef, useState } from "react";
 import type { SessionListItem } from "@contend/protocol";
-import { keyedPath, listMySessions, listSessions } from "../../lib/api";
 import { facilitatorKeys } from "../../lib/keyring";
-import { formatDateTime } from "../../lib/format";
-import { STATUS_TEXT } from "../../lib/live";
+import { EMPTY_FILTER, searchAllSessions, searchMySessions } from "../../lib/libraryApi";
+import type { LibraryFilter } from "../../lib/libraryApi";
 import { TextField } from "../Field";
 import { FigureTable, numCol, textCol } from "../FigureTable";
+import { LibraryFilters } from "./LibraryFilters";
+import { SessionRow } from "./SessionRow";
 
 interface Row {
   item: SessionListItem;
-  /** the key its replay link carries (in the fragment) */
+  /** the key its replay link carries (in the fragment) and its edits send */
   key: string;
 }
 
@@ -22,95 +23,125 @@ function operatorFromFragment(): string {
   return new URLSearchParams(window.location.hash.slice(1)).get("operator") ?? "";
 }
 
+/** Typing in the search box asks the server once the typing pauses. */
+const SEARCH_PAUSE_MS = 250;
+
 /**
- * Past sessions: those whose facilitator keys this browser holds (kept when a facilitator
- * console opened), or every session with the operator key. The server lists nothing else.
+ * The library of past sessions: those whose facilitator keys this browser holds (kept when a
+ * facilitator console opened), or every session with the operator key. The server lists
+ * nothing else, and searches (title, tag, dates, archived) on its side.
  */
 export function ReplayList() {
   const [rows, setRows] = useState<Row[] | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [operatorKey, setOperatorKey] = useState("");
-  const [asOperator, setAsOperator] = useState(false);
+  /** the operator key the list was loaded with; "" lists this browser's own sessions */
+  const [listedAs, setListedAs] = useState<string | null>(null);
+  const [filter, setFilter] = useState<LibraryFilter>(EMPTY_FILTER);
+  const [seenTags, setSeenTags] = useState<string[]>([]);
+  const asked = useRef(0);
 
-  const loadMine = useCallback(async () => {
+  const load = useCallback(async (operator: string, f: LibraryFilter) => {
+    const ask = ++asked.current;
     setError(null);
     const held = facilitatorKeys();
-    if (held.length === 0) return setRows([]);
-    const r = await listMySessions(held);
+    if (!operator && held.length === 0) return setRows([]);
+    const r = operator ? await searchAllSessions(operator, f) : await searchMySessions(held, f);
+    if (ask !== asked.current) return; // a newer search has been sent
     if (!r.ok) return setError(r.message);
     const keys = new Map(held.map((h) => [h.id, h.key]));
-    setRows(r.data.map((item) => ({ item, key: keys.get(item.id) ?? "" })));
+    setRows(r.data.map((item) => ({ item, key: operator || (keys.get(item.id) ?? "") })));
+    setSeenTags((old) => [...new Set([...old, ...r.data.flatMap((i) => i.tags)])].sort());
   }, []);
 
-  const loadAll = useCallback(async (key: string) => {
-    setError(null);
-    const r = await listSessions(key);
-    if (!r.ok) return setError(r.message);
-    setAsOperator(true);
-    setRows(r.data.map((item) => ({ item, key })));
+  // The operator link may be opened on this page already: read the fragment on every change.
+  useEffect(() => {
+    const read = () => {
+      const fromFragment = operatorFromFragment();
+      setOperatorKey(fromFragment);
+      setListedAs(fromFragment);
+    };
+    read();
+    window.addEventListener("hashchange", read);
+    return () => window.removeEventListener("hashchange", read);
   }, []);
 
   useEffect(() => {
-    const fromFragment = operatorFromFragment();
-    if (fromFragment) {
-      setOperatorKey(fromFragment);
-      void loadAll(fromFragment);
-    } else void loadMine();
-  }, [loadAll, loadMine]);
+    if (listedAs === null) return;
+    const timer = setTimeout(() => void load(listedAs, filter), SEARCH_PAUSE_MS);
+    return () => clearTimeout(timer);
+  }, [listedAs, filter, load]);
 
-  const sorted = rows && [...rows].sort((a, b) => b.item.updatedAt.localeCompare(a.item.updatedAt));
+  const asOperator = Boolean(listedAs);
+  const filtered = JSON.stringify(filter) !== JSON.stringify(EMPTY_FILTER);
+  const update = (item: SessionListItem) => {
+    setRows((old) => old && old.map((r) => (r.item.id === item.id ? { ...r, item } : r)));
+    setSeenTags((old) => [...new Set([...old, ...item.tags])].sort());
+  };
+  const hiddenNow = (item: SessionListItem) =>
+    (filter.archived === "hide" && item.archivedAt !== null) ||
+    (filter.archived === "only" && item.archivedAt === null);
 
   return (
     <div>
       <h1>Past sessions</h1>
       <p className="muted">
-        Step through a session event by event, compare play with equilibrium, and print a debrief.
+        Find a session by title, tag or date, step through it event by event, compare play with
+        equilibrium, and print a debrief.
         {asOperator
           ? " Listed with the operator key: every session on this server."
           : " Listed: the sessions this browser has facilitated. Nobody else can list them."}
       </p>
-      <p className="no-print">
+      <p className="no-print row">
         <Link
-          href={`/replays/compare${asOperator ? `#operator=${encodeURIComponent(operatorKey)}` : ""}`}
+          href={`/replays/compare${asOperator ? `#operator=${encodeURIComponent(listedAs ?? "")}` : ""}`}
           data-testid="replays-compare-link"
         >
           Compare sessions side by side
         </Link>
+        <Link href="/scenarios" data-testid="replays-scenarios-link">
+          Saved scenarios
+        </Link>
       </p>
+      <LibraryFilters filter={filter} setFilter={setFilter} tags={seenTags} />
       {error && (
         <p className="notice error" data-testid="replays-error">
           Could not load the list: {error}
         </p>
       )}
-      {sorted === null && !error && <p className="muted">Loading…</p>}
-      {sorted !== null && sorted.length === 0 && (
+      {rows === null && !error && <p className="muted">Loading…</p>}
+      {rows !== null && rows.length === 0 && (
         <p data-testid="replays-empty">
-          No sessions facilitated from this browser yet. A session appears here once its facilitator
-          console has been opened in this browser.
+          {filtered
+            ? "No session matches this search."
+            : "No sessions facilitated from this browser yet. A session appears here once its facilitator console has been opened in this browser."}
         </p>
       )}
-      {sorted !== null && sorted.length > 0 && (
+      {rows !== null && rows.length > 0 && (
         <FigureTable
           head={[
-            textCol("Session"),
+            textCol("Session and tags"),
             textCol("Status"),
             numCol("Rounds played"),
-            textCol("Last activity"),
+            textCol("Created"),
+            textCol("Library"),
           ]}
-          wrap="card table-wrap"
+          wrap="card table-wrap library-table"
           testId="replays-table"
         >
-          {sorted.map(({ item: s, key }) => (
-            <tr key={s.id}>
-              <td>
-                <Link href={keyedPath("replays", s.id, key)} data-testid={`replay-link-${s.id}`}>
-                  {s.title}
-                </Link>
-              </td>
-              <td>{STATUS_TEXT[s.status]}</td>
-              <td className="num">{s.rounds}</td>
-              <td>{formatDateTime(s.updatedAt)}</td>
-            </tr>
+          {rows.map(({ item, key }) => (
+            <SessionRow
+              key={item.id}
+              item={item}
+              accessKey={key}
+              onChanged={(next) => {
+                if (hiddenNow(next)) {
+                  setRows((old) => old && old.filter((r) => r.item.id !== next.id));
+                } else update(next);
+              }}
+              onDeleted={(id) => setRows((old) => old && old.filter((r) => r.item.id !== id))}
+              onTag={(tag) => setFilter({ ...filter, tag })}
+            />
           ))}
         </FigureTable>
       )}
@@ -120,7 +151,7 @@ export function ReplayList() {
           style={{ alignItems: "flex-end", marginTop: "1rem" }}
           onSubmit={(e) => {
             e.preventDefault();
-            if (operatorKey.trim()) void loadAll(operatorKey.trim());
+            if (operatorKey.trim()) setListedAs(operatorKey.trim());
           }}
         >
           <TextField
