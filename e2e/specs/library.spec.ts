@@ -138,6 +138,7 @@ test("saved scenarios: save, save a second version, start a session from version
   await page.getByTestId("save-library-note").fill("Q4 numbers");
   await page.getByTestId("save-library-button").click();
   await expect(page.getByTestId("save-library-outcome")).toContainText("version 2");
+  await expect(page.getByTestId("save-library-target")).toContainText("version 3 of");
   await page.getByTestId("save-library").scrollIntoViewIfNeeded();
   await page.getByTestId("save-library").screenshot({
     path: "test-results/screens/library-save-box-1366x768.png",

@@ -49,6 +49,13 @@ export function SaveToLibrary({
     if (target !== NEW && key) {
       const r = await saveVersion(target, key, note, scenario);
       const saved = mine.find((s) => s.id === target);
+      if (r.ok) {
+        // the next save offers the version after this one
+        const entry = { version: r.data.version, note, createdAt: new Date().toISOString() };
+        setMine((old) =>
+          old.map((s) => (s.id === target ? { ...s, versions: [entry, ...s.versions] } : s)),
+        );
+      }
       setOutcome(
         r.ok
           ? { ok: true, text: `Saved as version ${r.data.version} of “${saved?.name ?? ""}”.` }
