@@ -47,6 +47,18 @@ describe("richardson", () => {
 });
 
 describe("comparativeStatics", () => {
+  it("refuses an approximate mixed equilibrium (three rivals at r = 3) and names why", () => {
+    const three: Scenario = {
+      title: "t",
+      prize: 100,
+      csf: { kind: "ratio", decisiveness: 3 },
+      rivals: [1, 1.2, 1.5].map((cost, i) => ({ name: `R${i}`, cost })),
+    };
+    const r = comparativeStatics(three);
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.message).toMatch(/approximate mixed one .* too coarse to differentiate/);
+  });
+
   it("comparativeStatics(two rivals, r = 1) gives d e1/d m2 = v (m1 - m2) / (m1 + m2)^3 (Hillman & Riley 1989)", () => {
     for (const [m1, m2] of [
       [5, 2],

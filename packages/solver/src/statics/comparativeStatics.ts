@@ -179,6 +179,16 @@ export function comparativeStatics(
       message: "no equilibrium is known for this scenario, so there is nothing to differentiate",
     };
   }
+  if (eq.kind === "mixed" && eq.approximate) {
+    // a learning method's expected spends move by up to its certified gap between nearby
+    // scenarios: a finite difference of them would be noise (and each point a costly solve)
+    return {
+      ok: false,
+      path: "csf",
+      message:
+        "the equilibrium here is an approximate mixed one (fictitious play with a certified gap), too coarse to differentiate, so no comparative statics are shown",
+    };
+  }
   const payoffs = eq.payoffs;
   const n = contest.rivals.length;
   const total = efforts.reduce((a, b) => a + b, 0);

@@ -1,7 +1,7 @@
 "use client";
 
 import type { Dispatch, SetStateAction } from "react";
-import type { SweepState } from "../../hooks/useChunkedSweep";
+import type { SweepState } from "../../hooks/useSweepWorker";
 import type { AxisText } from "../../hooks/useSweepAxis";
 import { formatNumber } from "../../lib/format";
 import { SelectField, TextField } from "../Field";

@@ -1,7 +1,7 @@
 "use client";
 
 import type { Scenario, UncertainScenario } from "@contend/solver";
-import { useChunkedSweep } from "../../hooks/useChunkedSweep";
+import { useSweepWorker } from "../../hooks/useSweepWorker";
 import type { useSweepAxis } from "../../hooks/useSweepAxis";
 import { sweepRows } from "../../lib/chartData";
 import { SweepControls } from "./SweepControls";
@@ -9,7 +9,7 @@ import { SweepResults } from "./SweepResults";
 import { SweepBands } from "./SweepBands";
 
 /**
- * Sweeps one parameter over a range (run in time slices, re-run as the scenario changes) and
+ * Sweeps one parameter over a range (run in a Web Worker, re-run as the scenario changes) and
  * shows the equilibrium along it.
  */
 export function SweepSection({
@@ -23,7 +23,7 @@ export function SweepSection({
   uncertain?: UncertainScenario | null;
 }) {
   const { axis, setAxis, spec, paramOptions, paramLabel, pickParam } = sweepAxis;
-  const sweep = useChunkedSweep(scenario, spec, true);
+  const sweep = useSweepWorker(scenario, spec, true);
   const names = scenario?.rivals.map((r) => r.name) ?? [];
   const rows = sweep.state.status === "done" ? sweepRows(sweep.state.sweep) : [];
   return (
