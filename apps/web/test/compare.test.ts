@@ -16,7 +16,7 @@ import {
   sessionLabels,
 } from "../src/lib/compare";
 import type { Compared } from "../src/lib/compare";
-import { playSession } from "./session-log";
+import { playSession } from "./sessionLog";
 
 function compared(log: ReturnType<typeof playSession>): Compared {
   const summary = summarizeSession(log);

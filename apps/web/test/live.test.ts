@@ -15,7 +15,7 @@ import { describeEvent, parseExport, viewAfter } from "../src/lib/replay";
 import { blankDraft, describeShock, draftToShock } from "../src/lib/shockForm";
 import { roundSeatRows } from "../src/lib/chartData";
 import { shockLineText, shockLines } from "../src/lib/shockText";
-import { playLog } from "./session-log";
+import { playLog } from "./sessionLog";
 
 // One rule, one place: the seat form checks a spend with the engine's rule, so it refuses
 // exactly what the server refuses. Two cases where the web's own copy used to disagree: 5e-7

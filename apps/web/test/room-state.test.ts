@@ -8,7 +8,7 @@ import {
   standings,
 } from "../src/lib/roomState";
 import { viewAfter } from "../src/lib/replay";
-import { playLog } from "./session-log";
+import { playLog } from "./sessionLog";
 
 /** The spectator view after each event of a real engine log (2 rounds, 1 played). */
 function views(): RoleView[] {
