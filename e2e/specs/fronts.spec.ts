@@ -158,7 +158,9 @@ test("fronts explorer(link with Friedman's case and a sweep) restores both; an a
   // a long sweep (every point a none-pure search over two all-pay fronts) shows progress and
   // Cancel stops it; while the next one runs the page still takes input
   await page.getByTestId("front-1-kind").selectOption("allpay");
-  await expect(page.getByTestId("fronts-eq-none")).toContainText('fronts "F0", "F1" are');
+  await expect(page.getByTestId("fronts-eq-none")).toContainText(
+    'fronts "F0", "F1" are all-pay auctions',
+  );
   await page.getByTestId("fronts-sweep-steps").fill("101");
   await resetLongTasks(page);
   await page.getByTestId("fronts-sweep-run").click();
@@ -173,6 +175,7 @@ test("fronts explorer(link with Friedman's case and a sweep) restores both; an a
   await expect(page.getByTestId("fronts-sweep-table").locator("tbody tr")).toHaveCount(101, {
     timeout: 60_000,
   });
+  await expect(page.getByTestId("fronts-sweep-none")).toBeVisible();
   // A figure for the report, not a timed assertion (speed targets live in benchmarks).
   console.log(
     `fronts sweep: long tasks on the page (ms): ${JSON.stringify(await readLongTasks(page))}`,
@@ -183,4 +186,18 @@ test("fronts explorer(link with Friedman's case and a sweep) restores both; an a
   const state = JSON.parse(linkState(page.url())) as typeof FRIEDMAN_LINK;
   expect(state.sc.title).toBe("Typed while the sweep runs");
   expect(state.sw.steps).toBe("101");
+
+  // without budgets the fronts are independent: each all-pay front opens alone in the
+  // single-contest explorer, which shows its mixed equilibrium (Hillman & Riley 1989)
+  await page.setViewportSize({ width: 1366, height: 768 });
+  for (let i = 0; i < 2; i++) {
+    await page.getByTestId(`frival-${i}-sunk`).uncheck();
+    await page.getByTestId(`frival-${i}-budget`).fill("");
+  }
+  await expect(page.getByTestId("fronts-eq-none")).toContainText("independent contests");
+  await expect(page.getByTestId("fronts-alone-1")).toBeVisible();
+  await saveScreen(page, "fronts-explorer-allpay-1366");
+  await page.getByTestId("fronts-alone-0").click();
+  await expect(page.getByRole("heading", { name: "Equilibrium explorer" })).toBeVisible();
+  await expect(page.getByTestId("eq-kind")).toContainText("Mixed-strategy equilibrium");
 });

@@ -2,10 +2,23 @@
 // and reads back the same; anything broken in a link is refused (scenario) or replaced by the
 // defaults (sweep settings), never trusted. Demo data are invented.
 import { describe, expect, it } from "vitest";
-import { validateFrontsScenario } from "@contend/solver";
+import {
+  normalizeFronts,
+  solve,
+  normalize,
+  validateFrontsScenario,
+  validateScenario,
+} from "@contend/solver";
 import type { FrontsScenario } from "@contend/solver";
 import { frontsFormToRaw, initialFrontsForm } from "../src/lib/frontsForm";
-import { decodeFronts, defaultSweepSettings, encodeFronts } from "../src/lib/frontsState";
+import { decodeExplorer } from "../src/lib/explorerState";
+import {
+  decodeFronts,
+  defaultSweepSettings,
+  encodeFronts,
+  frontAsContest,
+  frontExplorerLink,
+} from "../src/lib/frontsState";
 import { encodeState } from "../src/lib/urlState";
 
 function scenario(): FrontsScenario {
@@ -40,5 +53,35 @@ describe("fronts link state", () => {
       }),
     );
     expect(back?.sw).toEqual({ ...base, to: "5" });
+  });
+});
+
+describe("a front alone in the single-contest explorer", () => {
+  it("frontExplorerLink(an all-pay front without budgets) opens a valid single contest with that front's numbers, whose solve is the mixed all-pay equilibrium", () => {
+    const v = validateFrontsScenario({
+      title: "Tenders",
+      fronts: [
+        { name: "Retail", prize: 80, csf: { kind: "ratio", decisiveness: 1 } },
+        { name: "City tender", prize: 120, csf: { kind: "allpay" } },
+      ],
+      rivals: [
+        { name: "A", cost: [1, 2] },
+        { name: "B", cost: 1, value: [80, 90] },
+      ],
+    });
+    if (!v.ok) throw new Error(v.message);
+    const fc = normalizeFronts(v.value);
+    const sc = frontAsContest(fc, 1, "EUR");
+    expect(validateScenario(sc).ok).toBe(true);
+    expect(sc.rivals).toEqual([
+      { name: "A", cost: 2, value: 120, weight: 1 },
+      { name: "B", cost: 1, value: 90, weight: 1 },
+    ]);
+    const link = frontExplorerLink(fc, 1, "EUR");
+    const back = decodeExplorer(new URL(link, "http://x").searchParams.get("s"));
+    expect(back?.sc).toEqual(sc);
+    // the single-contest solver's answer for it: mixed (Hillman & Riley 1989; Baye, Kovenock &
+    // de Vries 1996), as the note of the fronts solve says
+    expect(solve(normalize(sc)).equilibrium.kind).toBe("mixed");
   });
 });

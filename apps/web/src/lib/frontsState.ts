@@ -7,7 +7,8 @@
  * The scenario must pass the solver's validator; broken sweep settings fall back to defaults.
  */
 import { frontsParamPaths, validateFrontsScenario } from "@contend/solver";
-import type { FrontsScenario } from "@contend/solver";
+import type { FrontsContest, FrontsScenario, Scenario } from "@contend/solver";
+import { encodeExplorer, initialState } from "./explorerState";
 import { decodeState, encodeState } from "./urlState";
 
 export interface FrontsSweepSettings {
@@ -71,4 +72,31 @@ export function decodeFronts(text: string | null | undefined): FrontsViewState |
   const sc = validateFrontsScenario(obj.sc);
   if (!sc.ok) return null;
   return { sc: sc.value, sw: readSettings(obj.sw, sc.value) };
+}
+
+/**
+ * Front k as a single contest (its prize and form; each rival's cost, value and weight there).
+ * Only equal to the front inside the whole game when no rival has a budget: then the fronts
+ * are independent contests and each front's equilibrium, mixed ones included, is its own.
+ */
+export function frontAsContest(fc: FrontsContest, k: number, currency: string | null): Scenario {
+  const f = fc.fronts[k]!;
+  return {
+    title: `${fc.title}: ${f.name}`,
+    prize: f.prize,
+    csf: f.csf,
+    rivals: fc.rivals.map((r) => ({
+      name: r.name,
+      cost: r.cost[k]!,
+      value: r.value[k]!,
+      weight: r.weight[k]!,
+    })),
+    leader: null,
+    ...(currency ? { currency } : {}),
+  };
+}
+
+/** Link to the single-contest explorer showing front k alone (see frontAsContest). */
+export function frontExplorerLink(fc: FrontsContest, k: number, currency: string | null): string {
+  return `/explore?s=${encodeExplorer(initialState(frontAsContest(fc, k, currency)))}`;
 }

@@ -71,10 +71,13 @@ export function solveFronts(fc: FrontsContest, opts: FrontsSolveOptions = {}): F
 /** Why a scenario with all-pay fronts has no pure equilibrium (see the file header). */
 function allPayReason(fc: FrontsContest, allPay: readonly number[]): string {
   const names = allPay.map((k) => `"${fc.fronts[k]!.name}"`);
-  const list = names.length === 1 ? `front ${names[0]!} is` : `fronts ${names.join(", ")} are`;
+  const list =
+    names.length === 1
+      ? `front ${names[0]!} is an all-pay auction`
+      : `fronts ${names.join(", ")} are all-pay auctions`;
   const decoupled = fc.rivals.every((r) => r.budget === Infinity);
   return (
-    `${list} an all-pay auction: against pure bids some rival always gains by outbidding the top bid by a step or by dropping to nothing, so no pure profile passed the global best-response check (without budgets that bind, an all-pay auction has no pure-strategy equilibrium: Baye, Kovenock & de Vries 1996). ` +
+    `${list}: against pure bids some rival always gains by outbidding the top bid by a step or by dropping to nothing, so no pure profile passed the global best-response check (without budgets that bind, an all-pay auction has no pure-strategy equilibrium: Baye, Kovenock & de Vries 1996). ` +
     (decoupled
       ? "No rival has a budget, so the fronts are independent contests: solve each all-pay front on its own for its mixed equilibrium (Hillman & Riley 1989)"
       : "Its equilibria are in mixed strategies, and mixed strategies over several fronts with one budget (a Colonel Blotto-type game) are not computed here")

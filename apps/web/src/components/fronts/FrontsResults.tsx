@@ -3,6 +3,7 @@
 import type { FrontsContest, FrontsEquilibrium } from "@contend/solver";
 import { readAllocation } from "@contend/solver";
 import { formatMoney, formatNumber, formatPercent } from "../../lib/format";
+import { frontExplorerLink } from "../../lib/frontsState";
 import { FigureTable, RowHeader, numCol, textCol } from "../FigureTable";
 
 /** What the result views of the fronts explorer draw from. */
@@ -17,10 +18,26 @@ export function FrontsResults({ fc, eq, currency }: FrontsView) {
   const money = (v: number) => formatMoney(v, currency);
   const per = currency ? `per 1 ${currency}` : "per unit of money";
   if (eq.kind === "none-pure" || !eq.spends) {
+    // without budgets each all-pay front is a contest of its own, solved by the single explorer
+    const alone = fc.rivals.every((r) => r.budget === Infinity)
+      ? fc.fronts.flatMap((f, k) => (f.csf.kind === "allpay" ? [k] : []))
+      : [];
     return (
       <section className="card" aria-labelledby="fronts-eq-title" data-testid="fronts-eq">
         <h2 id="fronts-eq-title">Equilibrium</h2>
         <p data-testid="fronts-eq-none">{eq.note ?? "No pure-strategy equilibrium found."}</p>
+        {alone.length > 0 && (
+          <ul data-testid="fronts-alone-links">
+            {alone.map((k) => (
+              <li key={k}>
+                <a href={frontExplorerLink(fc, k, currency)} data-testid={`fronts-alone-${k}`}>
+                  {fc.fronts[k]!.name} alone in the single-contest explorer
+                </a>{" "}
+                (its mixed equilibrium; without budgets the fronts are independent contests)
+              </li>
+            ))}
+          </ul>
+        )}
       </section>
     );
   }

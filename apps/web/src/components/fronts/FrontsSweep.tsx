@@ -182,8 +182,15 @@ const SweepResults = memo(function SweepResults({ done, metric }: { done: Done; 
         : metric === "payoff"
           ? "Payoff"
           : `Spend on ${sc.fronts[k]?.name ?? `front ${k + 1}`}`;
+  const anyPure = done.points.some((p) => p.equilibrium.kind === "pure");
   return (
     <>
+      {!anyPure && (
+        <p className="small" role="status" data-testid="fronts-sweep-none">
+          No pure-strategy equilibrium at any point of this sweep: the chart and table stay blank
+          (the reason is in the equilibrium&apos;s note above).
+        </p>
+      )}
       <LineSeriesChart
         rows={rows}
         xKey="x"
