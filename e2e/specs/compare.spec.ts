@@ -16,7 +16,7 @@ import type { Page } from "@playwright/test";
 import { exportJson } from "../support/api";
 import { expect, test } from "../support/fixtures";
 import { expectShown } from "../support/numbers";
-import { expectAccessible, SIZES, startRoom } from "../support/room";
+import { expectAccessible, ROOM_NAMES, SIZES, startRoom } from "../support/room";
 import { RESULTS_DIR } from "../support/server";
 
 interface ExportRound {
@@ -215,7 +215,10 @@ test("compare(two finished sessions) shows overspend, distance from equilibrium,
     const mine = parsed.data.filter((r) => r.sessionId === x.session.id);
     const rounds = mine.filter((r) => r.record === "round");
     const seats = mine.filter((r) => r.record === "seat");
-    expect(rounds.map((r) => Number(r.round))).toEqual([1, 2, 3]);
+    expect(
+      rounds.map((r) => Number(r.round)),
+      `CSV round rows of session ${k + 1} (${x.session.id}) in ${csv.name}: ${parsed.data.length} rows, sessions ${[...new Set(parsed.data.map((r) => r.sessionId))].join(", ")}`,
+    ).toEqual([1, 2, 3]);
     expect(seats).toHaveLength(3);
     rounds.forEach((r, i) => {
       expect(Number(r.overspend)).toBeCloseTo(refs[k]!.rounds[i]!.overspend, 9);
@@ -248,6 +251,8 @@ test("compare(two finished sessions) shows overspend, distance from equilibrium,
   expect(svgDoc.text.join(" ")).toContain("Largest regret (% of the prize)");
   expect(svgDoc.text.join(" ")).toContain("converged");
   expect(svgDoc.text.join(" ")).toContain("2 changed");
+  // the slide stands alone: its legend names each session in full
+  expect(svgDoc.text.join(" ")).toContain(`1. ${exports[0]!.session.title}`);
   expect(svgDoc.lines, "one line per session").toBe(2);
 
   await expectAccessible(page, "compare view");
@@ -273,6 +278,12 @@ test("compare(two finished sessions) shows overspend, distance from equilibrium,
   const debriefPng = await download(page, "replay-history-effort-chart-slide-png");
   expect(pngSize(debriefPng.bytes)).toEqual({ width: 1920, height: 1080 });
   writeFileSync(path.join(slides, "debrief-spends.png"), debriefPng.bytes);
+  const roundSvg = await download(page, "replay-round-chart-slide-svg");
+  writeFileSync(path.join(slides, "replay-round.svg"), roundSvg.bytes);
+  const roundDoc = await parseSvg(page, roundSvg.bytes.toString("utf8"));
+  expect(roundDoc).toMatchObject({ error: null, tag: "svg", width: "1920", height: "1080" });
+  expect(roundDoc.text).toContain("Round 3: spends against equilibrium");
+  expect(roundDoc.text.join(" ")).toContain(ROOM_NAMES[1]!);
   await page.emulateMedia({ media: "print" });
   const debriefPdf = await page.pdf({ format: "A4", margin, printBackground: true });
   expect(pdfPages(debriefPdf)).toBeGreaterThanOrEqual(1);

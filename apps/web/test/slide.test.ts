@@ -9,6 +9,7 @@ import {
   SLIDE_HEIGHT,
   SLIDE_WIDTH,
   slideSvg,
+  titleLines,
   wrapText,
 } from "../src/lib/slide";
 
@@ -54,6 +55,24 @@ describe("slideSvg(spec)", () => {
     expect(x + w).toBeLessThanOrEqual(SLIDE_WIDTH);
     expect(y + h).toBeLessThanOrEqual(SLIDE_HEIGHT - 100);
     expect(svg.endsWith("</svg>")).toBe(true);
+  });
+});
+
+describe("slideSvg(spec) with a long title and a legend band", () => {
+  it("slideSvg shrinks or wraps a long title to the slide's width and leaves the legend band out of the drawing", () => {
+    const title = "Library reprint order: three print shops: spends against equilibrium";
+    const { size, lines } = titleLines(title, SLIDE_WIDTH - 144);
+    expect(size).toBeLessThan(52);
+    expect(lines.join(" ")).toBe(title);
+    for (const l of lines) expect(0.55 * size * l.length).toBeLessThanOrEqual(SLIDE_WIDTH - 144);
+    const svg = slideSvg({
+      title,
+      units: "u",
+      caption: "c",
+      legend: [],
+      chart: { ...chart, top: 90 },
+    });
+    expect(svg).toContain('viewBox="0 90 600 210"');
   });
 });
 

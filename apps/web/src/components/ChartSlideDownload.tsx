@@ -1,7 +1,8 @@
 "use client";
 
-import { useState } from "react";
-import type { RefObject } from "react";
+import { useRef, useState } from "react";
+import type { ReactNode, RefObject } from "react";
+import { createPortal } from "react-dom";
 import { downloadFileName } from "@contend/protocol";
 import { saveBlob } from "../lib/saveFile";
 import { SLIDE_HEIGHT, SLIDE_WIDTH, slideSvg } from "../lib/slide";
@@ -12,14 +13,25 @@ export interface SlideText {
   title: string;
   /** one or two sentences under the chart: what it shows, how to read it */
   caption: string;
+  /** the slide's legend when it should say more than the chart's (full names in place of numbers) */
+  legend?: readonly SlideSeries[];
 }
+
+/**
+ * The size a chart is drawn at, off screen, for a slide: its text then scales by about 1.8 to
+ * fill the slide's chart area (12 px ticks read at about 22 px on a 1080-line slide).
+ */
+const STAGE = { width: 980, height: 400 };
+const CHART_SVG = ".recharts-wrapper > svg.recharts-surface";
+
+const nextFrame = () => new Promise<void>((resolve) => requestAnimationFrame(() => resolve()));
 
 /** Parts of a chart's drawing that only make sense on screen (hover cursor, active dot). */
 const SCREEN_ONLY = ".recharts-tooltip-cursor, .recharts-active-dot";
 
 /** The chart's drawing as markup with its size and font size, read from the page. */
 function readChart(container: HTMLElement | null) {
-  const svg = container?.querySelector<SVGSVGElement>(".recharts-wrapper > svg.recharts-surface");
+  const svg = container?.querySelector<SVGSVGElement>(CHART_SVG);
   if (!svg) return null;
   const box = svg.getBoundingClientRect();
   const width = Number(svg.getAttribute("width")) || box.width;
@@ -28,7 +40,21 @@ function readChart(container: HTMLElement | null) {
   const clone = svg.cloneNode(true) as SVGSVGElement;
   for (const el of clone.querySelectorAll(SCREEN_ONLY)) el.remove();
   const fontSize = parseFloat(getComputedStyle(svg).fontSize) || 12;
-  return { inner: clone.innerHTML, width, height, fontSize };
+  // A legend on top sits over room the drawing leaves empty; the slide draws its own legend.
+  const legend = container?.querySelector<HTMLElement>(".recharts-legend-wrapper");
+  const band = legend?.getBoundingClientRect();
+  const onTop = band !== undefined && band.top - box.top < box.height / 2;
+  // Keep a text line's height of the band: the top tick label reaches into it.
+  const top = band && onTop ? band.bottom - box.top - fontSize : 0;
+  const bottom = band && !onTop ? box.bottom - band.top - fontSize : 0;
+  return {
+    inner: clone.innerHTML,
+    width,
+    height,
+    fontSize,
+    top: Math.max(0, top),
+    bottom: Math.max(0, bottom),
+  };
 }
 
 /** Draws the slide's SVG on a slide-sized canvas and returns it as PNG. */
@@ -58,21 +84,45 @@ async function rasterise(svg: string): Promise<Blob> {
  */
 export function ChartSlideDownload({
   chartRef,
+  drawForSlide,
   slide,
   units,
   legend,
   testId,
 }: {
   chartRef: RefObject<HTMLElement | null>;
+  /** the chart drawn again to fill its parent: drawn off screen at slide proportions when given */
+  drawForSlide?: () => ReactNode;
   slide: SlideText;
   units: string;
   legend: readonly SlideSeries[];
   testId?: string;
 }) {
   const [error, setError] = useState<string | null>(null);
+  const [staged, setStaged] = useState(false);
+  const stageRef = useRef<HTMLDivElement>(null);
+
+  /** The drawing to use: the staged copy once it has its full width, else the chart on screen. */
+  async function drawing() {
+    if (!drawForSlide) return readChart(chartRef.current);
+    setStaged(true);
+    try {
+      for (let i = 0; i < 120; i++) {
+        await nextFrame();
+        const svg = stageRef.current?.querySelector(CHART_SVG);
+        if (svg && Number(svg.getAttribute("width")) >= STAGE.width - 1) {
+          return readChart(stageRef.current);
+        }
+      }
+      return readChart(chartRef.current);
+    } finally {
+      setStaged(false);
+    }
+  }
+
   async function save(kind: "svg" | "png") {
     setError(null);
-    const chart = readChart(chartRef.current);
+    const chart = await drawing();
     if (!chart) return setError("the chart has not been drawn yet");
     const svg = slideSvg({ ...slide, units, legend, chart });
     const name = downloadFileName(`${slide.title} slide`, kind);
@@ -109,6 +159,18 @@ export function ChartSlideDownload({
           {error}
         </span>
       )}
+      {staged &&
+        drawForSlide &&
+        createPortal(
+          <div
+            ref={stageRef}
+            aria-hidden="true"
+            style={{ position: "fixed", left: -10_000, top: 0, ...STAGE, background: "#fff" }}
+          >
+            {drawForSlide()}
+          </div>,
+          document.body,
+        )}
     </div>
   );
 }

@@ -62,12 +62,13 @@ export function LineSeriesChart({
   // Rounds (every x a whole number) get one tick per round, never "1, 2, 2, 3".
   const ticks = wholeNumberTicks(rows, xKey, maxXTicks);
   const grid = dark ? "#2a3848" : "#e3e7ec";
-  const chart = (
+  // `staged`: the copy drawn off screen at slide proportions, for ChartSlideDownload.
+  const draw = (staged: boolean) => (
     <div
-      ref={ref}
+      ref={staged ? undefined : ref}
       className="chart"
-      style={{ height }}
-      data-testid={testId}
+      style={{ height: staged ? "100%" : height }}
+      data-testid={staged ? undefined : testId}
       role="img"
       aria-label={`Chart: ${yLabel} against ${xLabel}, one line each for ${series
         .map((s) => s.name)
@@ -139,15 +140,16 @@ export function LineSeriesChart({
       </ResponsiveContainer>
     </div>
   );
-  if (!slide) return chart;
+  if (!slide) return draw(false);
   return (
     <>
-      {chart}
+      {draw(false)}
       <ChartSlideDownload
         chartRef={ref}
+        drawForSlide={() => draw(true)}
         slide={slide}
         units={`Vertical: ${yLabel} · across: ${xLabel}`}
-        legend={series}
+        legend={slide.legend ?? series}
         testId={testId}
       />
     </>

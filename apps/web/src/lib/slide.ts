@@ -32,8 +32,19 @@ export interface SlideSpec {
   units: string;
   caption: string;
   legend: readonly SlideSeries[];
-  /** the chart's own drawing: the inner markup of its <svg> and the size it was drawn at */
-  chart: { inner: string; width: number; height: number; fontSize: number };
+  /**
+   * The chart's own drawing: the inner markup of its <svg>, the size it was drawn at, and how
+   * much of its top or bottom to leave out (the room a chart keeps for its on-screen legend,
+   * which the slide draws itself).
+   */
+  chart: {
+    inner: string;
+    width: number;
+    height: number;
+    fontSize: number;
+    top?: number;
+    bottom?: number;
+  };
 }
 
 /** Text for an SVG text node or attribute. */
@@ -78,13 +89,24 @@ export function fitInto(
   };
 }
 
+/** The title's font size (shrunk to fit one line, down to 40 px) and its lines (at most two). */
+export function titleLines(title: string, width: number): { size: number; lines: string[] } {
+  const fit = Math.floor(width / (GLYPH * Math.max(1, title.length)));
+  const size = Math.max(40, Math.min(TITLE_SIZE, fit));
+  return { size, lines: wrapText(title, width, size).slice(0, 2) };
+}
+
 export function slideSvg(spec: SlideSpec): string {
   const inner = SLIDE_WIDTH - 2 * PAD;
   const parts: string[] = [];
-  let y = PAD + TITLE_SIZE;
-  parts.push(
-    `<text x="${PAD}" y="${y}" font-size="${TITLE_SIZE}" font-weight="700" fill="#14202c">${escapeXml(spec.title)}</text>`,
-  );
+  const title = titleLines(spec.title, inner);
+  let y = PAD - title.size * 0.2;
+  for (const line of title.lines) {
+    y += title.size * 1.2;
+    parts.push(
+      `<text x="${PAD}" y="${y}" font-size="${title.size}" font-weight="700" fill="#14202c">${escapeXml(line)}</text>`,
+    );
+  }
   y += UNITS_SIZE + 18;
   parts.push(
     `<text x="${PAD}" y="${y}" font-size="${UNITS_SIZE}" fill="#4a5565">${escapeXml(spec.units)}</text>`,
@@ -116,9 +138,12 @@ export function slideSvg(spec: SlideSpec): string {
     width: inner,
     height: captionTop - 16 - (legendBottom + 16),
   };
-  const fit = fitInto(spec.chart.width, spec.chart.height, box);
+  const top = Math.max(0, Math.min(spec.chart.top ?? 0, spec.chart.height / 2));
+  const bottom = Math.max(0, Math.min(spec.chart.bottom ?? 0, spec.chart.height / 2));
+  const drawn = spec.chart.height - top - bottom;
+  const fit = fitInto(spec.chart.width, drawn, box);
   parts.push(
-    `<svg x="${fit.x}" y="${fit.y}" width="${fit.width}" height="${fit.height}" viewBox="0 0 ${spec.chart.width} ${spec.chart.height}" font-size="${spec.chart.fontSize}" overflow="visible">${spec.chart.inner}</svg>`,
+    `<svg x="${fit.x}" y="${fit.y}" width="${fit.width}" height="${fit.height}" viewBox="0 ${top} ${spec.chart.width} ${drawn}" font-size="${spec.chart.fontSize}">${spec.chart.inner}</svg>`,
   );
   caption.forEach((line, k) => {
     parts.push(

@@ -33,6 +33,11 @@ export function FitCharts({ c }: { c: Calibration }) {
               formatY={(v) => `${formatNumber(v * 100, 0)}%`}
               height={210}
               testId={`calibrate-share-chart-${i}`}
+              slide={{
+                title: `${name}: observed and fitted share`,
+                caption:
+                  "The rival's observed share of the contested outcome per period (solid) and the share the fitted contest predicts (dashed). A fit to past data, not a forecast.",
+              }}
             />
           </figure>
         ))}
@@ -52,6 +57,11 @@ export function FitCharts({ c }: { c: Calibration }) {
         formatY={(v) => formatNumber(v, 2)}
         height={260}
         testId="calibrate-residual-chart"
+        slide={{
+          title: "Fit residuals by period",
+          caption:
+            "Observed minus fitted log share, centred per period. A pattern over time or one rival far from zero means the ratio form misses something there.",
+        }}
       />
       <details>
         <summary className="small">Residuals as a table</summary>

@@ -31,17 +31,21 @@ const times = (v: number) => `${formatPlain(v, 2)}\u00d7`;
 /** Two or more sessions side by side: by-round charts, seats, shocks and notes, the cohort file. */
 export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
   const labels = sessionLabels(sessions);
+  // On screen a line is named by its session's number (the table above gives the title); a
+  // slide stands alone, so its legend carries the full names.
   const series = sessions.map((_, k) => ({
     key: sessionKey(k),
-    name: labels[k]!,
+    name: `Session ${k + 1}`,
     colour: seriesColour(k),
   }));
+  const slideLegend = series.map((s, k) => ({ ...s, name: labels[k]! }));
+  const eqLine = { key: "eq", name: "Equilibrium (1×)", colour: EQUILIBRIUM_COLOUR, dashed: true };
   const overspend = roundRows(sessions, (r) => r.overspend).map((row) => ({ ...row, eq: 1 }));
   const gap = roundRows(sessions, (r) => r.nashGapShare);
   const marks = compareMarks(sessions);
   const columns = (format: (v: number) => string) => [
     { key: "round", label: "Round" },
-    ...series.map((s, k) => ({ key: s.key, label: `Session ${k + 1}`, format })),
+    ...series.map((s) => ({ key: s.key, label: s.name, format })),
   ];
   const changed = changedRounds(sessions);
   const roundTick = (v: number) => `${formatPlain(v, 0)}${changed.has(v) ? " \u26a1" : ""}`;
@@ -108,12 +112,11 @@ export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
             testId="compare-overspend-chart"
             slide={{
               title: "Overspend index by round",
+              legend: [...slideLegend, eqLine],
               caption: `Money all rivals spent divided by the money they would spend at equilibrium; above 1\u00d7 the room overspent. ${MARKS_CAPTION}`,
             }}
-            series={[
-              ...series,
-              { key: "eq", name: "Equilibrium (1×)", colour: EQUILIBRIUM_COLOUR, dashed: true },
-            ]}
+            height={340}
+            series={[...series, eqLine]}
           />
           <DataTable
             rows={overspend}
@@ -137,8 +140,10 @@ export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
             formatX={roundTick}
             marks={marks}
             testId="compare-gap-chart"
+            height={340}
             slide={{
               title: "Distance from equilibrium by round",
+              legend: slideLegend,
               caption: `The round's largest regret as a share of its prize (the Nash gap); a line falling towards 0 means play converged. ${MARKS_CAPTION}`,
             }}
             series={series}

@@ -45,6 +45,10 @@ export function SweepResults({
       formatY={(v) => formatPlain(v, 2)}
       formatX={(v) => formatPlain(v, 3)}
       testId={testId}
+      slide={{
+        title: `Equilibrium ${yLabel.toLowerCase()} as ${paramLabel} varies`,
+        caption: `Each rival's equilibrium ${yLabel.toLowerCase()} (model units) at each value of ${paramLabel}, the other inputs held fixed. A model's comparative statics, not a forecast.`,
+      }}
     />
   );
   return (

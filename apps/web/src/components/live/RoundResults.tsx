@@ -10,6 +10,7 @@ import {
   XAxis,
   YAxis,
 } from "recharts";
+import { useRef } from "react";
 import type { RoundResult } from "@contend/protocol";
 import { spendPlacement } from "@contend/session";
 import { roundSeatRows, type Row } from "../../lib/chartData";
@@ -18,6 +19,7 @@ import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";
 import { Kpi } from "../Kpi";
 import { Term } from "../Glossary";
+import { ChartSlideDownload } from "../ChartSlideDownload";
 
 /** One revealed round, in money: spends against equilibrium spends, shares, payoffs, regrets. */
 export function RoundResults({
@@ -27,6 +29,7 @@ export function RoundResults({
   dark,
   highlightSeat,
   testPrefix = "round",
+  slides,
 }: {
   round: RoundResult;
   names: readonly string[];
@@ -34,7 +37,10 @@ export function RoundResults({
   dark?: boolean;
   highlightSeat?: number;
   testPrefix?: string;
+  /** offer the chart as a slide (SVG, PNG) */
+  slides?: boolean;
 }) {
+  const chartRef = useRef<HTMLDivElement>(null);
   const mixed = round.equilibrium.kind === "mixed";
   const rows: Row[] = roundSeatRows(round, names).map((r) => ({
     ...r,
@@ -70,6 +76,7 @@ export function RoundResults({
         )}
       </div>
       <div
+        ref={chartRef}
         className="chart"
         style={{ height: 260 }}
         data-testid={`${testPrefix}-chart`}
@@ -104,6 +111,24 @@ export function RoundResults({
           </BarChart>
         </ResponsiveContainer>
       </div>
+      {slides && (
+        <ChartSlideDownload
+          chartRef={chartRef}
+          slide={{
+            title: `Round ${round.round}: spends against equilibrium`,
+            caption: `What each rival spent in round ${round.round} beside its equilibrium spend${eqKind === "mixed" ? " (expected, the equilibrium is mixed)" : ""}, in ${currency ?? "money"}.`,
+          }}
+          units={`Vertical: spend (${currency ?? "money"}) · across: rival`}
+          legend={[
+            { name: "Spend played", colour: seriesColour(0) },
+            {
+              name: eqKind === "mixed" ? "Equilibrium spend (expected)" : "Equilibrium spend",
+              colour: EQUILIBRIUM_COLOUR,
+            },
+          ]}
+          testId={`${testPrefix}-chart`}
+        />
+      )}
       {mixed ? (
         <p className="small muted" data-testid={`${testPrefix}-mixed-note`}>
           The <Term id="mixed-equilibrium">equilibrium is mixed</Term>: each rival draws its spend

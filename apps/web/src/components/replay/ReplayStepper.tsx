@@ -129,6 +129,7 @@ export function ReplayStepper({
           names={names}
           currency={currency}
           testPrefix="replay-round"
+          slides
         />
       )}
     </section>
