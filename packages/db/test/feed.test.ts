@@ -10,28 +10,47 @@ import { sessionInput } from "./fixtures";
 
 const postgres = backends.find((b) => b.name === "postgresql");
 
-/** Waits for `check` to pass, polling: notifications travel over a real connection. */
-async function eventually(check: () => void, timeoutMs = 5_000) {
-  const start = Date.now();
-  for (;;) {
-    try {
-      return check();
-    } catch (error) {
-      if (Date.now() - start > timeoutMs) throw error;
-      await new Promise((r) => setTimeout(r, 20));
-    }
-  }
-}
-
+/**
+ * What one process hears on the feed. `until(check)` resolves once `check` passes; it is checked
+ * again each time this process hears something, so the test waits for the message, not for time
+ * (a message that never comes fails the test at its timeout).
+ */
 function recorder(db: Database) {
   const heard = { committed: [] as string[], signals: [] as unknown[], lost: 0 };
+  const waiting = new Set<() => void>();
+  const heardSomething = () => {
+    for (const retry of [...waiting]) retry();
+  };
   db.feed!.listen({
-    committed: (id, seq) => heard.committed.push(`${id}:${seq}`),
-    signal: (m) => heard.signals.push(m),
+    committed: (id, seq) => {
+      heard.committed.push(`${id}:${seq}`);
+      heardSomething();
+    },
+    signal: (m) => {
+      heard.signals.push(m);
+      heardSomething();
+    },
     reconnected: () => undefined,
-    leasesLost: () => heard.lost++,
+    leasesLost: () => {
+      heard.lost++;
+      heardSomething();
+    },
   });
-  return heard;
+  const until = (check: () => void) =>
+    new Promise<void>((resolve) => {
+      const attempt = () => {
+        try {
+          check();
+        } catch {
+          return;
+        }
+        waiting.delete(attempt);
+        resolve();
+      };
+      waiting.add(attempt);
+      attempt();
+    });
+  return Object.assign(heard, { until });
 }
 
 describe.skipIf(!TEST_DATABASE_URL)("the PostgreSQL feed", () => {
@@ -59,21 +78,23 @@ describe.skipIf(!TEST_DATABASE_URL)("the PostgreSQL feed", () => {
     const ev = { type: "note", at: 1_700_000_001_000, payload: {} };
     expect(await one.events.append(input.id, 1, [ev, ev])).toEqual({ ok: true, seqs: [2, 3] });
     expect((await one.events.append(input.id, 1, [ev])).ok).toBe(false);
-    await eventually(() => expect(heardTwo.committed).toEqual([`${input.id}:3`]));
+    await heardTwo.until(() => expect(heardTwo.committed).toEqual([`${input.id}:3`]));
     // an append that stores keys goes alone (an interactive transaction): announced too
     const keyed = await one.events.append(input.id, 3, [ev], {
       addKeys: [{ role: "spectator", seatIndex: null, plaintext: "k".repeat(43) }],
     });
     expect(keyed.ok).toBe(true);
-    await eventually(() => expect(heardTwo.committed).toEqual([`${input.id}:3`, `${input.id}:4`]));
+    await heardTwo.until(() =>
+      expect(heardTwo.committed).toEqual([`${input.id}:3`, `${input.id}:4`]),
+    );
   });
 
   it("carries messages to every process, the sender's included", async () => {
     const heardOne = recorder(one);
     const heardTwo = recorder(two);
     await one.feed!.publish({ kind: "hello", n: 1 });
-    await eventually(() => expect(heardTwo.signals).toEqual([{ kind: "hello", n: 1 }]));
-    await eventually(() => expect(heardOne.signals).toEqual([{ kind: "hello", n: 1 }]));
+    await heardTwo.until(() => expect(heardTwo.signals).toEqual([{ kind: "hello", n: 1 }]));
+    await heardOne.until(() => expect(heardOne.signals).toEqual([{ kind: "hello", n: 1 }]));
   });
 
   it("gives a lease to one process at a time, and frees it on release or when its holder closes", async () => {
