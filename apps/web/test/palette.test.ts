@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { contrastRatio, SCREEN } from "../src/lib/palette";
+import { contrastRatio, EQUILIBRIUM_COLOUR, SCREEN, SERIES_COLOURS } from "../src/lib/palette";
 
 describe("contrast (WCAG 2.1 definitions of relative luminance and contrast ratio)", () => {
   it("matches the definition's end points and a value computed by hand", () => {
@@ -23,6 +23,12 @@ describe("contrast (WCAG 2.1 definitions of relative luminance and contrast rati
       for (const mark of [...SCREEN.series, SCREEN.equilibrium]) {
         expect(contrastRatio(mark, ground), `${mark} on ${ground}`).toBeGreaterThanOrEqual(3);
       }
+    }
+  });
+
+  it("page series colours reach 4.5:1 on white: chart tooltips and legends print names in them", () => {
+    for (const text of [...SERIES_COLOURS, EQUILIBRIUM_COLOUR]) {
+      expect(contrastRatio(text, "#ffffff"), `${text} on white`).toBeGreaterThanOrEqual(4.5);
     }
   });
 });

@@ -1,11 +1,12 @@
 "use client";
 
 import type { TornadoRow } from "@contend/solver";
+import { seriesColour } from "../../lib/palette";
 import { isNum } from "./BandChart";
 import styles from "./UncertainCharts.module.css";
 
-const UP = "#0a6b66";
-const DOWN = "#c25e00";
+const UP = seriesColour(0);
+const DOWN = seriesColour(1);
 
 /**
  * The tornado for one rival: each uncertain parameter's payoff swing (payoff with the parameter
