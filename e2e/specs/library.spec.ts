@@ -7,7 +7,7 @@
 import type { Page } from "@playwright/test";
 import { createSession, E2E_OPERATOR_KEY, exportJson } from "../support/api";
 import { expect, test } from "../support/fixtures";
-import { roomScenario, SIZES } from "../support/room";
+import { expectAccessible, roomScenario, SIZES } from "../support/room";
 
 /** The browser holds these facilitator keys, as if their consoles had been opened here. */
 async function holdKeys(page: Page, held: { id: string; key: string }[]) {
@@ -85,6 +85,7 @@ test("sessions library: rename, tag, search, archive and delete", async ({
   await page.getByTestId("library-clear").click();
   await expect(row(airport.id)).toBeVisible();
   await screens(page, saveScreen, "library-sessions");
+  await expectAccessible(page, "the library of sessions");
 
   // archive: hidden by default, shown under "archived only"
   await page.getByTestId(`session-archive-${harbour.id}`).click();
@@ -151,6 +152,7 @@ test("saved scenarios: save, save a second version, start a session from version
   await expect(versions.nth(0)).toContainText("Q4 numbers");
   await expect(versions.nth(1)).toContainText("Q3 numbers");
   await screens(page, saveScreen, "library-scenarios");
+  await expectAccessible(page, "the saved scenarios");
 
   const created = page.waitForResponse(
     (r) => r.url().endsWith("/api/sessions") && r.request().method() === "POST",
