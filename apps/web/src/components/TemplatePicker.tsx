@@ -4,13 +4,14 @@ import Link from "next/link";
 import { useCreateSession } from "../hooks/useCreateSession";
 import { encodeState } from "../lib/urlState";
 import { TEMPLATES } from "../lib/templates";
+import { FRONTS_TEMPLATES } from "../lib/frontsTemplates";
 import { CreatedSession } from "./CreatedSession";
 
 export function TemplatePicker() {
   const { create, pending, busy, created, error } = useCreateSession();
 
   function start(id: string) {
-    const t = TEMPLATES.find((x) => x.id === id);
+    const t = TEMPLATES.find((x) => x.id === id) ?? FRONTS_TEMPLATES.find((x) => x.id === id);
     if (t) void create(t.scenario, id);
   }
 
@@ -47,6 +48,34 @@ export function TemplatePicker() {
                 href={`/explore?s=${encodeState({ sc: stripSession(t.scenario) })}`}
               >
                 Explore
+              </Link>
+            </div>
+          </article>
+        ))}
+        {FRONTS_TEMPLATES.map((t) => (
+          <article key={t.id} className="card" data-testid={`template-${t.id}`}>
+            <h3>{t.label}</h3>
+            <p className="small">{t.blurb}</p>
+            <p className="small muted">
+              {t.scenario.rivals.length} rivals · {t.scenario.fronts.length} fronts, one budget each
+              · {t.scenario.session?.rounds ?? 5} rounds
+            </p>
+            <div className="row">
+              <button
+                type="button"
+                className="primary"
+                onClick={() => start(t.id)}
+                disabled={busy || created?.from === t.id}
+                data-testid={`start-template-${t.id}`}
+              >
+                {pending === t.id
+                  ? "Creating…"
+                  : created?.from === t.id
+                    ? "Session created"
+                    : "Start session"}
+              </button>
+              <Link className="button" href="/explore/fronts">
+                Explore fronts
               </Link>
             </div>
           </article>

@@ -3,7 +3,7 @@
 import { useCallback, useRef, useState } from "react";
 import type { CreateSessionResponse } from "@contend/protocol";
 import { createSession } from "../lib/api";
-import type { SessionScenarioInput } from "../lib/sessionTypes";
+import type { FrontsSessionInput, SessionScenarioInput } from "../lib/sessionTypes";
 
 export interface CreatedRecord {
   res: CreateSessionResponse;
@@ -26,7 +26,10 @@ export function useCreateSession() {
   const [error, setError] = useState<string | null>(null);
 
   const create = useCallback(
-    async (scenario: SessionScenarioInput, from: unknown): Promise<boolean> => {
+    async (
+      scenario: SessionScenarioInput | FrontsSessionInput,
+      from: unknown,
+    ): Promise<boolean> => {
       if (inFlight.current) return false;
       inFlight.current = true;
       setPending(from);

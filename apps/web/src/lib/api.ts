@@ -1,6 +1,6 @@
 /** REST calls to the Contend server (same origin unless NEXT_PUBLIC_SERVER_URL says otherwise). */
 import type { CreateSessionResponse, SessionListItem } from "@contend/protocol";
-import type { SessionScenarioInput } from "./sessionTypes";
+import type { FrontsSessionInput, SessionScenarioInput } from "./sessionTypes";
 
 export type ApiResult<T> =
   | { ok: true; data: T }
@@ -56,7 +56,7 @@ export async function request<T>(path: string, init?: RequestInit): Promise<ApiR
 }
 
 export function createSession(
-  scenario: SessionScenarioInput,
+  scenario: SessionScenarioInput | FrontsSessionInput,
 ): Promise<ApiResult<CreateSessionResponse>> {
   return request<CreateSessionResponse>("/api/sessions", {
     method: "POST",

@@ -1,7 +1,7 @@
 "use client";
 
 import { useMemo } from "react";
-import type { Credentials, RoleView } from "@contend/protocol";
+import type { Credentials, RoleView, RoundResult } from "@contend/protocol";
 import { useSession } from "../../hooks/useSession";
 import { formatMoney } from "../../lib/format";
 import { headline } from "../../lib/roomState";
@@ -11,6 +11,7 @@ import { PrivateNumbers } from "./PrivateNumbers";
 import { ShockBanner } from "./ShockBanner";
 import { RoundClock } from "./RoundClock";
 import { FinalSummary, RevealPanel, SeatTiles, StandingsPanel } from "../screen/ScreenPanels";
+import { FrontsReveal } from "../liveFronts/FrontsReveal";
 
 /**
  * The room's shared screen (projector or TV): no site chrome, one viewport with no scrolling at
@@ -59,7 +60,11 @@ function ScreenBody({ view, clockOffsetMs }: { view: RoleView; clockOffsetMs: nu
       <header className="screen-head">
         <div className="screen-title">
           <h1>{view.title}</h1>
-          <p>Prize {formatMoney(view.scenario.prize, currency)}</p>
+          <p>
+            {view.fronts
+              ? `${view.fronts.fronts.length} fronts · prizes ${formatMoney(view.scenario.prize, currency)} in total`
+              : `Prize ${formatMoney(view.scenario.prize, currency)}`}
+          </p>
         </div>
         <div className={`screen-state ${head.tone}`} data-testid="screen-status">
           <h2 data-testid="screen-headline">{head.title}</h2>
@@ -75,7 +80,7 @@ function ScreenBody({ view, clockOffsetMs }: { view: RoleView; clockOffsetMs: nu
       <div className="screen-main">
         {view.status === "ended" ? (
           <>
-            {last ? <RevealPanel round={last} view={view} /> : <SeatTiles view={view} />}
+            {last ? <Reveal round={last} view={view} /> : <SeatTiles view={view} />}
             <div className="screen-column">
               <StandingsPanel view={view} final />
               <FinalSummary view={view} />
@@ -86,7 +91,7 @@ function ScreenBody({ view, clockOffsetMs }: { view: RoleView; clockOffsetMs: nu
             {view.status === "open" || !last ? (
               <SeatTiles view={view} />
             ) : (
-              <RevealPanel round={last} view={view} />
+              <Reveal round={last} view={view} />
             )}
             {/* R41: standings need payoffs, which private numbers keep until the end */}
             {view.hidden?.withheld ? (
@@ -98,5 +103,14 @@ function ScreenBody({ view, clockOffsetMs }: { view: RoleView; clockOffsetMs: nu
         )}
       </div>
     </>
+  );
+}
+
+/** The reveal of a round: per front with fronts (R48), else the single contest's. */
+function Reveal({ round, view }: { round: RoundResult; view: RoleView }) {
+  return view.fronts ? (
+    <FrontsReveal round={round} view={view} />
+  ) : (
+    <RevealPanel round={round} view={view} />
   );
 }

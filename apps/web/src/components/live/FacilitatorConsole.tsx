@@ -20,6 +20,11 @@ import { ShockBanner } from "./ShockBanner";
 import { RoundClock } from "./RoundClock";
 import { ExportDownload } from "../ExportDownload";
 import { PrivateReview } from "./PrivateReview";
+import {
+  FrontsComingRound,
+  FrontsLatest,
+  FrontsResultsPanel,
+} from "../liveFronts/FrontsConsolePanels";
 
 /**
  * The facilitator's console, ordered by the flow of a workshop: the next step and the latest
@@ -89,8 +94,10 @@ function ConsoleBody({
           <p className="small muted" style={{ margin: 0 }}>
             Facilitator console ·{" "}
             <span data-testid="session-status">{STATUS_TEXT[view.status]}</span>
-            {view.paused ? " · paused" : ""} · prize {formatMoney(view.scenario.prize, currency)} ·{" "}
-            {view.settings.outcome === "winner" ? "one winner drawn" : "prize shared"}
+            {view.paused ? " · paused" : ""} ·{" "}
+            {view.fronts
+              ? `${view.fronts.fronts.length} fronts, prizes ${formatMoney(view.scenario.prize, currency)} in total · each front shared`
+              : `prize ${formatMoney(view.scenario.prize, currency)} · ${view.settings.outcome === "winner" ? "one winner drawn" : "prize shared"}`}
           </p>
         </div>
         <RoundClock view={view} clockOffsetMs={session.clockOffsetMs} />
@@ -98,17 +105,18 @@ function ConsoleBody({
 
       <div className="grid-2 console-top">
         <NextStep view={view} busy={busy} run={run} notice={notice} />
-        <LatestResult view={view} />
+        {view.fronts ? <FrontsLatest view={view} /> : <LatestResult view={view} />}
       </div>
 
       <div className="grid-2">
         <SeatsPanel view={view} presence={session.presence} busy={busy} run={run} />
-        <ComingRound view={view} />
+        {view.fronts ? <FrontsComingRound view={view} /> : <ComingRound view={view} />}
       </div>
 
       <PrivateReview view={view} testId="console-private" />
 
-      <ShockPanel view={view} busy={busy} run={run} />
+      {/* R50: no shocks with fronts */}
+      {!view.fronts && <ShockPanel view={view} busy={busy} run={run} />}
 
       <section className="card" aria-labelledby="invite-title">
         <h2 id="invite-title">Invitations and exports</h2>
@@ -137,7 +145,11 @@ function ConsoleBody({
         </p>
       </section>
 
-      <ResultsPanel view={view} send={session.send} />
+      {view.fronts ? (
+        <FrontsResultsPanel view={view} send={session.send} />
+      ) : (
+        <ResultsPanel view={view} send={session.send} />
+      )}
     </>
   );
 }

@@ -12,6 +12,9 @@ import { PrivateNumbers } from "./PrivateNumbers";
 import { SeatRoundResult } from "./SeatRoundResult";
 import { SeatTerms } from "./SeatTerms";
 import { ShockBanner } from "./ShockBanner";
+import { FrontsMoveForm } from "../liveFronts/FrontsMoveForm";
+import { FrontsSeatResult } from "../liveFronts/FrontsSeatResult";
+import { FrontsTerms } from "../liveFronts/FrontsTerms";
 
 export function SeatView({ sessionId, seatKey }: { sessionId: string; seatKey: string }) {
   const credentials = useMemo<Credentials | null>(
@@ -82,7 +85,12 @@ function SeatBody({
           </p>
         )}
         {view.status === "open" && !playing && <p>Your rival sits this round out.</p>}
-        {playing && <SeatMoveForm view={view} send={send} canSeal={!view.paused && connected} />}
+        {playing &&
+          (view.fronts ? (
+            <FrontsMoveForm view={view} send={send} canSeal={!view.paused && connected} />
+          ) : (
+            <SeatMoveForm view={view} send={send} canSeal={!view.paused && connected} />
+          ))}
       </div>
     </section>
   );
@@ -91,9 +99,13 @@ function SeatBody({
       <LiveAnnouncer view={view} />
       <ShockBanner view={view} />
       {view.status === "open" && move}
-      <SeatTerms view={view} />
+      {view.fronts ? <FrontsTerms view={view} /> : <SeatTerms view={view} />}
       {view.status !== "open" && move}
-      {!view.hidden?.withheld && <SeatRoundResult view={view} />}
+      {view.fronts ? (
+        <FrontsSeatResult view={view} />
+      ) : (
+        !view.hidden?.withheld && <SeatRoundResult view={view} />
+      )}
       <PrivateNumbers view={view} />
       {view.rounds.length > 0 && (
         <section className="card" aria-labelledby="history-title">

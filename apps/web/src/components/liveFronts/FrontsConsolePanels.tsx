@@ -1,0 +1,150 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import type { RoleView } from "@contend/protocol";
+import { normalizeFronts, solveFronts } from "@contend/solver";
+import type { useSession } from "../../hooks/useSession";
+import { formatMoney, formatPercent } from "../../lib/format";
+import { seatNames } from "../../lib/live";
+import { total } from "../../lib/frontsLive";
+import { Kpi } from "../Kpi";
+import { SelectField } from "../Field";
+import { Term } from "../Glossary";
+import { RoomHistory } from "../live/History";
+import { RoundNoteForm } from "../console/RoundNoteForm";
+import { FrontsRoundTable } from "./FrontsRoundTable";
+
+/** Beside the next step: the latest revealed round of a fronts session in a few figures. */
+export function FrontsLatest({ view }: { view: RoleView }) {
+  const last = view.rounds.at(-1);
+  const currency = view.scenario.currency ?? null;
+  return (
+    <section className="card" aria-labelledby="latest-title" data-testid="latest-result">
+      <h2 id="latest-title">{last ? `Latest result: round ${last.round}` : "Latest result"}</h2>
+      {last ? (
+        <>
+          <div className="kpis">
+            <Kpi label="Prizes spent">{formatPercent(last.dissipation)}</Kpi>
+            <Kpi label="At equilibrium">{formatPercent(last.equilibrium.dissipation)}</Kpi>
+            <Kpi label="Largest regret">{formatMoney(last.nashGap, currency)}</Kpi>
+          </div>
+          <p className="small muted" style={{ marginTop: "0.5rem" }}>
+            <Term id="dissipation">Prizes spent</Term> is what all rivals spent on every front
+            together as a share of all the prizes; the <Term id="regret">largest regret</Term> is
+            the most any one rival could have gained with a different split of its budget. Every
+            front is under <a href="#results-title">Results</a>.
+          </p>
+        </>
+      ) : (
+        <p className="muted">No round revealed yet. Results appear here after each reveal.</p>
+      )}
+    </section>
+  );
+}
+
+/** The fronts equilibrium every round is compared with (the fronts do not change: R50). */
+export function FrontsComingRound({ view }: { view: RoleView }) {
+  const fronts = view.fronts!;
+  const eq = useMemo(() => solveFronts(normalizeFronts(fronts)).equilibrium, [fronts]);
+  const currency = view.scenario.currency ?? null;
+  const money = (v: number | undefined) => formatMoney(v ?? NaN, currency);
+  return (
+    <section className="card" aria-labelledby="coming-title" data-testid="coming-round">
+      <h2 id="coming-title">
+        <Term id="equilibrium">Equilibrium</Term> split
+      </h2>
+      <p className="small muted">
+        How rivals who all reason perfectly would split their budgets over the fronts. Keep it to
+        yourself until the reveal if you do not want to steer the room.
+      </p>
+      {eq.spends ? (
+        <div className="table-wrap">
+          <table data-testid="console-eq-fronts">
+            <thead>
+              <tr>
+                <th scope="col">Rival</th>
+                {fronts.fronts.map((f) => (
+                  <th scope="col" className="num" key={f.name}>
+                    {f.name}
+                  </th>
+                ))}
+                <th scope="col" className="num">
+                  Total
+                </th>
+                <th scope="col" className="num">
+                  Payoff
+                </th>
+              </tr>
+            </thead>
+            <tbody>
+              {fronts.rivals.map((r, i) => (
+                <tr key={r.name}>
+                  <th scope="row">{r.name}</th>
+                  {fronts.fronts.map((f, k) => (
+                    <td className="num" key={f.name}>
+                      {money(eq.spends![i]![k])}
+                    </td>
+                  ))}
+                  <td className="num">{money(total(eq.spends![i]))}</td>
+                  <td className="num">{money(eq.payoffs![i])}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      ) : (
+        <p className="notice">No equilibrium found: {eq.note ?? "the search did not settle"}.</p>
+      )}
+    </section>
+  );
+}
+
+/** Every revealed round of a fronts session, per front, and the totals over the rounds. */
+export function FrontsResultsPanel({
+  view,
+  send,
+}: {
+  view: RoleView;
+  send?: ReturnType<typeof useSession>["send"];
+}) {
+  const [shownRound, setShownRound] = useState<number | null>(null);
+  const currency = view.scenario.currency ?? null;
+  const round =
+    shownRound === null ? view.rounds.at(-1) : view.rounds.find((r) => r.round === shownRound);
+  return (
+    <section className="card" aria-labelledby="results-title" style={{ minHeight: "14rem" }}>
+      <div className="row" style={{ justifyContent: "space-between" }}>
+        <h2 id="results-title">Results</h2>
+        {view.rounds.length > 1 && (
+          <SelectField
+            label="Show round"
+            value={String(round?.round ?? "")}
+            options={view.rounds.map((r) => ({
+              value: String(r.round),
+              label: `Round ${r.round}`,
+            }))}
+            onChange={(v) => setShownRound(Number(v))}
+            testId="results-round"
+          />
+        )}
+      </div>
+      {round ? (
+        <FrontsRoundTable round={round} view={view} testPrefix="console-round" />
+      ) : (
+        <p className="muted">No round revealed yet.</p>
+      )}
+      {round && send ? <RoundNoteForm round={round.round} note={round.note} send={send} /> : null}
+      {view.rounds.length > 0 && (
+        <div style={{ marginTop: "1rem" }}>
+          <p className="small muted">Over the rounds, in total money over all fronts:</p>
+          <RoomHistory
+            rounds={view.rounds}
+            names={seatNames(view)}
+            currency={currency}
+            testPrefix="console-history"
+          />
+        </div>
+      )}
+    </section>
+  );
+}

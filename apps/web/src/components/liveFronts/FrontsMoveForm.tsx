@@ -1,0 +1,204 @@
+"use client";
+
+import { useState } from "react";
+import type { RoleView } from "@contend/protocol";
+import { LIMITS } from "@contend/protocol";
+import type { useSession } from "../../hooks/useSession";
+import { useSealMove } from "../../hooks/useSealMove";
+import { formatMoney, formatNumber } from "../../lib/format";
+import { readAllocation, seatFrontsTerms, total } from "../../lib/frontsLive";
+
+/**
+ * The seat's move in a session with fronts (R46): one amount of money per front, the remaining
+ * budget shown as it is typed, checked with the engine's rule, confirmed, sealed.
+ */
+export function FrontsMoveForm({
+  view,
+  send,
+  canSeal,
+}: {
+  view: RoleView;
+  send: ReturnType<typeof useSession>["send"];
+  canSeal: boolean;
+}) {
+  const you = view.you!;
+  const terms = seatFrontsTerms(view, you.seatIndex)!;
+  const currency = view.scenario.currency ?? null;
+  const money = (v: number) => formatMoney(v, currency);
+  // the running total and what is left, to the cent (a rounded figure could hide a cent over)
+  const cents = (v: number) => formatMoney(v, currency, 2);
+  const [texts, setTexts] = useState<string[]>(() => terms.names.map(() => ""));
+  const [reason, setReason] = useState("");
+  const { confirming, setConfirming, busy, error, seal } = useSealMove<number[]>(
+    view.round,
+    view.status,
+    send,
+  );
+  const entry = readAllocation(texts, terms, currency);
+  const sealed = you.sealedFrontSpends ?? null;
+  const over = entry.remaining !== null && entry.remaining < 0 && !entry.ok;
+
+  return (
+    <>
+      <p className="small" data-testid="seat-sealed-state" aria-live="polite">
+        {sealed !== null ? (
+          <>
+            <span className="badge accent">sealed</span> You sealed{" "}
+            <strong data-testid="seat-sealed-amount">{money(total(sealed))}</strong> in total (
+            {sealed.map((s, k) => `${terms.names[k]} ${money(s)}`).join(", ")}). You can replace it
+            until the round closes.
+          </>
+        ) : (
+          <span className="badge warn">not sealed yet</span>
+        )}
+        {view.paused ? (
+          <span className="badge" style={{ marginLeft: 6 }}>
+            paused
+          </span>
+        ) : null}
+      </p>
+      {confirming === null ? (
+        <form
+          noValidate
+          onSubmit={(e) => {
+            e.preventDefault();
+            if (entry.typed && entry.ok) setConfirming(entry.spends);
+          }}
+        >
+          <p className="small muted" style={{ margin: "0 0 0.5rem" }}>
+            Split your budget across the fronts, in {currency ?? "money"}. A blank front gets
+            nothing.
+          </p>
+          <div className="fronts-inputs">
+            {terms.names.map((name, k) => (
+              <div className="field" key={name}>
+                <label htmlFor={`front-spend-${k}`}>
+                  {name}{" "}
+                  <span className="hint">
+                    prize {money(terms.prizes[k]!)} · cost {money(terms.cost[k]!)} per unit
+                  </span>
+                </label>
+                <input
+                  id={`front-spend-${k}`}
+                  type="number"
+                  inputMode="decimal"
+                  min={0}
+                  value={texts[k] ?? ""}
+                  onChange={(e) => setTexts((t) => t.map((x, j) => (j === k ? e.target.value : x)))}
+                  aria-invalid={entry.frontProblems[k] ? true : undefined}
+                  disabled={!canSeal}
+                  data-testid={`front-spend-input-${k}`}
+                />
+                {entry.frontProblems[k] ? (
+                  <span className="field-error">{entry.frontProblems[k]}</span>
+                ) : null}
+              </div>
+            ))}
+          </div>
+          <p
+            className={`small ${over ? "field-error" : ""}`}
+            data-testid="fronts-remaining"
+            aria-live="polite"
+          >
+            Total <strong>{cents(entry.total)}</strong>
+            {terms.budget !== null ? (
+              <>
+                {" "}
+                of your budget {cents(terms.budget)} ·{" "}
+                {entry.remaining !== null && entry.remaining >= 0 ? (
+                  <>
+                    remaining <strong>{cents(entry.remaining)}</strong>
+                  </>
+                ) : (
+                  <>
+                    over by <strong>{cents(-(entry.remaining ?? 0))}</strong>
+                  </>
+                )}
+              </>
+            ) : (
+              " (no budget cap)"
+            )}
+            {terms.sunk ? " · your budget is committed: money you do not place is lost" : ""}
+          </p>
+          <span className="field-error" data-testid="fronts-problem" role="status">
+            {entry.typed && entry.problem ? entry.problem : ""}
+          </span>
+          <div className="row" style={{ alignItems: "flex-end" }}>
+            <div className="field" style={{ flex: "2 1 16rem" }}>
+              <label htmlFor="reason-input">
+                Why (optional, one line; others see it only when the round is revealed)
+              </label>
+              <input
+                id="reason-input"
+                type="text"
+                maxLength={LIMITS.reasonMax}
+                value={reason}
+                onChange={(e) => setReason(e.target.value.replace(/[\r\n]+/g, " "))}
+                disabled={!canSeal}
+                data-testid="reason-input"
+              />
+            </div>
+            <div className="field">
+              <button
+                type="submit"
+                className="primary"
+                disabled={!canSeal || !entry.typed || !entry.ok}
+                data-testid="seal-button"
+              >
+                {sealed !== null ? "Replace sealed split" : "Seal split"}
+              </button>
+            </div>
+          </div>
+        </form>
+      ) : (
+        <div
+          className="notice"
+          role="alertdialog"
+          aria-labelledby="confirm-text"
+          data-testid="seal-confirm"
+        >
+          <p id="confirm-text">
+            Seal <strong data-testid="seal-confirm-amount">{money(total(confirming))}</strong> for
+            round {view.round}, split as:
+          </p>
+          <ul className="small" style={{ marginTop: 0 }}>
+            {confirming.map((s, k) => (
+              <li key={terms.names[k]}>
+                {terms.names[k]}: {money(s)} ({formatNumber(s / terms.cost[k]!)} units of effort at{" "}
+                {money(terms.cost[k]!)} each)
+              </li>
+            ))}
+          </ul>
+          <div className="row">
+            <button
+              type="button"
+              className="primary"
+              onClick={async () => {
+                if (await seal(confirming, reason)) {
+                  setTexts(terms.names.map(() => ""));
+                  setReason("");
+                }
+              }}
+              disabled={busy || !canSeal}
+              data-testid="seal-confirm-button"
+              autoFocus
+            >
+              {busy ? "Sealing…" : "Confirm"}
+            </button>
+            <button
+              type="button"
+              onClick={() => setConfirming(null)}
+              disabled={busy}
+              data-testid="seal-cancel-button"
+            >
+              Change amounts
+            </button>
+          </div>
+        </div>
+      )}
+      <p className="field-error" role={error ? "alert" : undefined} data-testid="seal-error">
+        {error ?? ""}
+      </p>
+    </>
+  );
+}
