@@ -27,7 +27,9 @@ describe("readAllocation", () => {
     const over = readAllocation(["500", "250", "250.01"], terms, "EUR");
     expect(over.ok).toBe(false);
     expect(over.remaining).toBeCloseTo(-0.01, 9);
-    expect(over.problem).toMatch(/The total €1,000\.01 is over your budget of €1,000\.00 by €0\.01\./);
+    expect(over.problem).toMatch(
+      /The total €1,000\.01 is over your budget of €1,000\.00 by €0\.01\./,
+    );
   });
 
   it("a box that is not a number or is negative names its front", () => {

@@ -59,36 +59,44 @@ export function FrontsComingRound({ view }: { view: RoleView }) {
       </p>
       {eq.spends ? (
         <div className="table-wrap">
-          <table data-testid="console-eq-fronts">
+          <table className="fronts-table" data-testid="console-eq-fronts">
             <thead>
               <tr>
-                <th scope="col">Rival</th>
-                {fronts.fronts.map((f) => (
-                  <th scope="col" className="num" key={f.name}>
-                    {f.name}
+                <th scope="col">Front</th>
+                {fronts.rivals.map((r) => (
+                  <th scope="col" className="num" key={r.name}>
+                    {r.name}
                   </th>
                 ))}
-                <th scope="col" className="num">
-                  Total
-                </th>
-                <th scope="col" className="num">
-                  Payoff
-                </th>
               </tr>
             </thead>
             <tbody>
-              {fronts.rivals.map((r, i) => (
-                <tr key={r.name}>
-                  <th scope="row">{r.name}</th>
-                  {fronts.fronts.map((f, k) => (
-                    <td className="num" key={f.name}>
+              {fronts.fronts.map((f, k) => (
+                <tr key={f.name}>
+                  <th scope="row">{f.name}</th>
+                  {fronts.rivals.map((r, i) => (
+                    <td className="num" key={r.name}>
                       {money(eq.spends![i]![k])}
                     </td>
                   ))}
-                  <td className="num">{money(total(eq.spends![i]))}</td>
-                  <td className="num">{money(eq.payoffs![i])}</td>
                 </tr>
               ))}
+              <tr>
+                <th scope="row">All fronts</th>
+                {fronts.rivals.map((r, i) => (
+                  <td className="num" key={r.name}>
+                    <strong>{money(total(eq.spends![i]))}</strong>
+                  </td>
+                ))}
+              </tr>
+              <tr>
+                <th scope="row">Payoff</th>
+                {fronts.rivals.map((r, i) => (
+                  <td className="num" key={r.name}>
+                    {money(eq.payoffs![i])}
+                  </td>
+                ))}
+              </tr>
             </tbody>
           </table>
         </div>

@@ -44,8 +44,8 @@ export function FrontsMoveForm({
         {sealed !== null ? (
           <>
             <span className="badge accent">sealed</span> You sealed{" "}
-            <strong data-testid="seat-sealed-amount">{money(total(sealed))}</strong> in total (
-            {sealed.map((s, k) => `${terms.names[k]} ${money(s)}`).join(", ")}). You can replace it
+            <strong data-testid="seat-sealed-amount">{cents(total(sealed))}</strong> in total (
+            {sealed.map((s, k) => `${terms.names[k]} ${cents(s)}`).join(", ")}). You can replace it
             until the round closes.
           </>
         ) : (
@@ -73,8 +73,8 @@ export function FrontsMoveForm({
             {terms.names.map((name, k) => (
               <div className="field" key={name}>
                 <label htmlFor={`front-spend-${k}`}>
-                  {name}{" "}
-                  <span className="hint">
+                  {name}
+                  <span className="hint" style={{ display: "block" }}>
                     prize {money(terms.prizes[k]!)} · cost {money(terms.cost[k]!)} per unit
                   </span>
                 </label>
@@ -158,13 +158,13 @@ export function FrontsMoveForm({
           data-testid="seal-confirm"
         >
           <p id="confirm-text">
-            Seal <strong data-testid="seal-confirm-amount">{money(total(confirming))}</strong> for
+            Seal <strong data-testid="seal-confirm-amount">{cents(total(confirming))}</strong> for
             round {view.round}, split as:
           </p>
           <ul className="small" style={{ marginTop: 0 }}>
             {confirming.map((s, k) => (
               <li key={terms.names[k]}>
-                {terms.names[k]}: {money(s)} ({formatNumber(s / terms.cost[k]!)} units of effort at{" "}
+                {terms.names[k]}: {cents(s)} ({formatNumber(s / terms.cost[k]!)} units of effort at{" "}
                 {money(terms.cost[k]!)} each)
               </li>
             ))}

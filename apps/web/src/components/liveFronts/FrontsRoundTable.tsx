@@ -12,11 +12,14 @@ export function FrontsRoundTable({
   view,
   highlightSeat,
   testPrefix,
+  compact,
 }: {
   round: RoundResult;
   view: RoleView;
   highlightSeat?: number;
   testPrefix: string;
+  /** a narrow card (the seat's page): no column of all rivals' money, no value won */
+  compact?: boolean;
 }) {
   const f = round.fronts;
   const fronts = view.fronts?.fronts;
@@ -29,7 +32,7 @@ export function FrontsRoundTable({
   return (
     <>
       <div className="table-wrap">
-        <table data-testid={`${testPrefix}-per-front`}>
+        <table className="fronts-table" data-testid={`${testPrefix}-per-front`}>
           <caption className="small muted" style={{ textAlign: "left" }}>
             Round {round.round} on each front: money spent, and the share won
           </caption>
@@ -41,9 +44,11 @@ export function FrontsRoundTable({
                   {name(seat)}
                 </th>
               ))}
-              <th scope="col" className="num">
-                All rivals
-              </th>
+              {compact ? null : (
+                <th scope="col" className="num">
+                  All rivals
+                </th>
+              )}
             </tr>
           </thead>
           <tbody>
@@ -51,25 +56,26 @@ export function FrontsRoundTable({
               <tr key={front.name}>
                 <th scope="row">
                   {front.name}
-                  <span className="small muted"> · prize {money(front.prize)}</span>
+                  <span className="small muted" style={{ display: "block", fontWeight: 400 }}>
+                    prize {money(front.prize)}
+                  </span>
                 </th>
                 {seats.map((seat) => (
                   <td className={`num ${mark(seat) ?? ""}`} key={seat}>
                     {money(f.spends[seat]?.[k])}
-                    <span className="small muted">
-                      {" "}
-                      · {formatPercent(f.shares[seat]?.[k] ?? NaN)}
+                    <span className="small muted" style={{ display: "block" }}>
+                      won {formatPercent(f.shares[seat]?.[k] ?? NaN)}
                     </span>
                   </td>
                 ))}
-                <td className="num">{money(f.frontTotals[k])}</td>
+                {compact ? null : <td className="num">{money(f.frontTotals[k])}</td>}
               </tr>
             ))}
           </tbody>
         </table>
       </div>
       <div className="table-wrap" style={{ marginTop: "0.75rem" }}>
-        <table data-testid={`${testPrefix}-totals`}>
+        <table className="fronts-table" data-testid={`${testPrefix}-totals`}>
           <caption className="small muted" style={{ textAlign: "left" }}>
             Round {round.round} in total over the fronts
           </caption>
@@ -79,9 +85,11 @@ export function FrontsRoundTable({
               <th scope="col" className="num">
                 Spent
               </th>
-              <th scope="col" className="num">
-                Value won
-              </th>
+              {compact ? null : (
+                <th scope="col" className="num">
+                  Value won
+                </th>
+              )}
               <th scope="col" className="num">
                 Payoff
               </th>
@@ -104,7 +112,7 @@ export function FrontsRoundTable({
                   {round.defaulted[seat] ? <span className="small muted"> (no move)</span> : null}
                 </th>
                 <td className="num">{money(round.spends[seat])}</td>
-                <td className="num">{money(total(f.won[seat]))}</td>
+                {compact ? null : <td className="num">{money(total(f.won[seat]))}</td>}
                 <td className="num">{money(round.payoffs[seat])}</td>
                 <td className="num">{money(total(f.bestSpends[seat]))}</td>
                 <td className="num">{money(round.regrets[seat])}</td>

@@ -105,7 +105,13 @@ export function FrontsSeatResult({ view }: { view: RoleView }) {
               : " No equilibrium was found for comparison."}
           </p>
           <h3 style={{ marginTop: "1rem" }}>Everyone, round {last.round}</h3>
-          <FrontsRoundTable round={last} view={view} highlightSeat={seat} testPrefix="seat-round" />
+          <FrontsRoundTable
+            round={last}
+            view={view}
+            highlightSeat={seat}
+            testPrefix="seat-round"
+            compact
+          />
         </>
       ) : (
         <p className="muted">
