@@ -173,6 +173,28 @@ describe("createPolicy", () => {
     expect(draws.every((d) => d >= 0 && d <= m.high)).toBe(true);
   });
 
+  it("createPolicy(equilibrium, three identical all-pay rivals) draws from F(x) = (x / v)^(1/2) (Baye, Kovenock & de Vries 1996)", () => {
+    // symmetric all-pay auction, n rivals, value v, cost 1: F(x) = (x / v)^(1/(n-1)) on [0, v]
+    const allpay = normalize({
+      ...kiosk,
+      csf: { kind: "allpay" },
+      rivals: [0, 1, 2].map((k) => ({ name: `Stall ${k}`, cost: 1 })),
+    });
+    const v = allpay.prize;
+    const p = createPolicy({ kind: "equilibrium" }, 5);
+    const draws: number[] = [];
+    for (let t = 0; t < 4000; t++) {
+      draws.push(
+        p.decide({ contest: allpay, self: 0, history: new Array(t).fill({ efforts: [0, 0, 0] }) }),
+      );
+    }
+    // the share of draws below v/4 is F(v/4) = 1/2 (a uniform draw would give 1/4); mean v/3
+    const below = draws.filter((d) => d < v / 4).length / draws.length;
+    expect(Math.abs(below - 0.5)).toBeLessThan(0.03);
+    const mean = draws.reduce((a, b) => a + b, 0) / draws.length;
+    expect(Math.abs(mean - v / 3) / (v / 3)).toBeLessThan(0.05);
+  });
+
   it("createPolicy(equilibrium, two rivals with r = 3) draws from the finite mixed strategy's points (Ewerhart 2015)", () => {
     const c = normalize({
       ...kiosk,

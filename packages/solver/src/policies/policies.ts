@@ -106,7 +106,9 @@ function playEquilibrium(ctx: PolicyContext, seed: number): number {
     const rng = rngFor(seed, ctx);
     if (mixed.points) return drawPoint(mixed.points, rng());
     if (rng() < mixed.atomAtZero) return 0;
-    return mixed.low + (mixed.high - mixed.low) * rng();
+    // inverse of the conditional CDF ((x - low) / (high - low))^a: low + (high - low) u^(1/a)
+    const shape = mixed.cdfExponent ?? 1;
+    return mixed.low + (mixed.high - mixed.low) * Math.pow(rng(), 1 / shape);
   }
   const pure = eq.efforts?.[ctx.self];
   if (pure !== undefined) return pure;
