@@ -31,8 +31,11 @@ export function solveMatrixGame(a: readonly (readonly number[])[]): MatrixGameSo
   const n = a[0]?.length ?? 0;
   if (m === 0 || n === 0) throw new Error("solveMatrixGame: empty matrix");
   const colSide = columnPlayer(a);
-  const neg = Array.from({ length: n }, (_, j) => a.map((row) => -row[j]!));
-  const rowSide = columnPlayer(neg);
+  // a symmetric game (a + a' constant: the same strategy set and payoffs for both sides)
+  // has the column player's optimal strategy optimal for the row player too
+  const rowSide = symmetric(a)
+    ? colSide
+    : columnPlayer(Array.from({ length: n }, (_, j) => a.map((row) => -row[j]!)));
   const row = rowSide.col;
   const col = colSide.col;
   // the value as row' A col
@@ -44,6 +47,18 @@ export function solveMatrixGame(a: readonly (readonly number[])[]): MatrixGameSo
     value += row[i]! * s;
   }
   return { row, col, value, converged: colSide.converged && rowSide.converged };
+}
+
+/** True when a is square and a[i][j] + a[j][i] is the same for every pair (up to rounding). */
+function symmetric(a: readonly (readonly number[])[]): boolean {
+  const m = a.length;
+  if (a[0]!.length !== m) return false;
+  const k = 2 * a[0]![0]!;
+  const tol = 1e-12 * Math.max(1, Math.abs(k));
+  for (let i = 0; i < m; i++) {
+    for (let j = i; j < m; j++) if (Math.abs(a[i]![j]! + a[j]![i]! - k) > tol) return false;
+  }
+  return true;
 }
 
 /** Pivot elements below this are treated as zero (entries of the shifted matrix are >= 1). */
@@ -121,12 +136,20 @@ function columnPlayer(a: readonly (readonly number[])[]): { col: number[]; conve
 function pivot(t: Float64Array, rows: number, width: number, r: number, c: number): void {
   const base = r * width;
   const p = t[base + c]!;
-  for (let j = 0; j < width; j++) t[base + j] = t[base + j]! / p;
+  // only the pivot row's nonzero columns change the other rows (slack columns are mostly zero)
+  const cols: number[] = [];
+  for (let j = 0; j < width; j++) {
+    const v = t[base + j]!;
+    if (v !== 0) {
+      t[base + j] = v / p;
+      cols.push(j);
+    }
+  }
   for (let i = 0; i < rows; i++) {
     if (i === r) continue;
     const f = t[i * width + c]!;
     if (f === 0) continue;
     const off = i * width;
-    for (let j = 0; j < width; j++) t[off + j] = t[off + j]! - f * t[base + j]!;
+    for (const j of cols) t[off + j] = t[off + j]! - f * t[base + j]!;
   }
 }

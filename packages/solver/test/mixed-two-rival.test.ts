@@ -110,6 +110,33 @@ describe("matrix games by linear programming (von Neumann's minimax theorem)", (
     expect(s.value).toBeCloseTo((a * d - b * cc) / (a - b - cc + d), 12);
   });
 
+  test("solveMatrixGame(seeded random symmetric games, a + a' constant): one strategy serves both sides and guarantees the value k / 2", () => {
+    const rng = mulberry32(7);
+    for (let run = 0; run < 200; run++) {
+      const m = 1 + Math.floor(rng() * 25);
+      const k = rng() * 4 - 2;
+      const a = Array.from({ length: m }, () => new Array<number>(m).fill(0));
+      for (let i = 0; i < m; i++) {
+        a[i]![i] = k / 2;
+        for (let j = i + 1; j < m; j++) {
+          a[i]![j] = rng() * 10 - 5;
+          a[j]![i] = k - a[i]![j]!;
+        }
+      }
+      const s = solveMatrixGame(a);
+      // the value of a symmetric game: k / 2 (von Neumann; common practice, no source)
+      expect(s.value).toBeCloseTo(k / 2, 9);
+      for (let j = 0; j < m; j++) {
+        const col = a.reduce((acc, row, i) => acc + s.row[i]! * row[j]!, 0);
+        expect(col).toBeGreaterThan(k / 2 - 1e-9);
+      }
+      for (let i = 0; i < m; i++) {
+        const row = a[i]!.reduce((acc, x, j) => acc + x * s.col[j]!, 0);
+        expect(row).toBeLessThan(k / 2 + 1e-9);
+      }
+    }
+  });
+
   test("solveMatrixGame(seeded random matrices: uniform, small integers with many ties, contest-like): the row strategy guarantees the value and the column strategy holds it", () => {
     // Entries differing by less than about 1e-8 of the matrix's range are below the simplex's
     // resolution (pivot tolerance); the mixed-equilibrium search certifies its answers anyway.
