@@ -4,6 +4,7 @@
  * equilibria (double oracle with its certified gap) and approximate ones with three to ten
  * rivals (fictitious play with its certified gap).
  */
+import { loadavg } from "node:os";
 import { normalize, solve, type Scenario } from "../src/index";
 
 interface Timed {
@@ -99,4 +100,32 @@ export function mixedBench(
     });
   }
   return rows;
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) {
+  const time = (fn: () => unknown, opts: { warmup: number; runs: number }): Timed => {
+    for (let k = 0; k < opts.warmup; k++) fn();
+    const t: number[] = [];
+    for (let k = 0; k < opts.runs; k++) {
+      const t0 = performance.now();
+      fn();
+      t.push(performance.now() - t0);
+    }
+    t.sort((a, b) => a - b);
+    return {
+      median: t[Math.floor(t.length / 2)]!,
+      p95: t[Math.min(t.length - 1, Math.floor(0.95 * t.length))]!,
+    };
+  };
+  const load = () =>
+    loadavg()
+      .map((x) => x.toFixed(1))
+      .join(" ");
+  console.log(`load average ${load()} at ${new Date().toISOString()}`);
+  for (const r of mixedBench(time)) {
+    console.log(
+      `${r.case}: median ${r.medianMs.toFixed(1)} ms, p95 ${r.p95Ms.toFixed(1)} ms (target ${r.target}); ${r.note ?? ""}`,
+    );
+  }
+  console.log(`load average ${load()} at ${new Date().toISOString()}`);
 }
