@@ -119,7 +119,14 @@ export function LineSeriesChart({
               x={m.x}
               stroke={axis}
               strokeDasharray="4 3"
-              label={{ value: m.label, position: "insideTopRight", fill: axis, fontSize: 11 }}
+              label={{
+                value: m.label,
+                // left of the line, except at the first x, where that would cover the y axis
+                position:
+                  ticks !== null && m.x <= (ticks[0] ?? m.x) ? "insideTopLeft" : "insideTopRight",
+                fill: axis,
+                fontSize: 11,
+              }}
             />
           ))}
           {series.map((s) => (

@@ -157,7 +157,7 @@ export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
         </div>
       </div>
       {events.length > 0 && (
-        <div data-testid="compare-marks">
+        <div data-testid="compare-marks" style={{ marginTop: "1rem" }}>
           <h3>Shocks and notes (marked on the round axis)</h3>
           <ul>
             {events.map((e) => (
