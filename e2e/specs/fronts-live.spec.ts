@@ -183,6 +183,13 @@ test("fronts session: template, two people over two rounds, results per front", 
       await shoot(screen, saveScreen, "screen-revealed");
     }
   }
+  // the replay of the session so far opens and shows its events (totals over the fronts)
+  await fac.setViewportSize(SIZES.laptop);
+  await fac.getByRole("link", { name: "replay and printable debrief" }).click();
+  await expect(fac).toHaveURL(new RegExp(`/replays/${sessionId}`));
+  await expect(fac.getByTestId("replay-position")).toContainText("Event");
+  await expect(fac.getByTestId("debrief-fronts")).toContainText("over 4 fronts");
+  await shoot(fac, saveScreen, "replay", ["laptop"]);
   await screenCtx.close();
   await seatCtx.close();
   await phone.close();

@@ -37,7 +37,15 @@ export function ReplayDebrief({
   return (
     <section className="card debrief" aria-labelledby="debrief-title">
       <h2 id="debrief-title">Debrief</h2>
-      {finalView && (
+      {finalView?.fronts && (
+        <p data-testid="debrief-fronts">
+          {finalView.scenario.rivals.length} rivals over {finalView.fronts.fronts.length} fronts (
+          {finalView.fronts.fronts.map((f) => `${f.name} ${money(f.prize)}`).join(", ")}), one
+          budget each, every front shared by winning chance. Figures below are totals over the
+          fronts; each front&apos;s numbers are in the console&apos;s results and the JSON export.
+        </p>
+      )}
+      {finalView && !finalView.fronts && (
         <p>
           Contest: {finalView.scenario.rivals.length} rivals, prize{" "}
           {money(finalView.scenario.prize)},{" "}
