@@ -6,11 +6,7 @@
  */
 import { loadavg } from "node:os";
 import { normalize, solve, type Scenario } from "../src/index";
-
-interface Timed {
-  median: number;
-  p95: number;
-}
+import { time, type Timed } from "./timer";
 
 export interface MixedBenchRow {
   case: string;
@@ -103,20 +99,6 @@ export function mixedBench(
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const time = (fn: () => unknown, opts: { warmup: number; runs: number }): Timed => {
-    for (let k = 0; k < opts.warmup; k++) fn();
-    const t: number[] = [];
-    for (let k = 0; k < opts.runs; k++) {
-      const t0 = performance.now();
-      fn();
-      t.push(performance.now() - t0);
-    }
-    t.sort((a, b) => a - b);
-    return {
-      median: t[Math.floor(t.length / 2)]!,
-      p95: t[Math.min(t.length - 1, Math.floor(0.95 * t.length))]!,
-    };
-  };
   const load = () =>
     loadavg()
       .map((x) => x.toFixed(1))

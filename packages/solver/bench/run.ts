@@ -16,6 +16,7 @@ import {
 } from "../src/index";
 import { calibrationBench } from "./calibrate";
 import { mixedBench } from "./mixed";
+import { time } from "./timer";
 import { frontsRows } from "./fronts";
 import { uncertainRows } from "./uncertain";
 
@@ -26,22 +27,6 @@ interface Row {
   medianMs: number;
   p95Ms: number;
   note?: string;
-}
-
-function time(
-  fn: () => unknown,
-  opts: { warmup: number; runs: number },
-): { median: number; p95: number } {
-  for (let k = 0; k < opts.warmup; k++) fn();
-  const t: number[] = [];
-  for (let k = 0; k < opts.runs; k++) {
-    const t0 = performance.now();
-    fn();
-    t.push(performance.now() - t0);
-  }
-  t.sort((a, b) => a - b);
-  const at = (q: number) => t[Math.min(t.length - 1, Math.floor(q * t.length))]!;
-  return { median: at(0.5), p95: at(0.95) };
 }
 
 function ratioScenario(n: number, opts: { budgets?: boolean; mixedR?: boolean } = {}): Scenario {
