@@ -1,7 +1,8 @@
 "use client";
 
 import { useMemo, useState } from "react";
-import type { RoleView } from "@contend/protocol";
+import type { ReactNode } from "react";
+import type { RoleView, RoundResult } from "@contend/protocol";
 import { activeContest } from "@contend/session";
 import { formatMoney, formatPercent } from "../../lib/format";
 import { seatNames } from "../../lib/live";
@@ -76,9 +77,12 @@ export function ComingRound({ view }: { view: RoleView }) {
 export function ResultsPanel({
   view,
   send,
+  renderRound,
 }: {
   view: RoleView;
   send?: ReturnType<typeof useSession>["send"];
+  /** the shown round's results (default: RoundResults; a fronts session shows each front) */
+  renderRound?: (round: RoundResult) => ReactNode;
 }) {
   const [shownRound, setShownRound] = useState<number | null>(null);
   const names = seatNames(view);
@@ -104,7 +108,9 @@ export function ResultsPanel({
           />
         )}
       </div>
-      {roundToShow ? (
+      {roundToShow && renderRound ? (
+        renderRound(roundToShow)
+      ) : roundToShow ? (
         <RoundResults
           round={roundToShow}
           names={names}

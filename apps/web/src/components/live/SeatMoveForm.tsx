@@ -5,6 +5,7 @@ import type { RoleView } from "@contend/protocol";
 import { LIMITS, spendStepOf } from "@contend/protocol";
 import type { useSession } from "../../hooks/useSession";
 import { useSealMove } from "../../hooks/useSealMove";
+import { SealConfirm } from "./SealConfirm";
 import { formatMoney, formatNumber } from "../../lib/format";
 import { readSpend } from "../../lib/live";
 
@@ -132,43 +133,24 @@ export function SeatMoveForm({
           </div>
         </form>
       ) : (
-        <div
-          className="notice"
-          role="alertdialog"
-          aria-labelledby="confirm-text"
-          data-testid="seal-confirm"
+        <SealConfirm
+          busy={busy}
+          canSeal={canSeal}
+          onConfirm={async () => {
+            if (await seal(confirming, reason)) {
+              setText("");
+              setReason("");
+            }
+          }}
+          onCancel={() => setConfirming(null)}
+          cancelLabel="Change amount"
         >
           <p id="confirm-text">
             Seal <strong data-testid="seal-confirm-amount">{money(confirming)}</strong> for round{" "}
             {view.round}? At your cost of {money(rival.cost)} per unit, it buys{" "}
             {formatNumber(confirming / rival.cost)} units of effort.
           </p>
-          <div className="row">
-            <button
-              type="button"
-              className="primary"
-              onClick={async () => {
-                if (await seal(confirming, reason)) {
-                  setText("");
-                  setReason("");
-                }
-              }}
-              disabled={busy || !canSeal}
-              data-testid="seal-confirm-button"
-              autoFocus
-            >
-              {busy ? "Sealing…" : "Confirm"}
-            </button>
-            <button
-              type="button"
-              onClick={() => setConfirming(null)}
-              disabled={busy}
-              data-testid="seal-cancel-button"
-            >
-              Change amount
-            </button>
-          </div>
-        </div>
+        </SealConfirm>
       )}
       <p className="field-error" role={error ? "alert" : undefined} data-testid="seal-error">
         {error ?? ""}

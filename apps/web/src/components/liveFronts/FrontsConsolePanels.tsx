@@ -1,18 +1,15 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { useMemo } from "react";
 import type { RoleView } from "@contend/protocol";
 import { normalizeFronts, solveFronts } from "@contend/solver";
 import type { useSession } from "../../hooks/useSession";
 import { formatMoney, formatPercent } from "../../lib/format";
-import { seatNames } from "../../lib/live";
 import { total } from "../../lib/frontsLive";
 import { Kpi } from "../Kpi";
-import { SelectField } from "../Field";
 import { Term } from "../Glossary";
-import { RoomHistory } from "../live/History";
-import { RoundNoteForm } from "../console/RoundNoteForm";
 import { FrontsRoundTable } from "./FrontsRoundTable";
+import { ResultsPanel } from "../console/RoundPanels";
 
 /** Beside the next step: the latest revealed round of a fronts session in a few figures. */
 export function FrontsLatest({ view }: { view: RoleView }) {
@@ -115,44 +112,13 @@ export function FrontsResultsPanel({
   view: RoleView;
   send?: ReturnType<typeof useSession>["send"];
 }) {
-  const [shownRound, setShownRound] = useState<number | null>(null);
-  const currency = view.scenario.currency ?? null;
-  const round =
-    shownRound === null ? view.rounds.at(-1) : view.rounds.find((r) => r.round === shownRound);
   return (
-    <section className="card" aria-labelledby="results-title" style={{ minHeight: "14rem" }}>
-      <div className="row" style={{ justifyContent: "space-between" }}>
-        <h2 id="results-title">Results</h2>
-        {view.rounds.length > 1 && (
-          <SelectField
-            label="Show round"
-            value={String(round?.round ?? "")}
-            options={view.rounds.map((r) => ({
-              value: String(r.round),
-              label: `Round ${r.round}`,
-            }))}
-            onChange={(v) => setShownRound(Number(v))}
-            testId="results-round"
-          />
-        )}
-      </div>
-      {round ? (
+    <ResultsPanel
+      view={view}
+      send={send}
+      renderRound={(round) => (
         <FrontsRoundTable round={round} view={view} testPrefix="console-round" />
-      ) : (
-        <p className="muted">No round revealed yet.</p>
       )}
-      {round && send ? <RoundNoteForm round={round.round} note={round.note} send={send} /> : null}
-      {view.rounds.length > 0 && (
-        <div style={{ marginTop: "1rem" }}>
-          <p className="small muted">Over the rounds, in total money over all fronts:</p>
-          <RoomHistory
-            rounds={view.rounds}
-            names={seatNames(view)}
-            currency={currency}
-            testPrefix="console-history"
-          />
-        </div>
-      )}
-    </section>
+    />
   );
 }

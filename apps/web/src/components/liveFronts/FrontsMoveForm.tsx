@@ -5,6 +5,7 @@ import type { RoleView } from "@contend/protocol";
 import { LIMITS } from "@contend/protocol";
 import type { useSession } from "../../hooks/useSession";
 import { useSealMove } from "../../hooks/useSealMove";
+import { SealConfirm } from "../live/SealConfirm";
 import { formatMoney, formatNumber } from "../../lib/format";
 import { readAllocation, seatFrontsTerms, total } from "../../lib/frontsLive";
 
@@ -151,11 +152,17 @@ export function FrontsMoveForm({
           </div>
         </form>
       ) : (
-        <div
-          className="notice"
-          role="alertdialog"
-          aria-labelledby="confirm-text"
-          data-testid="seal-confirm"
+        <SealConfirm
+          busy={busy}
+          canSeal={canSeal}
+          onConfirm={async () => {
+            if (await seal(confirming, reason)) {
+              setTexts(terms.names.map(() => ""));
+              setReason("");
+            }
+          }}
+          onCancel={() => setConfirming(null)}
+          cancelLabel="Change amounts"
         >
           <p id="confirm-text">
             Seal <strong data-testid="seal-confirm-amount">{cents(total(confirming))}</strong> for
@@ -169,32 +176,7 @@ export function FrontsMoveForm({
               </li>
             ))}
           </ul>
-          <div className="row">
-            <button
-              type="button"
-              className="primary"
-              onClick={async () => {
-                if (await seal(confirming, reason)) {
-                  setTexts(terms.names.map(() => ""));
-                  setReason("");
-                }
-              }}
-              disabled={busy || !canSeal}
-              data-testid="seal-confirm-button"
-              autoFocus
-            >
-              {busy ? "Sealing…" : "Confirm"}
-            </button>
-            <button
-              type="button"
-              onClick={() => setConfirming(null)}
-              disabled={busy}
-              data-testid="seal-cancel-button"
-            >
-              Change amounts
-            </button>
-          </div>
-        </div>
+        </SealConfirm>
       )}
       <p className="field-error" role={error ? "alert" : undefined} data-testid="seal-error">
         {error ?? ""}
