@@ -4,6 +4,7 @@
  */
 import { normalizeFronts, solveFronts, validateFrontsScenario } from "../src/fronts";
 import type { FrontsContest, FrontsScenario } from "../src/fronts/types";
+import { time } from "./timer";
 
 export interface FrontsRow {
   case: string;
@@ -14,10 +15,7 @@ export interface FrontsRow {
   note?: string;
 }
 
-type Timer = (
-  fn: () => unknown,
-  opts: { warmup: number; runs: number },
-) => { median: number; p95: number };
+type Timer = typeof time;
 
 /**
  * n rivals x K fronts, r in {1, 0.8, 0.6} by front (the first `allPay` fronts all-pay instead);
@@ -76,20 +74,6 @@ export function frontsRows(time: Timer): FrontsRow[] {
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const time: Timer = (fn, opts) => {
-    for (let k = 0; k < opts.warmup; k++) fn();
-    const t: number[] = [];
-    for (let k = 0; k < opts.runs; k++) {
-      const t0 = performance.now();
-      fn();
-      t.push(performance.now() - t0);
-    }
-    t.sort((a, b) => a - b);
-    return {
-      median: t[Math.floor(t.length / 2)]!,
-      p95: t[Math.min(t.length - 1, Math.floor(0.95 * t.length))]!,
-    };
-  };
   for (const r of frontsRows(time)) {
     console.log(
       `${r.case}: median ${r.medianMs.toFixed(1)} ms, p95 ${r.p95Ms.toFixed(1)} ms (target ${r.target}); ${r.note ?? ""}`,

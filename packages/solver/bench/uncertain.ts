@@ -12,6 +12,7 @@ import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { runUncertain, sweepBands } from "../src/uncertain";
 import type { UncertainScenario } from "../src/uncertain";
+import { time } from "./timer";
 
 export interface UncertainRow {
   case: string;
@@ -22,10 +23,7 @@ export interface UncertainRow {
   note?: string;
 }
 
-type Timer = (
-  fn: () => unknown,
-  opts: { warmup: number; runs: number },
-) => { median: number; p95: number };
+type Timer = typeof time;
 
 /** n rivals, r = 1, every cost uniform on +-30% of its point value (as the CLI row reads it). */
 export function rangedScenario(n: number): UncertainScenario {
@@ -129,20 +127,6 @@ function cliRow(): UncertainRow {
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const time: Timer = (fn, opts) => {
-    for (let k = 0; k < opts.warmup; k++) fn();
-    const t: number[] = [];
-    for (let k = 0; k < opts.runs; k++) {
-      const t0 = performance.now();
-      fn();
-      t.push(performance.now() - t0);
-    }
-    t.sort((a, b) => a - b);
-    return {
-      median: t[Math.floor(t.length / 2)]!,
-      p95: t[Math.min(t.length - 1, Math.floor(0.95 * t.length))]!,
-    };
-  };
   const rows = uncertainRows(time);
   if (process.argv.includes("--cli")) rows.push(cliRow());
   for (const r of rows) {
