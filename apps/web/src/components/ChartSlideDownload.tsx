@@ -22,7 +22,8 @@ export interface SlideText {
  * fill the slide's chart area (12 px ticks read at about 22 px on a 1080-line slide).
  */
 const STAGE = { width: 980, height: 400 };
-const CHART_SVG = ".recharts-wrapper > svg.recharts-surface";
+/** A Recharts drawing, or a hand-drawn chart's <svg> marked `data-slide-chart`. */
+const CHART_SVG = ".recharts-wrapper > svg.recharts-surface, svg[data-slide-chart]";
 
 const nextFrame = () => new Promise<void>((resolve) => requestAnimationFrame(() => resolve()));
 
@@ -34,8 +35,11 @@ function readChart(container: HTMLElement | null) {
   const svg = container?.querySelector<SVGSVGElement>(CHART_SVG);
   if (!svg) return null;
   const box = svg.getBoundingClientRect();
-  const width = Number(svg.getAttribute("width")) || box.width;
-  const height = Number(svg.getAttribute("height")) || box.height;
+  // A drawing that scales to its box (width="100%") is in its viewBox's units.
+  const view = svg.viewBox.baseVal;
+  const scaled = !(Number(svg.getAttribute("width")) > 0) && view && view.width > 0;
+  const width = scaled ? view.width : Number(svg.getAttribute("width")) || box.width;
+  const height = scaled ? view.height : Number(svg.getAttribute("height")) || box.height;
   if (!(width > 0 && height > 0)) return null;
   const clone = svg.cloneNode(true) as SVGSVGElement;
   for (const el of clone.querySelectorAll(SCREEN_ONLY)) el.remove();

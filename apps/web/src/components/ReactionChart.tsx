@@ -85,6 +85,7 @@ export function ReactionChart({
       onClick={click}
       onKeyDown={key}
       data-testid="reaction-chart"
+      data-slide-chart
     >
       <rect x={PAD.left} y={PAD.top} width={iw} height={ih} fill="#fbfcfd" stroke="#d5dbe2" />
       {ticks.map((t) => (

@@ -1,5 +1,6 @@
 "use client";
 
+import { useRef } from "react";
 import {
   Area,
   CartesianGrid,
@@ -14,6 +15,8 @@ import {
 import { bandMidKey, bandPairKey } from "../../lib/bandRows";
 import type { BandRows } from "../../lib/bandRows";
 import { seriesColour } from "../../lib/palette";
+import { ChartSlideDownload } from "../ChartSlideDownload";
+import type { SlideText } from "../ChartSlideDownload";
 
 /**
  * A sweep with bands: per rival, a shaded area from P10 to P90 over the draws and a line at the
@@ -27,6 +30,7 @@ export function BandSweepChart({
   formatX,
   formatY,
   testId,
+  slide,
 }: {
   rows: BandRows["chart"];
   names: readonly string[];
@@ -35,13 +39,18 @@ export function BandSweepChart({
   formatX: (v: number) => string;
   formatY: (v: number) => string;
   testId: string;
+  /** when given: buttons that save the chart as a 1920 x 1080 slide (SVG, PNG) */
+  slide?: SlideText;
 }) {
+  const ref = useRef<HTMLDivElement>(null);
   const axis = "#4a5565";
-  return (
+  // `staged`: the copy drawn off screen at slide proportions, for ChartSlideDownload.
+  const draw = (staged: boolean) => (
     <div
+      ref={staged ? undefined : ref}
       className="chart"
-      style={{ height: 300 }}
-      data-testid={testId}
+      style={{ height: staged ? "100%" : 300 }}
+      data-testid={staged ? undefined : testId}
       role="img"
       aria-label={`Chart: ${yLabel} against ${xLabel}, for ${names.join(", ")}: a band from the 10th to the 90th percentile over the draws and a line at the median. The table below lists the same numbers.`}
     >
@@ -107,5 +116,22 @@ export function BandSweepChart({
         </ComposedChart>
       </ResponsiveContainer>
     </div>
+  );
+  if (!slide) return draw(false);
+  return (
+    <>
+      {draw(false)}
+      <ChartSlideDownload
+        chartRef={ref}
+        drawForSlide={() => draw(true)}
+        slide={slide}
+        units={`Vertical: ${yLabel} · across: ${xLabel}`}
+        legend={
+          slide.legend ??
+          names.map((n, i) => ({ name: `${n}: median, shaded P10-P90`, colour: seriesColour(i) }))
+        }
+        testId={testId}
+      />
+    </>
   );
 }

@@ -1,11 +1,13 @@
 "use client";
 
-import { useMemo } from "react";
+import { useMemo, useRef } from "react";
 import type { Contest } from "@contend/solver";
 import { bestResponseCurves, curveRange } from "../../lib/brCurves";
 import { formatNumber } from "../../lib/format";
 import { DataTable } from "../DataTable";
 import { ReactionChart } from "../ReactionChart";
+import { ChartSlideDownload } from "../ChartSlideDownload";
+import { seriesColour } from "../../lib/palette";
 import { ProfileInputs } from "./ProfileInputs";
 import { ProfileTable } from "./ProfileTable";
 import { Term } from "../Glossary";
@@ -39,6 +41,11 @@ export function BestResponseSection({
     const max = curveRange(contest, equilibrium, profile);
     return { max, curves: bestResponseCurves(contest, max) };
   }, [contest, equilibrium, profile]);
+  const chartRef = useRef<HTMLDivElement>(null);
+  const names: [string, string] = [
+    contest.rivals[0]?.name ?? "Rival 1",
+    contest.rivals[1]?.name ?? "Rival 2",
+  ];
 
   return (
     <section className="card" aria-labelledby="br-title">
@@ -49,15 +56,32 @@ export function BestResponseSection({
         . Click a point (or focus the chart and use the arrow keys) to test a profile.
       </p>
       <div className="grid-2">
-        <ReactionChart
-          curves={curves.curves}
-          max={curves.max}
-          names={[contest.rivals[0]?.name ?? "Rival 1", contest.rivals[1]?.name ?? "Rival 2"]}
-          equilibrium={equilibrium}
-          profile={profile}
-          onPick={setProfile}
-          format={(v) => formatNumber(v, v >= 100 ? 0 : 2)}
-        />
+        <div>
+          <div ref={chartRef}>
+            <ReactionChart
+              curves={curves.curves}
+              max={curves.max}
+              names={names}
+              equilibrium={equilibrium}
+              profile={profile}
+              onPick={setProfile}
+              format={(v) => formatNumber(v, v >= 100 ? 0 : 2)}
+            />
+          </div>
+          <ChartSlideDownload
+            chartRef={chartRef}
+            slide={{
+              title: `Best replies of ${names[0]} and ${names[1]}`,
+              caption: `Each curve is one rival's best effort given the other's; where they cross is the equilibrium (the dot)${profile ? ", the ring is the profile picked" : ""}. Effort in model units, other inputs as set above.`,
+            }}
+            units={`Across: effort of ${names[0]} · up: effort of ${names[1]} (model units)`}
+            legend={[
+              { name: `best reply of ${names[0]}`, colour: seriesColour(0) },
+              { name: `best reply of ${names[1]}`, colour: seriesColour(1), dashed: true },
+            ]}
+            testId="reaction-chart"
+          />
+        </div>
         <div>
           <div className="row">
             <ProfileInputs

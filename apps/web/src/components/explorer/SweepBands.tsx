@@ -143,6 +143,10 @@ export function SweepBands({
                 formatX={(v) => formatPlain(v, 3)}
                 formatY={money}
                 testId="bands-spend-chart"
+                slide={{
+                  title: `Equilibrium spend with its range as ${paramLabel} varies`,
+                  caption: `Each rival's equilibrium spend over the Monte Carlo draws of the uncertain inputs, at each value of ${paramLabel}: the line is the median, the shaded band runs from the 10th to the 90th percentile. A model's spread, not a forecast.`,
+                }}
               />
             </div>
             <div>
@@ -155,6 +159,10 @@ export function SweepBands({
                 formatX={(v) => formatPlain(v, 3)}
                 formatY={money}
                 testId="bands-payoff-chart"
+                slide={{
+                  title: `Equilibrium payoff with its range as ${paramLabel} varies`,
+                  caption: `Each rival's equilibrium payoff over the Monte Carlo draws of the uncertain inputs, at each value of ${paramLabel}: the line is the median, the shaded band runs from the 10th to the 90th percentile. A model's spread, not a forecast.`,
+                }}
               />
             </div>
           </div>

@@ -202,6 +202,10 @@ const SweepResults = memo(function SweepResults({ done, metric }: { done: Done; 
         // sweep values (prizes, budgets) are long numbers: few ticks so a phone's axis reads
         maxXTicks={5}
         testId="fronts-sweep-chart"
+        slide={{
+          title: `Equilibrium ${yLabel.toLowerCase()} as ${label} varies`,
+          caption: `Each rival's ${yLabel.toLowerCase()} at the pure equilibrium of the fronts contest, at each value of ${label}, the other inputs held fixed; gaps where no pure equilibrium was found. A model's comparative statics, not a forecast.`,
+        }}
       />
       <DataTable
         rows={rows}
