@@ -108,7 +108,8 @@ export interface BatchDeps {
  * Decides the requests one after another, each on the state the ones before it left, and
  * commits all their events in one append (with an all-sealed close right behind the seal
  * that caused it). Each request gets the result it would have got alone; a conflict with
- * another writer reloads the log and decides the whole batch again, once.
+ * another writer reloads the log and decides the whole batch again, up to MAX_ATTEMPTS in all
+ * (test/seq-conflicts.test.ts).
  */
 export async function commitBatch(
   deps: BatchDeps,
