@@ -92,6 +92,27 @@ describe("allocations over fronts stay private until the reveal", () => {
       [5000, 5000, 5000, 5000],
     ]);
     expect(lastView(screen).fronts?.fronts).toHaveLength(4);
+    // the CSV export: totals in the usual columns, then each front's money, share, best reply
+    // and equilibrium money by front name
+    const csv = (
+      await (await getWithKey(`${base}/export?format=csv`, created.facilitatorKey)).text()
+    )
+      .trimEnd()
+      .split("\r\n")
+      .map((line) => line.split(","));
+    const header = csv[0]!;
+    const col = (name: string) => header.indexOf(name);
+    expect(col("spend:Old Town")).toBeGreaterThan(col("roundNote"));
+    expect(col("equilibriumSpend:Riverside Park")).toBe(header.length - 1);
+    const row0 = csv[1]!;
+    expect(Number(row0[col("spend")])).toBeCloseTo(
+      SECRET[0].reduce((a, b) => a + b, 0),
+      6,
+    );
+    ["Old Town", "Harbourside", "University Quarter", "Riverside Park"].forEach((name, k) => {
+      expect(Number(row0[col(`spend:${name}`)])).toBe(SECRET[0][k]);
+      expect(Number(row0[col(`share:${name}`)])).toBeCloseTo(round.fronts!.shares[0]![k]!, 12);
+    });
     // the summary reads a fronts round as its total money
     const summary = (await (
       await getWithKey(`${base}/summary`, created.facilitatorKey)

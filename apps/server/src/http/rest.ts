@@ -19,7 +19,7 @@ import { clientAddress } from "../abuse";
 import type { AbuseBudgets } from "../abuse";
 import type { Clock } from "../clock";
 import type { Limits } from "../env";
-import { buildExport, roundsCsv } from "../live/export";
+import { buildExport, frontNamesOf, roundsCsv } from "../live/export";
 import { createLiveSession } from "../live/create";
 import { baseUrlOf } from "../live/links";
 import { summaryRoute } from "./summary";
@@ -149,7 +149,7 @@ export function createRestHandler(deps: RestDeps) {
     sendText(
       res,
       200,
-      roundsCsv(record.rounds, record.shocks),
+      roundsCsv(record.rounds, record.shocks, frontNamesOf(record.events)),
       "text/csv; charset=utf-8",
       disposition,
     );

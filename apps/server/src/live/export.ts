@@ -96,14 +96,31 @@ export const CSV_HEADER = [
   "roundNote",
 ] as const;
 
+/** Sessions with fronts (R48): per-front columns `<what>:<front name>` after CSV_HEADER. */
+export const FRONT_CSV_COLUMNS = ["spend", "share", "bestResponseSpend", "equilibriumSpend"];
+
+/** The fronts' names of a session's log, in file order ([] for a single contest). */
+export function frontNamesOf(events: readonly SessionEvent[]): string[] {
+  const created = events.find((e) => e.type === "session-created");
+  if (!created || !("fronts" in created.scenario)) return [];
+  return created.scenario.fronts.map((f) => f.name);
+}
+
 /**
  * One row per seat that played, per resolved round; `changesBefore` lists the shocks applied
- * since the previous round (money in the session's units, as the scenario states them).
+ * since the previous round (money in the session's units, as the scenario states them). With
+ * fronts (`frontNames` given) each row also has the seat's money, share, best reply and
+ * equilibrium money on every front; the columns above are then its totals (R48).
  */
 export function roundsCsv(
   rounds: readonly RoundResult[],
   shocks: readonly ShockRecord[] = [],
+  frontNames: readonly string[] = [],
 ): string {
+  const header = [
+    ...CSV_HEADER,
+    ...FRONT_CSV_COLUMNS.flatMap((c) => frontNames.map((name) => `${c}:${name}`)),
+  ];
   const rows: CsvCell[][] = [];
   for (const r of rounds) {
     const changes = shocks
@@ -132,8 +149,18 @@ export function roundsCsv(
         changes,
         r.moveReasons?.[seat] ?? null,
         r.note ?? null,
+        ...perFrontCells(r, seat, frontNames.length),
       ]);
     });
   }
-  return toCsv(CSV_HEADER, rows);
+  return toCsv(header, rows);
+}
+
+function perFrontCells(r: RoundResult, seat: number, fronts: number): CsvCell[] {
+  if (fronts === 0) return [];
+  const f = r.fronts;
+  const grids = [f?.spends, f?.shares, f?.bestSpends, f?.equilibrium.spends ?? undefined];
+  return grids.flatMap((g) =>
+    Array.from({ length: fronts }, (_, k): CsvCell => g?.[seat]?.[k] ?? null),
+  );
 }
