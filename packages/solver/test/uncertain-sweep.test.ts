@@ -1,32 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { sweepBands, type UncertainScenario } from "../src/uncertain";
+import { sweepBands } from "../src/uncertain";
+import { A, B, closedFormE1, simpson, twoRivals, V } from "./uncertainFixture";
 
-/** Composite Simpson rule on [a, b] with m (even) panels: the quadrature the checks compare to. */
-function simpson(f: (x: number) => number, a: number, b: number, m = 2000): number {
-  const h = (b - a) / m;
-  let s = f(a) + f(b);
-  for (let k = 1; k < m; k++) s += (k % 2 === 1 ? 4 : 2) * f(a + k * h);
-  return (s * h) / 3;
-}
-
-const V = 100;
-const A = 1;
-const B = 3;
 const N = 4000;
 
-/** Two rivals, r = 1, common value V, rival 0's cost swept, rival 1's cost uniform on [A, B]. */
-const twoRivals = (): UncertainScenario => ({
-  title: "Two rivals, one unknown cost",
-  prize: V,
-  csf: { kind: "ratio", decisiveness: 1 },
-  rivals: [
-    { name: "Known", cost: 1 },
-    { name: "Unknown", cost: { dist: "uniform", low: A, high: B } },
-  ],
-});
-
-// Hillman & Riley 1989; Nti 1999: two rivals, r = 1, common v: e1 = v c2 / (c1 + c2)^2.
-const e1 = (c1: number, c2: number) => (V * c2) / (c1 + c2) ** 2;
+const e1 = closedFormE1;
 
 describe("sweepBands against exact expectations", () => {
   const costs = [0.25, 0.5, 1];

@@ -9,33 +9,12 @@ import {
   uncertainParams,
   type UncertainScenario,
 } from "../src/uncertain";
+import { A, B, closedFormE1, simpson, twoRivals, V } from "./uncertainFixture";
 
-/** Composite Simpson rule on [a, b] with m (even) panels: the quadrature the checks compare to. */
-function simpson(f: (x: number) => number, a: number, b: number, m = 2000): number {
-  const h = (b - a) / m;
-  let s = f(a) + f(b);
-  for (let k = 1; k < m; k++) s += (k % 2 === 1 ? 4 : 2) * f(a + k * h);
-  return (s * h) / 3;
-}
-
-const V = 100;
 const C1 = 1;
-const A = 1;
-const B = 3;
 
-/** Two rivals, r = 1, common value V, rival 0's cost C1, rival 1's cost uniform on [A, B]. */
-const twoRivals = (): UncertainScenario => ({
-  title: "Two rivals, one unknown cost",
-  prize: V,
-  csf: { kind: "ratio", decisiveness: 1 },
-  rivals: [
-    { name: "Known", cost: C1 },
-    { name: "Unknown", cost: { dist: "uniform", low: A, high: B } },
-  ],
-});
-
-// Hillman & Riley 1989; Nti 1999: two rivals, r = 1, common v: e1 = v c2 / (c1 + c2)^2.
-const e1 = (c2: number) => (V * c2) / (C1 + c2) ** 2;
+// rival 0's equilibrium effort at C1 (Hillman & Riley 1989; Nti 1999)
+const e1 = (c2: number) => closedFormE1(C1, c2);
 
 describe("runUncertain against exact expectations", () => {
   const N = 20_000;
