@@ -1,6 +1,7 @@
-import { describe, expect, it } from "vitest";
+import { afterEach, describe, expect, it, vi } from "vitest";
 import { sessionFilterSchema } from "@contend/protocol";
-import { apiFilter, dayInstant, EMPTY_FILTER } from "../src/lib/libraryApi";
+import type { SessionListItem } from "@contend/protocol";
+import { apiFilter, dayInstant, EMPTY_FILTER, listKeyedSessions } from "../src/lib/libraryApi";
 
 describe("the library filter sent to the server", () => {
   it("a day range covers the whole of both local days", () => {
@@ -30,5 +31,54 @@ describe("the library filter sent to the server", () => {
     const parsed = sessionFilterSchema.safeParse(f);
     expect(parsed.success).toBe(true);
     expect(apiFilter(EMPTY_FILTER)).toEqual({ archived: "hide" });
+  });
+});
+
+describe("listKeyedSessions: the list both the library and the compare page load", () => {
+  const item = (id: string) => ({ id, title: id, tags: [] }) as unknown as SessionListItem;
+  const calls: { url: string; init?: RequestInit }[] = [];
+  const answer = (data: unknown, status = 200) =>
+    vi.fn(async (url: string, init?: RequestInit) => {
+      calls.push({ url, init });
+      return new Response(JSON.stringify(data), { status });
+    });
+  afterEach(() => {
+    vi.unstubAllGlobals();
+    calls.length = 0;
+  });
+
+  it("lists nothing and asks nothing when no key is held and no operator key is given", async () => {
+    vi.stubGlobal("fetch", answer([item("s1")]));
+    expect(await listKeyedSessions("", [])).toEqual({ ok: true, data: [] });
+    expect(calls).toHaveLength(0);
+  });
+
+  it("pairs each of this browser's sessions with its own facilitator key", async () => {
+    vi.stubGlobal("fetch", answer([item("s2"), item("s1")]));
+    const held = [
+      { id: "s1", key: "k1" },
+      { id: "s2", key: "k2" },
+    ];
+    const r = await listKeyedSessions("", held);
+    expect(r.ok && r.data.map((d) => [d.item.id, d.key])).toEqual([
+      ["s2", "k2"],
+      ["s1", "k1"],
+    ]);
+    expect(calls[0]!.url).toBe("/api/sessions/mine");
+    expect(JSON.parse(String(calls[0]!.init?.body))).toEqual({ sessions: held });
+  });
+
+  it("with the operator key: every session carries that key; a filter makes it a search", async () => {
+    vi.stubGlobal("fetch", answer([item("s9")]));
+    const r = await listKeyedSessions("op", [{ id: "s9", key: "k9" }], EMPTY_FILTER);
+    expect(r.ok && r.data.map((d) => d.key)).toEqual(["op"]);
+    expect(calls[0]!.url).toBe("/api/sessions?archived=hide");
+    expect(new Headers(calls[0]!.init?.headers).get("authorization")).toBe("Bearer op");
+  });
+
+  it("passes a refusal on as a value", async () => {
+    vi.stubGlobal("fetch", answer({ error: { code: "unauthorised", message: "wrong key" } }, 401));
+    const r = await listKeyedSessions("bad", []);
+    expect(!r.ok && r.status).toBe(401);
   });
 });

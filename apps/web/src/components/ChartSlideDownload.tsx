@@ -178,3 +178,38 @@ export function ChartSlideDownload({
     </div>
   );
 }
+
+/**
+ * A chart drawn by `draw` (`staged`: the off-screen copy at slide proportions), with its slide
+ * buttons under it when `slide` is given. `chartRef` is the on-screen copy's container.
+ */
+export function ChartWithSlide({
+  draw,
+  chartRef,
+  slide,
+  units,
+  legend,
+  testId,
+}: {
+  draw: (staged: boolean) => ReactNode;
+  chartRef: RefObject<HTMLElement | null>;
+  slide: SlideText | undefined;
+  units: string;
+  legend: readonly SlideSeries[];
+  testId?: string;
+}) {
+  if (!slide) return draw(false);
+  return (
+    <>
+      {draw(false)}
+      <ChartSlideDownload
+        chartRef={chartRef}
+        drawForSlide={() => draw(true)}
+        slide={slide}
+        units={units}
+        legend={slide.legend ?? legend}
+        testId={testId}
+      />
+    </>
+  );
+}

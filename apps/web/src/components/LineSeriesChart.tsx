@@ -13,7 +13,7 @@ import {
 } from "recharts";
 import { useRef } from "react";
 import { wholeNumberTicks } from "../lib/chartData";
-import { ChartSlideDownload } from "./ChartSlideDownload";
+import { ChartWithSlide } from "./ChartSlideDownload";
 import type { SlideText } from "./ChartSlideDownload";
 import type { AxisMark, Row } from "../lib/chartData";
 
@@ -147,18 +147,14 @@ export function LineSeriesChart({
       </ResponsiveContainer>
     </div>
   );
-  if (!slide) return draw(false);
   return (
-    <>
-      {draw(false)}
-      <ChartSlideDownload
-        chartRef={ref}
-        drawForSlide={() => draw(true)}
-        slide={slide}
-        units={`Vertical: ${yLabel} · across: ${xLabel}`}
-        legend={slide.legend ?? series}
-        testId={testId}
-      />
-    </>
+    <ChartWithSlide
+      draw={draw}
+      chartRef={ref}
+      slide={slide}
+      units={`Vertical: ${yLabel} · across: ${xLabel}`}
+      legend={series}
+      testId={testId}
+    />
   );
 }

@@ -1,15 +1,12 @@
 "use client";
 
 import { useCallback, useEffect, useState } from "react";
-import type { SessionListItem } from "@contend/protocol";
-import { listMySessions, listSessions } from "../lib/api";
 import { facilitatorKeys } from "../lib/keyring";
+import { listKeyedSessions, operatorFromFragment } from "../lib/libraryApi";
+import type { KeyedSession } from "../lib/libraryApi";
 
-export interface SessionChoice {
-  item: SessionListItem;
-  /** the key that opens this session's summary and export (facilitator or operator) */
-  key: string;
-}
+/** A session this page may open, with the key that opens its summary and export. */
+export type SessionChoice = KeyedSession;
 
 /**
  * The sessions this page may open, under the same access rules as the replay list: those whose
@@ -21,31 +18,20 @@ export function useSessionChoices() {
   const [error, setError] = useState<string | null>(null);
   const [asOperator, setAsOperator] = useState(false);
 
-  const loadMine = useCallback(async () => {
+  /** `operatorKey` "": this browser's own sessions; else every session. */
+  const load = useCallback(async (operatorKey: string) => {
     setError(null);
-    const held = facilitatorKeys();
-    if (held.length === 0) return setChoices([]);
-    const r = await listMySessions(held);
+    const r = await listKeyedSessions(operatorKey, facilitatorKeys());
     if (!r.ok) return setError(r.message);
-    const keys = new Map(held.map((h) => [h.id, h.key]));
-    setChoices(r.data.map((item) => ({ item, key: keys.get(item.id) ?? "" })));
-  }, []);
-
-  const loadAll = useCallback(async (operatorKey: string) => {
-    setError(null);
-    const r = await listSessions(operatorKey);
-    if (!r.ok) return setError(r.message);
-    setAsOperator(true);
-    setChoices(r.data.map((item) => ({ item, key: operatorKey })));
+    if (operatorKey) setAsOperator(true);
+    setChoices(r.data);
   }, []);
 
   useEffect(() => {
-    const fromFragment = new URLSearchParams(window.location.hash.slice(1)).get("operator") ?? "";
-    if (fromFragment) void loadAll(fromFragment);
-    else void loadMine();
-  }, [loadAll, loadMine]);
+    void load(operatorFromFragment());
+  }, [load]);
 
   const sorted =
     choices && [...choices].sort((a, b) => b.item.updatedAt.localeCompare(a.item.updatedAt));
-  return { choices: sorted, error, asOperator, loadAll };
+  return { choices: sorted, error, asOperator, loadAll: load };
 }

@@ -9,7 +9,7 @@ import type {
   SessionListItem,
   SessionPatch,
 } from "@contend/protocol";
-import { apiUrl, readError, request } from "./api";
+import { apiUrl, listMySessions, listSessions, readError, request } from "./api";
 import type { ApiResult } from "./api";
 import type { HeldKey } from "./keyring";
 
@@ -75,6 +75,40 @@ export function searchMySessions(held: HeldKey[], f: LibraryFilter) {
     method: "POST",
     ...json({ sessions: held, filter: apiFilter(f) }),
   });
+}
+
+/** A listed session with the key that opens it (its facilitator key, or the operator key). */
+export interface KeyedSession {
+  item: SessionListItem;
+  key: string;
+}
+
+/** The operator key, when the page was opened with `#operator=<key>`; "" otherwise. */
+export function operatorFromFragment(): string {
+  if (typeof window === "undefined") return "";
+  return new URLSearchParams(window.location.hash.slice(1)).get("operator") ?? "";
+}
+
+/**
+ * The sessions a page may list: every session with the operator key, else those whose
+ * facilitator keys this browser holds (none held: an empty list, no request). With a filter
+ * the server searches; without one it lists.
+ */
+export async function listKeyedSessions(
+  operator: string,
+  held: HeldKey[],
+  filter?: LibraryFilter,
+): Promise<ApiResult<KeyedSession[]>> {
+  if (!operator && held.length === 0) return { ok: true, data: [] };
+  const r = operator
+    ? await (filter ? searchAllSessions(operator, filter) : listSessions(operator))
+    : await (filter ? searchMySessions(held, filter) : listMySessions(held));
+  if (!r.ok) return r;
+  const keys = new Map(held.map((h) => [h.id, h.key]));
+  return {
+    ok: true,
+    data: r.data.map((item) => ({ item, key: operator || (keys.get(item.id) ?? "") })),
+  };
 }
 
 /** PATCH /api/sessions/<id>: rename, tag, archive. */

@@ -7,8 +7,8 @@ import { sessionSummary } from "../../lib/api";
 import type { Compared } from "../../lib/compare";
 import { formatDateTime } from "../../lib/format";
 import { STATUS_TEXT } from "../../lib/live";
+import { OperatorKeyForm } from "../replay/OperatorKeyForm";
 import { useSessionChoices } from "../../hooks/useSessionChoices";
-import { TextField } from "../Field";
 import { FigureTable, numCol, textCol } from "../FigureTable";
 import { CompareView } from "./CompareView";
 
@@ -115,24 +115,12 @@ export function CompareSessions() {
         </p>
       ))}
       {!asOperator && (
-        <form
-          className="card row no-print"
-          style={{ alignItems: "flex-end", marginTop: "1rem" }}
-          onSubmit={(e) => {
-            e.preventDefault();
-            if (operatorKey.trim()) void loadAll(operatorKey.trim());
-          }}
-        >
-          <TextField
-            label="Operator key (lists every session on this server)"
-            value={operatorKey}
-            onChange={setOperatorKey}
-            testId="compare-operator-key"
-          />
-          <button type="submit" style={{ marginBottom: "1.3rem" }}>
-            List all
-          </button>
-        </form>
+        <OperatorKeyForm
+          value={operatorKey}
+          onChange={setOperatorKey}
+          onList={(key) => void loadAll(key)}
+          testId="compare-operator-key"
+        />
       )}
       {sessions.length >= 2 ? (
         <CompareView sessions={sessions} />

@@ -15,7 +15,7 @@ import {
 import { bandMidKey, bandPairKey } from "../../lib/bandRows";
 import type { BandRows } from "../../lib/bandRows";
 import { seriesColour } from "../../lib/palette";
-import { ChartSlideDownload } from "../ChartSlideDownload";
+import { ChartWithSlide } from "../ChartSlideDownload";
 import type { SlideText } from "../ChartSlideDownload";
 
 /**
@@ -117,21 +117,17 @@ export function BandSweepChart({
       </ResponsiveContainer>
     </div>
   );
-  if (!slide) return draw(false);
   return (
-    <>
-      {draw(false)}
-      <ChartSlideDownload
-        chartRef={ref}
-        drawForSlide={() => draw(true)}
-        slide={slide}
-        units={`Vertical: ${yLabel} · across: ${xLabel}`}
-        legend={
-          slide.legend ??
-          names.map((n, i) => ({ name: `${n}: median, shaded P10-P90`, colour: seriesColour(i) }))
-        }
-        testId={testId}
-      />
-    </>
+    <ChartWithSlide
+      draw={draw}
+      chartRef={ref}
+      slide={slide}
+      units={`Vertical: ${yLabel} · across: ${xLabel}`}
+      legend={names.map((n, i) => ({
+        name: `${n}: median, shaded P10-P90`,
+        colour: seriesColour(i),
+      }))}
+      testId={testId}
+    />
   );
 }

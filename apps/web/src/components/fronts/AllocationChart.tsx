@@ -13,7 +13,7 @@ import {
 } from "recharts";
 import { formatMoney, formatNumber } from "../../lib/format";
 import { seriesColour } from "../../lib/palette";
-import { ChartSlideDownload } from "../ChartSlideDownload";
+import { ChartWithSlide } from "../ChartSlideDownload";
 import type { FrontsView } from "./FrontsResults";
 
 /** Each rival's money as one bar, stacked by front. */
@@ -75,10 +75,9 @@ export function AllocationChart({ fc, eq, currency }: FrontsView) {
   return (
     <section className="card" aria-labelledby="fronts-chart-title">
       <h2 id="fronts-chart-title">Allocation by rival, stacked by front</h2>
-      {draw(false)}
-      <ChartSlideDownload
+      <ChartWithSlide
+        draw={draw}
         chartRef={ref}
-        drawForSlide={() => draw(true)}
         slide={{
           title: "Equilibrium allocation by rival, stacked by front",
           caption: `The money each rival puts on each front at the pure equilibrium of the fronts contest, in ${currency ?? "money"}; a bar's height is the rival's total spend.`,

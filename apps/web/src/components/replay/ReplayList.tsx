@@ -4,24 +4,15 @@ import Link from "next/link";
 import { useCallback, useEffect, useRef, useState } from "react";
 import type { SessionListItem } from "@contend/protocol";
 import { facilitatorKeys } from "../../lib/keyring";
-import { EMPTY_FILTER, searchAllSessions, searchMySessions } from "../../lib/libraryApi";
-import type { LibraryFilter } from "../../lib/libraryApi";
-import { TextField } from "../Field";
+import { EMPTY_FILTER, listKeyedSessions, operatorFromFragment } from "../../lib/libraryApi";
+import type { KeyedSession, LibraryFilter } from "../../lib/libraryApi";
 import { FigureTable, numCol, textCol } from "../FigureTable";
+import { OperatorKeyForm } from "./OperatorKeyForm";
 import { LibraryFilters } from "./LibraryFilters";
 import { SessionRow } from "./SessionRow";
 
-interface Row {
-  item: SessionListItem;
-  /** the key its replay link carries (in the fragment) and its edits send */
-  key: string;
-}
-
-/** The operator key, when the page was opened with `#operator=<key>`. */
-function operatorFromFragment(): string {
-  if (typeof window === "undefined") return "";
-  return new URLSearchParams(window.location.hash.slice(1)).get("operator") ?? "";
-}
+/** A session and the key its replay link carries (in the fragment) and its edits send. */
+type Row = KeyedSession;
 
 /** Typing in the search box asks the server once the typing pauses. */
 const SEARCH_PAUSE_MS = 250;
@@ -44,14 +35,11 @@ export function ReplayList() {
   const load = useCallback(async (operator: string, f: LibraryFilter) => {
     const ask = ++asked.current;
     setError(null);
-    const held = facilitatorKeys();
-    if (!operator && held.length === 0) return setRows([]);
-    const r = operator ? await searchAllSessions(operator, f) : await searchMySessions(held, f);
+    const r = await listKeyedSessions(operator, facilitatorKeys(), f);
     if (ask !== asked.current) return; // a newer search has been sent
     if (!r.ok) return setError(r.message);
-    const keys = new Map(held.map((h) => [h.id, h.key]));
-    setRows(r.data.map((item) => ({ item, key: operator || (keys.get(item.id) ?? "") })));
-    setSeenTags((old) => [...new Set([...old, ...r.data.flatMap((i) => i.tags)])].sort());
+    setRows(r.data);
+    setSeenTags((old) => [...new Set([...old, ...r.data.flatMap((r) => r.item.tags)])].sort());
   }, []);
 
   // The operator link may be opened on this page already: read the fragment on every change.
@@ -146,24 +134,12 @@ export function ReplayList() {
         </FigureTable>
       )}
       {!asOperator && (
-        <form
-          className="card row no-print"
-          style={{ alignItems: "flex-end", marginTop: "1rem" }}
-          onSubmit={(e) => {
-            e.preventDefault();
-            if (operatorKey.trim()) setListedAs(operatorKey.trim());
-          }}
-        >
-          <TextField
-            label="Operator key (lists every session on this server)"
-            value={operatorKey}
-            onChange={setOperatorKey}
-            testId="replays-operator-key"
-          />
-          <button type="submit" style={{ marginBottom: "1.3rem" }}>
-            List all
-          </button>
-        </form>
+        <OperatorKeyForm
+          value={operatorKey}
+          onChange={setOperatorKey}
+          onList={setListedAs}
+          testId="replays-operator-key"
+        />
       )}
     </div>
   );
