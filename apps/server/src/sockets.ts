@@ -15,6 +15,7 @@ import { clientAddress } from "./abuse";
 import type { AbuseBudgets } from "./abuse";
 import { createTokenBucket } from "./rateLimit";
 import { createHandlers, NEW_LINK_MESSAGE, oldSeatLinks } from "./socket/handlers";
+import { isPresenceSignal } from "./socket/presence";
 import { createRooms } from "./socket/rooms";
 import type { AnyAck, AppServer, AppSocket } from "./socket/types";
 
@@ -43,7 +44,7 @@ const SESSION_DELETED = {
   message: "This session has been deleted by its facilitator.",
 } as const;
 
-/** What one process tells the others about their sockets (hub.publish). */
+/** What one process tells the others about their sockets (hub.publish; presence: socket/presence.ts). */
 type Signal =
   | { kind: "seat-relinked"; sessionId: string; seatIndex: number; keyDigest: string }
   | { kind: "session-deleted"; sessionId: string };
@@ -54,6 +55,7 @@ export function attachSockets(deps: SocketDeps) {
   const handlers = createHandlers({ ...deps, rooms });
 
   hub.onSignal((raw) => {
+    if (isPresenceSignal(raw)) return rooms.heardPresence(raw);
     const signal = raw as Signal;
     if (signal.kind === "seat-relinked") {
       rooms.revoke(

@@ -6,23 +6,20 @@
  * goes, the other takes the clock over. Sealed moves still reach nobody else (leak check with
  * a positive control, as in leak.test.ts).
  */
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { createManualClock } from "../src/clock";
 import { LEASE_RETRY_MS } from "../src/live/duties";
 import {
   command,
-  connect,
   createSessionOverHttp,
   eventLog,
   eventually,
   expectOk,
   hello,
   lastView,
-  startServer,
 } from "./helpers";
-import type { Client, TestServer } from "./helpers";
 import { printShops } from "./fixtures";
-import { freshPostgres, TEST_DATABASE_URL } from "./pgDatabase";
+import { serversOnOnePostgres, TEST_DATABASE_URL } from "./pgDatabase";
 
 // Distinctive efforts (on the 0.25 grid), matched as whole JSON numbers.
 const SECRET_A = 37.25;
@@ -30,31 +27,9 @@ const FIXED = 13.25;
 const numberRe = (n: number) => new RegExp(`(?<![\\d.])${String(n).replace(".", "\\.")}(?![\\d])`);
 
 describe.skipIf(!TEST_DATABASE_URL)("two processes on one PostgreSQL", () => {
-  let database: { url: string; dispose(): Promise<void> } | null = null;
-  const servers: TestServer[] = [];
-  const clients: Client[] = [];
   const clock = createManualClock();
-
-  beforeAll(async () => {
-    database = await freshPostgres(TEST_DATABASE_URL!);
-  });
-  afterAll(async () => {
-    for (const c of clients) c.disconnect();
-    for (const s of servers) await s.stop();
-    await database?.dispose();
-  });
-
-  async function server() {
-    // Seals reach the other sockets at once (no progress window on the manual clock).
-    const s = await startServer({ dataDir: database!.url, clock, limits: { progressPushMs: 0 } });
-    servers.push(s);
-    return s;
-  }
-  async function client(s: TestServer) {
-    const c = await connect(s.url);
-    clients.push(c);
-    return c;
-  }
+  // Seals reach the other sockets at once (no progress window on the manual clock).
+  const { server, client } = serversOnOnePostgres({ clock, limits: { progressPushMs: 0 } });
 
   it("every seat sees every reveal; the computer moves once a round; the clock closes once; the other process takes the clock over", async () => {
     const a = await server();

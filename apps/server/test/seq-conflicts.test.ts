@@ -3,11 +3,10 @@
  * batch that loses the seq check to the other writer reads what it committed and decides
  * again, several times in a row if it must. Every acked seal is in the log exactly once.
  */
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import { createManualClock } from "../src/clock";
 import {
   command,
-  connect,
   createSessionOverHttp,
   eventLog,
   eventually,
@@ -15,11 +14,10 @@ import {
   FLOOD_LIMITS,
   hello,
   lastView,
-  startServer,
 } from "./helpers";
 import type { Client, TestServer } from "./helpers";
 import { printShops } from "./fixtures";
-import { freshPostgres, TEST_DATABASE_URL } from "./pgDatabase";
+import { serversOnOnePostgres, TEST_DATABASE_URL } from "./pgDatabase";
 
 /** Ten invented rivals: enough seats that seven can seal without closing the round. */
 function tenShops(rounds: number) {
@@ -32,41 +30,21 @@ function tenShops(rounds: number) {
 }
 
 describe.skipIf(!TEST_DATABASE_URL)("seq conflicts between two processes", () => {
-  let database: { url: string; dispose(): Promise<void> } | null = null;
-  const servers: TestServer[] = [];
-  const clients: Client[] = [];
   const clock = createManualClock();
-
-  beforeAll(async () => {
-    database = await freshPostgres(TEST_DATABASE_URL!);
+  const { server, client } = serversOnOnePostgres({
+    clock,
+    limits: { progressPushMs: 0, ...FLOOD_LIMITS },
   });
-  afterAll(async () => {
-    for (const c of clients) c.disconnect();
-    for (const s of servers) await s.stop();
-    await database?.dispose();
-  });
-
-  async function server() {
-    const s = await startServer({
-      dataDir: database!.url,
-      clock,
-      limits: { progressPushMs: 0, ...FLOOD_LIMITS },
-    });
-    servers.push(s);
-    return s;
-  }
 
   /** A session of ten seats; seat i connects to `on(i)`; the facilitator to the first. */
   async function seated(processes: TestServer[], rounds: number, on: (i: number) => number) {
     const created = await createSessionOverHttp(processes[0]!.url, tenShops(rounds));
     const id = created.id;
-    const fac = await connect(processes[0]!.url);
-    clients.push(fac);
+    const fac = await client(processes[0]!);
     expectOk(await hello(fac, { role: "facilitator", sessionId: id, key: created.facilitatorKey }));
     const seats: Client[] = [];
     for (const [i, seat] of created.seats.entries()) {
-      const c = await connect(processes[on(i)]!.url);
-      clients.push(c);
+      const c = await client(processes[on(i)]!);
       expectOk(await hello(c, { role: "seat", sessionId: id, key: seat.key }));
       seats.push(c);
     }

@@ -171,7 +171,10 @@ export function createHandlers(deps: HandlerDeps) {
     if (identity.seatIndex !== undefined) data.seatIndex = identity.seatIndex;
     socket.data.shown = { seq: state.seq, view: data.view };
     ack({ ok: true, data });
-    if (identity.role === "facilitator") rooms.sendPresence(socket, identity.sessionId);
+    if (identity.role === "facilitator") {
+      rooms.sendPresence(socket, identity.sessionId);
+      rooms.askPresence(identity.sessionId);
+    }
   }
 
   async function command(socket: AppSocket, raw: unknown): Promise<Ack<CommandAckData>> {

@@ -1,7 +1,7 @@
 /**
  * The sockets of each session in this process, and what reaches them: pushed views (each
  * socket its own role's view, as a patch from the one it holds, so a sealed move reaches only
- * its owner), presence for the facilitator, and revocation. Commits made by another process
+ * its owner), presence for the facilitator (socket/presence.ts), and revocation. Commits made by another process
  * arrive here the same way as this process's own (the hub's commit listener).
  */
 import { diffJson } from "@contend/protocol";
@@ -12,6 +12,8 @@ import type { Limits } from "../env";
 import type { LiveSession, SessionHub } from "../live/hub";
 import { progressWindowMs } from "../loadGauge";
 import type { LoadGauge } from "../loadGauge";
+import { createPresence } from "./presence";
+import type { PresenceSignal } from "./presence";
 import { viewerOf } from "./types";
 import type { AppSocket, Identity } from "./types";
 
@@ -31,8 +33,15 @@ export function createRooms(deps: RoomsDeps) {
   const { hub, clock, limits, load } = deps;
   /** sockets that said hello, by session */
   const rooms = new Map<string, Set<AppSocket>>();
-  /** per session: seat index -> how many seat sockets of that seat are connected */
-  const present = new Map<string, Map<number, number>>();
+  const presence = createPresence({
+    clock,
+    publish: (signal) => void hub.publish(signal),
+    changed(sessionId) {
+      for (const s of rooms.get(sessionId) ?? []) {
+        if (s.data.identity?.role === "facilitator") sendPresence(s, sessionId);
+      }
+    },
+  });
 
   function join(socket: AppSocket, identity: Identity) {
     leave(socket);
@@ -40,7 +49,9 @@ export function createRooms(deps: RoomsDeps) {
     let room = rooms.get(identity.sessionId);
     if (!room) rooms.set(identity.sessionId, (room = new Set()));
     room.add(socket);
-    if (identity.role === "seat") countPresence(identity.sessionId, identity.seatIndex, +1);
+    if (identity.role === "seat" && identity.seatIndex !== undefined) {
+      presence.count(identity.sessionId, identity.seatIndex, +1);
+    }
   }
 
   function leave(socket: AppSocket) {
@@ -51,32 +62,14 @@ export function createRooms(deps: RoomsDeps) {
     if (room && room.size === 0) rooms.delete(identity.sessionId);
     socket.data.identity = null;
     socket.data.shown = null;
-    if (identity.role === "seat") countPresence(identity.sessionId, identity.seatIndex, -1);
-  }
-
-  /**
-   * Presence (facilitator only, not part of the event log): which seats have a connected seat
-   * page in this process. The facilitator's sockets get the list when a seat goes from no page
-   * to one or back.
-   */
-  function countPresence(sessionId: string, seatIndex: number | undefined, delta: 1 | -1) {
-    if (seatIndex === undefined) return;
-    let counts = present.get(sessionId);
-    if (!counts) present.set(sessionId, (counts = new Map()));
-    const before = counts.get(seatIndex) ?? 0;
-    const after = Math.max(0, before + delta);
-    if (after === 0) counts.delete(seatIndex);
-    else counts.set(seatIndex, after);
-    if (counts.size === 0) present.delete(sessionId);
-    if ((before === 0) === (after === 0)) return;
-    for (const s of rooms.get(sessionId) ?? []) {
-      if (s.data.identity?.role === "facilitator") sendPresence(s, sessionId);
+    if (identity.role === "seat" && identity.seatIndex !== undefined) {
+      presence.count(identity.sessionId, identity.seatIndex, -1);
     }
   }
 
+  /** The seats with a connected page in any process (socket/presence.ts). */
   function sendPresence(socket: AppSocket, sessionId: string) {
-    const seats = [...(present.get(sessionId)?.keys() ?? [])].sort((a, b) => a - b);
-    socket.emit("presence", { seats });
+    socket.emit("presence", { seats: presence.seats(sessionId) });
   }
 
   /**
@@ -170,9 +163,14 @@ export function createRooms(deps: RoomsDeps) {
     join,
     leave,
     sendPresence,
+    /** a facilitator joined here: asks the other processes for their seats' presence */
+    askPresence: (sessionId: string) => presence.ask(sessionId),
+    /** a presence message from another process */
+    heardPresence: (signal: PresenceSignal) => presence.heard(signal),
     revoke,
     /** drops the progress pushes still waiting (the server is closing) */
     stop() {
+      presence.stop();
       for (const timer of pendingProgress.values()) clock.clearTimer(timer);
       pendingProgress.clear();
     },
