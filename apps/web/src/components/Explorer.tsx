@@ -5,11 +5,12 @@ import { useDeferredValue, useMemo, useState } from "react";
 import { useSearchParams } from "next/navigation";
 import { decodeExplorer, initialState } from "../lib/explorerState";
 import type { ExplorerState } from "../lib/explorerState";
-import { solveForView } from "../lib/solveView";
+import { shownAnswer } from "../lib/solveState";
 import { useAddressBarSync } from "../hooks/useAddressBarSync";
 import { useCopyLink } from "../hooks/useCopyLink";
 import { useExplorerRanges } from "../hooks/useExplorerRanges";
 import { useExplorerScenario } from "../hooks/useExplorerScenario";
+import { useExplorerSolve } from "../hooks/useExplorerSolve";
 import { useSweepAxis } from "../hooks/useSweepAxis";
 import { ContestFields, RivalsTable } from "./ContestFields";
 import { BestResponseSection, hasReactionCurves } from "./explorer/BestResponseSection";
@@ -36,7 +37,10 @@ export function Explorer() {
 
   // The heavy views follow a deferred copy so that typing stays responsive.
   const deferred = useDeferredValue(scenario);
-  const solved = useMemo(() => (deferred ? solveForView(deferred) : null), [deferred]);
+  // The equilibrium is solved in a worker; the last answer stays (greyed) while a new one comes.
+  const solve = useExplorerSolve(deferred);
+  const solved =
+    solve.status === "error" ? { ok: false as const, message: solve.message } : shownAnswer(solve);
   const currency = deferred?.currency ?? null;
   const sweepAxis = useSweepAxis(initial.sw, deferred);
 
@@ -70,7 +74,13 @@ export function Explorer() {
           />
           <TimingFields form={form} leader={leader} setLeader={setLeader} error={errors.leader} />
         </div>
-        <EquilibriumCard solved={solved} currency={currency} sequential={!!deferred?.leader} />
+        <EquilibriumCard
+          solved={solved}
+          solving={solve.status === "solving"}
+          ms={solve.status === "done" ? solve.ms : null}
+          currency={currency}
+          sequential={!!deferred?.leader}
+        />
       </div>
 
       {hasReactionCurves(contest) && (

@@ -1,5 +1,5 @@
 /**
- * Runs a one-parameter sweep off the page's thread: with three or more rivals in the mixed
+ * Runs the explorer's equilibrium solve and its one-parameter sweep off the page's thread: with three or more rivals in the mixed
  * region each point is a fictitious-play solve of a fraction of a second or more, which would
  * freeze typing and scrolling on the page. Messaging through comlink; progress goes back
  * through a proxied callback at most every PROGRESS_MS and once at the end. Cancelling is
@@ -8,6 +8,8 @@
 import { expose } from "comlink";
 import { assemble1d, MAX_STEPS_1D, plan1d, planAxis } from "@contend/solver";
 import type { AxisSpec, Scenario, Sweep1d, SweepPoint } from "@contend/solver";
+import { solveForView } from "../lib/solveView";
+import type { SolvedView } from "../lib/solveView";
 
 const PROGRESS_MS = 100;
 
@@ -15,6 +17,10 @@ export type SweepOutcome =
   { ok: true; sweep: Sweep1d } | { ok: false; path: string; message: string };
 
 const api = {
+  /** The same solve the page would run (solveForView); the answer is plain data for postMessage. */
+  solve(scenario: Scenario): SolvedView {
+    return solveForView(scenario);
+  },
   run(
     scenario: Scenario,
     spec: AxisSpec,

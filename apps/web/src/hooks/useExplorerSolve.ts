@@ -1,0 +1,37 @@
+"use client";
+
+import { useEffect, useState } from "react";
+import type { Scenario } from "@contend/solver";
+import type { SolvedView } from "../lib/solveView";
+import { startSolving } from "../lib/solveState";
+import type { SolveState } from "../lib/solveState";
+import type { SweepWorkerApi } from "../workers/sweep.worker";
+import { useWorkerJob } from "./useWorkerJob";
+
+function createSweepWorker(): Worker {
+  return new Worker(new URL("../workers/sweep.worker.ts", import.meta.url), { type: "module" });
+}
+
+/**
+ * The explorer's equilibrium, solved in a Web Worker (workers/sweep.worker.ts) with the same
+ * call the page used to make: with three or more rivals in the mixed region a solve takes a
+ * fraction of a second or more, which would freeze typing. A newer scenario terminates the
+ * solve in flight; the last answer stays on screen, marked as solving, until the new one comes.
+ */
+export function useExplorerSolve(scenario: Scenario | null): SolveState<SolvedView> {
+  const [state, setState] = useState<SolveState<SolvedView>>({ status: "idle" });
+  const { launch, stop } = useWorkerJob<SweepWorkerApi>(createSweepWorker);
+  useEffect(() => {
+    if (scenario === null) {
+      stop();
+      setState({ status: "idle" });
+      return;
+    }
+    setState(startSolving);
+    launch<SolvedView>(async (api) => api.solve(scenario), {
+      done: (value, ms) => setState({ status: "done", value, ms }),
+      fail: (message) => setState({ status: "error", message }),
+    });
+  }, [scenario, launch, stop]);
+  return state;
+}
