@@ -28,7 +28,7 @@ export function useExplorerSolve(scenario: Scenario | null): SolveState<SolvedVi
       return;
     }
     setState(startSolving);
-    launch<SolvedView>(async (api) => api.solve(scenario), {
+    launch(async (api) => api.solve(scenario), {
       done: (value, ms) => setState({ status: "done", value, ms }),
       fail: (message) => setState({ status: "error", message }),
     });

@@ -1,7 +1,6 @@
 "use client";
 
-import { useCallback, useEffect, useRef, useState } from "react";
-import { proxy, wrap, type Remote } from "comlink";
+import { useCallback, useEffect, useState } from "react";
 import type {
   FrontsEquilibrium,
   FrontsScenario,
@@ -9,34 +8,10 @@ import type {
   FrontsSweepSpec,
 } from "@contend/solver";
 import type { FrontsWorkerApi } from "../workers/fronts.worker";
+import { useWorkerJob } from "./useWorkerJob";
 
-interface Live {
-  worker: Worker;
-  api: Remote<FrontsWorkerApi>;
-}
-
-/**
- * One fronts worker at a time for a caller: `start` terminates the job in flight (if any) and
- * returns a fresh worker; `isCurrent` tells a late reply from a job that was replaced.
- */
-function useOneWorker() {
-  const live = useRef<Live | null>(null);
-  const stop = useCallback(() => {
-    live.current?.worker.terminate();
-    live.current = null;
-  }, []);
-  useEffect(() => stop, [stop]);
-  const start = useCallback((): Live => {
-    stop();
-    const worker = new Worker(new URL("../workers/fronts.worker.ts", import.meta.url), {
-      type: "module",
-    });
-    const mine: Live = { worker, api: wrap<FrontsWorkerApi>(worker) };
-    live.current = mine;
-    return mine;
-  }, [stop]);
-  const isCurrent = useCallback((mine: Live) => live.current === mine, []);
-  return { start, stop, isCurrent };
+function createFrontsWorker(): Worker {
+  return new Worker(new URL("../workers/fronts.worker.ts", import.meta.url), { type: "module" });
 }
 
 export type FrontsSolveState =
@@ -52,14 +27,12 @@ export type FrontsSolveState =
  */
 export function useFrontsSolve(scenario: FrontsScenario | null): FrontsSolveState {
   const [state, setState] = useState<FrontsSolveState>({ status: "idle" });
-  const { start, stop, isCurrent } = useOneWorker();
+  const { launch, stop } = useWorkerJob<FrontsWorkerApi>(createFrontsWorker);
   useEffect(() => {
     if (!scenario) {
       stop();
       return;
     }
-    const mine = start();
-    const started = performance.now();
     setState((s) => ({
       status: "solving",
       previous:
@@ -69,19 +42,11 @@ export function useFrontsSolve(scenario: FrontsScenario | null): FrontsSolveStat
             ? s.previous
             : null,
     }));
-    mine.api
-      .solve(scenario)
-      .then((eq) => {
-        if (!isCurrent(mine)) return;
-        stop();
-        setState({ status: "done", scenario, eq, ms: performance.now() - started });
-      })
-      .catch((e: unknown) => {
-        if (!isCurrent(mine)) return;
-        stop();
-        setState({ status: "error", message: `solver failed: ${(e as Error).message}` });
-      });
-  }, [scenario, start, stop, isCurrent]);
+    launch((api) => api.solve(scenario), {
+      done: (eq, ms) => setState({ status: "done", scenario, eq, ms }),
+      fail: (message) => setState({ status: "error", message }),
+    });
+  }, [scenario, launch, stop]);
   return state;
 }
 
@@ -94,32 +59,22 @@ export type FrontsSweepState =
 /** A sweep in a Web Worker with progress; cancelling (or a new run) terminates it. */
 export function useFrontsSweepRun() {
   const [state, setState] = useState<FrontsSweepState>({ status: "idle" });
-  const { start, stop, isCurrent } = useOneWorker();
+  const { launch, stop } = useWorkerJob<FrontsWorkerApi>(createFrontsWorker);
   const run = useCallback(
     (scenario: FrontsScenario, spec: FrontsSweepSpec) => {
-      const mine = start();
       setState({ status: "running", done: 0, total: spec.steps });
-      const onProgress = proxy((done: number, total: number) => {
-        if (isCurrent(mine)) setState({ status: "running", done, total });
-      });
-      mine.api
-        .sweep(scenario, spec, onProgress)
-        .then((res) => {
-          if (!isCurrent(mine)) return;
-          stop();
+      launch(async (api, onProgress) => api.sweep(scenario, spec, onProgress), {
+        progress: (done, total) => setState({ status: "running", done, total }),
+        done: (res) =>
           setState(
             res.ok
               ? { status: "done", points: res.value, scenario, spec }
               : { status: "error", message: `${res.path}: ${res.message}` },
-          );
-        })
-        .catch((e: unknown) => {
-          if (!isCurrent(mine)) return;
-          stop();
-          setState({ status: "error", message: `solver failed: ${(e as Error).message}` });
-        });
+          ),
+        fail: (message) => setState({ status: "error", message }),
+      });
     },
-    [start, stop, isCurrent],
+    [launch],
   );
   const cancel = useCallback(() => {
     stop();

@@ -1,10 +1,10 @@
 "use client";
 
-import { useCallback, useEffect, useRef, useState } from "react";
-import { proxy, wrap, type Remote } from "comlink";
+import { useCallback, useEffect, useState } from "react";
 import { MAX_STEPS_1D, planAxis } from "@contend/solver";
 import type { AxisSpec, Scenario, Sweep1d } from "@contend/solver";
 import type { SweepWorkerApi } from "../workers/sweep.worker";
+import { useWorkerJob } from "./useWorkerJob";
 
 export type SweepState =
   | { status: "idle" }
@@ -12,9 +12,8 @@ export type SweepState =
   | { status: "done"; sweep: Sweep1d; ms: number }
   | { status: "error"; path: string; message: string };
 
-interface Live {
-  worker: Worker;
-  api: Remote<SweepWorkerApi>;
+function createSweepWorker(): Worker {
+  return new Worker(new URL("../workers/sweep.worker.ts", import.meta.url), { type: "module" });
 }
 
 /**
@@ -25,12 +24,7 @@ interface Live {
  */
 export function useSweepWorker(scenario: Scenario | null, spec: AxisSpec, auto: boolean) {
   const [state, setState] = useState<SweepState>({ status: "idle" });
-  const live = useRef<Live | null>(null);
-
-  const stop = useCallback(() => {
-    live.current?.worker.terminate();
-    live.current = null;
-  }, []);
+  const { launch, stop } = useWorkerJob<SweepWorkerApi>(createSweepWorker);
 
   const run = useCallback(() => {
     stop();
@@ -43,37 +37,18 @@ export function useSweepWorker(scenario: Scenario | null, spec: AxisSpec, auto: 
       setState({ status: "error", path: axis.path, message: axis.message });
       return;
     }
-    const worker = new Worker(new URL("../workers/sweep.worker.ts", import.meta.url), {
-      type: "module",
-    });
-    const mine: Live = { worker, api: wrap<SweepWorkerApi>(worker) };
-    live.current = mine;
-    const started = performance.now();
     setState({ status: "running", done: 0, total: axis.value.values.length });
-    const onProgress = proxy((done: number, total: number) => {
-      if (live.current === mine) setState({ status: "running", done, total });
-    });
-    mine.api
-      .run(scenario, spec, onProgress)
-      .then((out) => {
-        if (live.current !== mine) return;
-        stop();
+    launch(async (api, onProgress) => api.run(scenario, spec, onProgress), {
+      progress: (done, total) => setState({ status: "running", done, total }),
+      done: (out, ms) =>
         setState(
           out.ok
-            ? { status: "done", sweep: out.sweep, ms: performance.now() - started }
+            ? { status: "done", sweep: out.sweep, ms }
             : { status: "error", path: out.path, message: out.message },
-        );
-      })
-      .catch((e: unknown) => {
-        if (live.current !== mine) return;
-        stop();
-        setState({
-          status: "error",
-          path: "sweep",
-          message: `solver failed: ${(e as Error).message}`,
-        });
-      });
-  }, [scenario, spec, stop]);
+        ),
+      fail: (message) => setState({ status: "error", path: "sweep", message }),
+    });
+  }, [scenario, spec, launch, stop]);
 
   const cancel = useCallback(() => {
     stop();
@@ -85,8 +60,6 @@ export function useSweepWorker(scenario: Scenario | null, spec: AxisSpec, auto: 
     const t = setTimeout(run, 250);
     return () => clearTimeout(t);
   }, [auto, run]);
-
-  useEffect(() => stop, [stop]);
 
   return { state, run, cancel };
 }

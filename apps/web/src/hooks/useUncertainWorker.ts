@@ -1,8 +1,10 @@
 "use client";
 
-import { useCallback, useEffect, useRef, useState } from "react";
-import { proxy, wrap, type Remote } from "comlink";
+import { useCallback, useState } from "react";
+import type { Remote } from "comlink";
 import type { UncertainWorkerApi } from "../workers/uncertain.worker";
+import { useWorkerJob } from "./useWorkerJob";
+import type { OnProgress } from "./useWorkerJob";
 
 export type WorkerTaskState<T> =
   | { status: "idle"; cancelled?: boolean }
@@ -10,11 +12,10 @@ export type WorkerTaskState<T> =
   | { status: "done"; value: T; ms: number }
   | { status: "error"; message: string };
 
-type OnProgress = (done: number, total: number) => void;
-
-interface Live {
-  worker: Worker;
-  api: Remote<UncertainWorkerApi>;
+function createUncertainWorker(): Worker {
+  return new Worker(new URL("../workers/uncertain.worker.ts", import.meta.url), {
+    type: "module",
+  });
 }
 
 /**
@@ -24,44 +25,21 @@ interface Live {
  */
 export function useUncertainWorker<T>() {
   const [state, setState] = useState<WorkerTaskState<T>>({ status: "idle" });
-  const live = useRef<Live | null>(null);
-
-  const stop = useCallback(() => {
-    live.current?.worker.terminate();
-    live.current = null;
-  }, []);
-
-  useEffect(() => stop, [stop]);
+  const { launch, stop } = useWorkerJob<UncertainWorkerApi>(createUncertainWorker);
 
   const start = useCallback(
     (
       total: number,
       call: (api: Remote<UncertainWorkerApi>, onProgress: OnProgress) => Promise<T>,
     ) => {
-      stop();
-      const worker = new Worker(new URL("../workers/uncertain.worker.ts", import.meta.url), {
-        type: "module",
-      });
-      const mine: Live = { worker, api: wrap<UncertainWorkerApi>(worker) };
-      live.current = mine;
-      const started = performance.now();
       setState({ status: "running", done: 0, total });
-      const onProgress = proxy((done: number, all: number) => {
-        if (live.current === mine) setState({ status: "running", done, total: all });
+      launch(call, {
+        progress: (done, all) => setState({ status: "running", done, total: all }),
+        done: (value, ms) => setState({ status: "done", value, ms }),
+        fail: (message) => setState({ status: "error", message }),
       });
-      call(mine.api, onProgress)
-        .then((value) => {
-          if (live.current !== mine) return;
-          stop();
-          setState({ status: "done", value, ms: performance.now() - started });
-        })
-        .catch((e: unknown) => {
-          if (live.current !== mine) return;
-          stop();
-          setState({ status: "error", message: `solver failed: ${(e as Error).message}` });
-        });
     },
-    [stop],
+    [launch],
   );
 
   const cancel = useCallback(() => {
