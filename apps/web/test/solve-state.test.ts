@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import type { Scenario } from "@contend/solver";
 import { shownAnswer, startSolving } from "../src/lib/solveState";
 import type { SolveState } from "../src/lib/solveState";
-import { solveForView } from "../src/lib/solveView";
+import { answerForView, solveForView } from "../src/lib/solveView";
 
 /** Three rivals at decisiveness 3: no pure equilibrium (Baye, Kovenock & de Vries 1994). */
 const mixedThree: Scenario = {
@@ -29,6 +29,15 @@ describe("the worker's solve", () => {
     expect(here.result.equilibrium.kind).toBe("mixed");
     const sent = structuredClone(here);
     expect(sent).toStrictEqual(here);
+  });
+
+  it("sends the equilibrium and the statics the page would compute, unchanged", () => {
+    const answer = answerForView(mixedThree);
+    expect(structuredClone(answer)).toStrictEqual(answer);
+    expect(answer.solved).toStrictEqual(solveForView(mixedThree));
+    // an approximate mixed equilibrium is too coarse to differentiate: the solver says so
+    expect(answer.statics?.ok).toBe(false);
+    expect(answerForView({ ...mixedThree, leader: "North" }).statics).toBeNull();
   });
 });
 

@@ -39,8 +39,12 @@ export function Explorer() {
   const deferred = useDeferredValue(scenario);
   // The equilibrium is solved in a worker; the last answer stays (greyed) while a new one comes.
   const solve = useExplorerSolve(deferred);
+  const answer = shownAnswer(solve);
   const solved =
-    solve.status === "error" ? { ok: false as const, message: solve.message } : shownAnswer(solve);
+    solve.status === "error"
+      ? { ok: false as const, message: solve.message }
+      : (answer?.solved ?? null);
+  const solving = solve.status === "solving";
   const currency = deferred?.currency ?? null;
   const sweepAxis = useSweepAxis(initial.sw, deferred);
 
@@ -76,7 +80,7 @@ export function Explorer() {
         </div>
         <EquilibriumCard
           solved={solved}
-          solving={solve.status === "solving"}
+          solving={solving}
           ms={solve.status === "done" ? solve.ms : null}
           currency={currency}
           sequential={!!deferred?.leader}
@@ -98,7 +102,7 @@ export function Explorer() {
         sweepAxis={sweepAxis}
         uncertain={ranges.built?.ok && ranges.built.count > 0 ? ranges.built.scenario : null}
       />
-      <StaticsSection scenario={deferred} />
+      <StaticsSection scenario={deferred} statics={answer?.statics ?? null} solving={solving} />
       <UncertaintySection
         scenario={deferred}
         ranges={ranges.ranges}

@@ -2,7 +2,7 @@
 
 import { useEffect, useState } from "react";
 import type { Scenario } from "@contend/solver";
-import type { SolvedView } from "../lib/solveView";
+import type { ExplorerAnswer } from "../lib/solveView";
 import { startSolving } from "../lib/solveState";
 import type { SolveState } from "../lib/solveState";
 import type { SweepWorkerApi } from "../workers/sweep.worker";
@@ -13,13 +13,13 @@ function createSweepWorker(): Worker {
 }
 
 /**
- * The explorer's equilibrium, solved in a Web Worker (workers/sweep.worker.ts) with the same
- * call the page used to make: with three or more rivals in the mixed region a solve takes a
+ * The explorer's equilibrium and comparative statics, computed in a Web Worker
+ * (workers/sweep.worker.ts) with the same calls the page used to make: with three or more rivals in the mixed region a solve takes a
  * fraction of a second or more, which would freeze typing. A newer scenario terminates the
  * solve in flight; the last answer stays on screen, marked as solving, until the new one comes.
  */
-export function useExplorerSolve(scenario: Scenario | null): SolveState<SolvedView> {
-  const [state, setState] = useState<SolveState<SolvedView>>({ status: "idle" });
+export function useExplorerSolve(scenario: Scenario | null): SolveState<ExplorerAnswer> {
+  const [state, setState] = useState<SolveState<ExplorerAnswer>>({ status: "idle" });
   const { launch, stop } = useWorkerJob<SweepWorkerApi>(createSweepWorker);
   useEffect(() => {
     if (scenario === null) {
@@ -28,7 +28,7 @@ export function useExplorerSolve(scenario: Scenario | null): SolveState<SolvedVi
       return;
     }
     setState(startSolving);
-    launch(async (api) => api.solve(scenario), {
+    launch(async (api) => api.answer(scenario), {
       done: (value, ms) => setState({ status: "done", value, ms }),
       fail: (message) => setState({ status: "error", message }),
     });

@@ -8,8 +8,8 @@
 import { expose } from "comlink";
 import { assemble1d, MAX_STEPS_1D, plan1d, planAxis } from "@contend/solver";
 import type { AxisSpec, Scenario, Sweep1d, SweepPoint } from "@contend/solver";
-import { solveForView } from "../lib/solveView";
-import type { SolvedView } from "../lib/solveView";
+import { answerForView } from "../lib/solveView";
+import type { ExplorerAnswer } from "../lib/solveView";
 
 const PROGRESS_MS = 100;
 
@@ -17,9 +17,9 @@ export type SweepOutcome =
   { ok: true; sweep: Sweep1d } | { ok: false; path: string; message: string };
 
 const api = {
-  /** The same solve the page would run (solveForView); the answer is plain data for postMessage. */
-  solve(scenario: Scenario): SolvedView {
-    return solveForView(scenario);
+  /** The explorer's equilibrium and comparative statics; plain data for postMessage. */
+  answer(scenario: Scenario): ExplorerAnswer {
+    return answerForView(scenario);
   },
   run(
     scenario: Scenario,

@@ -1,31 +1,25 @@
 "use client";
 
-import { useMemo } from "react";
-import { comparativeStatics, STATICS_MAX_RIVALS } from "@contend/solver";
-import type { Scenario } from "@contend/solver";
+import type { Parsed, Scenario, StaticsResult } from "@contend/solver";
 import { formatNumber, formatSigned } from "../../lib/format";
 import { FigureTable, numCol, RowHeader, textCol } from "../FigureTable";
 
 /**
  * How each rival's equilibrium effort responds to a small change in each parameter, for
- * simultaneous moves. Beyond the solver's rival limit the section says so.
+ * simultaneous moves. Beyond the solver's rival limit the section says so. While a newer
+ * scenario is being solved, the last table stays, greyed.
  */
-export function StaticsSection({ scenario }: { scenario: Scenario | null }) {
-  const statics = useMemo(() => {
-    if (!scenario || scenario.leader) return null;
-    if (scenario.rivals.length > STATICS_MAX_RIVALS)
-      return {
-        ok: false as const,
-        path: "",
-        message: `comparative statics are shown for up to ${STATICS_MAX_RIVALS} rivals`,
-      };
-    try {
-      return comparativeStatics(scenario);
-    } catch (e) {
-      return { ok: false as const, path: "", message: `solver failed: ${(e as Error).message}` };
-    }
-  }, [scenario]);
-
+export function StaticsSection({
+  scenario,
+  statics,
+  solving,
+}: {
+  scenario: Scenario | null;
+  /** Computed with the equilibrium in the explorer's worker (staticsForView). */
+  statics: Parsed<StaticsResult> | null;
+  /** A newer scenario is being solved: the table is for the previous one, shown greyed. */
+  solving: boolean;
+}) {
   return (
     <section className="card" aria-labelledby="statics-title">
       <h2 id="statics-title">Comparative statics</h2>
@@ -34,59 +28,63 @@ export function StaticsSection({ scenario }: { scenario: Scenario | null }) {
         derivative, and the elasticity (percent change in effort per percent change in the
         parameter). How each row is computed is under &ldquo;About the maths&rdquo; below.
       </p>
-      {statics === null ? (
-        <p className="muted">
-          {scenario?.leader
-            ? "Shown for simultaneous moves only."
-            : "Fix the highlighted fields first."}
-        </p>
-      ) : !statics.ok ? (
-        <p className="muted" data-testid="statics-unavailable">
-          {statics.message}
-        </p>
-      ) : (
-        <FigureTable
-          head={[
-            textCol("Parameter"),
-            numCol("At"),
-            ...statics.value.names.map((n) =>
-              numCol(
-                <>
-                  d effort {n} <span className="muted">(elasticity)</span>
-                </>,
-                `d effort ${n}`,
+      <div className={solving ? "eq-stale" : undefined} aria-busy={solving}>
+        {statics === null ? (
+          <p className="muted">
+            {scenario?.leader
+              ? "Shown for simultaneous moves only."
+              : scenario
+                ? "Solving…"
+                : "Fix the highlighted fields first."}
+          </p>
+        ) : !statics.ok ? (
+          <p className="muted" data-testid="statics-unavailable">
+            {statics.message}
+          </p>
+        ) : (
+          <FigureTable
+            head={[
+              textCol("Parameter"),
+              numCol("At"),
+              ...statics.value.names.map((n) =>
+                numCol(
+                  <>
+                    d effort {n} <span className="muted">(elasticity)</span>
+                  </>,
+                  `d effort ${n}`,
+                ),
               ),
-            ),
-            numCol("d total"),
-            textCol("Method"),
-          ]}
-          testId="statics-table"
-        >
-          {statics.value.rows.map((row) => (
-            <tr key={row.param}>
-              <RowHeader>{row.label}</RowHeader>
-              <td className="num">{formatNumber(row.at)}</td>
-              {row.effort.d.map((d, i) => (
-                <td key={i} className="num" data-testid={`statics-${row.param}-effort-${i}`}>
-                  {formatSigned(d)}{" "}
-                  <span className="muted">
-                    (
-                    {row.effort.elasticity[i] === null
-                      ? "\u2013"
-                      : formatSigned(row.effort.elasticity[i] as number, 2)}
-                    )
-                  </span>
+              numCol("d total"),
+              textCol("Method"),
+            ]}
+            testId="statics-table"
+          >
+            {statics.value.rows.map((row) => (
+              <tr key={row.param}>
+                <RowHeader>{row.label}</RowHeader>
+                <td className="num">{formatNumber(row.at)}</td>
+                {row.effort.d.map((d, i) => (
+                  <td key={i} className="num" data-testid={`statics-${row.param}-effort-${i}`}>
+                    {formatSigned(d)}{" "}
+                    <span className="muted">
+                      (
+                      {row.effort.elasticity[i] === null
+                        ? "\u2013"
+                        : formatSigned(row.effort.elasticity[i] as number, 2)}
+                      )
+                    </span>
+                  </td>
+                ))}
+                <td className="num">{formatSigned(row.totalEffort.d)}</td>
+                <td>
+                  <span className="badge">{row.method}</span>
+                  {row.note ? <span className="small muted"> {row.note}</span> : null}
                 </td>
-              ))}
-              <td className="num">{formatSigned(row.totalEffort.d)}</td>
-              <td>
-                <span className="badge">{row.method}</span>
-                {row.note ? <span className="small muted"> {row.note}</span> : null}
-              </td>
-            </tr>
-          ))}
-        </FigureTable>
-      )}
+              </tr>
+            ))}
+          </FigureTable>
+        )}
+      </div>
     </section>
   );
 }
