@@ -1,4 +1,3 @@
-/// <reference lib="dom" />
 /**
  * The planner's review: two sessions of the same drill played to the end over the socket
  * protocol (one with a prize shock and a facilitator's note), compared side by side on
@@ -9,15 +8,14 @@
  * debrief are PDFs of a sensible number of pages. Screens at laptop, projector and phone size.
  */
 import { mkdirSync, writeFileSync } from "node:fs";
-import { readFile } from "node:fs/promises";
 import path from "node:path";
 import Papa from "papaparse";
-import type { Page } from "@playwright/test";
 import { exportJson } from "../support/api";
 import { expect, test } from "../support/fixtures";
 import { expectShown } from "../support/numbers";
 import { expectAccessible, ROOM_NAMES, SIZES, startRoom } from "../support/room";
 import { RESULTS_DIR } from "../support/server";
+import { decodePng, download, parseSvg, pngSize } from "../support/slides";
 
 interface ExportRound {
   round: number;
@@ -55,62 +53,9 @@ function reference(x: Exported) {
   return { rounds, seats };
 }
 
-async function download(page: Page, testId: string) {
-  const [file] = await Promise.all([
-    page.waitForEvent("download"),
-    page.getByTestId(testId).click(),
-  ]);
-  return { name: file.suggestedFilename(), bytes: await readFile(await file.path()) };
-}
-
-/** Width and height from a PNG's IHDR chunk (PNG spec, ISO/IEC 15948: signature, then IHDR). */
-function pngSize(bytes: Buffer): { width: number; height: number } {
-  expect([...bytes.subarray(0, 8)]).toEqual([137, 80, 78, 71, 13, 10, 26, 10]);
-  expect(bytes.subarray(12, 16).toString("latin1")).toBe("IHDR");
-  return { width: bytes.readUInt32BE(16), height: bytes.readUInt32BE(20) };
-}
-
 /** Pages in a PDF: its page objects (`/Type /Page`, not `/Pages`). */
 function pdfPages(pdf: Buffer): number {
   return (pdf.toString("latin1").match(/\/Type\s*\/Page(?![s\w])/g) ?? []).length;
-}
-
-/** The browser decodes the PNG; share of sampled pixels that are not white (something is drawn). */
-async function decodePng(page: Page, bytes: Buffer) {
-  return page.evaluate(async (b64) => {
-    const img = new Image();
-    img.src = `data:image/png;base64,${b64}`;
-    await img.decode();
-    const c = document.createElement("canvas");
-    c.width = img.naturalWidth;
-    c.height = img.naturalHeight;
-    const ctx = c.getContext("2d")!;
-    ctx.drawImage(img, 0, 0);
-    const data = ctx.getImageData(0, 0, c.width, c.height).data;
-    let ink = 0;
-    let n = 0;
-    for (let i = 0; i < data.length; i += 4 * 97) {
-      n++;
-      if (data[i]! < 200 || data[i + 1]! < 200 || data[i + 2]! < 200) ink++;
-    }
-    return { width: img.naturalWidth, height: img.naturalHeight, ink: ink / n };
-  }, bytes.toString("base64"));
-}
-
-/** The SVG parsed as XML in the browser: no parse error, its size, and its text. */
-async function parseSvg(page: Page, text: string) {
-  return page.evaluate((src) => {
-    const doc = new DOMParser().parseFromString(src, "image/svg+xml");
-    const root = doc.documentElement;
-    return {
-      error: doc.querySelector("parsererror")?.textContent ?? null,
-      tag: root.tagName,
-      width: root.getAttribute("width"),
-      height: root.getAttribute("height"),
-      text: [...doc.querySelectorAll("text")].map((t) => t.textContent ?? ""),
-      lines: doc.querySelectorAll("path.recharts-curve").length,
-    };
-  }, text);
 }
 
 test("compare(two finished sessions) shows overspend, distance from equilibrium, seats, marks; CSV, slides and print are right", async ({

@@ -1,10 +1,15 @@
 /**
  * Explorer journey: two rivals in a ratio contest with r = 1. The page must show the
  * equilibrium of Hillman & Riley (1989): e_i = v m_j / (m_1 + m_2)^2, and a sweep of rival 2's
- * cost must show rival 1's effort rising then falling, turning where the costs are equal.
+ * cost must show rival 1's effort rising then falling, turning where the costs are equal. The
+ * best-reply chart downloads as a 1920 x 1080 slide (PNG and SVG).
  */
+import { mkdirSync, writeFileSync } from "node:fs";
+import path from "node:path";
 import { expect, test } from "../support/fixtures";
 import { expectShown } from "../support/numbers";
+import { RESULTS_DIR } from "../support/server";
+import { decodePng, download, parseSvg, pngSize } from "../support/slides";
 
 /** Hillman & Riley (1989), two rivals, common value v, costs m1, m2, ratio form with r = 1. */
 function hillmanRiley(v: number, m1: number, m2: number): [number, number] {
@@ -44,6 +49,24 @@ test("explorer(v=100, costs 5 and 2, r=1) shows the Hillman-Riley efforts and th
   await expectShown(page.getByTestId("eq-payoff-0"), 100 * (2 / 7) ** 2, "u1");
   await expectShown(page.getByTestId("eq-payoff-1"), 100 * (5 / 7) ** 2, "u2");
   await saveScreen(page, "explorer-equilibrium");
+
+  // The best-reply chart (drawn by hand, in its viewBox's units) as a 1920 x 1080 slide
+  const png = await download(page, "reaction-chart-slide-png");
+  expect(pngSize(png.bytes)).toEqual({ width: 1920, height: 1080 });
+  expect((await decodePng(page, png.bytes)).ink, "the PNG has a drawing on it").toBeGreaterThan(
+    0.01,
+  );
+  mkdirSync(path.join(RESULTS_DIR, "slides"), { recursive: true });
+  writeFileSync(path.join(RESULTS_DIR, "slides", "explorer-best-replies.png"), png.bytes);
+  const svg = await download(page, "reaction-chart-slide-svg");
+  const doc = await parseSvg(page, svg.bytes.toString("utf8"));
+  expect(doc).toMatchObject({ error: null, tag: "svg", width: "1920", height: "1080" });
+  expect(doc.text[0]).toBe("Best replies of Rival A and Rival B");
+  expect(doc.text).toContain("equilibrium");
+  // the chart keeps its own coordinates, scaled as a whole
+  expect(svg.bytes.toString("utf8")).toMatch(
+    /<svg x="[\d.]+" y="[\d.]+" [^>]*viewBox="0 0 520 400"/,
+  );
 
   // Sweep rival 2's cost over 1..10 in steps of 0.5.
   await page

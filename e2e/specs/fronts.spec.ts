@@ -6,12 +6,17 @@
  * removed again, follow them along a budget sweep, and never scroll sideways. The second journey
  * opens a link holding a scenario and sweep settings, turns a front into an all-pay auction
  * (no pure equilibrium: Baye, Kovenock & de Vries 1996; from memory), and cancels a long sweep
- * that runs in a Web Worker while the page keeps taking input.
+ * that runs in a Web Worker while the page keeps taking input. The allocation and sweep charts
+ * download as 1920 x 1080 slides (PNG checked by its IHDR and decoded; SVG parsed as XML).
  */
+import { mkdirSync, writeFileSync } from "node:fs";
+import path from "node:path";
 import type { Page } from "@playwright/test";
 import { expect, test } from "../support/fixtures";
 import { readLongTasks, resetLongTasks, watchLongTasks } from "../support/longTasks";
 import { expectShown } from "../support/numbers";
+import { RESULTS_DIR } from "../support/server";
+import { decodePng, download, parseSvg, pngSize } from "../support/slides";
 
 const PRIZES = [100, 300, 600];
 const BUDGETS = [3000, 7000];
@@ -93,6 +98,26 @@ test("fronts explorer(Friedman case: sunk budgets 3,000 and 7,000, prizes 100/30
       `sweep point ${j}`,
     );
   }
+
+  // Slides: the allocation chart as a PNG and the sweep chart as an SVG, both 1920 x 1080
+  const slides = path.join(RESULTS_DIR, "slides");
+  mkdirSync(slides, { recursive: true });
+  const png = await download(page, "fronts-allocation-chart-slide-png");
+  expect(png.name).toMatch(/^equilibrium-allocation-by-rival-stacked-by-front-slide\.png$/);
+  expect(pngSize(png.bytes)).toEqual({ width: 1920, height: 1080 });
+  const decoded = await decodePng(page, png.bytes);
+  expect(decoded).toMatchObject({ width: 1920, height: 1080 });
+  expect(decoded.ink, "the PNG has a drawing on it").toBeGreaterThan(0.01);
+  writeFileSync(path.join(slides, "fronts-allocation.png"), png.bytes);
+  const svg = await download(page, "fronts-sweep-chart-slide-svg");
+  writeFileSync(path.join(slides, "fronts-sweep.svg"), svg.bytes);
+  const doc = await parseSvg(page, svg.bytes.toString("utf8"));
+  expect(doc).toMatchObject({ error: null, tag: "svg", width: "1920", height: "1080" });
+  const text = doc.text.join(" ");
+  expect(doc.text[0]).toMatch(/^Spend on .* at equilibrium as .*budget varies$/);
+  expect(text).toContain("Vertical: Spend on");
+  expect(text).toContain("A stylised model to aid thinking, not advice.");
+  expect(doc.lines, "one line per rival").toBe(BUDGETS.length);
 
   // a phone opens the page afresh (its default scenario) and runs a sweep
   const phone = await page.context().newPage();

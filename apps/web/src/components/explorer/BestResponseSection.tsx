@@ -72,7 +72,7 @@ export function BestResponseSection({
             chartRef={chartRef}
             slide={{
               title: `Best replies of ${names[0]} and ${names[1]}`,
-              caption: `Each curve is one rival's best effort given the other's; where they cross is the equilibrium (the dot)${profile ? ", the ring is the profile picked" : ""}. Effort in model units, other inputs as set above.`,
+              caption: `Each curve is one rival's best effort given the other's; where they cross is the equilibrium (the dot)${profile ? ", the ring is the profile picked" : ""}. Effort in model units; the contest's other inputs held fixed.`,
             }}
             units={`Across: effort of ${names[0]} · up: effort of ${names[1]} (model units)`}
             legend={[

@@ -42,7 +42,8 @@ export function AllocationChart({ fc, eq, currency }: FrontsView) {
             dataKey="name"
             interval={0}
             tick={{ fontSize: 12 }}
-            tickFormatter={(v: string) => (v.length > 14 ? `${v.slice(0, 13)}…` : v)}
+            // a slide has room for whole names
+            tickFormatter={(v: string) => (!staged && v.length > 14 ? `${v.slice(0, 13)}…` : v)}
           />
           <YAxis
             tickFormatter={(v: number) => formatNumber(v)}

@@ -203,8 +203,8 @@ const SweepResults = memo(function SweepResults({ done, metric }: { done: Done; 
         maxXTicks={5}
         testId="fronts-sweep-chart"
         slide={{
-          title: `Equilibrium ${yLabel.toLowerCase()} as ${label} varies`,
-          caption: `Each rival's ${yLabel.toLowerCase()} at the pure equilibrium of the fronts contest, at each value of ${label}, the other inputs held fixed; gaps where no pure equilibrium was found. A model's comparative statics, not a forecast.`,
+          title: `${yLabel} at equilibrium as ${label} varies`,
+          caption: `${yLabel} of each rival at the pure equilibrium of the fronts contest, at each value of ${label}, the other inputs held fixed; gaps where no pure equilibrium was found. A model's comparative statics, not a forecast.`,
         }}
       />
       <DataTable
