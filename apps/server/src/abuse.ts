@@ -1,11 +1,17 @@
 /**
- * Abuse limits that hold across connections, per client address, with rate-limiter-flexible
- * (in memory: one server process). The per-connection token bucket (rateLimit.ts) still
- * smooths each socket; these cap what one address can do with many sockets. Defaults suit a
- * workshop of 64 seats behind one office NAT; the numbers are in docs/security.md.
+ * Abuse limits that hold across connections, per client address, with rate-limiter-flexible.
+ * The per-connection token bucket (rateLimit.ts) still smooths each socket; these cap what one
+ * address can do with many sockets. Defaults suit a workshop of 64 seats behind one office
+ * NAT; the numbers are in docs/security.md. On PostgreSQL the budgets that are not per message
+ * (new connections, failed keys, sessions created) are counted in the database (table
+ * "RateLimit"), so they hold over every process; if the database does not answer, each process
+ * counts in memory meanwhile. Messages per second stay in each process's memory (a database
+ * write per socket message would cost more than the flood it stops).
  */
 import type { IncomingMessage } from "node:http";
-import { RateLimiterMemory, RateLimiterRes } from "rate-limiter-flexible";
+import type pg from "pg";
+import { RateLimiterMemory, RateLimiterPostgres, RateLimiterRes } from "rate-limiter-flexible";
+import type { RateLimiterAbstract } from "rate-limiter-flexible";
 
 export interface AbuseLimits {
   /** sockets one address may hold open at once */
@@ -52,8 +58,26 @@ export interface Budget {
   left(address: string): Promise<boolean>;
 }
 
-function budget(points: number, durationSeconds: number): Budget {
-  const limiter = new RateLimiterMemory({ points, duration: durationSeconds });
+function budget(
+  name: string,
+  points: number,
+  durationSeconds: number,
+  pool: pg.Pool | null = null,
+): Budget {
+  const inMemory = new RateLimiterMemory({ points, duration: durationSeconds });
+  const limiter: RateLimiterAbstract = pool
+    ? new RateLimiterPostgres({
+        storeClient: pool,
+        storeType: "pool",
+        tableName: "RateLimit",
+        // made by the migrations, not by the library
+        tableCreated: true,
+        keyPrefix: name,
+        points,
+        duration: durationSeconds,
+        insuranceLimiter: inMemory,
+      })
+    : inMemory;
   return {
     async take(address, n = 1) {
       try {
@@ -71,12 +95,13 @@ function budget(points: number, durationSeconds: number): Budget {
   };
 }
 
-export function createAbuseBudgets(limits: AbuseLimits) {
+/** The budgets; with a PostgreSQL pool, all but `messages` are shared by every process. */
+export function createAbuseBudgets(limits: AbuseLimits, pool: pg.Pool | null = null) {
   return {
-    connects: budget(limits.connectsPerIpPerMinute, 60),
-    messages: budget(limits.messagesPerIpPerSecond, 1),
-    authFailures: budget(limits.authFailuresPerIpPerMinute, 60),
-    sessions: budget(limits.sessionsPerIpPerHour, 3600),
+    connects: budget("connects", limits.connectsPerIpPerMinute, 60, pool),
+    messages: budget("messages", limits.messagesPerIpPerSecond, 1),
+    authFailures: budget("authFailures", limits.authFailuresPerIpPerMinute, 60, pool),
+    sessions: budget("sessions", limits.sessionsPerIpPerHour, 3600, pool),
   };
 }
 export type AbuseBudgets = ReturnType<typeof createAbuseBudgets>;

@@ -71,7 +71,7 @@ export function createApplication(deps: ApplicationDeps): Application {
   const hub = createSessionHub({ db: deps.db, clock, logger });
   const load = deps.load ?? eventLoopGauge();
   let draining = false;
-  const budgets = createAbuseBudgets(limits);
+  const budgets = createAbuseBudgets(limits, deps.db.pool);
   let sessionDeleted = (_sessionId: string) => {};
   const api = createRestHandler({
     db: deps.db,

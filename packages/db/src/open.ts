@@ -54,6 +54,11 @@ export interface Database {
    * events, messages between processes and per-session leases (feed.ts).
    */
   feed: ChangeFeed | null;
+  /**
+   * PostgreSQL only (null on the embedded database): the connection pool, for libraries that
+   * take one (the server's per-address abuse budgets, table "RateLimit").
+   */
+  pool: pg.Pool | null;
   close(): Promise<void>;
 }
 
@@ -67,6 +72,7 @@ interface Connection {
   prisma: Db;
   runner: SqlRunner;
   lost: Promise<Error>;
+  pool?: pg.Pool;
   close(): Promise<void>;
 }
 
@@ -109,6 +115,7 @@ function connectPostgres(url: string): Connection {
   return {
     kind: "postgres",
     prisma,
+    pool,
     runner: poolRunner(pool),
     lost: new Promise<Error>(() => undefined),
     async close() {
@@ -153,6 +160,7 @@ export async function openDatabase(opts: OpenOptions = {}): Promise<Database> {
     readiness: () => migrationStatus(connection.runner, migrations),
     lost: connection.lost,
     feed,
+    pool: connection.pool ?? null,
     async close() {
       await feed?.close();
       await connection.close();

@@ -35,6 +35,7 @@ describe.each(backends)("repositories on $name", (backend) => {
       "20261204212024_drop_unused_scenario_table",
       "20261205000000_notify_committed_events",
       "20261205003000_session_library",
+      "20261205010000_rate_limit",
     ]);
   });
 

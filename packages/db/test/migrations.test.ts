@@ -44,6 +44,7 @@ describe("migration history", () => {
       expect(a.tables.map((t) => (t as unknown as { table: string }).table)).toEqual([
         "AccessKey",
         "Event",
+        "RateLimit",
         "SavedScenario",
         "SavedScenarioVersion",
         "Seat",
