@@ -3,14 +3,16 @@
  * on [1, 3], Rival A's cost swept over 0.5, 0.75, 1. In each draw Rival A's equilibrium spend is
  * v c1 c2 / (c1 + c2)^2 (Hillman & Riley 1989), which falls in c2 on [1, 3] when c1 <= 1, so
  * its median at each swept c1 is the value at the median cost c2 = 2. The bands run in the Web
- * Worker with progress and cancel; the page's long tasks during the run are printed.
+ * Worker with progress and cancel; the page's long tasks during the run are printed. The spend
+ * bands download as a 1920 x 1080 slide.
  */
-import { mkdirSync } from "node:fs";
+import { mkdirSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { expect, test } from "../support/fixtures";
 import { parseShown } from "../support/numbers";
 import { SIZES } from "../support/room";
 import { RESULTS_DIR } from "../support/server";
+import { decodePng, download, parseSvg, pngSize } from "../support/slides";
 
 const spendA = (c1: number, c2: number) => (100 * c1 * c2) / (c1 + c2) ** 2;
 
@@ -82,6 +84,21 @@ test("explorer sweep of a scenario with a range shows P10-P90 bands whose median
     `sweep bands: long tasks on the page (ms): ${JSON.stringify(longTasks.map(Math.round))}`,
   );
   await saveScreen(page, "explorer-sweep-bands");
+  // The spend bands as a 1920 x 1080 slide (PNG and SVG)
+  const png = await download(page, "bands-spend-chart-slide-png");
+  expect(pngSize(png.bytes)).toEqual({ width: 1920, height: 1080 });
+  expect((await decodePng(page, png.bytes)).ink, "the PNG has a drawing on it").toBeGreaterThan(
+    0.01,
+  );
+  mkdirSync(path.join(RESULTS_DIR, "slides"), { recursive: true });
+  writeFileSync(path.join(RESULTS_DIR, "slides", "explorer-bands-spend.png"), png.bytes);
+  const doc = await parseSvg(
+    page,
+    (await download(page, "bands-spend-chart-slide-svg")).bytes.toString("utf8"),
+  );
+  expect(doc).toMatchObject({ error: null, tag: "svg", width: "1920", height: "1080" });
+  expect(doc.text[0]).toMatch(/^Equilibrium spend with its range as .* varies$/);
+  expect(doc.text.join(" ")).toContain("median, shaded P10-P90");
   // The bands alone at each screen size, for looking at.
   const dir = path.join(RESULTS_DIR, "screens");
   mkdirSync(dir, { recursive: true });
