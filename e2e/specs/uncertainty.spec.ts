@@ -5,26 +5,22 @@
  * the value at the median cost c2 = 2: 200/9 = 22.22. The run happens in a Web Worker with
  * progress and cancel; a bad range names its field and blocks the run.
  */
+import { loadavg } from "node:os";
 import { expect, test } from "../support/fixtures";
+import {
+  readLongTasks,
+  resetLongTasks,
+  waitForTestIdQuietly,
+  watchLongTasks,
+} from "../support/longTasks";
 import { parseShown } from "../support/numbers";
 
 test("explorer uncertainty(c2 ~ U[1, 3]) shows the median spend of the closed form, cancels, and names a bad range", async ({
   page,
   saveScreen,
 }) => {
-  // Long tasks (> 50 ms) the page's main thread ran while drawing; e2e has no DOM typings.
-  await page.addInitScript(() => {
-    const g = globalThis as unknown as {
-      __long: number[];
-      PerformanceObserver: new (cb: (l: { getEntries(): { duration: number }[] }) => void) => {
-        observe(o: { type: string; buffered: boolean }): void;
-      };
-    };
-    g.__long = [];
-    new g.PerformanceObserver((l) => {
-      for (const e of l.getEntries()) g.__long.push(e.duration);
-    }).observe({ type: "longtask", buffered: true });
-  });
+  // Long tasks (> 50 ms) the page's main thread runs (Long Tasks API).
+  await watchLongTasks(page);
   await page.goto("/explore");
   await page.getByRole("textbox", { name: /^Prize/ }).fill("100");
   await page.getByLabel("Decisiveness r").fill("1");
@@ -53,8 +49,11 @@ test("explorer uncertainty(c2 ~ U[1, 3]) shows the median spend of the closed fo
   await expect(section.getByTestId("uncertain-cancelled")).toBeVisible();
 
   await section.getByTestId("uncertain-draws").fill("10000");
-  await page.evaluate(() => ((globalThis as unknown as { __long: number[] }).__long = []));
+  await resetLongTasks(page);
   await section.getByTestId("uncertain-run").click();
+  // Waited for in the page, not by polling expect: each miss of a polling expect takes an aria
+  // snapshot of the whole page on its main thread, which would be recorded as a long task.
+  await waitForTestIdQuietly(page, "uncertain-status");
   await expect(section.getByTestId("uncertain-status")).toContainText("10,000 draws (seed 1)");
   const shown = parseShown(await section.getByTestId("uncertain-median-spend-0").innerText());
   // sampling error of the median at 10,000 draws is about 0.03 here; 0.3 leaves room for rounding
@@ -63,12 +62,10 @@ test("explorer uncertainty(c2 ~ U[1, 3]) shows the median spend of the closed fo
   await expect(section.getByTestId("tornado-chart")).toContainText(
     "Cost per unit of effort, Rival B",
   );
-  const longTasks = await page.evaluate(
-    () => (globalThis as unknown as { __long: number[] }).__long,
-  );
+  const longTasks = await readLongTasks(page);
   // A figure for the report, not a timed assertion (speed targets live in benchmarks).
   console.log(
-    `uncertainty run: long tasks on the page (ms): ${JSON.stringify(longTasks.map(Math.round))}`,
+    `uncertainty run: long tasks on the page (ms): ${JSON.stringify(longTasks)} at load ${loadavg()[0]!.toFixed(1)}`,
   );
   await saveScreen(page, "explorer-uncertainty");
 
