@@ -73,3 +73,57 @@ export async function waitForTestIdQuietly(
     [testId, timeoutMs] as const,
   );
 }
+
+interface TraceEvent {
+  name: string;
+  ph: string;
+  pid: number;
+  tid: number;
+  dur?: number;
+  tdur?: number;
+  args: { name?: string };
+}
+
+/** A main-thread task that took over 50 ms: wall time and the thread's own CPU time (ms). */
+export interface TracedTask {
+  wall: number;
+  cpu: number;
+}
+
+/**
+ * Runs `during` under a Chrome trace and returns the page's main-thread tasks over 50 ms with
+ * their CPU time, and the largest CPU time of any task. On a loaded machine a task's wall time
+ * includes waiting for a core; its CPU time is the work the page itself did.
+ */
+export async function traceMainThreadTasks(
+  page: Page,
+  during: () => Promise<void>,
+): Promise<{ long: TracedTask[]; maxCpu: number }> {
+  const cdp = await page.context().newCDPSession(page);
+  const events: TraceEvent[] = [];
+  cdp.on("Tracing.dataCollected", (d) => events.push(...(d.value as unknown as TraceEvent[])));
+  await cdp.send("Tracing.start", {
+    categories: "devtools.timeline,disabled-by-default-devtools.timeline",
+    transferMode: "ReportEvents",
+  });
+  await during();
+  const complete = new Promise((resolve) => cdp.once("Tracing.tracingComplete", resolve));
+  await cdp.send("Tracing.end");
+  await complete;
+  await cdp.detach();
+  const main = events.find((e) => e.name === "thread_name" && e.args.name === "CrRendererMain");
+  const tasks = events.filter(
+    (e) =>
+      e.name === "RunTask" &&
+      e.ph === "X" &&
+      e.pid === main?.pid &&
+      e.tid === main?.tid &&
+      e.dur !== undefined &&
+      e.tdur !== undefined,
+  );
+  const ms = (us: number | undefined) => Math.round((us ?? 0) / 100) / 10;
+  return {
+    long: tasks.filter((t) => t.dur! > 50_000).map((t) => ({ wall: ms(t.dur), cpu: ms(t.tdur) })),
+    maxCpu: Math.max(0, ...tasks.map((t) => ms(t.tdur))),
+  };
+}
