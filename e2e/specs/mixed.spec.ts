@@ -160,6 +160,7 @@ test("explorer: three rivals at r=3 solve in a worker; typing while it solves st
   await page.getByLabel("Rival 3 cost").fill("2");
   await expect(card).toHaveAttribute("data-solving", "yes");
   await page.getByTestId("eq-status").scrollIntoViewIfNeeded();
+  await page.mouse.move(0, 0); // no glossary tip over the note
   await page.screenshot({ path: path.join(RESULTS_DIR, "screens", "explorer-solving-phone.png") });
   await expect(card).toHaveAttribute("data-solving", "no", { timeout: 60_000 });
   await page.screenshot({ path: path.join(RESULTS_DIR, "screens", "explorer-solved-phone.png") });
