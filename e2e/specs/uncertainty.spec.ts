@@ -3,9 +3,12 @@
  * and Rival B's cost a range, uniform on [1, 3]. Each draw's equilibrium spend of A is
  * v c1 c2 / (c1 + c2)^2 (Hillman & Riley 1989), which falls in c2 on [1, 3], so its median is
  * the value at the median cost c2 = 2: 200/9 = 22.22. The run happens in a Web Worker with
- * progress and cancel; a bad range names its field and blocks the run.
+ * progress and cancel; a bad range names its field and blocks the run. The spend fan downloads
+ * as a 1920 x 1080 slide.
  */
+import { mkdirSync, writeFileSync } from "node:fs";
 import { loadavg } from "node:os";
+import path from "node:path";
 import { expect, test } from "../support/fixtures";
 import {
   readLongTasks,
@@ -15,6 +18,8 @@ import {
   watchLongTasks,
 } from "../support/longTasks";
 import { parseShown } from "../support/numbers";
+import { RESULTS_DIR } from "../support/server";
+import { decodePng, download, parseSvg, pngSize } from "../support/slides";
 
 test("explorer uncertainty(c2 ~ U[1, 3]) shows the median spend of the closed form, cancels, and names a bad range", async ({
   page,
@@ -74,6 +79,21 @@ test("explorer uncertainty(c2 ~ U[1, 3]) shows the median spend of the closed fo
       `largest task CPU ${traced.maxCpu} ms`,
   );
   await saveScreen(page, "explorer-uncertainty");
+
+  // The spend fan as a 1920 x 1080 slide: one band per rival, drawn as SVG for the slide
+  const png = await download(page, "band-spend-slide-png");
+  expect(pngSize(png.bytes)).toEqual({ width: 1920, height: 1080 });
+  expect((await decodePng(page, png.bytes)).ink, "the PNG has a drawing on it").toBeGreaterThan(
+    0.01,
+  );
+  mkdirSync(path.join(RESULTS_DIR, "slides"), { recursive: true });
+  writeFileSync(path.join(RESULTS_DIR, "slides", "explorer-fan-spend.png"), png.bytes);
+  const svg = (await download(page, "band-spend-slide-svg")).bytes.toString("utf8");
+  const doc = await parseSvg(page, svg);
+  expect(doc).toMatchObject({ error: null, tag: "svg", width: "1920", height: "1080" });
+  expect(doc.text[0]).toMatch(/^Spend \(.*\) at equilibrium: the range over the draws$/);
+  expect(doc.text).toContain("Rival A");
+  expect(svg.match(/fill-opacity="0.3"/g), "one P10-P90 band per rival").toHaveLength(2);
 
   // The link holds the ranges: a reload brings the range back.
   await expect
