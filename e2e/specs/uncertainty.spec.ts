@@ -94,6 +94,17 @@ test("explorer uncertainty(c2 ~ U[1, 3]) shows the median spend of the closed fo
   expect(doc.text[0]).toMatch(/^Spend \(.*\) at equilibrium: the range over the draws$/);
   expect(doc.text).toContain("Rival A");
   expect(svg.match(/fill-opacity="0.3"/g), "one P10-P90 band per rival").toHaveLength(2);
+  // and the tornado, drawn as SVG for its slide
+  const tornado = await download(page, "tornado-chart-slide-png");
+  expect(pngSize(tornado.bytes)).toEqual({ width: 1920, height: 1080 });
+  writeFileSync(path.join(RESULTS_DIR, "slides", "explorer-tornado.png"), tornado.bytes);
+  const tdoc = await parseSvg(
+    page,
+    (await download(page, "tornado-chart-slide-svg")).bytes.toString("utf8"),
+  );
+  expect(tdoc).toMatchObject({ error: null, tag: "svg", width: "1920", height: "1080" });
+  expect(tdoc.text[0]).toMatch(/^Which unknown moves the payoff of Rival [AB] most$/);
+  expect(tdoc.text.join(" ")).toContain("Cost per unit of effort, Rival B");
 
   // The link holds the ranges: a reload brings the range back.
   await expect

@@ -108,6 +108,8 @@ export function UncertainResults({
             label={label}
             format={money}
             formatParam={(p, x) => (isMoney(p) ? money(x) : formatNumber(x))}
+            rivalName={names[ri] ?? ""}
+            unit={cur || "money"}
           />
         </section>
       )}
