@@ -64,6 +64,8 @@ test("explorer sweep of a scenario with a range shows P10-P90 bands whose median
     // Waited for in the page, not by polling expect: each miss of a polling expect takes an aria
     // snapshot of the whole page on its main thread, which would be recorded as a long task.
     await waitForTestIdQuietly(page, "bands-summary");
+    // and the charts, so the trace covers drawing them
+    await waitForTestIdQuietly(page, "bands-payoff-chart");
   });
   await expect(bands.getByTestId("bands-summary")).toContainText("3 values x 4,000 draws");
   const rows = bands.getByTestId("bands-table").locator("tbody tr");
