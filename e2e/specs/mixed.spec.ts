@@ -4,11 +4,13 @@
  * nothing and one spend (the semi-mixed equilibrium between the pure region and r = 2: Wang
  * 2010; Sahm 2022). The page must show the expected values and each rival's distribution.
  */
+import { mkdirSync, writeFileSync } from "node:fs";
 import { loadavg } from "node:os";
 import path from "node:path";
 import type { Page } from "@playwright/test";
 import { expect, test } from "../support/fixtures";
 import { readLongTasks, resetLongTasks, watchLongTasks } from "../support/longTasks";
+import { decodePng, download, parseSvg, pngSize } from "../support/slides";
 import { RESULTS_DIR } from "../support/server";
 
 /** The equilibrium card alone, beside the full-page screens, to look at the chart closely. */
@@ -74,6 +76,20 @@ test("explorer(v=100, costs 5 and 2, r=1.5) shows a mixed equilibrium with expec
   await page.getByTestId("mixed-chart").scrollIntoViewIfNeeded();
   await saveScreen(page, "explorer-mixed-laptop");
   await saveCard(page, "explorer-mixed-card-laptop");
+  // the distribution saves as a 1920 x 1080 slide: PNG checked by its IHDR and decoded, SVG parsed
+  const slides = path.join(RESULTS_DIR, "slides");
+  mkdirSync(slides, { recursive: true });
+  const png = await download(page, "mixed-chart-slide-png");
+  expect(pngSize(png.bytes)).toEqual({ width: 1920, height: 1080 });
+  const decoded = await decodePng(page, png.bytes);
+  expect(decoded).toMatchObject({ width: 1920, height: 1080 });
+  expect(decoded.ink, "the PNG has a drawing on it").toBeGreaterThan(0.01);
+  writeFileSync(path.join(slides, "mixed-distribution.png"), png.bytes);
+  const svg = await download(page, "mixed-chart-slide-svg");
+  const doc = await parseSvg(page, svg.bytes.toString("utf8"));
+  expect(doc).toMatchObject({ error: null, tag: "svg", width: "1920", height: "1080" });
+  expect(doc.text[0]).toBe("How likely each spend is: the mixed equilibrium");
+  expect(doc.text.join(" ")).toContain("A stylised model to aid thinking, not advice.");
   await page.setViewportSize({ width: 1920, height: 1080 });
   await saveScreen(page, "explorer-mixed-projector");
   await saveCard(page, "explorer-mixed-card-projector");
