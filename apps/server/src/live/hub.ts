@@ -11,6 +11,9 @@
  * session's queue, so never in the middle of its own commit) and notifies its listeners like
  * after its own commits. The round clock runs in one process per session, the lease holder
  * (duties.ts); a command reaching any other process is still decided and committed there.
+ *
+ * About 300 lines on purpose: the batch pipeline and the timed duties are split out already;
+ * what stays is one class whose methods share the session map and its queues.
  */
 import type { Database } from "@contend/db";
 import type { ErrorCode, SessionEvent } from "@contend/protocol";
