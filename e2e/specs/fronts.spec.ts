@@ -14,6 +14,7 @@ import path from "node:path";
 import type { Page } from "@playwright/test";
 import { expect, test } from "../support/fixtures";
 import { readLongTasks, resetLongTasks, watchLongTasks } from "../support/longTasks";
+import { linkValue } from "../support/live";
 import { expectShown } from "../support/numbers";
 import { RESULTS_DIR } from "../support/server";
 import { decodePng, download, parseSvg, pngSize } from "../support/slides";
@@ -225,4 +226,36 @@ test("fronts explorer(link with Friedman's case and a sweep) restores both; an a
   await page.getByTestId("fronts-alone-0").click();
   await expect(page.getByRole("heading", { name: "Equilibrium explorer" })).toBeVisible();
   await expect(page.getByTestId("eq-kind")).toContainText("Mixed-strategy equilibrium");
+});
+
+test("fronts explorer: the explored numbers start a live session whose seats split over the same fronts", async ({
+  page,
+  browser,
+  baseURL,
+  saveScreen,
+}) => {
+  await page.setViewportSize({ width: 1366, height: 768 });
+  await page.goto("/explore/fronts");
+  await page.getByTestId("front-0-name").fill("Harbour Ward");
+  await page.getByTestId("fronts-title").fill("Drill built in the explorer");
+  // rounds outside 1..100 (the protocol's limit) are named and the button stays off
+  await page.getByTestId("fronts-start-rounds").fill("0");
+  await expect(page.getByTestId("fronts-start")).toContainText("a whole number from 1 to 100");
+  await expect(page.getByTestId("fronts-start-session")).toBeDisabled();
+  await page.getByTestId("fronts-start-rounds").fill("2");
+  await page.getByTestId("fronts-start-session").click();
+  await expect(page.getByTestId("created-session")).toContainText("Drill built in the explorer");
+  await expect(page.getByTestId("fronts-start-session")).toHaveText("Session created");
+  await page.getByTestId("fronts-start").scrollIntoViewIfNeeded();
+  await saveScreen(page, "fronts-start-laptop");
+  await page.setViewportSize({ width: 390, height: 844 });
+  await page.getByTestId("fronts-start").scrollIntoViewIfNeeded();
+  await saveScreen(page, "fronts-start-phone");
+  await noSideScroll(page, "the explorer with a created session, on a phone");
+  const seatLink = await linkValue(page.getByTestId("seat-link-0"));
+  const seatCtx = await browser.newContext({ baseURL });
+  const seat = await seatCtx.newPage();
+  await seat.goto(seatLink);
+  await expect(seat.getByTestId("seat-fronts-terms")).toContainText("Harbour Ward");
+  await seatCtx.close();
 });

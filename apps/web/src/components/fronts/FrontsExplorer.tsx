@@ -18,6 +18,7 @@ import { FrontRivalsTable } from "./FrontRivalsTable";
 import { FrontsResults } from "./FrontsResults";
 import { FrontsSweep } from "./FrontsSweep";
 import { FrontsTable } from "./FrontsTable";
+import { StartFrontsSession } from "./StartFrontsSession";
 
 /**
  * Several fronts, one budget: edit the fronts and the rivals' budgets and see how each rival
@@ -109,6 +110,7 @@ export function FrontsExplorer() {
       {scenario && settings && (
         <FrontsSweep scenario={scenario} settings={settings} onSettings={setSweep} />
       )}
+      {scenario && <StartFrontsSession scenario={scenario} />}
     </div>
   );
 }
