@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { comparativeStatics, richardson, type Scenario, type StaticsRow } from "../src/index";
+import {
+  comparativeStatics,
+  normalize,
+  richardson,
+  solve,
+  type Scenario,
+  type StaticsRow,
+} from "../src/index";
 
 const twoRivals = (m1: number, m2: number, v = 100): Scenario => ({
   title: "two rivals",
@@ -214,5 +221,16 @@ describe("comparativeStatics", () => {
   it("comparativeStatics(bad param) is a typed error", () => {
     const res = comparativeStatics(twoRivals(1, 2), { params: ["rivals.5.cost"] });
     expect(res.ok).toBe(false);
+  });
+});
+
+describe("comparativeStatics with the equilibrium given", () => {
+  it("gives the same rows as solving it itself (the explorer passes the one it has just solved)", () => {
+    for (const scenario of [twoRivals(1, 2), fourRivals]) {
+      const equilibrium = solve(normalize(scenario)).equilibrium;
+      expect(comparativeStatics(scenario, { equilibrium })).toStrictEqual(
+        comparativeStatics(scenario),
+      );
+    }
   });
 });

@@ -1,6 +1,13 @@
 /** Runs the solver for a screen. The solver returns typed results; a throw here is a bug, shown as such. */
 import { comparativeStatics, normalize, solve, STATICS_MAX_RIVALS } from "@contend/solver";
-import type { Contest, Parsed, Scenario, SolveResult, StaticsResult } from "@contend/solver";
+import type {
+  Contest,
+  Equilibrium,
+  Parsed,
+  Scenario,
+  SolveResult,
+  StaticsResult,
+} from "@contend/solver";
 
 export type SolvedView =
   { ok: true; contest: Contest; result: SolveResult } | { ok: false; message: string };
@@ -14,8 +21,14 @@ export function solveForView(scenario: Scenario): SolvedView {
   }
 }
 
-/** Comparative statics for the explorer; null for sequential moves (shown for simultaneous only). */
-export function staticsForView(scenario: Scenario): Parsed<StaticsResult> | null {
+/**
+ * Comparative statics for the explorer; null for sequential moves (shown for simultaneous only).
+ * `equilibrium`: the scenario's equilibrium when solveForView has just found it (not solved again).
+ */
+export function staticsForView(
+  scenario: Scenario,
+  equilibrium?: Equilibrium,
+): Parsed<StaticsResult> | null {
   if (scenario.leader) return null;
   if (scenario.rivals.length > STATICS_MAX_RIVALS)
     return {
@@ -24,7 +37,7 @@ export function staticsForView(scenario: Scenario): Parsed<StaticsResult> | null
       message: `comparative statics are shown for up to ${STATICS_MAX_RIVALS} rivals`,
     };
   try {
-    return comparativeStatics(scenario);
+    return comparativeStatics(scenario, equilibrium ? { equilibrium } : {});
   } catch (e) {
     return { ok: false, path: "", message: `solver failed: ${(e as Error).message}` };
   }
@@ -37,5 +50,9 @@ export interface ExplorerAnswer {
 }
 
 export function answerForView(scenario: Scenario): ExplorerAnswer {
-  return { solved: solveForView(scenario), statics: staticsForView(scenario) };
+  const solved = solveForView(scenario);
+  return {
+    solved,
+    statics: staticsForView(scenario, solved.ok ? solved.result.equilibrium : undefined),
+  };
 }

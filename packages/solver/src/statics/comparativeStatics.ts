@@ -14,7 +14,7 @@ import {
   type ParamPath,
 } from "../sweep/params";
 import { effortsOf } from "../sweep/point";
-import type { Contest, EquilibriumKind, Parsed, Scenario } from "../types";
+import type { Contest, Equilibrium, EquilibriumKind, Parsed, Scenario } from "../types";
 import {
   hillmanRileyDerivatives,
   hillmanRileyStaticsState,
@@ -57,6 +57,11 @@ export interface StaticsOptions {
   method?: "auto" | "numeric";
   /** restrict to these parameter paths (default: every parameter, budgets only where binding) */
   params?: string[];
+  /**
+   * The scenario's equilibrium when the caller has solved it already (it must be
+   * `solve(normalize(scenario)).equilibrium`): saves solving it a second time.
+   */
+  equilibrium?: Equilibrium;
 }
 
 const BINDING = 1e-9;
@@ -170,7 +175,7 @@ export function comparativeStatics(
   opts: StaticsOptions = {},
 ): Parsed<StaticsResult> {
   const contest = normalize(scenario);
-  const eq = solve(contest).equilibrium;
+  const eq = opts.equilibrium ?? solve(contest).equilibrium;
   const efforts = effortsOf(eq);
   if (!efforts || !eq.payoffs) {
     return {
