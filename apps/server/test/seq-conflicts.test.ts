@@ -51,8 +51,17 @@ describe.skipIf(!TEST_DATABASE_URL)("seq conflicts between two processes", () =>
     return { id, fac, seats };
   }
 
-  /** The facilitator opens a round; every seat's process has heard it before anyone seals. */
+  /**
+   * The facilitator opens a round once its own view shows the previous one resolved (as the
+   * console offers the button: the last seal may have committed on the other process, which
+   * this one hears of a moment later); every seat's process has heard the opening before
+   * anyone seals.
+   */
   async function openRound(fac: Client, seats: Client[], round: number) {
+    await eventually(() => {
+      expect(lastView(fac).status).not.toBe("open");
+      expect(lastView(fac).rounds).toHaveLength(round - 1);
+    });
     expectOk(await command(fac, { type: "openRound" }));
     for (const s of seats) {
       await eventually(() => {
