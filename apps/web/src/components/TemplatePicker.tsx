@@ -6,6 +6,7 @@ import { encodeState } from "../lib/urlState";
 import { TEMPLATES } from "../lib/templates";
 import { FRONTS_TEMPLATES } from "../lib/frontsTemplates";
 import { CreatedSession } from "./CreatedSession";
+import { CreateSessionButton } from "./CreateSessionButton";
 
 export function TemplatePicker() {
   const { create, pending, busy, created, error } = useCreateSession();
@@ -27,19 +28,14 @@ export function TemplatePicker() {
               {t.scenario.session?.outcome === "winner" ? "one winner drawn" : "prize shared"}
             </p>
             <div className="row">
-              <button
-                type="button"
-                className="primary"
+              <CreateSessionButton
+                label="Start session"
+                pending={pending === t.id}
+                created={created?.from === t.id}
+                disabled={busy}
                 onClick={() => start(t.id)}
-                disabled={busy || created?.from === t.id}
-                data-testid={`start-template-${t.id}`}
-              >
-                {pending === t.id
-                  ? "Creating…"
-                  : created?.from === t.id
-                    ? "Session created"
-                    : "Start session"}
-              </button>
+                testId={`start-template-${t.id}`}
+              />
               <Link className="button" href={`/new?template=${t.id}`}>
                 Edit first
               </Link>
@@ -61,19 +57,14 @@ export function TemplatePicker() {
               · {t.scenario.session?.rounds ?? 5} rounds
             </p>
             <div className="row">
-              <button
-                type="button"
-                className="primary"
+              <CreateSessionButton
+                label="Start session"
+                pending={pending === t.id}
+                created={created?.from === t.id}
+                disabled={busy}
                 onClick={() => start(t.id)}
-                disabled={busy || created?.from === t.id}
-                data-testid={`start-template-${t.id}`}
-              >
-                {pending === t.id
-                  ? "Creating…"
-                  : created?.from === t.id
-                    ? "Session created"
-                    : "Start session"}
-              </button>
+                testId={`start-template-${t.id}`}
+              />
               <Link className="button" href="/explore/fronts">
                 Explore fronts
               </Link>

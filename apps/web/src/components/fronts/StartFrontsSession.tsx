@@ -5,6 +5,7 @@ import { LIMITS } from "@contend/protocol";
 import type { FrontsScenario } from "@contend/solver";
 import { useCreateSession } from "../../hooks/useCreateSession";
 import { CreatedSession } from "../CreatedSession";
+import { CreateSessionButton } from "../CreateSessionButton";
 import { TextField } from "../Field";
 
 /**
@@ -39,19 +40,14 @@ export function StartFrontsSession({ scenario }: { scenario: FrontsScenario }) {
           width="6rem"
           error={roundsOk ? undefined : `a whole number from 1 to ${LIMITS.roundsMax}`}
         />
-        <button
-          type="button"
-          className="primary"
-          disabled={!roundsOk || busy || created?.from === from}
+        <CreateSessionButton
+          label="Start a live session"
+          pending={pending !== null}
+          created={created?.from === from}
+          disabled={!roundsOk || busy}
           onClick={() => void create(body, from)}
-          data-testid="fronts-start-session"
-        >
-          {pending !== null
-            ? "Creating…"
-            : created?.from === from
-              ? "Session created"
-              : "Start a live session"}
-        </button>
+          testId="fronts-start-session"
+        />
       </div>
       <div aria-live="polite">
         {error && <p className="notice error">{error}</p>}
