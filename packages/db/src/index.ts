@@ -23,7 +23,7 @@ export {
   type MigrationStatus,
 } from "./migrate";
 export type { AppendEffects } from "./repos/events";
-export { eventFromRow, type EventRow } from "./repos/rows";
+export { eventFromRow, jsonText, type EventRow } from "./repos/rows";
 export type { CreateSessionInput, CreateSessionResult } from "./repos/sessions";
 export type { UpdateEntryResult } from "./repos/library";
 export type {

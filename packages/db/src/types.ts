@@ -23,6 +23,8 @@ export interface NewEvent {
   /** epoch milliseconds */
   at: number;
   payload: unknown;
+  /** the payload's text as `jsonText` writes it, when the caller has it already */
+  payloadJson?: string;
 }
 
 export interface SeatInput {

@@ -54,6 +54,7 @@ export class Room {
   private commit(bodies: readonly EventBody[]) {
     for (const body of bodies) {
       const event = { ...body, seq: this.log.length + 1, at: this.now } as SessionEvent;
+      expectSchemaKeepsAsIs(event);
       this.log.push(event);
       this.state = apply(this.state, event);
     }
@@ -88,6 +89,22 @@ export function expectRejected(d: Decision, code: string, mention: RegExp | stri
   if (d.ok) return;
   expect(d.code).toBe(code);
   expect(d.message).toMatch(mention);
+}
+
+/**
+ * The protocol's event schema gives this event back unchanged after a JSON round trip (no
+ * field dropped, defaulted or transformed), so the server may fold its own appended events
+ * without parsing them again (apps/server/src/live/batch.ts) and still fold exactly what a
+ * read of the log gives back. Every event a Room commits is checked.
+ */
+export function expectSchemaKeepsAsIs(event: SessionEvent) {
+  const stored = JSON.parse(JSON.stringify(event)) as unknown;
+  const r = sessionEventSchema.safeParse(stored);
+  expect(
+    r.success,
+    `${event.seq} ${event.type}: ${r.success ? "" : JSON.stringify(r.error.issues[0])}`,
+  ).toBe(true);
+  if (r.success) expect(r.data, `${event.seq} ${event.type}`).toStrictEqual(stored);
 }
 
 /** Every event the engine produced is a valid protocol event. */

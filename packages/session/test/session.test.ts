@@ -1,7 +1,16 @@
 import { describe, expect, it } from "vitest";
 import { apply, fold, initialState, viewFor } from "../src/index";
 import type { SessionEvent } from "@contend/protocol";
-import { expectLogValid, facilitator, guest, Room, scenarioWith, seat, system } from "./harness";
+import {
+  expectLogValid,
+  expectSchemaKeepsAsIs,
+  facilitator,
+  guest,
+  Room,
+  scenarioWith,
+  seat,
+  system,
+} from "./harness";
 
 /** Three rounds, one computer seat, a shock between rounds 1 and 2, winner mode with a clock. */
 function workshop(seed: number) {
@@ -88,6 +97,12 @@ describe("a three-round session with a shock and computer seats", () => {
   it("writes only events the protocol accepts, numbered from 1", () => {
     expectLogValid(room.log);
     expect(room.log.map((e) => e.seq)).toEqual(room.log.map((_, i) => i + 1));
+  });
+
+  it("the check that the schema keeps each event as is fails on a field the schema would drop", () => {
+    const resolved = room.log.find((e) => e.type === "round-resolved")!;
+    expect(() => expectSchemaKeepsAsIs(resolved)).not.toThrow();
+    expect(() => expectSchemaKeepsAsIs({ ...resolved, unknownField: 1 } as SessionEvent)).toThrow();
   });
 
   it("R24: fold(log) rebuilds the same state, also after a JSON round trip", () => {

@@ -4,7 +4,7 @@
  * check is the authority), and each caller gets the result it would have got alone. The hub
  * (hub.ts) decides which commands form a batch and when it runs.
  */
-import { eventFromRow } from "@contend/db";
+import { jsonText } from "@contend/db";
 import type { AppendEffects, Database, KeyInput, NewEvent } from "@contend/db";
 import type { ErrorCode, EventBody, SessionEvent } from "@contend/protocol";
 import { allSealed, apply, decide } from "@contend/session";
@@ -77,23 +77,22 @@ function trackMoves(live: LiveSession, events: readonly SessionEvent[]) {
 }
 
 /**
- * An appended event as a read of its row returns it: the payload through JSON (the column
- * keeps exactly the digits JSON.stringify writes; undefined fields vanish), `at` as whole ms,
- * parsed by the protocol's schema as `events.list` parses it.
+ * An appended event as a read of its row returns it, and the row that stores it: the payload
+ * goes through its JSON text once (the text the column keeps, exactly the digits
+ * JSON.stringify writes; undefined fields vanish; NaN or Infinity throws as the write would)
+ * and `at` becomes whole ms. A read also checks each row with the protocol's event schema
+ * (`eventFromRow`); that check is left out here because the schema gives back every event the
+ * engine writes unchanged, which the session tests assert for every event they produce
+ * (packages/session/test/harness.ts), so the state folded here is the one a restart folds.
  */
-function asStored(event: SessionEvent, seq: number): SessionEvent {
-  const row = toNewEvent(event);
-  return eventFromRow({
-    seq,
-    type: row.type,
-    at: new Date(row.at).getTime(),
-    payload: JSON.parse(JSON.stringify(row.payload)) as unknown,
-  });
-}
-
-function toNewEvent(event: SessionEvent): NewEvent {
-  const { seq: _seq, at, ...body } = event;
-  return { type: event.type, at, payload: body };
+function stored(event: SessionEvent): { event: SessionEvent; row: NewEvent } {
+  const { seq, at, ...body } = event;
+  const payloadJson = jsonText(body);
+  const payload = JSON.parse(payloadJson) as EventBody;
+  return {
+    event: { ...payload, seq, at: new Date(at).getTime() },
+    row: { type: event.type, at, payload: body, payloadJson },
+  };
 }
 
 export interface BatchDeps {
@@ -121,16 +120,18 @@ export async function commitBatch(
     const now = clock.now();
     const base = live.state.seq;
     const at = Math.max(now, live.state.status === "empty" ? 0 : live.state.at);
-    // Each event in the form a read of its row gives back (see asStored), so the state
+    // Each event in the form a read of its row gives back (see stored), so the state
     // folded here is exactly what a restart or a replay folds from the same rows, and it
     // becomes the live state as it is once the append has committed.
     const stamped: SessionEvent[] = [];
+    const rows: NewEvent[] = [];
     let trial = live.state;
     const add = (events: readonly EventBody[]) => {
       for (const e of events) {
         const seq = base + stamped.length + 1;
-        const event = asStored({ ...e, seq, at }, seq);
+        const { event, row } = stored({ ...e, seq, at });
         stamped.push(event);
+        rows.push(row);
         trial = apply(trial, event);
       }
     };
@@ -166,7 +167,7 @@ export async function commitBatch(
     );
     if (trial.status !== live.state.status && trial.status !== "empty")
       effects.status = trial.status;
-    const result = await db.events.append(live.id, base, stamped.map(toNewEvent), effects);
+    const result = await db.events.append(live.id, base, rows, effects);
     if (result.ok) {
       if (result.seqs.some((seq, i) => seq !== stamped[i]?.seq)) {
         throw new Error("the database stored these events under other seqs than asked");

@@ -23,7 +23,7 @@ export interface AppendEffects {
 export function insertEvents(sessionId: string, firstSeq: number, events: NewEvent[]): Prisma.Sql {
   const rows = events.map(
     (event, i) =>
-      Prisma.sql`(${sessionId}, ${firstSeq + i}, ${event.type}, ${new Date(event.at)}, ${jsonb(event.payload)})`,
+      Prisma.sql`(${sessionId}, ${firstSeq + i}, ${event.type}, ${new Date(event.at)}, ${event.payloadJson !== undefined ? Prisma.sql`${event.payloadJson}::jsonb` : jsonb(event.payload)})`,
   );
   return Prisma.sql`INSERT INTO "Event" ("sessionId", "seq", "type", "at", "payload") VALUES ${Prisma.join(rows)}`;
 }

@@ -28,7 +28,7 @@ export function groupMember(
     rows: events.map((e) => ({
       type: e.type,
       at: new Date(e.at).toISOString(),
-      payload: jsonText(e.payload),
+      payload: e.payloadJson ?? jsonText(e.payload),
     })),
   };
 }
