@@ -23,6 +23,7 @@ import { eventLoopGauge } from "./loadGauge";
 import type { LoadGauge } from "./loadGauge";
 import { silentLogger } from "./logger";
 import type { Logger } from "./logger";
+import { serverParser } from "./socket/encode";
 import { attachSockets } from "./sockets";
 import type { AppServer } from "./sockets";
 import { placeholderPage } from "./web";
@@ -115,6 +116,8 @@ export function createApplication(deps: ApplicationDeps): Application {
 
   const io: AppServer = new Server(http, {
     path: SOCKET_PATH,
+    // socket.io's parser, sending pushed views as the JSON text written once per push
+    parser: serverParser,
     serveClient: false,
     maxHttpBufferSize: limits.maxMessageBytes,
     // With a dev upgrade handler, non-socket.io upgrades are Next's; otherwise drop them.

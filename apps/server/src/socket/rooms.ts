@@ -5,13 +5,15 @@
  * arrive here the same way as this process's own (the hub's commit listener).
  */
 import { diffJson } from "@contend/protocol";
-import type { PatchOp, RevokedMessage, RoleView } from "@contend/protocol";
+import type { RevokedMessage, RoleView, ViewMessage, ViewPatchMessage } from "@contend/protocol";
 import { viewFor } from "@contend/session";
 import type { Clock, TimerHandle } from "../clock";
 import type { Limits } from "../env";
 import type { LiveSession, SessionHub } from "../live/hub";
 import { progressWindowMs } from "../loadGauge";
 import type { LoadGauge } from "../loadGauge";
+import { patchPayload, viewPayload } from "./encode";
+import type { TextCache } from "./encode";
 import { createPresence } from "./presence";
 import type { PresenceSignal } from "./presence";
 import { viewerOf } from "./types";
@@ -82,7 +84,9 @@ export function createRooms(deps: RoomsDeps) {
     if (live.state.status === "empty") return;
     const seq = live.state.seq;
     const views = new Map<string, RoleView>();
-    const patches = new Map<RoleView, { next: RoleView; ops: PatchOp[] | null }>();
+    const patches = new Map<RoleView, { next: RoleView; payload: ViewPatchMessage | null }>();
+    const fulls = new Map<RoleView, ViewMessage>();
+    const texts: TextCache = new Map();
     for (const socket of sockets) {
       const identity = socket.data.identity;
       if (!identity || identity.sessionId !== live.id) continue;
@@ -95,11 +99,17 @@ export function createRooms(deps: RoomsDeps) {
       let patch = shown ? patches.get(shown.view) : undefined;
       if (shown && (!patch || patch.next !== view)) {
         const ops = diffJson(shown.view, view);
-        patch = { next: view, ops: ops.length > MAX_PATCH_OPS ? null : ops };
+        const payload =
+          ops.length > MAX_PATCH_OPS ? null : patchPayload(seq, shown.seq, ops, texts);
+        patch = { next: view, payload };
         patches.set(shown.view, patch);
       }
-      if (shown && patch?.ops) socket.emit("viewPatch", { seq, base: shown.seq, ops: patch.ops });
-      else socket.emit("view", { seq, view });
+      if (shown && patch?.payload) socket.emit("viewPatch", patch.payload);
+      else {
+        let full = fulls.get(view);
+        if (!full) fulls.set(view, (full = viewPayload(seq, view, texts)));
+        socket.emit("view", full);
+      }
       socket.data.shown = { seq, view };
     }
   }
