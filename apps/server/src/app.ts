@@ -49,6 +49,8 @@ export interface ApplicationDeps {
   allowedOrigins?: string[];
   /** how busy the process is (default: its event-loop utilisation) */
   load?: LoadGauge;
+  /** this worker's index with WORKERS above 1 (shown by /api/health); null or absent: alone */
+  worker?: number | null;
 }
 
 export interface Application {
@@ -82,6 +84,7 @@ export function createApplication(deps: ApplicationDeps): Application {
     operatorKeyDigest: deps.operatorKeyDigest ?? null,
     publicUrl: deps.publicUrl ?? null,
     version: SERVER_VERSION,
+    worker: deps.worker ?? null,
     draining: () => draining,
     budgets,
     onDeleted: (id) => sessionDeleted(id),

@@ -61,6 +61,7 @@ async function main() {
     webDev: env.webDev,
     publicUrl: env.publicUrl,
     allowedOrigins: env.allowedOrigins,
+    worker,
   });
   const restored = await app.restore();
   const shownHost = env.host === "0.0.0.0" || env.host === "::" ? "localhost" : env.host;

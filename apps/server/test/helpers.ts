@@ -79,9 +79,11 @@ export type Client = Socket<ServerToClientEvents, ClientToServerEvents> & {
   received: string[];
 };
 
-export async function connect(url: string): Promise<Client> {
+/** A test client; `query` is added to the socket.io handshake (e.g. the session it is for). */
+export async function connect(url: string, query?: Record<string, string>): Promise<Client> {
   const socket = connectClient(url, {
     transports: ["websocket"],
+    ...(query ? { query } : {}),
     reconnection: false,
     forceNew: true,
   }) as Client;

@@ -18,7 +18,22 @@ import {
 } from "./helpers";
 import type { Client } from "./helpers";
 import { printShops } from "./fixtures";
+import { SESSION_ROUTE_PARAM } from "@contend/protocol";
+import type { Health } from "@contend/protocol";
+import { get } from "node:http";
+import { workerForSession } from "../src/cluster";
 import { freshPostgres, TEST_DATABASE_URL } from "./pgDatabase";
+
+/** GET on a connection of its own (no keep-alive reuse), as a new socket's handshake is. */
+function healthOnNewConnection(url: string): Promise<Health> {
+  return new Promise((resolve, reject) => {
+    get(url, { agent: false }, (res) => {
+      let body = "";
+      res.on("data", (c: Buffer) => (body += c.toString()));
+      res.on("end", () => resolve(JSON.parse(body) as Health));
+    }).on("error", reject);
+  });
+}
 
 describe.skipIf(!TEST_DATABASE_URL)("WORKERS=2 behind one port", () => {
   let database: { url: string; dispose(): Promise<void> } | null = null;
@@ -88,6 +103,21 @@ describe.skipIf(!TEST_DATABASE_URL)("WORKERS=2 behind one port", () => {
     for (const c of [fac, ...seats]) {
       await eventually(() => expect(lastView(c).rounds).toHaveLength(1), 20_000);
     }
+
+    // A new connection naming a session goes to that session's worker, every time; the
+    // answers come from both workers, so the check would fail if they all went to one.
+    const sessionIds = ["route-a", "route-b", "route-c", "route-d", "route-e", "route-f"];
+    const answeredBy = new Set<number>();
+    for (const sessionId of sessionIds) {
+      for (let k = 0; k < 3; k++) {
+        const health = await healthOnNewConnection(
+          `${url}/api/health?${SESSION_ROUTE_PARAM}=${sessionId}`,
+        );
+        expect(health.worker, sessionId).toBe(workerForSession(sessionId, 2));
+        answeredBy.add(health.worker!);
+      }
+    }
+    expect([...answeredBy].sort()).toEqual([0, 1]);
 
     // a worker dies: the primary starts it again, and the port keeps answering meanwhile
     const [first] = workerPids();

@@ -6,7 +6,7 @@
  */
 import { io } from "socket.io-client";
 import type { Socket } from "socket.io-client";
-import { createViewTracker, PROTOCOL_VERSION } from "@contend/protocol";
+import { createViewTracker, PROTOCOL_VERSION, SESSION_ROUTE_PARAM } from "@contend/protocol";
 import type { RoleView, ViewPatchMessage } from "@contend/protocol";
 
 export type Credentials =
@@ -65,6 +65,10 @@ export class SessionClient {
     this.ackTimeoutMs = opts.ackTimeoutMs ?? 30_000;
     this.socket = io(opts.url, {
       transports: ["websocket"],
+      // as the web app does: the session this socket is for (WORKERS=N keeps them together)
+      ...("sessionId" in opts.credentials
+        ? { query: { [SESSION_ROUTE_PARAM]: opts.credentials.sessionId } }
+        : {}),
       forceNew: true,
       autoConnect: false,
       reconnection: opts.reconnect ?? false,

@@ -64,3 +64,11 @@ export function parseHello(raw: unknown): ParseResult<Hello> {
   }
   return parseInput(helloSchema, raw);
 }
+
+/**
+ * The query parameter a client adds to its socket.io connection to say which session it is
+ * for (when it knows: a guest with a join code does not). With several processes on one
+ * machine (WORKERS=N) the primary sends every connection of a session to the same worker,
+ * and a reverse proxy can hash on it; it grants nothing (the hello's key does).
+ */
+export const SESSION_ROUTE_PARAM = "session";

@@ -55,6 +55,7 @@ export {
   keySchema,
   parseHello,
   ROLES,
+  SESSION_ROUTE_PARAM,
   sessionIdSchema,
 } from "./hello";
 export type { Credentials, Hello, Role } from "./hello";

@@ -76,6 +76,8 @@ export const healthSchema = z.object({
   ok: z.literal(true),
   version: z.string(),
   db: z.enum(["pglite", "postgres"]),
+  /** which worker process answered, with WORKERS above 1 (0 to N-1) */
+  worker: z.int().min(0).optional(),
 });
 export type Health = z.output<typeof healthSchema>;
 

@@ -39,6 +39,8 @@ export interface RestDeps {
   operatorKeyDigest: Buffer | null;
   publicUrl: string | null;
   version: string;
+  /** this worker's index with WORKERS above 1; null when the process serves alone */
+  worker: number | null;
   /** true once a shutdown has begun (readiness then answers 503) */
   draining: () => boolean;
   budgets: AbuseBudgets;
@@ -170,6 +172,7 @@ export function createRestHandler(deps: RestDeps) {
 
   function health(res: ServerResponse) {
     const body: Health = { ok: true, version: deps.version, db: db.kind };
+    if (deps.worker !== null) body.worker = deps.worker;
     sendJson(res, 200, body);
   }
 

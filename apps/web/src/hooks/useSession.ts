@@ -3,7 +3,7 @@
 import { useCallback, useEffect, useRef, useState } from "react";
 import { io } from "socket.io-client";
 import type { Socket } from "socket.io-client";
-import { createViewTracker, PROTOCOL_VERSION } from "@contend/protocol";
+import { createViewTracker, PROTOCOL_VERSION, SESSION_ROUTE_PARAM } from "@contend/protocol";
 import type {
   Ack,
   ClientToServerEvents,
@@ -69,6 +69,8 @@ export function useSession(credentials: Credentials | null): SessionHandle {
     let settle: ReturnType<typeof setTimeout> | null = null;
     const socket: ClientSocket = io(SERVER_URL || undefined, {
       transports: ["websocket", "polling"],
+      // Which session this socket is for, so several server processes keep its sockets together.
+      ...("sessionId" in creds ? { query: { [SESSION_ROUTE_PARAM]: creds.sessionId } } : {}),
       reconnectionDelay: 500,
       reconnectionDelayMax: 5_000,
     });
