@@ -45,11 +45,17 @@ export function removeDataDir(dir: string) {
 }
 
 export async function startServer(
-  opts: { dataDir?: string; clock?: Clock } & Omit<ApplicationDeps, "db" | "clock"> = {},
+  opts: {
+    dataDir?: string;
+    clock?: Clock;
+    /** changes the database before the server uses it (e.g. to hold back its feed) */
+    wrapDatabase?: (db: Database) => Database;
+  } & Omit<ApplicationDeps, "db" | "clock"> = {},
 ): Promise<TestServer> {
   const dataDir = opts.dataDir ?? freshDataDir();
-  const db = await openDatabase({ url: dataDir });
-  const { dataDir: _d, ...deps } = opts;
+  const opened = await openDatabase({ url: dataDir });
+  const db = opts.wrapDatabase ? opts.wrapDatabase(opened) : opened;
+  const { dataDir: _d, wrapDatabase: _w, ...deps } = opts;
   // A fixed quiet reading: the test machine's own load must not change the progress window.
   const app = createApplication({ load: fixedGauge(0), ...deps, db });
   await app.restore();

@@ -49,8 +49,8 @@ export function serversOnOnePostgres(opts: Parameters<typeof startServer>[0] = {
     await database?.dispose();
   });
   return {
-    async server() {
-      const s = await startServer({ ...opts, dataDir: database!.url });
+    async server(more: Partial<Parameters<typeof startServer>[0]> = {}) {
+      const s = await startServer({ ...opts, ...more, dataDir: database!.url });
       servers.push(s);
       return s;
     },

@@ -99,8 +99,13 @@ export interface BatchDeps {
   db: Database;
   clock: Clock;
   logger: Logger;
-  /** another writer moved the log on: fold what it wrote (through the session's queue) */
-  catchUp(live: LiveSession): Promise<void>;
+  /**
+   * another writer moved the log on: fold what it wrote (through the session's queue); true
+   * when there was something to fold
+   */
+  catchUp(live: LiveSession): Promise<boolean>;
+  /** other processes may write this session's log (PostgreSQL), so this one may be behind */
+  shared: boolean;
 }
 
 /**
@@ -108,7 +113,10 @@ export interface BatchDeps {
  * commits all their events in one append (with an all-sealed close right behind the seal
  * that caused it). Each request gets the result it would have got alone; a conflict with
  * another writer reloads the log and decides the whole batch again, up to MAX_ATTEMPTS in all
- * (test/seq-conflicts.test.ts).
+ * (test/seq-conflicts.test.ts). When other processes share the log and a command is refused,
+ * the log is read once before the refusal stands: this process may not have heard yet of a
+ * commit that makes the command valid (another process opened the round a moment ago), and
+ * a refusal must never come from a state older than the log (test/behind.test.ts).
  */
 export async function commitBatch(
   deps: BatchDeps,
@@ -116,6 +124,7 @@ export async function commitBatch(
   requests: Request[],
 ): Promise<ExecuteResult[]> {
   const { db, clock, logger } = deps;
+  let reread = !deps.shared;
   for (let attempt = 0; ; attempt++) {
     const now = clock.now();
     const base = live.state.seq;
@@ -160,6 +169,10 @@ export async function commitBatch(
               events: events.slice(o.from, o.to),
             },
       );
+    if (!reread && outcomes.some((o) => "ok" in o)) {
+      reread = true;
+      if (await deps.catchUp(live)) continue;
+    }
     if (stamped.length === 0) return settle([]);
     const effects = effectsOf(
       stamped,

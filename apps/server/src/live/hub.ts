@@ -126,11 +126,12 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
   }
 
   /** Another process (sharing PostgreSQL) moved the log on: fold what it wrote, then tell. */
-  async function catchUp(live: LiveSession) {
+  async function catchUp(live: LiveSession): Promise<boolean> {
     const rows = await db.events.list(live.id, live.state.seq);
-    if (rows.length === 0) return;
+    if (rows.length === 0) return false;
     applyAll(live, rows);
     notify(live, rows);
+    return true;
   }
 
   /** Heard on the feed: events up to lastSeq are committed. */
@@ -228,7 +229,8 @@ export function createSessionHub(deps: { db: Database; clock: Clock; logger: Log
     if (closed) return refuse("unavailable", "the server is shutting down; try again");
     const live = await get(sessionId);
     if (!live) return refuse("not-found", "no such session");
-    const results = await commitBatch({ db, clock, logger, catchUp }, live, batch);
+    const shared = db.feed !== null;
+    const results = await commitBatch({ db, clock, logger, catchUp, shared }, live, batch);
     armClock(live);
     const events = results.flatMap((r) => (r.ok ? r.events : []));
     if (events.length > 0) notify(live, events);
