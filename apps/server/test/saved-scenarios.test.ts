@@ -138,6 +138,118 @@ describe("saved scenarios with versions", () => {
   });
 });
 
+describe("renaming a saved scenario", () => {
+  async function nameOnServer(id: string) {
+    return (await file.server.db.scenarios.get(id))?.name;
+  }
+
+  it("its key and the operator key rename it; the versions stay; the answer is the entry", async () => {
+    const saved = await save("Kiosk lease v1", withCost(1.25), "Q3 numbers");
+    const res = await send(
+      "PATCH",
+      `/api/scenarios/${saved.id}`,
+      { name: "  Kiosk lease, base case " },
+      saved.key,
+    );
+    expect(res.status).toBe(200);
+    const renamed = savedScenarioSchema.parse(await res.json());
+    expect(renamed).toMatchObject({ id: saved.id, name: "Kiosk lease, base case" });
+    expect(renamed.versions.map((v) => [v.version, v.note])).toEqual([[1, "Q3 numbers"]]);
+    expect(await nameOnServer(saved.id)).toBe("Kiosk lease, base case");
+    const got = savedScenarioSchema.parse(
+      await (await getWithKey(`${file.server.url}/api/scenarios/${saved.id}`, saved.key)).json(),
+    );
+    expect(got).toEqual(renamed);
+
+    const byOperator = await send(
+      "PATCH",
+      `/api/scenarios/${saved.id}`,
+      { name: "Kiosk lease, low-cost rival" },
+      OPERATOR_KEY,
+    );
+    expect(byOperator.status).toBe(200);
+    expect(savedScenarioSchema.parse(await byOperator.json()).name).toBe(
+      "Kiosk lease, low-cost rival",
+    );
+    expect(await nameOnServer(saved.id)).toBe("Kiosk lease, low-cost rival");
+    const version1 = await getWithKey(
+      `${file.server.url}/api/scenarios/${saved.id}/versions/1`,
+      saved.key,
+    );
+    expect(savedVersionSchema.parse(await version1.json()).scenario).toEqual(withCost(1.25));
+  });
+
+  it("any other key gets the 404 of an unknown id, no key the 401 of an unknown id, and the name stays", async () => {
+    const url = file.server.url;
+    const target = await save("Kiosk lease v1", withCost(1.5));
+    const other = await save("Other", withCost(1.5));
+    const session = await createSessionOverHttp(url, printShops());
+    const wrongKeys = [other.key, session.facilitatorKey, session.seats[0]!.key!, "not-a-key"];
+    const body = { name: "Taken over" };
+    const unknown = await send("PATCH", "/api/scenarios/no-such-scenario", body, other.key);
+    expect(unknown.status).toBe(404);
+    const unknownBody = await unknown.text();
+    for (const key of wrongKeys) {
+      const res = await send("PATCH", `/api/scenarios/${target.id}`, body, key);
+      expect(res.status, key).toBe(404);
+      expect(await res.text()).toBe(unknownBody);
+    }
+    const noKey = await send("PATCH", `/api/scenarios/${target.id}`, body);
+    const unknownNoKey = await send("PATCH", "/api/scenarios/no-such-scenario", body);
+    expect(noKey.status).toBe(401);
+    expect(await noKey.text()).toBe(await unknownNoKey.text());
+    // a bad name with a wrong key is still the unknown id's 404 (nothing about the entry leaks)
+    const badName = await send("PATCH", `/api/scenarios/${target.id}`, { name: "" }, other.key);
+    expect(badName.status).toBe(404);
+    expect(await nameOnServer(target.id)).toBe("Kiosk lease v1");
+
+    // positive control: the same request with the right key does rename it
+    const right = await send("PATCH", `/api/scenarios/${target.id}`, body, target.key);
+    expect(right.status).toBe(200);
+    expect(await nameOnServer(target.id)).toBe("Taken over");
+  });
+
+  it("a bad name is refused with 400 naming `name`, under the first save's rule", async () => {
+    const saved = await save("Kiosk lease v1", withCost(1.5));
+    const cases: unknown[] = [
+      { name: "" },
+      { name: "   " },
+      { name: "x".repeat(81) },
+      { name: "two\nlines" },
+      { name: 7 },
+      {},
+    ];
+    for (const body of cases) {
+      const res = await send("PATCH", `/api/scenarios/${saved.id}`, body, saved.key);
+      expect(res.status, JSON.stringify(body)).toBe(400);
+      const error = await errorOf(res);
+      expect(error.path, JSON.stringify(body)).toBe("name");
+      expect(error.message, JSON.stringify(body)).toMatch(/^name: /);
+      // the first save refuses the same name with the same message
+      const first = await send("POST", "/api/scenarios", {
+        ...(body as object),
+        scenario: withCost(1),
+      });
+      expect(first.status).toBe(400);
+      expect((await errorOf(first)).message).toBe(error.message);
+    }
+    const extra = await send(
+      "PATCH",
+      `/api/scenarios/${saved.id}`,
+      { name: "Y", note: "n" },
+      saved.key,
+    );
+    expect(extra.status).toBe(400);
+    expect((await errorOf(extra)).path).toBe("note");
+    expect(await nameOnServer(saved.id)).toBe("Kiosk lease v1");
+    // the longest name the rule allows passes
+    const longest = "x".repeat(80);
+    const ok = await send("PATCH", `/api/scenarios/${saved.id}`, { name: longest }, saved.key);
+    expect(ok.status).toBe(200);
+    expect(await nameOnServer(saved.id)).toBe(longest);
+  });
+});
+
 describe("a saved scenario is private to its key", () => {
   it("without its key nothing of it can be read or changed (same answer as an unknown id); with its key or the operator's it can", async () => {
     const url = file.server.url;

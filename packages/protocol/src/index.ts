@@ -193,6 +193,7 @@ export {
   MINE_SCENARIOS_MAX,
   mineScenariosBodySchema,
   parseScenarioSave,
+  renameScenarioBodySchema,
   saveScenarioBodySchema,
   savedScenarioCreatedSchema,
   savedScenarioListSchema,

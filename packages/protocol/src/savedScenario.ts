@@ -29,6 +29,8 @@ export const saveScenarioBodySchema = z.strictObject({
   note: noteSchema.default(""),
   scenario: z.unknown(),
 });
+/** PATCH /api/scenarios/:id body: a new name, under the first save's name rule. */
+export const renameScenarioBodySchema = saveScenarioBodySchema.pick({ name: true });
 /** POST /api/scenarios/:id/versions body. */
 export const saveVersionBodySchema = z.strictObject({
   note: noteSchema.default(""),

@@ -3,6 +3,8 @@ import {
   normaliseTag,
   parseInput,
   parseScenarioSave,
+  renameScenarioBodySchema,
+  saveScenarioBodySchema,
   sessionFilterSchema,
   sessionPatchSchema,
   tagProblem,
@@ -77,5 +79,22 @@ describe("library edits and filters", () => {
       ok: false,
       path: "name",
     });
+  });
+  it("a scenario rename takes the first save's name rule, and nothing else", () => {
+    const rename = (body: unknown) => parseInput(renameScenarioBodySchema, body);
+    expect(rename({ name: "  Kiosk lease, base case " })).toEqual({
+      ok: true,
+      value: { name: "Kiosk lease, base case" },
+    });
+    for (const body of [{ name: "" }, { name: "x".repeat(81) }, { name: "a\nb" }, {}]) {
+      expect(rename(body), JSON.stringify(body)).toMatchObject({ ok: false, path: "name" });
+    }
+    expect(rename({ name: "x".repeat(80) })).toMatchObject({ ok: true });
+    expect(rename({ name: "X", note: "n" })).toMatchObject({ ok: false, path: "note" });
+    // the same names pass and fail on the first save
+    for (const name of ["", "x".repeat(81), "Kiosk lease v1"]) {
+      const save = saveScenarioBodySchema.safeParse({ name, scenario: {} }).success;
+      expect(rename({ name }).ok, name).toBe(save);
+    }
   });
 });

@@ -9,6 +9,7 @@
  *   GET    /api/scenarios                      operator: every saved scenario
  *   POST   /api/scenarios/mine                 {scenarios: [{id, key}]} -> those the keys open
  *   GET    /api/scenarios/:id                  -> {id, name, createdAt, versions (newest first)}
+ *   PATCH  /api/scenarios/:id                  {name} -> the renamed entry (as GET answers it)
  *   POST   /api/scenarios/:id/versions         {note?, scenario} -> 201 {version}
  *   GET    /api/scenarios/:id/versions/:n      -> {version, note, createdAt, scenario}
  *   DELETE /api/scenarios/:id                  -> 204 (every version goes)
@@ -17,7 +18,12 @@ import { randomBytes } from "node:crypto";
 import type { IncomingMessage, ServerResponse } from "node:http";
 import type { Database, SavedScenarioRecord } from "@contend/db";
 import { isOperatorKey, newKey } from "@contend/db";
-import { mineScenariosBodySchema, parseInput, parseScenarioSave } from "@contend/protocol";
+import {
+  mineScenariosBodySchema,
+  parseInput,
+  parseScenarioSave,
+  renameScenarioBodySchema,
+} from "@contend/protocol";
 import type { SavedScenario } from "@contend/protocol";
 import { clientAddress } from "../abuse";
 import type { AbuseBudgets } from "../abuse";
@@ -134,6 +140,17 @@ export function savedScenarioRoutes(deps: SavedScenarioDeps) {
     sendJson(res, 201, { version: added.version });
   }
 
+  async function rename(req: IncomingMessage, res: ServerResponse, id: string) {
+    const body = await readJsonBody(req, deps.maxBodyBytes);
+    if (!body.ok) return sendError(res, body.status, body.code, body.message);
+    const parsed = parseInput(renameScenarioBodySchema, body.value);
+    if (!parsed.ok) return sendError(res, 400, parsed.code, parsed.message, parsed.path);
+    const renamed = await db.scenarios.rename(id, parsed.value.name);
+    if (!renamed) return notFound(res);
+    deps.logger.info("scenario renamed", { scenarioId: id });
+    sendJson(res, 200, wire(renamed));
+  }
+
   /** Handles /api/scenarios routes; false when the path is not one of them. */
   return async function handle(
     req: IncomingMessage,
@@ -185,8 +202,9 @@ export function savedScenarioRoutes(deps: SavedScenarioDeps) {
     const one = ONE.exec(path);
     if (one) {
       const id = one[1] ?? "";
-      if (!allowed(res, method, "GET, DELETE") || !(await opens(req, res, id))) return true;
-      if (method === "GET") {
+      if (!allowed(res, method, "GET, PATCH, DELETE") || !(await opens(req, res, id))) return true;
+      if (method === "PATCH") await rename(req, res, id);
+      else if (method === "GET") {
         const saved = await db.scenarios.get(id);
         if (saved) sendJson(res, 200, wire(saved));
         else notFound(res);

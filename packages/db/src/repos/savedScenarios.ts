@@ -38,6 +38,8 @@ const withVersions = {
   },
 } as const;
 
+const listed = { id: true, name: true, createdAt: true, ...withVersions } as const;
+
 /** Two saves of the same scenario at once may pick the same number: the loser tries again. */
 const VERSION_ATTEMPTS = 5;
 
@@ -104,7 +106,7 @@ export function savedScenariosRepository(db: Db) {
     async get(id: string): Promise<SavedScenarioRecord | null> {
       return db.savedScenario.findUnique({
         where: { id },
-        select: { id: true, name: true, createdAt: true, ...withVersions },
+        select: listed,
       });
     },
 
@@ -113,10 +115,17 @@ export function savedScenariosRepository(db: Db) {
       if (ids && ids.length === 0) return [];
       const rows = await db.savedScenario.findMany({
         where: ids ? { id: { in: [...ids] } } : {},
-        select: { id: true, name: true, createdAt: true, ...withVersions },
+        select: listed,
       });
       const newest = (r: SavedScenarioRecord) => r.versions[0]?.createdAt.getTime() ?? 0;
       return rows.sort((a, b) => newest(b) - newest(a) || a.id.localeCompare(b.id));
+    },
+
+    /** Gives a saved scenario a new name (its versions stay); null when there is none. */
+    async rename(id: string, name: string): Promise<SavedScenarioRecord | null> {
+      const { count } = await db.savedScenario.updateMany({ where: { id }, data: { name } });
+      if (count !== 1) return null;
+      return db.savedScenario.findUnique({ where: { id }, select: listed });
     },
 
     async version(id: string, version: number): Promise<SavedVersionBody | null> {
