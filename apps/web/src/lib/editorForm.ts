@@ -198,32 +198,49 @@ export function formToSessionRaw(form: EditorForm): Record<string, unknown> {
     const p = policyOf(row);
     if (p !== null) computer[row.name.trim()] = p;
   }
-  const clock = parseNumberField(form.clockSeconds);
   const hidden = hiddenRaw(form.rivals, form.privateRanges, form.truth);
   return {
     outcome: form.outcome,
     spendStep: parseNumberField(form.spendStep),
-    rounds: parseNumberField(form.rounds),
-    clockSeconds: clock === undefined ? null : clock,
-    missingMove: form.missingMove,
+    ...roundSettingsRaw(form),
     computer,
     ...(hidden === null ? {} : { hidden }),
   };
+}
+
+/** Rounds, clock and missing moves: the settings every live session takes, fronts too. */
+export function roundSettingsRaw(form: EditorForm): Record<string, unknown> {
+  const clock = parseNumberField(form.clockSeconds);
+  return {
+    rounds: parseNumberField(form.rounds),
+    clockSeconds: clock === undefined ? null : clock,
+    missingMove: form.missingMove,
+  };
+}
+
+/** Session settings through the protocol's schema: every problem under `session.`. */
+export function settingsErrors(sessionRaw: Record<string, unknown>): FieldErrors {
+  const errors: FieldErrors = {};
+  const settings = sessionSettingsSchema.safeParse(sessionRaw);
+  if (!settings.success) {
+    for (const issue of settings.error.issues)
+      errors[`session.${zodPath(issue.path)}`] ??= issue.message;
+  }
+  return errors;
+}
+
+/** The problem of the computer seat of the rival with this name, if any. */
+export function computerError(errors: FieldErrors, name: string): string | undefined {
+  const prefix = `session.computer.${name.trim()}`;
+  const hit = Object.keys(errors).find((k) => k === prefix || k.startsWith(`${prefix}.`));
+  return hit === undefined ? undefined : errors[hit];
 }
 
 /** Form -> session scenario, with every field problem mapped to its path. */
 export function formToScenario(form: EditorForm): FormResult {
   const contestRaw = formToContestRaw(form);
   const sessionRaw = formToSessionRaw(form);
-  const errors = contestErrors(contestRaw);
-
-  const settings = sessionSettingsSchema.safeParse(sessionRaw);
-  if (!settings.success) {
-    for (const issue of settings.error.issues) {
-      const path = `session.${zodPath(issue.path)}`;
-      errors[path] ??= issue.message;
-    }
-  }
+  const errors = { ...contestErrors(contestRaw), ...settingsErrors(sessionRaw) };
   const contest = validateScenario(contestRaw);
   const names = form.rivals.map((r) => r.name.trim());
   const hidden = (sessionRaw.hidden as Record<string, unknown> | undefined) ?? null;
@@ -255,11 +272,7 @@ export function rivalFieldError(
   index: number,
   field: keyof Omit<RivalRow, "key">,
 ): string | undefined {
-  if (field === "policy" || field === "policyArg") {
-    const name = form.rivals[index]?.name.trim() ?? "";
-    const prefix = `session.computer.${name}`;
-    const hit = Object.keys(errors).find((k) => k === prefix || k.startsWith(`${prefix}.`));
-    return hit === undefined ? undefined : errors[hit];
-  }
+  if (field === "policy" || field === "policyArg")
+    return computerError(errors, form.rivals[index]?.name ?? "");
   return errors[`rivals.${index}.${field}`];
 }

@@ -1,6 +1,6 @@
 /**
  * Every problem of a form at once, one per field. The rules live in the solver's validateScenario
- * and the protocol's schemas; this module only collects all of their messages instead of the
+ * (validateFrontsScenario for fronts) and the protocol's schemas; this module only collects all of their messages instead of the
  * first one, so each field can show its own.
  */
 import { validateScenario } from "@contend/solver";
@@ -37,15 +37,22 @@ function setAtPath(root: Record<string, unknown>, path: string, value: unknown):
   return true;
 }
 
+/** A validator that reports its first problem with the field's path (the solver's shape). */
+type FirstProblem = (raw: unknown) => { ok: true } | { ok: false; path: string; message: string };
+
 /**
- * Every contest problem, one per field: validate, note the first problem, patch that field with
- * a valid placeholder, repeat. The validator stays the only place the rules live.
+ * Every problem of a scenario, one per field: validate, note the first problem, patch that
+ * field with a valid placeholder, repeat. The validator stays the only place the rules live.
  */
-export function contestErrors(raw: Record<string, unknown>, limit = 64): FieldErrors {
+export function collectErrors(
+  raw: Record<string, unknown>,
+  validate: FirstProblem,
+  limit = 64,
+): FieldErrors {
   const errors: FieldErrors = {};
   const work = structuredClone(raw);
   for (let i = 0; i < limit; i++) {
-    const r = validateScenario(work);
+    const r = validate(work);
     if (r.ok) break;
     const path = r.path === "" ? "scenario" : r.path;
     if (errors[path] !== undefined) break;
@@ -58,6 +65,11 @@ export function contestErrors(raw: Record<string, unknown>, limit = 64): FieldEr
       break;
   }
   return errors;
+}
+
+/** Every problem of a single contest (the solver's validateScenario), one per field. */
+export function contestErrors(raw: Record<string, unknown>, limit = 64): FieldErrors {
+  return collectErrors(raw, validateScenario, limit);
 }
 
 export function zodPath(path: readonly PropertyKey[]): string {

@@ -3,7 +3,7 @@
  * cost, value and weight per front), kept as typed text so what the user typed stays visible.
  * The solver's validateFrontsScenario is the one set of rules; this file only converts.
  */
-import type { FrontsScenario } from "@contend/solver";
+import type { FrontsScenario, PolicyKind } from "@contend/solver";
 
 export interface FrontRow {
   name: string;
@@ -22,6 +22,11 @@ export interface FrontsRivalRow {
   cost: string[];
   value: string[];
   weight: string[];
+  /**
+   * Who plays this rival in a live session (the session editor only; the explorer leaves it
+   * out): absent = a person, else a computer policy that plays fronts (FRONTS_POLICIES).
+   */
+  policy?: PolicyKind;
 }
 
 export interface FrontsForm {

@@ -14,6 +14,7 @@ const FIELD_NAMES: Record<string, string> = {
   "csf.kind": "Contest form",
   leader: "Leader",
   rivals: "Rivals",
+  fronts: "Fronts",
   "session.effortStep": "Effort step",
   "session.rounds": "Rounds",
   "session.clockSeconds": "Round clock",
@@ -30,10 +31,29 @@ const RIVAL_FIELDS: Record<string, string> = {
   weight: "head start (weight)",
   budget: "budget",
   decisiveness: "own decisiveness",
+  sunkBudget: "sunk budget",
 };
 
-/** "rivals.1.cost" -> "Rival 2 cost"; "session.rounds" -> "Rounds". */
+const FRONT_FIELDS: Record<string, string> = {
+  name: "name",
+  prize: "prize",
+  "csf.decisiveness": "decisiveness",
+  "csf.scale": "logit scale",
+  "csf.kind": "contest form",
+};
+
+/** "rivals.1.cost" -> "Rival 2 cost"; "session.rounds" -> "Rounds"; "fronts.0.prize" -> "Front 1 prize". */
 export function fieldName(path: string): string {
+  const perFront = /^rivals\.(\d+)\.(cost|value|weight)\.(\d+)$/.exec(path);
+  if (perFront) {
+    const [i, f, k] = [Number(perFront[1]) + 1, perFront[2]!, Number(perFront[3]) + 1];
+    return `Rival ${i} ${RIVAL_FIELDS[f] ?? f} on front ${k}`;
+  }
+  const front = /^fronts\.(\d+)(?:\.(.+))?$/.exec(path);
+  if (front) {
+    const k = Number(front[1]) + 1;
+    return front[2] ? `Front ${k} ${FRONT_FIELDS[front[2]] ?? front[2]}` : `Front ${k}`;
+  }
   const rival = /^rivals\.(\d+)(?:\.(\w+))?$/.exec(path);
   if (rival) {
     const n = Number(rival[1]) + 1;
