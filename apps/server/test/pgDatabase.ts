@@ -2,34 +2,17 @@
  * A fresh PostgreSQL database per test file, from TEST_DATABASE_URL (a role allowed to create
  * databases; CI starts one). Without it the PostgreSQL tests are skipped, as the db package's are.
  */
-import { randomBytes } from "node:crypto";
-import pg from "pg";
 import { afterAll, beforeAll } from "vitest";
+import { freshPostgres as freshDatabase, TEST_DATABASE_URL } from "@contend/db/freshPostgres";
+import type { FreshDatabase } from "@contend/db/freshPostgres";
 import { connect, startServer } from "./helpers";
 import type { Client, TestServer } from "./helpers";
 
-export const TEST_DATABASE_URL = process.env.TEST_DATABASE_URL?.trim() || undefined;
+export { TEST_DATABASE_URL };
 
-export async function freshPostgres(
-  adminUrl: string,
-): Promise<{ url: string; dispose(): Promise<void> }> {
-  const name = `contend_server_${randomBytes(6).toString("hex")}`;
-  const admin = new pg.Client({ connectionString: adminUrl });
-  await admin.connect();
-  await admin.query(`CREATE DATABASE "${name}"`);
-  await admin.end();
-  const url = new URL(adminUrl);
-  url.pathname = `/${name}`;
-  return {
-    url: url.toString(),
-    async dispose() {
-      const drop = new pg.Client({ connectionString: adminUrl });
-      await drop.connect();
-      await drop.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
-      await drop.end();
-    },
-  };
-}
+/** A fresh database named for the server's tests (`contend_server_…`). */
+export const freshPostgres = (adminUrl: string): Promise<FreshDatabase> =>
+  freshDatabase(adminUrl, "contend_server");
 
 /**
  * Several server processes' worth of applications on one fresh PostgreSQL database for a whole
@@ -37,7 +20,7 @@ export async function freshPostgres(
  * servers stopped and the database dropped after it.
  */
 export function serversOnOnePostgres(opts: Parameters<typeof startServer>[0] = {}) {
-  let database: { url: string; dispose(): Promise<void> } | null = null;
+  let database: FreshDatabase | null = null;
   const servers: TestServer[] = [];
   const clients: Client[] = [];
   beforeAll(async () => {

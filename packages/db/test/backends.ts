@@ -1,12 +1,12 @@
-import { randomBytes } from "node:crypto";
 import path from "node:path";
-import pg from "pg";
+import { freshPostgres, TEST_DATABASE_URL } from "../src/freshPostgres";
+import type { FreshDatabase } from "../src/freshPostgres";
 import { tempDir } from "./fixtures";
 
 /** A fresh, empty database per call; dispose() removes it. */
 export interface Backend {
   name: string;
-  fresh(): Promise<{ url: string; dispose(): Promise<void> }>;
+  fresh(): Promise<FreshDatabase>;
 }
 
 const memory: Backend = {
@@ -22,35 +22,12 @@ const directory: Backend = {
   },
 };
 
-/**
- * TEST_DATABASE_URL names a PostgreSQL role allowed to create databases; each call creates
- * its own database and drops it afterwards, so runs never see each other's rows.
- */
+/** Each call creates its own PostgreSQL database and drops it afterwards. */
 function postgres(adminUrl: string): Backend {
-  return {
-    name: "postgresql",
-    async fresh() {
-      const name = `contend_test_${randomBytes(6).toString("hex")}`;
-      const admin = new pg.Client({ connectionString: adminUrl });
-      await admin.connect();
-      await admin.query(`CREATE DATABASE "${name}"`);
-      await admin.end();
-      const url = new URL(adminUrl);
-      url.pathname = `/${name}`;
-      return {
-        url: url.toString(),
-        async dispose() {
-          const drop = new pg.Client({ connectionString: adminUrl });
-          await drop.connect();
-          await drop.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
-          await drop.end();
-        },
-      };
-    },
-  };
+  return { name: "postgresql", fresh: () => freshPostgres(adminUrl) };
 }
 
-export const TEST_DATABASE_URL = process.env.TEST_DATABASE_URL?.trim() || undefined;
+export { TEST_DATABASE_URL };
 
 export const backends: Backend[] = [
   memory,
