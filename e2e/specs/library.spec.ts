@@ -2,7 +2,9 @@
  * Library journeys: past sessions are renamed, tagged, searched, archived and deleted on
  * /replays (each change cross-checked against the server); a scenario is saved from the
  * editor, saved again as a second version with new numbers, and a session is started from
- * version 1 on /scenarios, which plays version 1's numbers. Screens at three sizes.
+ * version 1 on /scenarios, which plays version 1's numbers; a saved scenario is renamed inline
+ * from the keyboard (the name rule's message at the field, Escape cancels) without a reload.
+ * Screens at three sizes.
  */
 import type { Page } from "@playwright/test";
 import { createSession, E2E_OPERATOR_KEY, exportJson } from "../support/api";
@@ -166,4 +168,74 @@ test("saved scenarios: save, save a second version, start a session from version
   };
   expect(exported.events.find((e) => e.type === "session-created")?.scenario?.prize).toBe(100);
   await screens(page, saveScreen, "library-scenario-started");
+});
+
+/** A saved scenario's name as the server holds it (read with its library key). */
+async function scenarioNameOnServer(origin: string, id: string, key: string): Promise<string> {
+  const res = await fetch(`${origin}/api/scenarios/${id}`, {
+    headers: { authorization: `Bearer ${key}` },
+  });
+  expect(res.status).toBe(200);
+  return ((await res.json()) as { name: string }).name;
+}
+
+test("saved scenarios: rename an entry inline, from the keyboard, without a reload", async ({
+  page,
+  baseURL,
+  saveScreen,
+}) => {
+  const origin = baseURL!;
+  const res = await fetch(`${origin}/api/scenarios`, {
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body: JSON.stringify({ name: "Kiosk lease v1", note: "Q3 numbers", scenario: roomScenario(1) }),
+  });
+  expect(res.status).toBe(201);
+  const saved = (await res.json()) as { id: string; key: string };
+  await page.setViewportSize(SIZES.laptop);
+  await page.goto("/");
+  await page.evaluate(
+    (h) => localStorage.setItem("contend.scenarioKeys", JSON.stringify(h)),
+    [{ id: saved.id, key: saved.key }],
+  );
+  await page.goto("/scenarios");
+  const name = page.getByTestId(`scenario-name-${saved.id}`);
+  const rename = page.getByTestId(`scenario-rename-${saved.id}`);
+  const input = page.getByTestId(`scenario-name-input-${saved.id}`);
+  const fieldError = page.getByTestId(`scenario-name-error-${saved.id}`);
+  await expect(name).toHaveText("Kiosk lease v1");
+  // a marker that a reload would wipe
+  await page.evaluate(() => ((window as unknown as { notReloaded: boolean }).notReloaded = true));
+
+  // keyboard only: open the field, an empty name is refused at the field, Escape cancels
+  await rename.focus();
+  await page.keyboard.press("Enter");
+  await expect(input).toBeFocused();
+  await expect(input).toHaveValue("Kiosk lease v1");
+  await page.keyboard.press("ControlOrMeta+a");
+  await page.keyboard.press("Delete");
+  await page.keyboard.press("Enter");
+  await expect(fieldError).toHaveText("name: must not be empty");
+  await expect(input).toHaveAttribute("aria-invalid", "true");
+  await expectAccessible(page, "the rename field with its error");
+  await screens(page, saveScreen, "library-scenario-rename-error");
+  await page.keyboard.press("Escape");
+  await expect(name).toHaveText("Kiosk lease v1");
+  await expect(rename).toBeFocused();
+  expect(await scenarioNameOnServer(origin, saved.id, saved.key)).toBe("Kiosk lease v1");
+
+  // the rename itself: typed, saved with the Save button, shown at once and kept by the server
+  await page.keyboard.press("Enter");
+  await input.fill("Kiosk lease, base case");
+  await screens(page, saveScreen, "library-scenario-rename-field");
+  await page.getByTestId(`scenario-rename-save-${saved.id}`).click();
+  await expect(name).toHaveText("Kiosk lease, base case");
+  await expect(input).toHaveCount(0);
+  await expect(rename).toBeFocused();
+  await expect(page.getByTestId(`scenario-version-${saved.id}-1`)).toContainText("Q3 numbers");
+  expect(
+    await page.evaluate(() => (window as unknown as { notReloaded?: boolean }).notReloaded),
+  ).toBe(true);
+  expect(await scenarioNameOnServer(origin, saved.id, saved.key)).toBe("Kiosk lease, base case");
+  await screens(page, saveScreen, "library-scenario-renamed");
 });

@@ -1,7 +1,13 @@
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { sessionFilterSchema } from "@contend/protocol";
 import type { SessionListItem } from "@contend/protocol";
-import { apiFilter, dayInstant, EMPTY_FILTER, listKeyedSessions } from "../src/lib/libraryApi";
+import {
+  apiFilter,
+  dayInstant,
+  EMPTY_FILTER,
+  listKeyedSessions,
+  renameScenario,
+} from "../src/lib/libraryApi";
 
 describe("the library filter sent to the server", () => {
   it("a day range covers the whole of both local days", () => {
@@ -80,5 +86,31 @@ describe("listKeyedSessions: the list both the library and the compare page load
     vi.stubGlobal("fetch", answer({ error: { code: "unauthorised", message: "wrong key" } }, 401));
     const r = await listKeyedSessions("bad", []);
     expect(!r.ok && r.status).toBe(401);
+  });
+});
+
+describe("renameScenario", () => {
+  afterEach(() => vi.unstubAllGlobals());
+
+  it("sends PATCH with the name and the key in the header only; a refusal names the field", async () => {
+    const calls: { url: string; init?: RequestInit }[] = [];
+    vi.stubGlobal(
+      "fetch",
+      vi.fn(async (url: string, init?: RequestInit) => {
+        calls.push({ url, init });
+        return new Response(
+          JSON.stringify({
+            error: { code: "bad-request", path: "name", message: "name: must not be empty" },
+          }),
+          { status: 400 },
+        );
+      }),
+    );
+    const r = await renameScenario("a/b", "lib-key", "");
+    expect(calls[0]!.url).toBe("/api/scenarios/a%2Fb");
+    expect(calls[0]!.init?.method).toBe("PATCH");
+    expect(new Headers(calls[0]!.init?.headers).get("authorization")).toBe("Bearer lib-key");
+    expect(JSON.parse(String(calls[0]!.init?.body))).toEqual({ name: "" });
+    expect(r).toMatchObject({ ok: false, status: 400, path: "name" });
   });
 });

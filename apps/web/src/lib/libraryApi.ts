@@ -139,6 +139,16 @@ export function saveVersion(id: string, key: string, note: string, scenario: unk
   });
 }
 
+/** PATCH /api/scenarios/<id>: a new name (the versions stay); answers the renamed entry. */
+export function renameScenario(id: string, key: string, name: string) {
+  const init = json({ name });
+  return request<SavedScenario>(`/api/scenarios/${encodeURIComponent(id)}`, {
+    method: "PATCH",
+    ...init,
+    headers: { ...(init.headers as Record<string, string>), ...bearer(key) },
+  });
+}
+
 export function listMyScenarios(held: HeldKey[]) {
   return request<SavedScenario[]>("/api/scenarios/mine", {
     method: "POST",

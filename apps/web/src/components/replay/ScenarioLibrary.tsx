@@ -15,6 +15,7 @@ import {
 } from "../../lib/libraryApi";
 import type { SessionScenarioInput } from "../../lib/sessionTypes";
 import { CreatedSession } from "../CreatedSession";
+import { ScenarioName } from "./ScenarioName";
 
 interface Held {
   saved: SavedScenario;
@@ -94,7 +95,8 @@ export function ScenarioLibrary() {
       <h1>Saved scenarios</h1>
       <p className="muted">
         Rerun a drill: start a new session from any saved version, or open a version in the editor,
-        change the numbers and save them as the next version. Save a scenario from the{" "}
+        change the numbers and save them as the next version. Rename an entry as its role changes
+        (“Kiosk lease, base case”); its versions stay. Save a scenario from the{" "}
         <a href="/new">New session</a> page. Saved scenarios may hold private numbers: they open
         only from the browser that saved them, or with the operator key.
       </p>
@@ -113,7 +115,15 @@ export function ScenarioLibrary() {
       {items?.map((h) => (
         <section className="card" key={h.saved.id} data-testid={`scenario-${h.saved.id}`}>
           <div className="row" style={{ justifyContent: "space-between" }}>
-            <h2 style={{ margin: 0 }}>{h.saved.name}</h2>
+            <ScenarioName
+              saved={h.saved}
+              accessKey={h.key}
+              onRenamed={(saved) =>
+                setItems(
+                  (old) => old && old.map((x) => (x.saved.id === saved.id ? { ...x, saved } : x)),
+                )
+              }
+            />
             {confirming === h.saved.id ? (
               <span role="group" aria-label="Confirm deletion" className="confirm">
                 <span className="small">Delete every version for good?</span>
