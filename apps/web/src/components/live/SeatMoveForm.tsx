@@ -1,24 +1,15 @@
 "use client";
 
 import { useState } from "react";
-import type { RoleView } from "@contend/protocol";
-import { LIMITS, spendStepOf } from "@contend/protocol";
-import type { useSession } from "../../hooks/useSession";
+import { spendStepOf } from "@contend/protocol";
 import { useSealMove } from "../../hooks/useSealMove";
 import { SealConfirm } from "./SealConfirm";
+import { ReasonField, SealError, SealedState, type MoveFormProps } from "./SealedState";
 import { formatMoney, formatNumber } from "../../lib/format";
 import { readSpend } from "../../lib/live";
 
 /** The seat's move for the open round: an amount of money, checked, confirmed, sealed. */
-export function SeatMoveForm({
-  view,
-  send,
-  canSeal,
-}: {
-  view: RoleView;
-  send: ReturnType<typeof useSession>["send"];
-  canSeal: boolean;
-}) {
+export function SeatMoveForm({ view, send, canSeal }: MoveFormProps) {
   const you = view.you!;
   const rival = view.scenario.rivals[you.seatIndex]!;
   const currency = view.scenario.currency ?? null;
@@ -37,10 +28,9 @@ export function SeatMoveForm({
 
   return (
     <>
-      <p className="small" data-testid="seat-sealed-state" aria-live="polite">
+      <SealedState sealed={sealed !== null} paused={view.paused}>
         {sealed !== null ? (
           <>
-            <span className="badge accent">sealed</span> You sealed{" "}
             <strong data-testid="seat-sealed-amount">{money(sealed)}</strong>
             {you.sealedReason ? (
               <>
@@ -48,17 +38,9 @@ export function SeatMoveForm({
                 with your reason “<span data-testid="seat-sealed-reason">{you.sealedReason}</span>”
               </>
             ) : null}
-            . You can replace it until the round closes.
           </>
-        ) : (
-          <span className="badge warn">not sealed yet</span>
-        )}
-        {view.paused ? (
-          <span className="badge" style={{ marginLeft: 6 }}>
-            paused
-          </span>
         ) : null}
-      </p>
+      </SealedState>
       {confirming === null ? (
         <form
           noValidate
@@ -106,20 +88,7 @@ export function SeatMoveForm({
               ) : null}
             </span>
           </div>
-          <div className="field" style={{ flex: "2 1 16rem" }}>
-            <label htmlFor="reason-input">
-              Why (optional, one line; others see it only when the round is revealed)
-            </label>
-            <input
-              id="reason-input"
-              type="text"
-              maxLength={LIMITS.reasonMax}
-              value={reason}
-              onChange={(e) => setReason(e.target.value.replace(/[\r\n]+/g, " "))}
-              disabled={!canSeal}
-              data-testid="reason-input"
-            />
-          </div>
+          <ReasonField value={reason} onChange={setReason} disabled={!canSeal} />
           <div className="field">
             <span aria-hidden="true">&nbsp;</span>
             <button
@@ -152,9 +121,7 @@ export function SeatMoveForm({
           </p>
         </SealConfirm>
       )}
-      <p className="field-error" role={error ? "alert" : undefined} data-testid="seal-error">
-        {error ?? ""}
-      </p>
+      <SealError error={error} />
     </>
   );
 }

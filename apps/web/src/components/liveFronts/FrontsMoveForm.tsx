@@ -1,11 +1,9 @@
 "use client";
 
 import { useState } from "react";
-import type { RoleView } from "@contend/protocol";
-import { LIMITS } from "@contend/protocol";
-import type { useSession } from "../../hooks/useSession";
 import { useSealMove } from "../../hooks/useSealMove";
 import { SealConfirm } from "../live/SealConfirm";
+import { ReasonField, SealError, SealedState, type MoveFormProps } from "../live/SealedState";
 import { formatMoney, formatNumber } from "../../lib/format";
 import { readAllocation, seatFrontsTerms, total } from "../../lib/frontsLive";
 
@@ -13,15 +11,7 @@ import { readAllocation, seatFrontsTerms, total } from "../../lib/frontsLive";
  * The seat's move in a session with fronts (R46): one amount of money per front, the remaining
  * budget shown as it is typed, checked with the engine's rule, confirmed, sealed.
  */
-export function FrontsMoveForm({
-  view,
-  send,
-  canSeal,
-}: {
-  view: RoleView;
-  send: ReturnType<typeof useSession>["send"];
-  canSeal: boolean;
-}) {
+export function FrontsMoveForm({ view, send, canSeal }: MoveFormProps) {
   const you = view.you!;
   const terms = seatFrontsTerms(view, you.seatIndex)!;
   const currency = view.scenario.currency ?? null;
@@ -41,23 +31,14 @@ export function FrontsMoveForm({
 
   return (
     <>
-      <p className="small" data-testid="seat-sealed-state" aria-live="polite">
+      <SealedState sealed={sealed !== null} paused={view.paused}>
         {sealed !== null ? (
           <>
-            <span className="badge accent">sealed</span> You sealed{" "}
             <strong data-testid="seat-sealed-amount">{cents(total(sealed))}</strong> in total (
-            {sealed.map((s, k) => `${terms.names[k]} ${cents(s)}`).join(", ")}). You can replace it
-            until the round closes.
+            {sealed.map((s, k) => `${terms.names[k]} ${cents(s)}`).join(", ")})
           </>
-        ) : (
-          <span className="badge warn">not sealed yet</span>
-        )}
-        {view.paused ? (
-          <span className="badge" style={{ marginLeft: 6 }}>
-            paused
-          </span>
         ) : null}
-      </p>
+      </SealedState>
       {confirming === null ? (
         <form
           noValidate
@@ -125,20 +106,7 @@ export function FrontsMoveForm({
             {entry.typed && entry.problem ? entry.problem : ""}
           </span>
           <div className="row" style={{ alignItems: "flex-end" }}>
-            <div className="field" style={{ flex: "2 1 16rem" }}>
-              <label htmlFor="reason-input">
-                Why (optional, one line; others see it only when the round is revealed)
-              </label>
-              <input
-                id="reason-input"
-                type="text"
-                maxLength={LIMITS.reasonMax}
-                value={reason}
-                onChange={(e) => setReason(e.target.value.replace(/[\r\n]+/g, " "))}
-                disabled={!canSeal}
-                data-testid="reason-input"
-              />
-            </div>
+            <ReasonField value={reason} onChange={setReason} disabled={!canSeal} />
             <div className="field">
               <button
                 type="submit"
@@ -178,9 +146,7 @@ export function FrontsMoveForm({
           </ul>
         </SealConfirm>
       )}
-      <p className="field-error" role={error ? "alert" : undefined} data-testid="seal-error">
-        {error ?? ""}
-      </p>
+      <SealError error={error} />
     </>
   );
 }
