@@ -81,16 +81,64 @@ export function SelectField<T extends string>(props: SelectFieldProps<T>) {
         disabled={props.disabled}
         onChange={(e) => props.onChange(e.target.value as T)}
       >
-        {props.options.map((o) => (
-          <option key={o.value} value={o.value}>
-            {o.label}
-          </option>
-        ))}
+        {optionsOf(props.options)}
       </select>
       <span className="field-error" id={errId}>
         {props.error ?? ""}
       </span>
     </div>
+  );
+}
+
+/** The `<option>`s of a select over fixed values. */
+function optionsOf<T extends string>(options: readonly { value: T; label: string }[]) {
+  return options.map((o) => (
+    <option key={o.value} value={o.value}>
+      {o.label}
+    </option>
+  ));
+}
+
+/**
+ * A compact control in a row of filters or options (the library's search bar, saving to the
+ * library): a small caption above it, the whole wrapped in its label.
+ */
+export function FilterField({
+  label,
+  grow,
+  children,
+}: {
+  label: string;
+  /** take the row's spare width (text inputs) */
+  grow?: boolean;
+  children: ReactNode;
+}) {
+  return (
+    <label className={grow ? "filter-field grow" : "filter-field"}>
+      <span className="small">{label}</span>
+      {children}
+    </label>
+  );
+}
+
+/** A FilterField holding a select over fixed values. */
+export function FilterSelect<T extends string>(props: {
+  label: string;
+  value: T;
+  options: readonly { value: T; label: string }[];
+  onChange: (v: T) => void;
+  testId: string;
+}) {
+  return (
+    <FilterField label={props.label}>
+      <select
+        value={props.value}
+        onChange={(e) => props.onChange(e.target.value as T)}
+        data-testid={props.testId}
+      >
+        {optionsOf(props.options)}
+      </select>
+    </FilterField>
   );
 }
 

@@ -7,6 +7,7 @@ import { rememberScenarioKey, scenarioKeys } from "../lib/keyring";
 import { handedOrigin } from "../lib/libraryHandoff";
 import { listMyScenarios, saveScenario, saveVersion } from "../lib/libraryApi";
 import type { SessionScenarioInput } from "../lib/sessionTypes";
+import { FilterField } from "./Field";
 
 const NEW = "";
 
@@ -89,8 +90,7 @@ export function SaveToLibrary({
         Saved scenarios open only from this browser (or with the operator key).
       </p>
       <div className="row">
-        <label className="filter-field">
-          <span className="small">Save as</span>
+        <FilterField label="Save as">
           <select
             value={target}
             onChange={(e) => setTarget(e.target.value)}
@@ -103,10 +103,9 @@ export function SaveToLibrary({
               </option>
             ))}
           </select>
-        </label>
+        </FilterField>
         {target === NEW && (
-          <label className="filter-field grow">
-            <span className="small">Name</span>
+          <FilterField label="Name" grow>
             <input
               type="text"
               value={name}
@@ -115,10 +114,9 @@ export function SaveToLibrary({
               onChange={(e) => setName(e.target.value)}
               data-testid="save-library-name"
             />
-          </label>
+          </FilterField>
         )}
-        <label className="filter-field grow">
-          <span className="small">Note (optional)</span>
+        <FilterField label="Note (optional)" grow>
           <input
             type="text"
             value={note}
@@ -127,7 +125,7 @@ export function SaveToLibrary({
             onChange={(e) => setNote(e.target.value)}
             data-testid="save-library-note"
           />
-        </label>
+        </FilterField>
         <button
           type="button"
           disabled={busy || !scenario}

@@ -2,6 +2,18 @@
 
 import type { LibraryFilter } from "../../lib/libraryApi";
 import { EMPTY_FILTER } from "../../lib/libraryApi";
+import { FilterField, FilterSelect } from "../Field";
+
+const DATE_OF: readonly { value: LibraryFilter["dateOf"]; label: string }[] = [
+  { value: "created", label: "created" },
+  { value: "ended", label: "ended" },
+];
+
+const ARCHIVED: readonly { value: LibraryFilter["archived"]; label: string }[] = [
+  { value: "hide", label: "active sessions" },
+  { value: "only", label: "archived only" },
+  { value: "all", label: "active and archived" },
+];
 
 /** The library's search bar: title text, tag chips, a date range, archived or not. */
 export function LibraryFilters({
@@ -20,8 +32,7 @@ export function LibraryFilters({
   return (
     <div className="card library-filters no-print" role="search" aria-label="Search past sessions">
       <div className="row">
-        <label className="filter-field grow">
-          <span className="small">Title contains</span>
+        <FilterField label="Title contains" grow>
           <input
             type="search"
             value={filter.q}
@@ -30,48 +41,31 @@ export function LibraryFilters({
             onChange={(e) => set("q", e.target.value)}
             data-testid="library-search"
           />
-        </label>
-        <label className="filter-field">
-          <span className="small">Date</span>
-          <select
-            value={filter.dateOf}
-            onChange={(e) => set("dateOf", e.target.value as LibraryFilter["dateOf"])}
-            data-testid="library-date-of"
-          >
-            <option value="created">created</option>
-            <option value="ended">ended</option>
-          </select>
-        </label>
-        <label className="filter-field">
-          <span className="small">from</span>
-          <input
-            type="date"
-            value={filter.from}
-            onChange={(e) => set("from", e.target.value)}
-            data-testid="library-from"
-          />
-        </label>
-        <label className="filter-field">
-          <span className="small">to</span>
-          <input
-            type="date"
-            value={filter.to}
-            onChange={(e) => set("to", e.target.value)}
-            data-testid="library-to"
-          />
-        </label>
-        <label className="filter-field">
-          <span className="small">Show</span>
-          <select
-            value={filter.archived}
-            onChange={(e) => set("archived", e.target.value as LibraryFilter["archived"])}
-            data-testid="library-archived"
-          >
-            <option value="hide">active sessions</option>
-            <option value="only">archived only</option>
-            <option value="all">active and archived</option>
-          </select>
-        </label>
+        </FilterField>
+        <FilterSelect
+          label="Date"
+          value={filter.dateOf}
+          options={DATE_OF}
+          onChange={(v) => set("dateOf", v)}
+          testId="library-date-of"
+        />
+        {(["from", "to"] as const).map((k) => (
+          <FilterField key={k} label={k}>
+            <input
+              type="date"
+              value={filter[k]}
+              onChange={(e) => set(k, e.target.value)}
+              data-testid={`library-${k}`}
+            />
+          </FilterField>
+        ))}
+        <FilterSelect
+          label="Show"
+          value={filter.archived}
+          options={ARCHIVED}
+          onChange={(v) => set("archived", v)}
+          testId="library-archived"
+        />
         <button
           type="button"
           className="small"
