@@ -9,15 +9,12 @@
  * against an independent computation; after the end the replay's debrief shows the truth.
  * Screens of the editor, the seat, the console and the replay at 1366x768, 1920x1080 and 390x844 are saved as artifacts.
  */
-import { mkdirSync } from "node:fs";
-import path from "node:path";
 import type { Page } from "@playwright/test";
 import { expect, test } from "../support/fixtures";
 import { framesCarrying, recordFrames } from "../support/frames";
 import { expectNotShown, expectShownAll, linkValue, sealSpend } from "../support/live";
 import { expectShownEquals, parseShown } from "../support/numbers";
-import { expectAccessible, SIZES } from "../support/room";
-import { RESULTS_DIR } from "../support/server";
+import { expectAccessible, screensAtSizes, SIZES } from "../support/room";
 
 const PRIZE = 100;
 const TRUE_COST = 2.35; // Ridge Pottery's private cost per unit of effort (invented)
@@ -28,15 +25,10 @@ const SPEND_B = 30;
 
 /** Viewport screenshots (what a person sees without scrolling) at each size, by name. */
 async function shots(page: Page, name: string, scrollTo?: string): Promise<void> {
-  const dir = path.join(RESULTS_DIR, "screens");
-  mkdirSync(dir, { recursive: true });
-  for (const size of [SIZES.laptop, SIZES.projector, SIZES.phone]) {
-    await page.setViewportSize(size);
+  await screensAtSizes(page, `private-${name}`, async (file) => {
     if (scrollTo) await page.getByTestId(scrollTo).scrollIntoViewIfNeeded();
-    await page.screenshot({
-      path: path.join(dir, `private-${name}-${size.width}x${size.height}.png`),
-    });
-  }
+    await page.screenshot({ path: file });
+  });
   await page.setViewportSize(SIZES.laptop);
 }
 

@@ -6,21 +6,18 @@
  * Worker with progress and cancel; the page's long tasks during the run are printed. The spend
  * bands download as a 1920 x 1080 slide.
  */
-import { mkdirSync, writeFileSync } from "node:fs";
-import path from "node:path";
-import { loadavg } from "node:os";
+import { fillRivalBCostRange, openTwoRivalExplorer, runAndCancel } from "../support/explorer";
 import { expect, test } from "../support/fixtures";
 import {
-  readLongTasks,
+  logLongTasks,
   resetLongTasks,
   traceMainThreadTasks,
   waitForTestIdQuietly,
   watchLongTasks,
 } from "../support/longTasks";
 import { parseShown } from "../support/numbers";
-import { SIZES } from "../support/room";
-import { RESULTS_DIR } from "../support/server";
-import { decodePng, download, parseSvg, pngSize } from "../support/slides";
+import { screensAtSizes, SIZES } from "../support/room";
+import { expectPngSlide, expectSvgSlide } from "../support/slides";
 
 const spendA = (c1: number, c2: number) => (100 * c1 * c2) / (c1 + c2) ** 2;
 
@@ -30,16 +27,9 @@ test("explorer sweep of a scenario with a range shows P10-P90 bands whose median
 }) => {
   await watchLongTasks(page);
   await page.setViewportSize(SIZES.laptop);
-  await page.goto("/explore");
-  await page.getByRole("textbox", { name: /^Prize/ }).fill("100");
-  await page.getByLabel("Decisiveness r").fill("1");
-  await page.getByLabel("Rival 1 name").fill("Rival A");
-  await page.getByLabel("Rival 2 name").fill("Rival B");
-  await page.getByLabel("Rival 1 cost").fill("1");
-  await page.getByLabel("Rival 2 cost").fill("2");
+  await openTwoRivalExplorer(page);
   await page.getByTestId("range-toggle-rivals.1.cost").check();
-  await page.getByLabel("Low of Cost per unit of effort, Rival B").fill("1");
-  await page.getByLabel("High of Cost per unit of effort, Rival B").fill("3");
+  await fillRivalBCostRange(page, "1", "3");
 
   await page.getByTestId("sweep-param").selectOption("rivals.0.cost");
   await page.getByTestId("sweep-from").fill("0.5");
@@ -49,11 +39,7 @@ test("explorer sweep of a scenario with a range shows P10-P90 bands whose median
 
   // A long run shows progress and can be cancelled.
   await page.getByTestId("sweep-steps").fill("40");
-  await bands.getByTestId("bands-draws").fill("20000");
-  await bands.getByTestId("bands-run").click();
-  await expect(bands.getByTestId("bands-progress")).toBeVisible();
-  await bands.getByTestId("bands-cancel").click();
-  await expect(bands.getByTestId("bands-cancelled")).toBeVisible();
+  await runAndCancel(bands, "bands", "20000");
 
   await page.getByTestId("sweep-steps").fill("3");
   await bands.getByTestId("bands-draws").fill("4000");
@@ -82,35 +68,13 @@ test("explorer sweep of a scenario with a range shows P10-P90 bands whose median
     expect(Math.abs(p10 - spendA(c1, 2.8))).toBeLessThan(0.3);
     expect(Math.abs(p90 - spendA(c1, 1.2))).toBeLessThan(0.3);
   }
-  const longTasks = await readLongTasks(page);
-  console.log(
-    `sweep bands: long tasks on the page (ms): ${JSON.stringify(longTasks)} at load ${loadavg()[0]!.toFixed(1)}; ` +
-      `traced tasks over 50 ms (wall/CPU ms): ${JSON.stringify(traced.long.map((t) => `${t.wall}/${t.cpu}`))}, ` +
-      `largest task CPU ${traced.maxCpu} ms`,
-  );
+  await logLongTasks(page, "sweep bands", traced);
   await saveScreen(page, "explorer-sweep-bands");
   // The spend bands as a 1920 x 1080 slide (PNG and SVG)
-  const png = await download(page, "bands-spend-chart-slide-png");
-  expect(pngSize(png.bytes)).toEqual({ width: 1920, height: 1080 });
-  expect((await decodePng(page, png.bytes)).ink, "the PNG has a drawing on it").toBeGreaterThan(
-    0.01,
-  );
-  mkdirSync(path.join(RESULTS_DIR, "slides"), { recursive: true });
-  writeFileSync(path.join(RESULTS_DIR, "slides", "explorer-bands-spend.png"), png.bytes);
-  const doc = await parseSvg(
-    page,
-    (await download(page, "bands-spend-chart-slide-svg")).bytes.toString("utf8"),
-  );
-  expect(doc).toMatchObject({ error: null, tag: "svg", width: "1920", height: "1080" });
+  await expectPngSlide(page, "bands-spend-chart-slide-png", "explorer-bands-spend.png");
+  const { doc } = await expectSvgSlide(page, "bands-spend-chart-slide-svg");
   expect(doc.text[0]).toMatch(/^Equilibrium spend with its range as .* varies$/);
   expect(doc.text.join(" ")).toContain("median, shaded P10-P90");
   // The bands alone at each screen size, for looking at.
-  const dir = path.join(RESULTS_DIR, "screens");
-  mkdirSync(dir, { recursive: true });
-  for (const size of [SIZES.laptop, SIZES.projector, SIZES.phone]) {
-    await page.setViewportSize(size);
-    await bands.screenshot({
-      path: path.join(dir, `explorer-sweep-bands-${size.width}x${size.height}.png`),
-    });
-  }
+  await screensAtSizes(page, "explorer-sweep-bands", (file) => bands.screenshot({ path: file }));
 });

@@ -6,20 +6,17 @@
  * progress and cancel; a bad range names its field and blocks the run. The spend fan downloads
  * as a 1920 x 1080 slide.
  */
-import { mkdirSync, writeFileSync } from "node:fs";
-import { loadavg } from "node:os";
-import path from "node:path";
+import { fillRivalBCostRange, openTwoRivalExplorer, runAndCancel } from "../support/explorer";
 import { expect, test } from "../support/fixtures";
 import {
-  readLongTasks,
+  logLongTasks,
   resetLongTasks,
   traceMainThreadTasks,
   waitForTestIdQuietly,
   watchLongTasks,
 } from "../support/longTasks";
 import { parseShown } from "../support/numbers";
-import { RESULTS_DIR } from "../support/server";
-import { decodePng, download, parseSvg, pngSize } from "../support/slides";
+import { expectPngSlide, expectSvgSlide } from "../support/slides";
 
 test("explorer uncertainty(c2 ~ U[1, 3]) shows the median spend of the closed form, cancels, and names a bad range", async ({
   page,
@@ -27,32 +24,20 @@ test("explorer uncertainty(c2 ~ U[1, 3]) shows the median spend of the closed fo
 }) => {
   // Long tasks (> 50 ms) the page's main thread runs (Long Tasks API).
   await watchLongTasks(page);
-  await page.goto("/explore");
-  await page.getByRole("textbox", { name: /^Prize/ }).fill("100");
-  await page.getByLabel("Decisiveness r").fill("1");
-  await page.getByLabel("Rival 1 name").fill("Rival A");
-  await page.getByLabel("Rival 2 name").fill("Rival B");
-  await page.getByLabel("Rival 1 cost").fill("1");
-  await page.getByLabel("Rival 2 cost").fill("2");
+  await openTwoRivalExplorer(page);
 
   const section = page.getByTestId("uncertainty-section");
   await page.getByTestId("range-toggle-rivals.1.cost").check();
 
   // A bad range names the field inside it and the run is blocked.
-  await page.getByLabel("Low of Cost per unit of effort, Rival B").fill("3");
-  await page.getByLabel("High of Cost per unit of effort, Rival B").fill("1");
+  await fillRivalBCostRange(page, "3", "1");
   await expect(page.getByTestId("range-error")).toContainText("rivals.1.cost.high");
   await expect(section.getByTestId("uncertain-run")).toBeDisabled();
-  await page.getByLabel("Low of Cost per unit of effort, Rival B").fill("1");
-  await page.getByLabel("High of Cost per unit of effort, Rival B").fill("3");
+  await fillRivalBCostRange(page, "1", "3");
   await expect(page.getByTestId("range-error")).toHaveCount(0);
 
   // A long run shows progress and can be cancelled.
-  await section.getByTestId("uncertain-draws").fill("100000");
-  await section.getByTestId("uncertain-run").click();
-  await expect(section.getByTestId("uncertain-progress")).toBeVisible();
-  await section.getByTestId("uncertain-cancel").click();
-  await expect(section.getByTestId("uncertain-cancelled")).toBeVisible();
+  await runAndCancel(section, "uncertain", "100000");
 
   await section.getByTestId("uncertain-draws").fill("10000");
   await resetLongTasks(page);
@@ -71,38 +56,18 @@ test("explorer uncertainty(c2 ~ U[1, 3]) shows the median spend of the closed fo
   await expect(section.getByTestId("tornado-chart")).toContainText(
     "Cost per unit of effort, Rival B",
   );
-  const longTasks = await readLongTasks(page);
-  // A figure for the report, not a timed assertion (speed targets live in benchmarks).
-  console.log(
-    `uncertainty run: long tasks on the page (ms): ${JSON.stringify(longTasks)} at load ${loadavg()[0]!.toFixed(1)}; ` +
-      `traced tasks over 50 ms (wall/CPU ms): ${JSON.stringify(traced.long.map((t) => `${t.wall}/${t.cpu}`))}, ` +
-      `largest task CPU ${traced.maxCpu} ms`,
-  );
+  await logLongTasks(page, "uncertainty run", traced);
   await saveScreen(page, "explorer-uncertainty");
 
   // The spend fan as a 1920 x 1080 slide: one band per rival, drawn as SVG for the slide
-  const png = await download(page, "band-spend-slide-png");
-  expect(pngSize(png.bytes)).toEqual({ width: 1920, height: 1080 });
-  expect((await decodePng(page, png.bytes)).ink, "the PNG has a drawing on it").toBeGreaterThan(
-    0.01,
-  );
-  mkdirSync(path.join(RESULTS_DIR, "slides"), { recursive: true });
-  writeFileSync(path.join(RESULTS_DIR, "slides", "explorer-fan-spend.png"), png.bytes);
-  const svg = (await download(page, "band-spend-slide-svg")).bytes.toString("utf8");
-  const doc = await parseSvg(page, svg);
-  expect(doc).toMatchObject({ error: null, tag: "svg", width: "1920", height: "1080" });
+  await expectPngSlide(page, "band-spend-slide-png", "explorer-fan-spend.png");
+  const { svg, doc } = await expectSvgSlide(page, "band-spend-slide-svg");
   expect(doc.text[0]).toMatch(/^Spend \(.*\) at equilibrium: the range over the draws$/);
   expect(doc.text).toContain("Rival A");
   expect(svg.match(/fill-opacity="0.3"/g), "one P10-P90 band per rival").toHaveLength(2);
   // and the tornado, drawn as SVG for its slide
-  const tornado = await download(page, "tornado-chart-slide-png");
-  expect(pngSize(tornado.bytes)).toEqual({ width: 1920, height: 1080 });
-  writeFileSync(path.join(RESULTS_DIR, "slides", "explorer-tornado.png"), tornado.bytes);
-  const tdoc = await parseSvg(
-    page,
-    (await download(page, "tornado-chart-slide-svg")).bytes.toString("utf8"),
-  );
-  expect(tdoc).toMatchObject({ error: null, tag: "svg", width: "1920", height: "1080" });
+  await expectPngSlide(page, "tornado-chart-slide-png", "explorer-tornado.png");
+  const { doc: tdoc } = await expectSvgSlide(page, "tornado-chart-slide-svg");
   expect(tdoc.text[0]).toMatch(/^Which unknown moves the payoff of Rival [AB] most$/);
   expect(tdoc.text.join(" ")).toContain("Cost per unit of effort, Rival B");
 

@@ -3,6 +3,7 @@
  * ("longtask" entries). Figures for reports, not timed assertions: speed targets live in
  * benchmarks. e2e has no DOM typings, so the page-side code names what it uses.
  */
+import { loadavg } from "node:os";
 import type { Page } from "@playwright/test";
 
 type Global = { __long: number[] };
@@ -126,4 +127,22 @@ export async function traceMainThreadTasks(
     long: tasks.filter((t) => t.dur! > 50_000).map((t) => ({ wall: ms(t.dur), cpu: ms(t.tdur) })),
     maxCpu: Math.max(0, ...tasks.map((t) => ms(t.tdur))),
   };
+}
+
+/**
+ * Prints the page's long tasks (Long Tasks API) and the traced ones with their CPU time, with
+ * the machine's load: a figure for the report, not a timed assertion (speed targets live in
+ * benchmarks).
+ */
+export async function logLongTasks(
+  page: Page,
+  what: string,
+  traced: { long: TracedTask[]; maxCpu: number },
+): Promise<void> {
+  const longTasks = await readLongTasks(page);
+  console.log(
+    `${what}: long tasks on the page (ms): ${JSON.stringify(longTasks)} at load ${loadavg()[0]!.toFixed(1)}; ` +
+      `traced tasks over 50 ms (wall/CPU ms): ${JSON.stringify(traced.long.map((t) => `${t.wall}/${t.cpu}`))}, ` +
+      `largest task CPU ${traced.maxCpu} ms`,
+  );
 }

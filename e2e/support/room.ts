@@ -4,17 +4,38 @@
  * Helpers for the room-readiness journeys: a session played over the socket protocol, the
  * three screen sizes, the no-scroll check, the accessibility scan and the print geometry.
  */
+import { mkdirSync } from "node:fs";
+import path from "node:path";
 import AxeBuilder from "@axe-core/playwright";
 import type { Page } from "@playwright/test";
 import { expect } from "@playwright/test";
 import { connectSession, playRound } from "./session";
 import type { ConnectedSession } from "./session";
+import { RESULTS_DIR } from "./server";
 
 export const SIZES = {
   laptop: { width: 1366, height: 768 },
   projector: { width: 1920, height: 1080 },
   phone: { width: 390, height: 844 },
 } as const;
+
+/**
+ * Screenshots at the laptop, projector and phone sizes, in that order, as
+ * test-results/screens/<name>-<width>x<height>.png: `shoot` takes each (of the viewport, or of
+ * one element) into the file it is given. The viewport is left at the phone size.
+ */
+export async function screensAtSizes(
+  page: Page,
+  name: string,
+  shoot: (file: string) => Promise<unknown>,
+): Promise<void> {
+  const dir = path.join(RESULTS_DIR, "screens");
+  mkdirSync(dir, { recursive: true });
+  for (const size of [SIZES.laptop, SIZES.projector, SIZES.phone]) {
+    await page.setViewportSize(size);
+    await shoot(path.join(dir, `${name}-${size.width}x${size.height}.png`));
+  }
+}
 
 export const ROOM_NAMES = ["Quarry Road Print", "Inkwell Press", "Foxglove Copy Shop"];
 

@@ -3,9 +3,12 @@
  * Checks of downloaded files, chart slides above all: the download's name and bytes, a PNG's
  * size from its IHDR chunk, the PNG decoded by the browser, an SVG parsed as XML.
  */
+import { mkdirSync, writeFileSync } from "node:fs";
 import { readFile } from "node:fs/promises";
+import path from "node:path";
 import type { Page } from "@playwright/test";
 import { expect } from "./fixtures";
+import { RESULTS_DIR } from "./server";
 
 /** Clicks the control with this test id and returns the file it downloads. */
 export async function download(page: Page, testId: string) {
@@ -59,4 +62,29 @@ export async function parseSvg(page: Page, text: string) {
       lines: doc.querySelectorAll("path.recharts-curve").length,
     };
   }, text);
+}
+
+/**
+ * Downloads a chart's PNG slide (the control with this test id), checks it is 1920 x 1080 with
+ * a drawing on it, and keeps it as test-results/slides/<file> for looking at.
+ */
+export async function expectPngSlide(page: Page, testId: string, file: string): Promise<void> {
+  const png = await download(page, testId);
+  expect(pngSize(png.bytes)).toEqual({ width: 1920, height: 1080 });
+  expect((await decodePng(page, png.bytes)).ink, "the PNG has a drawing on it").toBeGreaterThan(
+    0.01,
+  );
+  mkdirSync(path.join(RESULTS_DIR, "slides"), { recursive: true });
+  writeFileSync(path.join(RESULTS_DIR, "slides", file), png.bytes);
+}
+
+/**
+ * Downloads a chart's SVG slide, checks it parses as a 1920 x 1080 SVG, and returns its source
+ * and the parsed document (its text above all).
+ */
+export async function expectSvgSlide(page: Page, testId: string) {
+  const svg = (await download(page, testId)).bytes.toString("utf8");
+  const doc = await parseSvg(page, svg);
+  expect(doc).toMatchObject({ error: null, tag: "svg", width: "1920", height: "1080" });
+  return { svg, doc };
 }
