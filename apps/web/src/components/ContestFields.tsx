@@ -22,6 +22,27 @@ const CSF_OPTIONS = [
 
 type Setter = (update: (f: EditorForm) => EditorForm) => void;
 
+/** The currency every money figure is written in (the editor in both modes, the explorer). */
+export function CurrencyField({
+  form,
+  setForm,
+  errors,
+}: {
+  form: EditorForm;
+  setForm: Setter;
+  errors: FieldErrors;
+}) {
+  return (
+    <TextField
+      label="Currency"
+      {...bindField(form, setForm, "currency")}
+      error={errors.currency}
+      testId="field-currency"
+      hint="($, EUR…)"
+    />
+  );
+}
+
 /** Title, prize, currency and contest form: shared by the editor and the explorer. */
 export function ContestFields({
   form,
@@ -52,13 +73,7 @@ export function ContestFields({
           />
           {extra?.("prize")}
         </div>
-        <TextField
-          label="Currency"
-          {...bind("currency")}
-          error={errors.currency}
-          testId="field-currency"
-          hint="($, EUR…)"
-        />
+        <CurrencyField form={form} setForm={setForm} errors={errors} />
       </div>
       <div className="row" style={{ alignItems: "flex-start" }}>
         <RadioGroup

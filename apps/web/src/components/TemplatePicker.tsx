@@ -65,6 +65,9 @@ export function TemplatePicker() {
                 onClick={() => start(t.id)}
                 testId={`start-template-${t.id}`}
               />
+              <Link className="button" href={`/new?template=${t.id}`}>
+                Edit first
+              </Link>
               <Link className="button" href="/explore/fronts">
                 Explore fronts
               </Link>

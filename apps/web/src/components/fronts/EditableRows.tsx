@@ -28,6 +28,7 @@ export function EditableRows<T>({
   addLabel,
   testId,
   idPrefix,
+  after,
 }: {
   legend: string;
   /** explanation and controls above the table */
@@ -43,6 +44,8 @@ export function EditableRows<T>({
   testId: string;
   /** test ids are `${idPrefix}-${i}-remove` and `${idPrefix}-add` */
   idPrefix: string;
+  /** shown under the table, above the Add button (problems of cells not on show) */
+  after?: ReactNode;
 }) {
   return (
     <fieldset>
@@ -82,6 +85,7 @@ export function EditableRows<T>({
           </tbody>
         </table>
       </div>
+      {after}
       <button type="button" onClick={onAdd} data-testid={`${idPrefix}-add`}>
         {addLabel}
       </button>

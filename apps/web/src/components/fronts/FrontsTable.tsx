@@ -1,5 +1,6 @@
 "use client";
 
+import type { FieldErrors } from "../../lib/formErrors";
 import type { FrontRow, FrontsForm } from "../../lib/frontsForm";
 import { addFront, removeFront } from "../../lib/frontsForm";
 import { SelectField } from "../Field";
@@ -13,8 +14,19 @@ const KINDS = [
   { value: "allpay", label: "All-pay (highest wins)" },
 ] as const;
 
-/** The fronts: name, prize (money), contest form and its parameter; add and remove. */
-export function FrontsTable({ form, setForm }: { form: FrontsForm; setForm: Setter }) {
+/**
+ * The fronts: name, prize (money), contest form and its parameter; add and remove. With
+ * `errors` (field path -> message, the session editor) each cell shows its own problem.
+ */
+export function FrontsTable({
+  form,
+  setForm,
+  errors = {},
+}: {
+  form: FrontsForm;
+  setForm: Setter;
+  errors?: FieldErrors;
+}) {
   const patch = (k: number, p: Partial<FrontRow>) =>
     setForm((f) => ({ ...f, fronts: f.fronts.map((x, j) => (j === k ? { ...x, ...p } : x)) }));
   const cur = form.currency.trim();
@@ -43,6 +55,7 @@ export function FrontsTable({ form, setForm }: { form: FrontsForm; setForm: Sett
             label={`Front ${k + 1} name`}
             value={fr.name}
             onChange={(v) => patch(k, { name: v })}
+            error={errors[`fronts.${k}.name`]}
             testId={`front-${k}-name`}
           />
           <CellField
@@ -50,6 +63,7 @@ export function FrontsTable({ form, setForm }: { form: FrontsForm; setForm: Sett
             label={`Front ${k + 1} prize`}
             value={fr.prize}
             onChange={(v) => patch(k, { prize: v })}
+            error={errors[`fronts.${k}.prize`]}
             testId={`front-${k}-prize`}
           />
           <td>
@@ -59,6 +73,7 @@ export function FrontsTable({ form, setForm }: { form: FrontsForm; setForm: Sett
               value={fr.kind}
               options={KINDS}
               onChange={(v) => patch(k, { kind: v })}
+              error={errors[`fronts.${k}.csf.kind`]}
               testId={`front-${k}-kind`}
             />
           </td>
@@ -69,6 +84,7 @@ export function FrontsTable({ form, setForm }: { form: FrontsForm; setForm: Sett
             value={fr.kind === "allpay" ? "" : fr.param}
             {...(fr.kind === "allpay" ? { placeholder: "none" } : {})}
             onChange={(v) => patch(k, { param: v })}
+            error={errors[`fronts.${k}.csf.${fr.kind === "logit" ? "scale" : "decisiveness"}`]}
             testId={`front-${k}-param`}
           />
         </>
