@@ -9,7 +9,7 @@ import { formatMoney, formatNumber, formatPercent, formatPlain } from "../../lib
 import { whole } from "../../lib/rangeForm";
 import { DataTable } from "../DataTable";
 import { TextField } from "../Field";
-import { ProgressBar } from "../ProgressBar";
+import { readSeed, RunOrCancel, RunProgress, SeedField } from "../RunControls";
 import { BandSweepChart } from "./BandSweepChart";
 
 /** Most draws x points one run may ask for (about 20 s for ten rivals on a laptop). */
@@ -37,7 +37,7 @@ export function SweepBands({
   const { state, start, cancel } = useUncertainWorker<Parsed<BandSweep>>();
   const axis = useMemo(() => planAxis(scenario, spec, "sweep", MAX_STEPS_1D), [scenario, spec]);
   const draws = whole(drawsText, 10, 100_000);
-  const seed = whole(seedText, 0, 2 ** 32 - 1);
+  const seed = readSeed(seedText);
   const points = axis.ok ? axis.value.values.length : 0;
   const tooMany = draws !== null && points * draws > MAX_SOLVES;
   const canRun = axis.ok && draws !== null && seed !== null && !tooMany;
@@ -79,43 +79,18 @@ export function SweepBands({
                 : undefined
           }
         />
-        <TextField
-          label="Seed"
-          numeric
-          width="8rem"
-          value={seedText}
-          onChange={setSeedText}
-          testId="bands-seed"
-          error={seed === null ? "a whole number from 0 to 4294967295" : undefined}
+        <SeedField text={seedText} onChange={setSeedText} testId="bands-seed" />
+        <RunOrCancel
+          running={state.status === "running"}
+          onRun={run}
+          onCancel={cancel}
+          runLabel="Run bands"
+          testId="bands"
+          disabled={!canRun}
         />
-        <div className="field">
-          <span aria-hidden="true">&nbsp;</span>
-          {state.status === "running" ? (
-            <button type="button" onClick={cancel} data-testid="bands-cancel">
-              Cancel
-            </button>
-          ) : (
-            <button type="button" onClick={run} disabled={!canRun} data-testid="bands-run">
-              Run bands
-            </button>
-          )}
-        </div>
       </div>
       <div style={{ minHeight: "2.2rem" }} aria-live="polite">
-        {state.status === "running" && (
-          <ProgressBar
-            done={state.done}
-            total={state.total}
-            label="Sweep values done"
-            unit="values"
-            testId="bands-progress"
-          />
-        )}
-        {state.status === "idle" && state.cancelled && (
-          <p className="small muted" data-testid="bands-cancelled">
-            Cancelled.
-          </p>
-        )}
+        <RunProgress state={state} label="Sweep values done" unit="values" testId="bands" />
         {state.status === "error" && <p className="field-error">{state.message}</p>}
         {state.status === "done" && !state.value.ok && (
           <p className="field-error">

@@ -5,7 +5,7 @@ import type { SweepState } from "../../hooks/useSweepWorker";
 import type { AxisText } from "../../hooks/useSweepAxis";
 import { formatNumber } from "../../lib/format";
 import { SelectField, TextField } from "../Field";
-import { ProgressBar } from "../ProgressBar";
+import { RunOrCancel, RunProgress } from "../RunControls";
 
 /** Errors the axis fields show beside themselves; any other sweep error shows below the row. */
 const FIELD_PATHS = ["sweep.param", "sweep.from", "sweep.to", "sweep.steps"];
@@ -69,29 +69,17 @@ export function SweepControls({
           testId="sweep-steps"
           width="7rem"
         />
-        <div className="field">
-          <span aria-hidden="true">&nbsp;</span>
-          {state.status === "running" ? (
-            <button type="button" onClick={cancel} data-testid="sweep-cancel">
-              Cancel
-            </button>
-          ) : (
-            <button type="button" className="primary" onClick={run} data-testid="sweep-run">
-              Run sweep
-            </button>
-          )}
-        </div>
+        <RunOrCancel
+          running={state.status === "running"}
+          onRun={run}
+          onCancel={cancel}
+          runLabel="Run sweep"
+          testId="sweep"
+          primary
+        />
       </div>
       <div style={{ minHeight: "2.2rem" }} aria-live="polite">
-        {state.status === "running" && (
-          <ProgressBar
-            done={state.done}
-            total={state.total}
-            label="Sweep progress"
-            unit="points"
-            testId="sweep-progress"
-          />
-        )}
+        <RunProgress state={state} label="Sweep progress" unit="points" testId="sweep" />
         {state.status === "done" && (
           <p className="small muted" data-testid="sweep-status">
             {state.sweep.values.length} points in {formatNumber(state.ms, 0)} ms

@@ -6,7 +6,7 @@ import { useUncertainRun } from "../../hooks/useUncertainRun";
 import { formatNumber } from "../../lib/format";
 import type { BuiltUncertain, RangeField, RangeForm } from "../../lib/rangeForm";
 import { SelectField, TextField } from "../Field";
-import { ProgressBar } from "../ProgressBar";
+import { readSeed, RunOrCancel, RunProgress, SeedField } from "../RunControls";
 import { UncertainResults } from "./UncertainResults";
 import { whole } from "../../lib/rangeForm";
 
@@ -33,7 +33,7 @@ export function UncertaintySection({
   const [plan, setPlan] = useState("0");
   const { state, run, cancel } = useUncertainRun();
   const draws = whole(drawsText, 1, MAX_DRAWS_UI);
-  const seed = whole(seedText, 0, 2 ** 32 - 1);
+  const seed = readSeed(seedText);
   const names = scenario?.rivals.map((r) => r.name) ?? [];
   const labelOf = useMemo(() => {
     const m = new Map(fields.map((f) => [f.path, f.label]));
@@ -105,15 +105,7 @@ export function UncertaintySection({
             draws === null ? `a whole number from 1 to ${formatNumber(MAX_DRAWS_UI, 0)}` : undefined
           }
         />
-        <TextField
-          label="Seed"
-          numeric
-          width="8rem"
-          value={seedText}
-          onChange={setSeedText}
-          testId="uncertain-seed"
-          error={seed === null ? "a whole number from 0 to 4294967295" : undefined}
-        />
+        <SeedField text={seedText} onChange={setSeedText} testId="uncertain-seed" />
         <SelectField
           label="Robust plan for"
           value={plan}
@@ -124,43 +116,21 @@ export function UncertaintySection({
           onChange={setPlan}
           testId="uncertain-plan"
         />
-        <div className="field">
-          <span aria-hidden="true">&nbsp;</span>
-          {state.status === "running" ? (
-            <button type="button" onClick={cancel} data-testid="uncertain-cancel">
-              Cancel
-            </button>
-          ) : (
-            <button
-              type="button"
-              className="primary"
-              onClick={start}
-              disabled={!canRun}
-              data-testid="uncertain-run"
-            >
-              Run draws
-            </button>
-          )}
-        </div>
+        <RunOrCancel
+          running={state.status === "running"}
+          onRun={start}
+          onCancel={cancel}
+          runLabel="Run draws"
+          testId="uncertain"
+          disabled={!canRun}
+          primary
+        />
       </div>
       <div style={{ minHeight: "2.2rem" }} aria-live="polite">
         {built?.ok && built.count === 0 && (
           <p className="small muted">Switch at least one number to a range to run draws.</p>
         )}
-        {state.status === "running" && (
-          <ProgressBar
-            done={state.done}
-            total={state.total}
-            label="Draws done"
-            unit="draws"
-            testId="uncertain-progress"
-          />
-        )}
-        {state.status === "idle" && state.cancelled && (
-          <p className="small muted" data-testid="uncertain-cancelled">
-            Cancelled.
-          </p>
-        )}
+        <RunProgress state={state} label="Draws done" unit="draws" testId="uncertain" />
         {state.status === "error" && <p className="field-error">{state.message}</p>}
       </div>
       {state.status === "done" && (

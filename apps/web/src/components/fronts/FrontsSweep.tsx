@@ -12,7 +12,7 @@ import { useFrontsSweepRun } from "../../hooks/useFrontsWorker";
 import { DataTable } from "../DataTable";
 import { SelectField, TextField } from "../Field";
 import { LineSeriesChart } from "../LineSeriesChart";
-import { ProgressBar } from "../ProgressBar";
+import { RunProgress } from "../RunControls";
 
 const STEPS_MAX = 101;
 
@@ -98,6 +98,7 @@ export function FrontsSweep({
           onChange={(v) => set({ metric: v })}
           testId="fronts-sweep-metric"
         />
+        {/* its own pair, not RunOrCancel: keyed buttons, no spacer above, "Cancel sweep" */}
         <div className="field">
           {state.status === "running" ? (
             // distinct keys: a click meant for Cancel never lands on Run after a sweep ends
@@ -117,20 +118,13 @@ export function FrontsSweep({
         </div>
       </div>
       <div aria-live="polite">
-        {state.status === "running" && (
-          <ProgressBar
-            done={state.done}
-            total={state.total}
-            label="Sweep points solved"
-            unit="points"
-            testId="fronts-sweep-progress"
-          />
-        )}
-        {state.status === "idle" && state.cancelled && (
-          <p className="small muted" data-testid="fronts-sweep-cancelled">
-            Sweep cancelled.
-          </p>
-        )}
+        <RunProgress
+          state={state}
+          label="Sweep points solved"
+          unit="points"
+          testId="fronts-sweep"
+          cancelled="Sweep cancelled."
+        />
         {state.status === "error" && (
           <p className="field-error" role="alert">
             {state.message}
