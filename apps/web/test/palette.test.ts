@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { contrastRatio, EQUILIBRIUM_COLOUR, SCREEN, SERIES_COLOURS } from "../src/lib/palette";
+import {
+  chartInk,
+  contrastRatio,
+  EQUILIBRIUM_COLOUR,
+  PAPER,
+  SCREEN,
+  SERIES_COLOURS,
+} from "../src/lib/palette";
 
 describe("contrast (WCAG 2.1 definitions of relative luminance and contrast ratio)", () => {
   it("matches the definition's end points and a value computed by hand", () => {
@@ -30,5 +37,11 @@ describe("contrast (WCAG 2.1 definitions of relative luminance and contrast rati
     for (const text of [...SERIES_COLOURS, EQUILIBRIUM_COLOUR]) {
       expect(contrastRatio(text, "#ffffff"), `${text} on white`).toBeGreaterThanOrEqual(4.5);
     }
+  });
+
+  it("chart axis labels on white reach 4.5:1; the dark charts take the big screen's colours", () => {
+    expect(contrastRatio(PAPER.axis, "#ffffff")).toBeGreaterThanOrEqual(4.5);
+    expect(chartInk()).toEqual(PAPER);
+    expect(chartInk(true)).toEqual({ axis: SCREEN.axis, grid: SCREEN.grid });
   });
 });

@@ -12,7 +12,9 @@ import {
   YAxis,
 } from "recharts";
 import { useRef } from "react";
+import { axesUnits, CAPTIONED_MARGIN, numberXAxis, seriesLine, valueYAxis } from "../lib/chartAxes";
 import { wholeNumberTicks } from "../lib/chartData";
+import { chartInk } from "../lib/palette";
 import { ChartWithSlide } from "./ChartSlideDownload";
 import type { SlideText } from "./ChartSlideDownload";
 import type { AxisMark, Row } from "../lib/chartData";
@@ -58,10 +60,9 @@ export function LineSeriesChart({
   maxXTicks?: number;
 }) {
   const ref = useRef<HTMLDivElement>(null);
-  const axis = dark ? "#c9d4e0" : "#4a5565";
+  const { axis, grid } = chartInk(dark);
   // Rounds (every x a whole number) get one tick per round, never "1, 2, 2, 3".
   const ticks = wholeNumberTicks(rows, xKey, maxXTicks);
-  const grid = dark ? "#2a3848" : "#e3e7ec";
   // `staged`: the copy drawn off screen at slide proportions, for ChartSlideDownload.
   const draw = (staged: boolean) => (
     <div
@@ -79,31 +80,16 @@ export function LineSeriesChart({
       }`}
     >
       <ResponsiveContainer width="100%" height="100%">
-        <LineChart data={rows as Row[]} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
+        <LineChart data={rows as Row[]} margin={CAPTIONED_MARGIN}>
           <CartesianGrid stroke={grid} />
           <XAxis
+            {...numberXAxis(xLabel, formatX, axis)}
             dataKey={xKey}
-            type="number"
-            domain={["dataMin", "dataMax"]}
             ticks={ticks ?? undefined}
             allowDecimals={ticks === null}
             interval={ticks === null ? undefined : 0}
-            tickFormatter={formatX}
-            stroke={axis}
-            label={{ value: xLabel, position: "insideBottom", offset: -12, fill: axis }}
           />
-          <YAxis
-            tickFormatter={formatY}
-            stroke={axis}
-            width={72}
-            label={{
-              value: yLabel,
-              angle: -90,
-              position: "insideLeft",
-              fill: axis,
-              style: { textAnchor: "middle" },
-            }}
-          />
+          <YAxis {...valueYAxis(yLabel, formatY, axis)} />
           <Tooltip
             formatter={(v) => (typeof v === "number" && formatY ? formatY(v) : String(v))}
             labelFormatter={(v) =>
@@ -135,12 +121,8 @@ export function LineSeriesChart({
               dataKey={s.key}
               name={s.name}
               stroke={s.colour}
-              strokeWidth={2}
               strokeDasharray={s.dashed ? "6 4" : undefined}
-              dot={rows.length <= 20}
-              connectNulls={false}
-              isAnimationActive={false}
-              type="linear"
+              {...seriesLine(rows.length)}
             />
           ))}
         </LineChart>
@@ -152,7 +134,7 @@ export function LineSeriesChart({
       draw={draw}
       chartRef={ref}
       slide={slide}
-      units={`Vertical: ${yLabel} · across: ${xLabel}`}
+      units={axesUnits(yLabel, xLabel)}
       legend={series}
       testId={testId}
     />

@@ -3,7 +3,7 @@
 import { Fragment } from "react";
 import type { KeyboardEvent, MouseEvent } from "react";
 import type { CurvePoint } from "../lib/brCurves";
-import { seriesColour } from "../lib/palette";
+import { PAPER, seriesColour } from "../lib/palette";
 
 const W = 520;
 const H = 400;
@@ -92,10 +92,10 @@ export function ReactionChart({
         <g key={t}>
           <line x1={sx(t)} x2={sx(t)} y1={PAD.top} y2={PAD.top + ih} stroke="#eceff3" />
           <line x1={PAD.left} x2={PAD.left + iw} y1={sy(t)} y2={sy(t)} stroke="#eceff3" />
-          <text x={sx(t)} y={PAD.top + ih + 16} fontSize="11" textAnchor="middle" fill="#4a5565">
+          <text x={sx(t)} y={PAD.top + ih + 16} fontSize="11" textAnchor="middle" fill={PAPER.axis}>
             {format(t)}
           </text>
-          <text x={PAD.left - 6} y={sy(t) + 4} fontSize="11" textAnchor="end" fill="#4a5565">
+          <text x={PAD.left - 6} y={sy(t) + 4} fontSize="11" textAnchor="end" fill={PAPER.axis}>
             {format(t)}
           </text>
         </g>

@@ -42,6 +42,17 @@ export const SCREEN = {
   series: ["#5ed1c6", "#f0a04b", "#8fb4ff", "#f58fbf", "#b5d86a", "#56b4e9", "#e0b48a", "#c3a5f0"],
 } as const;
 
+/**
+ * A chart's axis lines and tick labels (4.5:1 on white, checked in test/palette.test.ts) and its
+ * grid lines (decoration, no contrast needed), on white.
+ */
+export const PAPER = { axis: "#4a5565", grid: "#e3e7ec" } as const;
+
+/** A chart's axis and grid colours: the big screen's on its dark ground, else on white. */
+export function chartInk(dark = false): { axis: string; grid: string } {
+  return dark ? { axis: SCREEN.axis, grid: SCREEN.grid } : PAPER;
+}
+
 export function screenSeriesColour(i: number): string {
   return SCREEN.series[i % SCREEN.series.length] as string;
 }

@@ -2,7 +2,7 @@
 
 import { useRef } from "react";
 import type { Band } from "@contend/solver";
-import { seriesColour } from "../../lib/palette";
+import { PAPER, seriesColour } from "../../lib/palette";
 import { ChartSlideDownload } from "../ChartSlideDownload";
 import styles from "./UncertainCharts.module.css";
 
@@ -146,7 +146,7 @@ function FanDrawing({
             <text x={0} y={mid + 5} fill="#14202c">
               {name.length > 22 ? `${name.slice(0, 21)}…` : name}
             </text>
-            <line x1={FAN.left} x2={FAN.left + track} y1={mid} y2={mid} stroke="#e3e7ec" />
+            <line x1={FAN.left} x2={FAN.left + track} y1={mid} y2={mid} stroke={PAPER.grid} />
             {isNum(p10) && isNum(p90) && (
               <rect
                 x={sx(p10)}
@@ -171,14 +171,14 @@ function FanDrawing({
         x2={FAN.left + track}
         y1={names.length * FAN.row}
         y2={names.length * FAN.row}
-        stroke="#4a5565"
+        stroke={PAPER.axis}
       />
       {ticks.map((t, k) => (
         <text
           key={k}
           x={sx(t)}
           y={names.length * FAN.row + 24}
-          fill="#4a5565"
+          fill={PAPER.axis}
           textAnchor={k === 0 ? "start" : k === 1 ? "middle" : "end"}
         >
           {format(t)}

@@ -14,7 +14,14 @@ import {
 } from "recharts";
 import { bandMidKey, bandPairKey } from "../../lib/bandRows";
 import type { BandRows } from "../../lib/bandRows";
-import { seriesColour } from "../../lib/palette";
+import {
+  axesUnits,
+  CAPTIONED_MARGIN,
+  numberXAxis,
+  seriesLine,
+  valueYAxis,
+} from "../../lib/chartAxes";
+import { chartInk, seriesColour } from "../../lib/palette";
 import { ChartWithSlide } from "../ChartSlideDownload";
 import type { SlideText } from "../ChartSlideDownload";
 
@@ -43,7 +50,7 @@ export function BandSweepChart({
   slide?: SlideText;
 }) {
   const ref = useRef<HTMLDivElement>(null);
-  const axis = "#4a5565";
+  const { axis, grid } = chartInk();
   // `staged`: the copy drawn off screen at slide proportions, for ChartSlideDownload.
   const draw = (staged: boolean) => (
     <div
@@ -55,28 +62,10 @@ export function BandSweepChart({
       aria-label={`Chart: ${yLabel} against ${xLabel}, for ${names.join(", ")}: a band from the 10th to the 90th percentile over the draws and a line at the median. The table below lists the same numbers.`}
     >
       <ResponsiveContainer width="100%" height="100%">
-        <ComposedChart data={rows} margin={{ top: 8, right: 16, bottom: 24, left: 8 }}>
-          <CartesianGrid stroke="#e3e7ec" />
-          <XAxis
-            dataKey="x"
-            type="number"
-            domain={["dataMin", "dataMax"]}
-            tickFormatter={formatX}
-            stroke={axis}
-            label={{ value: xLabel, position: "insideBottom", offset: -12, fill: axis }}
-          />
-          <YAxis
-            tickFormatter={formatY}
-            stroke={axis}
-            width={72}
-            label={{
-              value: yLabel,
-              angle: -90,
-              position: "insideLeft",
-              fill: axis,
-              style: { textAnchor: "middle" },
-            }}
-          />
+        <ComposedChart data={rows} margin={CAPTIONED_MARGIN}>
+          <CartesianGrid stroke={grid} />
+          <XAxis {...numberXAxis(xLabel, formatX, axis)} dataKey="x" />
+          <YAxis {...valueYAxis(yLabel, formatY, axis)} />
           <Tooltip
             formatter={(v) =>
               Array.isArray(v)
@@ -106,11 +95,7 @@ export function BandSweepChart({
               dataKey={bandMidKey(i)}
               name={`${n} median`}
               stroke={seriesColour(i)}
-              strokeWidth={2}
-              dot={rows.length <= 20}
-              connectNulls={false}
-              isAnimationActive={false}
-              type="linear"
+              {...seriesLine(rows.length)}
             />
           ))}
         </ComposedChart>
@@ -122,7 +107,7 @@ export function BandSweepChart({
       draw={draw}
       chartRef={ref}
       slide={slide}
-      units={`Vertical: ${yLabel} · across: ${xLabel}`}
+      units={axesUnits(yLabel, xLabel)}
       legend={names.map((n, i) => ({
         name: `${n}: median, shaded P10-P90`,
         colour: seriesColour(i),

@@ -3,7 +3,7 @@
 import { useRef } from "react";
 import type { Contest, Equilibrium, MixedStrategy } from "@contend/solver";
 import { formatMoney, formatPercent } from "../../lib/format";
-import { seriesColour } from "../../lib/palette";
+import { PAPER, seriesColour } from "../../lib/palette";
 import { ChartSlideDownload } from "../ChartSlideDownload";
 import styles from "./MixedStrategyChart.module.css";
 
@@ -166,7 +166,7 @@ function MixedDrawing({
             <text x={0} y={floor - tall / 2} fill="#14202c">
               {rv.name.length > 22 ? `${rv.name.slice(0, 21)}…` : rv.name}
             </text>
-            <line x1={MIX.left} x2={MIX.left + track} y1={floor} y2={floor} stroke="#e3e7ec" />
+            <line x1={MIX.left} x2={MIX.left + track} y1={floor} y2={floor} stroke={PAPER.grid} />
             {s.points
               ? s.points
                   .filter((p) => p.probability > 0)
@@ -195,13 +195,13 @@ function MixedDrawing({
           </g>
         );
       })}
-      <line x1={MIX.left} x2={MIX.left + track} y1={base} y2={base} stroke="#4a5565" />
+      <line x1={MIX.left} x2={MIX.left + track} y1={base} y2={base} stroke={PAPER.axis} />
       {[0, top / 2, top].map((t, k) => (
         <text
           key={k}
           x={sx(t)}
           y={base + 24}
-          fill="#4a5565"
+          fill={PAPER.axis}
           textAnchor={k === 0 ? "start" : k === 1 ? "middle" : "end"}
         >
           {money(t)}

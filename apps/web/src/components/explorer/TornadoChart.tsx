@@ -2,7 +2,7 @@
 
 import { useRef } from "react";
 import type { TornadoRow } from "@contend/solver";
-import { seriesColour } from "../../lib/palette";
+import { PAPER, seriesColour } from "../../lib/palette";
 import { ChartSlideDownload } from "../ChartSlideDownload";
 import { isNum } from "./BandChart";
 import styles from "./UncertainCharts.module.css";
@@ -148,7 +148,7 @@ function TornadoDrawing({
                 </text>
               </>
             ) : (
-              <text x={zero + 6} y={mid + 5} fill="#4a5565">
+              <text x={zero + 6} y={mid + 5} fill={PAPER.axis}>
                 no pure equilibrium at one end
               </text>
             )}

@@ -12,7 +12,8 @@ import {
   YAxis,
 } from "recharts";
 import { formatMoney, formatNumber } from "../../lib/format";
-import { seriesColour } from "../../lib/palette";
+import { yAxisCaption } from "../../lib/chartAxes";
+import { PAPER, seriesColour } from "../../lib/palette";
 import { ChartWithSlide } from "../ChartSlideDownload";
 import type { FrontsView } from "./FrontsResults";
 
@@ -37,7 +38,7 @@ export function AllocationChart({ fc, eq, currency }: FrontsView) {
     >
       <ResponsiveContainer width="100%" height="100%">
         <BarChart data={rows} margin={{ top: 8, right: 8, bottom: 8, left: 8 }}>
-          <CartesianGrid stroke="#e3e7ec" vertical={false} />
+          <CartesianGrid stroke={PAPER.grid} vertical={false} />
           <XAxis
             dataKey="name"
             interval={0}
@@ -48,12 +49,7 @@ export function AllocationChart({ fc, eq, currency }: FrontsView) {
           <YAxis
             tickFormatter={(v: number) => formatNumber(v)}
             width={72}
-            label={{
-              value: `Spend (${currency ?? "money"})`,
-              angle: -90,
-              position: "insideLeft",
-              style: { textAnchor: "middle" },
-            }}
+            label={yAxisCaption(`Spend (${currency ?? "money"})`)}
           />
           <Tooltip
             formatter={(v) => (typeof v === "number" ? formatMoney(v, currency) : String(v))}

@@ -15,7 +15,7 @@ import type { RoundResult } from "@contend/protocol";
 import { spendPlacement } from "@contend/session";
 import { roundSeatRows, type Row } from "../../lib/chartData";
 import { formatMoney, formatPercent } from "../../lib/format";
-import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
+import { chartInk, EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { DataTable } from "../DataTable";
 import { Kpi } from "../Kpi";
 import { Term } from "../Glossary";
@@ -47,7 +47,7 @@ export function RoundResults({
     below: mixed ? (spendPlacement(round, Number(r.seat))?.probabilityLess ?? null) : null,
   }));
   const money = (v: number) => formatMoney(v, currency);
-  const axis = dark ? "#c9d4e0" : "#4a5565";
+  const { axis, grid } = chartInk(dark);
   const eqKind = round.equilibrium.kind;
   const reasons = round.moveReasons ?? null;
   return (
@@ -85,7 +85,7 @@ export function RoundResults({
       >
         <ResponsiveContainer width="100%" height="100%">
           <BarChart data={rows} margin={{ top: 8, right: 8, bottom: 8, left: 8 }}>
-            <CartesianGrid stroke={dark ? "#2a3848" : "#e3e7ec"} vertical={false} />
+            <CartesianGrid stroke={grid} vertical={false} />
             <XAxis
               dataKey="name"
               stroke={axis}
