@@ -8,21 +8,10 @@ import { LIMITS } from "@contend/protocol";
 import type { SessionFilter, SessionPatch } from "@contend/protocol";
 import type { Prisma } from "../generated/prisma/client";
 import type { Db, LibraryEntry } from "../types";
+import { summarySelect } from "./rows";
 
 const ENDED = "session-ended";
 const RESOLVED = "round-resolved";
-
-const entrySelect = {
-  id: true,
-  joinCode: true,
-  title: true,
-  status: true,
-  lastSeq: true,
-  createdAt: true,
-  updatedAt: true,
-  tags: true,
-  archivedAt: true,
-} as const;
 
 export type UpdateEntryResult =
   | { ok: true; entry: LibraryEntry }
@@ -57,7 +46,7 @@ export function nextTags(
 export function libraryRepository(db: Db) {
   /** Adds when each session ended and how many rounds it resolved. */
   async function entries(
-    rows: Prisma.SessionGetPayload<{ select: typeof entrySelect }>[],
+    rows: Prisma.SessionGetPayload<{ select: typeof summarySelect }>[],
   ): Promise<LibraryEntry[]> {
     if (rows.length === 0) return [];
     const ids = rows.map((r) => r.id);
@@ -107,7 +96,7 @@ export function libraryRepository(db: Db) {
       };
       const rows = await db.session.findMany({
         where,
-        select: entrySelect,
+        select: summarySelect,
         orderBy: [{ updatedAt: "desc" }, { id: "asc" }],
       });
       return entries(rows);
@@ -115,7 +104,7 @@ export function libraryRepository(db: Db) {
 
     /** One session's library entry, or null. */
     async entry(id: string): Promise<LibraryEntry | null> {
-      const row = await db.session.findUnique({ where: { id }, select: entrySelect });
+      const row = await db.session.findUnique({ where: { id }, select: summarySelect });
       return row ? ((await entries([row]))[0] ?? null) : null;
     },
 

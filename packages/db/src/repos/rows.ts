@@ -24,6 +24,19 @@ export function jsonb(value: unknown): Prisma.Sql {
   return Prisma.sql`${jsonText(value)}::jsonb`;
 }
 
+/** The columns of a session's summary (SessionSummary): lists, the library and its entries. */
+export const summarySelect = {
+  id: true,
+  joinCode: true,
+  title: true,
+  status: true,
+  lastSeq: true,
+  createdAt: true,
+  updatedAt: true,
+  tags: true,
+  archivedAt: true,
+} as const;
+
 export function seatRecord(row: {
   index: number;
   name: string;

@@ -1,7 +1,7 @@
 import type { Db, KeyInput, NewEvent, SeatInput, SessionRecord, SessionSummary } from "../types";
 import { keyRows } from "./keys";
 import { insertEvents } from "./events";
-import { isUniqueViolation, jsonb, seatRecord } from "./rows";
+import { isUniqueViolation, jsonb, seatRecord, summarySelect } from "./rows";
 
 export interface CreateSessionInput {
   id: string;
@@ -20,18 +20,6 @@ export type CreateSessionResult =
   | { ok: true; session: SessionRecord }
   /** id or joinCode already taken: draw new ones and try again */
   | { ok: false; code: "conflict"; field: "id" | "joinCode" };
-
-const summarySelect = {
-  id: true,
-  joinCode: true,
-  title: true,
-  status: true,
-  lastSeq: true,
-  createdAt: true,
-  updatedAt: true,
-  tags: true,
-  archivedAt: true,
-} as const;
 
 const withSeats = { seats: { orderBy: { index: "asc" } } } as const;
 
