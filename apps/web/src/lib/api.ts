@@ -35,6 +35,31 @@ export async function readError(
   };
 }
 
+/** A request that never reached the server (offline, refused, blocked), as a result. */
+function unreachable(e: unknown): ApiResult<never> {
+  return {
+    ok: false,
+    status: 0,
+    code: "network",
+    path: "",
+    message: `cannot reach the server (${(e as Error).message})`,
+  };
+}
+
+/** DELETE `path` with the key in the Authorization header; the body, if any, is not read. */
+export async function deleteWithKey(path: string, key: string): Promise<ApiResult<null>> {
+  try {
+    const res = await fetch(apiUrl(path), {
+      method: "DELETE",
+      headers: { authorization: `Bearer ${key}` },
+    });
+    if (!res.ok) return { ok: false, status: res.status, ...(await readError(res)) };
+    return { ok: true, data: null };
+  } catch (e) {
+    return unreachable(e);
+  }
+}
+
 export async function request<T>(path: string, init?: RequestInit): Promise<ApiResult<T>> {
   let res: Response;
   try {
@@ -43,13 +68,7 @@ export async function request<T>(path: string, init?: RequestInit): Promise<ApiR
       headers: { accept: "application/json", ...(init?.headers ?? {}) },
     });
   } catch (e) {
-    return {
-      ok: false,
-      status: 0,
-      code: "network",
-      path: "",
-      message: `cannot reach the server (${(e as Error).message})`,
-    };
+    return unreachable(e);
   }
   if (!res.ok) return { ok: false, status: res.status, ...(await readError(res)) };
   return { ok: true, data: (await res.json()) as T };
@@ -114,34 +133,13 @@ export async function exportFile(
       data: { blob: await res.blob(), fileName: named ?? `session-${id}.${format}` },
     };
   } catch (e) {
-    return {
-      ok: false,
-      status: 0,
-      code: "network",
-      path: "",
-      message: `cannot reach the server (${(e as Error).message})`,
-    };
+    return unreachable(e);
   }
 }
 
 /** DELETE /api/sessions/<id>: final. */
-export async function deleteSession(id: string, key: string): Promise<ApiResult<null>> {
-  try {
-    const res = await fetch(apiUrl(`/api/sessions/${encodeURIComponent(id)}`), {
-      method: "DELETE",
-      headers: { authorization: `Bearer ${key}` },
-    });
-    if (!res.ok) return { ok: false, status: res.status, ...(await readError(res)) };
-    return { ok: true, data: null };
-  } catch (e) {
-    return {
-      ok: false,
-      status: 0,
-      code: "network",
-      path: "",
-      message: `cannot reach the server (${(e as Error).message})`,
-    };
-  }
+export function deleteSession(id: string, key: string): Promise<ApiResult<null>> {
+  return deleteWithKey(`/api/sessions/${encodeURIComponent(id)}`, key);
 }
 
 /** A page link with its key in the fragment, which the browser never sends to a server. */

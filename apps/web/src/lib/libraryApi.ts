@@ -9,7 +9,7 @@ import type {
   SessionListItem,
   SessionPatch,
 } from "@contend/protocol";
-import { apiUrl, listMySessions, listSessions, readError, request } from "./api";
+import { deleteWithKey, listMySessions, listSessions, request } from "./api";
 import type { ApiResult } from "./api";
 import type { HeldKey } from "./keyring";
 
@@ -167,21 +167,6 @@ export function getVersion(id: string, key: string, version: number) {
 }
 
 /** DELETE /api/scenarios/<id>: every version goes. */
-export async function deleteScenario(id: string, key: string): Promise<ApiResult<null>> {
-  try {
-    const res = await fetch(apiUrl(`/api/scenarios/${encodeURIComponent(id)}`), {
-      method: "DELETE",
-      headers: bearer(key),
-    });
-    if (!res.ok) return { ok: false, status: res.status, ...(await readError(res)) };
-    return { ok: true, data: null };
-  } catch (e) {
-    return {
-      ok: false,
-      status: 0,
-      code: "network",
-      path: "",
-      message: `cannot reach the server (${(e as Error).message})`,
-    };
-  }
+export function deleteScenario(id: string, key: string): Promise<ApiResult<null>> {
+  return deleteWithKey(`/api/scenarios/${encodeURIComponent(id)}`, key);
 }
