@@ -46,6 +46,30 @@ export function describe(x: unknown): string {
   return typeof x;
 }
 
+/** A title or name: a non-empty string of at most `max` characters; else the problem at `path`. */
+export function checkText(x: unknown, path: string, max: number): Parsed<string> {
+  if (typeof x !== "string" || x.trim() === "") {
+    return fail(path, `must be a non-empty string (got ${describe(x)})`);
+  }
+  if (x.length > max) return fail(path, `must be at most ${max} characters (got ${x.length})`);
+  return { ok: true, value: x };
+}
+
+/**
+ * A scenario's optional `currency` label: absent stays undefined, null stays null, anything else
+ * must be a string of at most LIMITS.currencyMax characters.
+ */
+export function checkCurrency(x: unknown): Parsed<string | null | undefined> {
+  if (x === undefined || x === null) return { ok: true, value: x };
+  if (typeof x !== "string" || x.length > LIMITS.currencyMax) {
+    return fail(
+      "currency",
+      `must be a string of at most ${LIMITS.currencyMax} characters (got ${describe(x)})`,
+    );
+  }
+  return { ok: true, value: x };
+}
+
 function join(prefix: string, key: string | number): string {
   return prefix === "" ? String(key) : `${prefix}.${key}`;
 }
@@ -116,16 +140,9 @@ function validateRival(x: unknown, i: number): Parsed<RivalSpec> {
   if (!isRecord(x)) return fail(path, `must be an object with at least "name" and "cost"`);
   const extra = unknownField(x, RIVAL_FIELDS, path);
   if (extra) return extra;
-  const name = x.name;
-  if (typeof name !== "string" || name.trim() === "") {
-    return fail(`${path}.name`, `must be a non-empty string (got ${describe(name)})`);
-  }
-  if (name.length > LIMITS.nameMax) {
-    return fail(
-      `${path}.name`,
-      `must be at most ${LIMITS.nameMax} characters (got ${name.length})`,
-    );
-  }
+  const named = checkText(x.name, `${path}.name`, LIMITS.nameMax);
+  if (!named.ok) return named;
+  const name = named.value;
   const bad =
     checkNumber(x.cost, `${path}.cost`, POSITIVE) ??
     optionalNumber(x, "value", `${path}.value`, POSITIVE) ??
@@ -154,13 +171,9 @@ export function validateScenario(input: unknown): Parsed<Scenario> {
   const extra = unknownField(input, SCENARIO_FIELDS, "");
   if (extra) return extra;
 
-  const title = input.title;
-  if (typeof title !== "string" || title.trim() === "") {
-    return fail("title", `must be a non-empty string (got ${describe(title)})`);
-  }
-  if (title.length > LIMITS.titleMax) {
-    return fail("title", `must be at most ${LIMITS.titleMax} characters (got ${title.length})`);
-  }
+  const titled = checkText(input.title, "title", LIMITS.titleMax);
+  if (!titled.ok) return titled;
+  const title = titled.value;
 
   const badPrize = checkNumber(input.prize, "prize", POSITIVE);
   if (badPrize) return badPrize;
@@ -206,18 +219,9 @@ export function validateScenario(input: unknown): Parsed<Scenario> {
     scenario.leader = null;
   }
 
-  const currency = input.currency;
-  if (currency !== undefined && currency !== null) {
-    if (typeof currency !== "string" || currency.length > LIMITS.currencyMax) {
-      return fail(
-        "currency",
-        `must be a string of at most ${LIMITS.currencyMax} characters (got ${describe(currency)})`,
-      );
-    }
-    scenario.currency = currency;
-  } else if (currency === null) {
-    scenario.currency = null;
-  }
+  const currency = checkCurrency(input.currency);
+  if (!currency.ok) return currency;
+  if (currency.value !== undefined) scenario.currency = currency.value;
 
   if (input.provenance !== undefined && input.provenance !== null) {
     const provenance = validateProvenance(input.provenance);

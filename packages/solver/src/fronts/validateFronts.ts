@@ -8,7 +8,9 @@ import type { InputError, Parsed } from "../types";
 import {
   LIMITS,
   POSITIVE,
+  checkCurrency,
   checkNumber,
+  checkText,
   describe,
   fail,
   isRecord,
@@ -42,13 +44,8 @@ function unknownField(obj: Record<string, unknown>, allowed: readonly string[], 
 }
 
 function checkName(x: unknown, path: string): InputError | null {
-  if (typeof x !== "string" || x.trim() === "") {
-    return fail(path, `must be a non-empty string (got ${describe(x)})`);
-  }
-  if (x.length > LIMITS.nameMax) {
-    return fail(path, `must be at most ${LIMITS.nameMax} characters (got ${x.length})`);
-  }
-  return null;
+  const named = checkText(x, path, LIMITS.nameMax);
+  return named.ok ? null : named;
 }
 
 function checkPositive(x: unknown, path: string): InputError | null {
@@ -148,13 +145,9 @@ export function validateFrontsScenario(input: unknown): Parsed<FrontsScenario> {
   if (!isRecord(input)) return fail("", `scenario must be a JSON object (got ${describe(input)})`);
   const extra = unknownField(input, SCENARIO_FIELDS, "");
   if (extra) return extra;
-  const title = input.title;
-  if (typeof title !== "string" || title.trim() === "") {
-    return fail("title", `must be a non-empty string (got ${describe(title)})`);
-  }
-  if (title.length > LIMITS.titleMax) {
-    return fail("title", `must be at most ${LIMITS.titleMax} characters (got ${title.length})`);
-  }
+  const titled = checkText(input.title, "title", LIMITS.titleMax);
+  if (!titled.ok) return titled;
+  const title = titled.value;
   const frontsIn = input.fronts;
   if (!Array.isArray(frontsIn) || frontsIn.length < 1 || frontsIn.length > FRONTS_MAX) {
     return fail(
@@ -199,15 +192,8 @@ export function validateFrontsScenario(input: unknown): Parsed<FrontsScenario> {
     rivals.push(r.value);
   }
   const scenario: FrontsScenario = { title, fronts, rivals };
-  const currency = input.currency;
-  if (currency !== undefined && currency !== null) {
-    if (typeof currency !== "string" || currency.length > LIMITS.currencyMax) {
-      return fail(
-        "currency",
-        `must be a string of at most ${LIMITS.currencyMax} characters (got ${describe(currency)})`,
-      );
-    }
-    scenario.currency = currency;
-  } else if (currency === null) scenario.currency = null;
+  const currency = checkCurrency(input.currency);
+  if (!currency.ok) return currency;
+  if (currency.value !== undefined) scenario.currency = currency.value;
   return { ok: true, value: scenario };
 }
