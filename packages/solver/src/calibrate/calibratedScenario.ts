@@ -7,15 +7,17 @@ import type { Scenario } from "../types";
 import type { CalibrationProvenance } from "./provenance";
 import type { Calibration } from "./types";
 
-export function calibrationProvenance(c: Calibration, source: string): CalibrationProvenance {
+/**
+ * What a calibration found, in its documented field order: the estimates with their intervals
+ * and the fit's statistics (shared by the provenance and `contend fit --json`).
+ */
+export function calibrationSummary(c: Calibration) {
   const est = ({ estimate, low, high }: { estimate: number; low: number; high: number }) => ({
     estimate,
     low,
     high,
   });
   return {
-    kind: "calibration",
-    source: source.slice(0, 200),
     decisiveness: est(c.decisiveness),
     headStarts: c.headStarts.map((h) => ({ rival: h.rival, ...est(h) })),
     revealedValues: c.revealedValues.map((v) => ({ rival: v.rival, ...est(v) })),
@@ -26,6 +28,14 @@ export function calibrationProvenance(c: Calibration, source: string): Calibrati
       periods: c.fit.periods,
       dropped: c.fit.dropped,
     },
+  };
+}
+
+export function calibrationProvenance(c: Calibration, source: string): CalibrationProvenance {
+  return {
+    kind: "calibration",
+    source: source.slice(0, 200),
+    ...calibrationSummary(c),
     bootstrap: { ...c.bootstrap },
   };
 }

@@ -7,6 +7,7 @@ import {
   CALIBRATION_CAUTIONS,
   calibrate,
   calibratedScenario,
+  calibrationSummary,
   parsePanelCsv,
   type Calibration,
   type Estimate,
@@ -18,21 +19,7 @@ import { CAUTIONS, fmt, table } from "./format";
 
 /** The JSON of `contend fit --json`, in the documented field order. */
 export function fitJson(c: Calibration, scenario: Scenario): string {
-  const est = (e: Estimate) => ({ estimate: e.estimate, low: e.low, high: e.high });
-  return `${JSON.stringify({
-    form: c.form,
-    decisiveness: est(c.decisiveness),
-    headStarts: c.headStarts.map((h) => ({ rival: h.rival, ...est(h) })),
-    revealedValues: c.revealedValues.map((v) => ({ rival: v.rival, ...est(v) })),
-    fit: {
-      r2: c.fit.r2,
-      rmse: c.fit.rmse,
-      observations: c.fit.observations,
-      periods: c.fit.periods,
-      dropped: c.fit.dropped,
-    },
-    scenario,
-  })}\n`;
+  return `${JSON.stringify({ form: c.form, ...calibrationSummary(c), scenario })}\n`;
 }
 
 function range(e: Estimate): string {
