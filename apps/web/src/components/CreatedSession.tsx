@@ -8,6 +8,7 @@ import type { PolicyKind } from "@contend/solver";
 import { absoluteLink, localPath } from "../lib/api";
 import { rememberFacilitatorKey } from "../lib/keyring";
 import { rememberInvites } from "../lib/live";
+import type { CreatedRecord } from "../hooks/useCreateSession";
 import { CopyField } from "./CopyField";
 
 /** " (Textbook strategist: plays the Nash equilibrium effort every round.)" or "". */
@@ -101,4 +102,19 @@ export function CreatedSession({
       </div>
     </section>
   );
+}
+
+/**
+ * The session useCreateSession made, if it made one; keyed by the session's id, so a new
+ * session shows fresh (scrolled to and focused again).
+ */
+export function MadeSession({ created }: { created: CreatedRecord | null }) {
+  return created ? (
+    <CreatedSession
+      key={created.res.id}
+      created={created.res}
+      title={created.title}
+      computer={created.computer}
+    />
+  ) : null;
 }

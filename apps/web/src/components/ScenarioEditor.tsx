@@ -12,7 +12,7 @@ import { decodeState, encodeState } from "../lib/urlState";
 import { handedScenario } from "../lib/libraryHandoff";
 import { useCreateSession } from "../hooks/useCreateSession";
 import { AboutTheMaths } from "./AboutTheMaths";
-import { CreatedSession } from "./CreatedSession";
+import { MadeSession } from "./CreatedSession";
 import { ProvenanceNote } from "./ProvenanceNote";
 import { SolvedEquilibrium } from "./EquilibriumTable";
 import { ContestFields, RivalsTable } from "./ContestFields";
@@ -271,14 +271,7 @@ export function ScenarioEditor() {
       {!isFronts && (
         <AboutTheMaths method={preview?.ok ? preview.result.equilibrium.method : null} />
       )}
-      {created && (
-        <CreatedSession
-          key={created.res.id}
-          created={created.res}
-          title={created.title}
-          computer={created.computer}
-        />
-      )}
+      <MadeSession created={created} />
     </form>
   );
 }

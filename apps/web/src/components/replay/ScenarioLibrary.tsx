@@ -14,7 +14,7 @@ import {
   listMyScenarios,
 } from "../../lib/libraryApi";
 import type { SessionScenarioInput } from "../../lib/sessionTypes";
-import { CreatedSession } from "../CreatedSession";
+import { MadeSession } from "../CreatedSession";
 import { ScenarioName } from "./ScenarioName";
 
 interface Held {
@@ -187,14 +187,7 @@ export function ScenarioLibrary() {
           {startedFrom}
         </p>
       )}
-      {created && (
-        <CreatedSession
-          key={created.res.id}
-          created={created.res}
-          title={created.title}
-          computer={created.computer}
-        />
-      )}
+      <MadeSession created={created} />
     </div>
   );
 }
