@@ -12,7 +12,8 @@
  * - the created session has the clock and the computer seat typed in the editor, and the
  *   computer's split is its row of the fronts equilibrium (R49);
  * - axe finds no serious or critical violation on the editor in fronts mode;
- * - screenshots of the editor at 1366x768, 1920x1080 and 390x844 (and with two problems).
+ * - screenshots of the editor at 1366x768, 1920x1080 and 390x844 (and with two problems), and
+ *   no sideways scroll of the page at any of them.
  */
 import type { Page } from "@playwright/test";
 import { exportJson } from "../support/api";
@@ -42,6 +43,11 @@ async function shootAll(page: Page, save: (p: Page, n: string) => Promise<void>,
       () => new Promise((done) => requestAnimationFrame(() => requestAnimationFrame(done))),
     );
     await save(page, `${name}-${size}`);
+    // wide tables scroll inside their own box; the page itself never scrolls sideways
+    const sideways = await page.evaluate(
+      () => document.documentElement.scrollWidth - document.documentElement.clientWidth,
+    );
+    expect(sideways, `editor at ${size}: sideways scroll (px)`).toBeLessThanOrEqual(0);
   }
   await page.setViewportSize(SIZES.laptop);
 }

@@ -11,8 +11,8 @@ import { CellField, EditableRows } from "./EditableRows";
 type Setter = (update: (f: FrontsForm) => FrontsForm) => void;
 
 const FIELDS = [
-  { value: "cost", label: "Cost of one unit of effort" },
-  { value: "value", label: "Value of the front (blank: its prize)" },
+  { value: "cost", label: "Cost: money per unit of effort" },
+  { value: "value", label: "Value of the front, money (blank: its prize)" },
   { value: "weight", label: "Head start w (blank: 1)" },
 ] as const;
 
@@ -70,7 +70,7 @@ export function FrontRivalsTable({
       }
       headers={[
         "Rival",
-        `Budget${cur ? ` (${cur})` : ""}`,
+        `Budget (${cur || "money"})`,
         "Sunk",
         ...form.fronts.map((f, k) => f.name || `Front ${k + 1}`),
         ...(extra ? [extra.header] : []),

@@ -41,7 +41,7 @@ export function FrontsTable({
           the whole prize and everyone pays what it spent (usually no pure equilibrium).
         </p>
       }
-      headers={["Front", `Prize${cur ? ` (${cur})` : ""}`, "Form", "r or k"]}
+      headers={["Front", `Prize (${cur || "money"})`, "Form", "r or k"]}
       items={form.fronts}
       name={(fr, k) => `front ${fr.name || k + 1}`}
       onRemove={(k) => setForm((f) => removeFront(f, k))}
