@@ -10,12 +10,28 @@ export function CautionPanel() {
   return (
     <aside className="caution" aria-labelledby="caution-title" data-testid="caution-panel">
       <strong id="caution-title">Before you use the numbers</strong>
-      <ul>
-        {CAUTION_LINES.map((line) => (
-          <li key={line}>{line}</li>
-        ))}
-      </ul>
+      <CautionItems />
     </aside>
+  );
+}
+
+/** The cautions closing a debrief or a comparison (printed with it). */
+export function DebriefCautions() {
+  return (
+    <div className="caution" style={{ marginTop: "1rem" }}>
+      <strong>Cautions</strong>
+      <CautionItems />
+    </div>
+  );
+}
+
+function CautionItems() {
+  return (
+    <ul>
+      {CAUTION_LINES.map((line) => (
+        <li key={line}>{line}</li>
+      ))}
+    </ul>
   );
 }
 

@@ -14,7 +14,7 @@ import type { Compared } from "../../lib/compare";
 import { formatDateTime, formatPercent, formatPlain } from "../../lib/format";
 import { EQUILIBRIUM_COLOUR, seriesColour } from "../../lib/palette";
 import { saveBlob } from "../../lib/saveFile";
-import { CAUTION_LINES } from "../Cautions";
+import { DebriefCautions } from "../Cautions";
 import { FigureTable, numCol, textCol } from "../FigureTable";
 import { Term } from "../Glossary";
 import { DataTable } from "../DataTable";
@@ -170,14 +170,7 @@ export function CompareView({ sessions }: { sessions: readonly Compared[] }) {
         </div>
       )}
       <CompareSeats sessions={sessions} />
-      <div className="caution" style={{ marginTop: "1rem" }}>
-        <strong>Cautions</strong>
-        <ul>
-          {CAUTION_LINES.map((l) => (
-            <li key={l}>{l}</li>
-          ))}
-        </ul>
-      </div>
+      <DebriefCautions />
     </section>
   );
 }

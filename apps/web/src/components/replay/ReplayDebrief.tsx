@@ -4,7 +4,7 @@ import { useMemo } from "react";
 import type { RoleView, SessionExport } from "@contend/protocol";
 import { summarizeSession } from "@contend/session";
 import { formatMoney, formatPercent } from "../../lib/format";
-import { CAUTION_LINES } from "../Cautions";
+import { DebriefCautions } from "../Cautions";
 import { RoomHistory } from "../live/History";
 import { FigureTable, numCol, textCol } from "../FigureTable";
 import { ProvenanceNote } from "../ProvenanceNote";
@@ -127,14 +127,7 @@ export function ReplayDebrief({
       )}
       {finalView && <PrivateReview view={finalView} testId="debrief-private" />}
       <AboutTheMaths />
-      <div className="caution" style={{ marginTop: "1rem" }}>
-        <strong>Cautions</strong>
-        <ul>
-          {CAUTION_LINES.map((l) => (
-            <li key={l}>{l}</li>
-          ))}
-        </ul>
-      </div>
+      <DebriefCautions />
     </section>
   );
 }

@@ -15,6 +15,7 @@ import {
 } from "../../lib/libraryApi";
 import type { SessionScenarioInput } from "../../lib/sessionTypes";
 import { MadeSession } from "../CreatedSession";
+import { ConfirmDelete } from "./ConfirmDelete";
 import { ScenarioName } from "./ScenarioName";
 
 interface Held {
@@ -124,31 +125,17 @@ export function ScenarioLibrary() {
                 )
               }
             />
-            {confirming === h.saved.id ? (
-              <span role="group" aria-label="Confirm deletion" className="confirm">
-                <span className="small">Delete every version for good?</span>
-                <button
-                  type="button"
-                  className="small danger"
-                  onClick={() => void remove(h)}
-                  data-testid={`scenario-delete-confirm-${h.saved.id}`}
-                >
-                  Delete
-                </button>
-                <button type="button" className="small" onClick={() => setConfirming(null)}>
-                  Keep
-                </button>
-              </span>
-            ) : (
-              <button
-                type="button"
-                className="small danger"
-                onClick={() => setConfirming(h.saved.id)}
-                data-testid={`scenario-delete-${h.saved.id}`}
-              >
-                Delete…
-              </button>
-            )}
+            <ConfirmDelete
+              confirming={confirming === h.saved.id}
+              question="Delete every version for good?"
+              onAsk={() => setConfirming(h.saved.id)}
+              onDelete={() => void remove(h)}
+              onKeep={() => setConfirming(null)}
+              testIds={{
+                ask: `scenario-delete-${h.saved.id}`,
+                confirm: `scenario-delete-confirm-${h.saved.id}`,
+              }}
+            />
           </div>
           <ul className="version-list">
             {h.saved.versions.map((v) => (

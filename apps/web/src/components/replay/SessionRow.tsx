@@ -9,6 +9,7 @@ import { formatDateTime } from "../../lib/format";
 import { forgetFacilitatorKey } from "../../lib/keyring";
 import { editSession } from "../../lib/libraryApi";
 import { STATUS_TEXT } from "../../lib/live";
+import { ConfirmDelete } from "./ConfirmDelete";
 
 /**
  * One past session in the library: its replay link, inline rename, tags (add, remove, click to
@@ -187,32 +188,15 @@ export function SessionRow({
         >
           {item.archivedAt ? "Unarchive" : "Archive"}
         </button>
-        {confirming ? (
-          <span role="group" aria-label="Confirm deletion" className="confirm">
-            <span className="small">Delete for good? Its log, seats and links are erased.</span>
-            <button
-              type="button"
-              className="small danger"
-              disabled={busy}
-              onClick={() => void remove()}
-              data-testid={tid("delete-confirm")}
-            >
-              Delete
-            </button>
-            <button type="button" className="small" onClick={() => setConfirming(false)}>
-              Keep
-            </button>
-          </span>
-        ) : (
-          <button
-            type="button"
-            className="small danger"
-            onClick={() => setConfirming(true)}
-            data-testid={tid("delete")}
-          >
-            Delete…
-          </button>
-        )}
+        <ConfirmDelete
+          confirming={confirming}
+          question="Delete for good? Its log, seats and links are erased."
+          onAsk={() => setConfirming(true)}
+          onDelete={() => void remove()}
+          onKeep={() => setConfirming(false)}
+          busy={busy}
+          testIds={{ ask: tid("delete"), confirm: tid("delete-confirm") }}
+        />
       </td>
     </tr>
   );
